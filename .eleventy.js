@@ -1,0 +1,10 @@
+// Eleventy configuration for the folio site. The build (src/folio) computes every figure and chart first and
+// hands them to eleventy as global data; templates only lay out what they are given.
+export default function (eleventyConfig) {
+  eleventyConfig.setQuietMode(true);
+  return {
+    dir: { input: 'templates', includes: '_includes', data: '_data' },
+    templateFormats: ['njk'],
+    htmlTemplateEngine: 'njk',
+  };
+}

@@ -1,0 +1,49 @@
+// A part's sweep as columns, for CSV and JSON downloads (SI base units, full precision).
+
+import { deriveFigures } from '../circuit/quantities.js';
+import type { PartAnalysis } from './part-figures.js';
+
+export const SWEEP_COLUMNS = [
+  ['frequency_Hz', 'frequencyHz'],
+  ['R_ohm', 'resistanceOhm'],
+  ['X_ohm', 'reactanceOhm'],
+  ['Zmag_ohm', 'magnitudeOhm'],
+  ['phase_deg', 'phaseDeg'],
+  ['G_S', 'conductanceS'],
+  ['B_S', 'susceptanceS'],
+  ['Ymag_S', 'admittanceMagnitudeS'],
+  ['Q', 'q'],
+  ['Ceff_F', 'effectiveCapacitanceF'],
+  ['Leff_H', 'effectiveInductanceH'],
+] as const;
+
+export type SweepColumns = Record<(typeof SWEEP_COLUMNS)[number][1], Float64Array>;
+
+export function sweepColumns(a: PartAnalysis): SweepColumns {
+  return deriveFigures(a.frequencies, a.z);
+}
+
+/** Numbers as JavaScript prints them (shortest exact form); empty where undefined (NaN). */
+function cell(value: number): string {
+  if (Number.isNaN(value)) return '';
+  if (!Number.isFinite(value)) return value > 0 ? 'inf' : '-inf';
+  return String(value);
+}
+
+export function sweepCsv(a: PartAnalysis): string {
+  const columns = sweepColumns(a);
+  const lines = [SWEEP_COLUMNS.map(([header]) => header).join(',')];
+  for (let i = 0; i < a.frequencies.length; i++) {
+    lines.push(SWEEP_COLUMNS.map(([, key]) => cell(columns[key][i])).join(','));
+  }
+  return lines.join('\n') + '\n';
+}
+
+export function sweepJson(a: PartAnalysis): object {
+  const columns = sweepColumns(a);
+  const out: Record<string, unknown> = { id: a.part.id, sweep: { ...a.sweep }, points: a.frequencies.length };
+  for (const [, key] of SWEEP_COLUMNS) {
+    out[key] = Array.from(columns[key], (v) => (Number.isFinite(v) ? v : null));
+  }
+  return out;
+}

@@ -1,0 +1,54 @@
+// Element trees: the one circuit description every part, plan and network is reduced to.
+// Values are in SI base units (Ω, H, F) and strictly positive; an absent parasitic is simply not in the tree.
+
+export type Element =
+  | { readonly type: 'R'; readonly ohms: number }
+  | { readonly type: 'L'; readonly henries: number }
+  | { readonly type: 'C'; readonly farads: number }
+  | { readonly type: 'series'; readonly parts: readonly Element[] }
+  | { readonly type: 'parallel'; readonly parts: readonly Element[] };
+
+export const resistor = (ohms: number): Element => ({ type: 'R', ohms });
+export const inductor = (henries: number): Element => ({ type: 'L', henries });
+export const capacitor = (farads: number): Element => ({ type: 'C', farads });
+
+/** Series connection; a single part stands for itself. */
+export function series(...parts: Element[]): Element {
+  return parts.length === 1 ? parts[0] : { type: 'series', parts };
+}
+
+/** Parallel connection; a single part stands for itself. */
+export function parallel(...parts: Element[]): Element {
+  return parts.length === 1 ? parts[0] : { type: 'parallel', parts };
+}
+
+/** Count of leaf elements, for benchmarks and sanity checks. */
+export function elementCount(element: Element): number {
+  if (element.type === 'series' || element.type === 'parallel') {
+    return element.parts.reduce((n, p) => n + elementCount(p), 0);
+  }
+  return 1;
+}
+
+/** Impedance of a tree at DC, as a limit: 0 for a short, Infinity for an open. */
+export function dcResistance(element: Element): number {
+  switch (element.type) {
+    case 'R':
+      return element.ohms;
+    case 'L':
+      return 0;
+    case 'C':
+      return Infinity;
+    case 'series':
+      return element.parts.reduce((sum, p) => sum + dcResistance(p), 0);
+    case 'parallel': {
+      let conductance = 0;
+      for (const p of element.parts) {
+        const r = dcResistance(p);
+        if (r === 0) return 0;
+        conductance += 1 / r;
+      }
+      return 1 / conductance;
+    }
+  }
+}

@@ -1,0 +1,66 @@
+// Command-line options shared by every command.
+
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { existsSync, statSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type { SweepSpec } from '../circuit/sweep.js';
+import { parseQuantity } from '../units/parse.js';
+import { UsageError, type CommandIO } from './io.js';
+import { MAX_POINTS_PER_DECADE } from '../model/settings.js';
+
+type Options = NonNullable<ParseArgsConfig['options']>;
+
+export const LIBRARY_OPTION: Options = {
+  library: { type: 'string', short: 'l' },
+  help: { type: 'boolean', short: 'h' },
+};
+
+export const SWEEP_OPTIONS: Options = {
+  from: { type: 'string' },
+  to: { type: 'string' },
+  'per-decade': { type: 'string' },
+};
+
+export interface Parsed {
+  values: Record<string, string | boolean | string[] | undefined>;
+  positionals: string[];
+}
+
+/** Parse argv strictly: an unknown option is misuse (exit 2), said in plain words. */
+export function parseCommandLine(args: string[], options: Options, allowPositionals: boolean): Parsed {
+  try {
+    const { values, positionals } = parseArgs({ args, options, allowPositionals, strict: true });
+    return { values: values as Parsed['values'], positionals };
+  } catch (error) {
+    const message = (error as Error).message.replace(/\. To specify a positional argument.*$/s, '');
+    throw new UsageError(message);
+  }
+}
+
+/** The library folder: --library, else the current folder. It must exist. */
+export function libraryRoot(values: Parsed['values'], io: CommandIO): string {
+  const root = resolve(io.cwd, typeof values.library === 'string' ? values.library : '.');
+  if (!existsSync(root) || !statSync(root).isDirectory()) throw new UsageError(`library folder not found: ${root}`);
+  return root;
+}
+
+/** The library's sweep with --from/--to/--per-decade applied on top. */
+export function sweepWithOverrides(base: SweepSpec, values: Parsed['values']): SweepSpec {
+  const sweep = { ...base };
+  const read = (name: string) => {
+    const text = values[name];
+    if (typeof text !== 'string') return undefined;
+    const parsed = parseQuantity(text, name === 'per-decade' ? 'ratio' : 'frequency');
+    if (!parsed.ok || !(parsed.value > 0)) throw new UsageError(`--${name}: ${parsed.ok ? `expected a value above zero, found ${JSON.stringify(text)}` : parsed.message}`);
+    return parsed.value;
+  };
+  sweep.fromHz = read('from') ?? sweep.fromHz;
+  sweep.toHz = read('to') ?? sweep.toHz;
+  const perDecade = read('per-decade');
+  if (perDecade !== undefined) {
+    if (!Number.isInteger(perDecade) || perDecade > MAX_POINTS_PER_DECADE) throw new UsageError(`--per-decade: expected a whole number from 1 to ${MAX_POINTS_PER_DECADE}`);
+    sweep.perDecade = perDecade;
+  }
+  if (!(sweep.toHz > sweep.fromHz)) throw new UsageError(`the sweep must end above where it starts (--from ${sweep.fromHz} Hz, --to ${sweep.toHz} Hz)`);
+  return sweep;
+}

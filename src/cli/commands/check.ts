@@ -1,0 +1,28 @@
+// zfolio check: read and validate the whole library, list every problem.
+
+import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
+import { EXIT_BAD_INPUT, EXIT_OK, type CommandIO } from '../io.js';
+import { loadReported, plural } from '../report.js';
+
+export const checkHelp = `Usage: zfolio check [--library DIR]
+
+Reads folio.yaml and every part file under parts/ and reports each problem as
+file:line:col: message. Exit 0 when the library is sound (warnings allowed),
+1 when it has errors, 2 on a wrong command line.
+
+Options:
+  -l, --library DIR   the library folder (default: the current folder)
+  -h, --help          show this help
+`;
+
+export function check(args: string[], io: CommandIO): number {
+  const { values } = parseCommandLine(args, LIBRARY_OPTION, false);
+  if (values.help) {
+    io.out(checkHelp);
+    return EXIT_OK;
+  }
+  const library = loadReported(libraryRoot(values, io), io);
+  if (!library) return EXIT_BAD_INPUT;
+  io.out(`ok: ${plural(library.parts.length, 'part')} in ${plural(library.sources.length, 'file')}, no errors\n`);
+  return EXIT_OK;
+}

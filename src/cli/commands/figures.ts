@@ -1,0 +1,61 @@
+// zfolio figures: resonances, self-resonant frequency and usable band of parts.
+
+import { analysePart } from '../../analysis/part-figures.js';
+import { partSummary, type PartSummary } from '../../analysis/summary.js';
+import { formatEng, formatPercent } from '../../units/format.js';
+import { LIBRARY_OPTION, SWEEP_OPTIONS, libraryRoot, parseCommandLine, sweepWithOverrides } from '../args.js';
+import { EXIT_BAD_INPUT, EXIT_OK, type CommandIO } from '../io.js';
+import { loadReported } from '../report.js';
+import { selectParts } from '../select.js';
+
+export const figuresHelp = `Usage: zfolio figures [ID|FILE ...] [--json] [--library DIR] [--from F] [--to F] [--per-decade N]
+
+Prints each part's resonances, self-resonant frequency (SRF) and usable band.
+With no ID or FILE, every part in the library.
+
+Options:
+  --json              print a JSON array (SI units: Hz, Ω) instead of text
+  --from F, --to F    sweep range, e.g. --from 1k --to 3G (default: folio.yaml)
+  --per-decade N      sweep points per decade (default: folio.yaml)
+  -l, --library DIR   the library folder (default: the current folder)
+  -h, --help          show this help
+`;
+
+export function figures(args: string[], io: CommandIO): number {
+  const { values, positionals } = parseCommandLine(args, { ...LIBRARY_OPTION, ...SWEEP_OPTIONS, json: { type: 'boolean' } }, true);
+  if (values.help) {
+    io.out(figuresHelp);
+    return EXIT_OK;
+  }
+  const root = libraryRoot(values, io);
+  const library = loadReported(root, io);
+  if (!library) return EXIT_BAD_INPUT;
+  const sweep = sweepWithOverrides(library.settings.sweep, values);
+  const parts = selectParts(library, positionals, io.cwd);
+  const summaries = parts.map((p) => partSummary(analysePart(p, sweep, library.settings.within)));
+  if (values.json) io.out(JSON.stringify(summaries, null, 2) + '\n');
+  else io.out(summaries.map(describeFigures).join('\n'));
+  return EXIT_OK;
+}
+
+/** The human form: engineering notation with units. */
+export function describeFigures(s: PartSummary): string {
+  const lines: string[] = [];
+  const nominal = s.nominal !== null && s.unit !== null ? formatEng(s.nominal, s.unit) : '';
+  lines.push([s.id, s.kind, nominal, s.title !== s.id ? s.title : ''].filter(Boolean).join('  ·  '));
+  const srf = s.selfResonanceHz !== null ? `SRF ${formatEng(s.selfResonanceHz, 'Hz')}` : `SRF none between ${formatEng(s.sweep.fromHz, 'Hz')} and ${formatEng(s.sweep.toHz, 'Hz')}`;
+  lines.push(`  ${srf}`);
+  for (const r of s.resonances) {
+    lines.push(`  resonance    ${formatEng(r.frequencyHz, 'Hz').padEnd(11)} ${r.type.padEnd(8)} |Z| ${formatEng(r.impedanceOhm, 'Ω')}`);
+  }
+  if (s.usableBand) {
+    const b = s.usableBand;
+    const from = `${b.fromIsSweepEnd ? '≤ ' : ''}${formatEng(b.fromHz, 'Hz')}`;
+    const to = `${b.toIsSweepEnd ? '≥ ' : ''}${formatEng(b.toHz, 'Hz')}`;
+    const rule = s.within !== null ? ` (value within ${formatPercent(s.within)} of nominal)` : s.behavesAs === 'bead' ? ' (resistive: R − Rdc ≥ |X|)' : '';
+    lines.push(`  usable band  ${from} to ${to}${rule}`);
+  } else {
+    lines.push(s.behavesAs ? '  usable band  none in the sweep' : '  usable band  not defined (the network declares no behaves-as)');
+  }
+  return lines.join('\n') + '\n';
+}

@@ -1,0 +1,64 @@
+// The zfolio command: dispatch, help, and exit codes (0 ok, 1 bad input, 2 misuse).
+
+import { check, checkHelp } from './commands/check.js';
+import { figures, figuresHelp } from './commands/figures.js';
+import { sweep, sweepHelp } from './commands/sweep.js';
+import { EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
+import { VERSION } from '../version.js';
+
+type Command = (args: string[], io: CommandIO) => number | Promise<number>;
+
+interface CommandEntry {
+  run: Command;
+  help: string;
+  summary: string;
+}
+
+export const COMMANDS: Record<string, CommandEntry> = {
+  check: { run: check, help: checkHelp, summary: 'validate the library and list every problem' },
+  figures: { run: figures, help: figuresHelp, summary: 'resonances, SRF and usable band of parts' },
+  sweep: { run: sweep, help: sweepHelp, summary: "a part's impedance at every sweep point" },
+};
+
+export function mainHelp(): string {
+  const width = Math.max(...Object.keys(COMMANDS).map((c) => c.length));
+  const lines = Object.entries(COMMANDS).map(([name, c]) => `  ${name.padEnd(width)}  ${c.summary}`);
+  return `zfolio ${VERSION}: impedance datasheets for a library of passive parts
+
+Usage: zfolio COMMAND [options]
+
+Commands:
+${lines.join('\n')}
+
+Every command takes --library DIR (default: the current folder) and --help.
+Exit status: 0 success, 1 problems in the library, 2 wrong command line.
+`;
+}
+
+export async function main(argv: string[], io: CommandIO): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    const topic = name === 'help' ? rest[0] : undefined;
+    if (topic && COMMANDS[topic]) io.out(COMMANDS[topic].help);
+    else io.out(mainHelp());
+    return name === undefined ? EXIT_MISUSE : EXIT_OK;
+  }
+  if (name === '--version' || name === '-V') {
+    io.out(`zfolio ${VERSION}\n`);
+    return EXIT_OK;
+  }
+  const command = COMMANDS[name];
+  if (!command) {
+    io.err(`zfolio: unknown command ${JSON.stringify(name)}; expected one of ${Object.keys(COMMANDS).join(', ')}\n`);
+    return EXIT_MISUSE;
+  }
+  try {
+    return await command.run(rest, io);
+  } catch (error) {
+    if (error instanceof UsageError) {
+      io.err(`zfolio ${name}: ${error.message}\nRun "zfolio ${name} --help" for usage.\n`);
+      return EXIT_MISUSE;
+    }
+    throw error;
+  }
+}

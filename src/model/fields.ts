@@ -1,0 +1,239 @@
+// Reading the fields of one YAML mapping, with a message at the right place for everything that is wrong.
+
+import { isMap, isScalar, isSeq, type Node, type Pair, type YAMLMap, type YAMLSeq } from 'yaml';
+import { parseQuantity, parseRatio, expectation } from '../units/parse.js';
+import { DIMENSIONS, type Dimension } from '../units/quantity.js';
+import type { DiagnosticList, SourcePosition } from './diagnostics.js';
+import { positionOf, type SourceFile } from './source.js';
+import { closest } from './suggest.js';
+
+export interface ReadContext {
+  source: SourceFile;
+  diagnostics: DiagnosticList;
+}
+
+export interface QuantityOptions {
+  required?: boolean;
+  /** Allow zero (default: values must be strictly positive). */
+  allowZero?: boolean;
+  /** Allow negative values (default: no). */
+  allowNegative?: boolean;
+}
+
+export interface TextOptions {
+  required?: boolean;
+  pattern?: RegExp;
+  /** Says what the pattern wants, for the message: "letters, digits, . _ - only". */
+  patternHint?: string;
+  oneOf?: readonly string[];
+}
+
+/** What a found value looks like in a message. */
+export function describeNode(node: Node | null | undefined): string {
+  if (node === null || node === undefined) return 'nothing';
+  if (isScalar(node)) return node.value === null || node.value === '' ? 'nothing' : JSON.stringify(String(node.value));
+  if (isMap(node)) return 'a mapping';
+  if (isSeq(node)) return 'a list';
+  return 'an alias';
+}
+
+export function scalarText(node: Node | null | undefined): string | undefined {
+  if (!isScalar(node)) return undefined;
+  return node.value === null ? undefined : String(node.value);
+}
+
+export class Fields {
+  private readonly pairs = new Map<string, Pair<Node, Node | null>>();
+
+  /**
+   * @param where the field path for messages, e.g. "parasitics" ('' at the top level)
+   */
+  constructor(
+    readonly ctx: ReadContext,
+    readonly node: YAMLMap<Node, Node | null>,
+    readonly where: string,
+  ) {
+    for (const pair of node.items) {
+      const key = scalarText(pair.key);
+      if (key !== undefined) this.pairs.set(key, pair);
+    }
+  }
+
+  /** Open a mapping node, or say what was found instead. */
+  static of(ctx: ReadContext, node: Node | null | undefined, where: string, at?: SourcePosition): Fields | undefined {
+    if (isMap(node)) return new Fields(ctx, node as YAMLMap<Node, Node | null>, where);
+    ctx.diagnostics.error(at ?? positionOf(ctx.source, node), `${where ? where + ': ' : ''}expected a mapping of fields, found ${describeNode(node)}`);
+    return undefined;
+  }
+
+  label(name: string): string {
+    return this.where ? `${this.where}.${name}` : name;
+  }
+
+  get keys(): string[] {
+    return [...this.pairs.keys()];
+  }
+
+  has(name: string): boolean {
+    return this.pairs.has(name);
+  }
+
+  valueNode(name: string): Node | null | undefined {
+    return this.pairs.get(name)?.value;
+  }
+
+  /** Position of a field's value (or its key when it has none), or of the mapping itself. */
+  position(name?: string): SourcePosition {
+    if (name === undefined) return positionOf(this.ctx.source, this.node);
+    const pair = this.pairs.get(name);
+    if (!pair) return positionOf(this.ctx.source, this.node);
+    return positionOf(this.ctx.source, pair.value ?? pair.key);
+  }
+
+  keyPosition(name: string): SourcePosition {
+    const pair = this.pairs.get(name);
+    return positionOf(this.ctx.source, pair ? pair.key : this.node);
+  }
+
+  error(name: string | undefined, message: string): void {
+    this.ctx.diagnostics.error(this.position(name), name ? `${this.label(name)}: ${message}` : message);
+  }
+
+  warning(name: string | undefined, message: string): void {
+    this.ctx.diagnostics.warning(this.position(name), name ? `${this.label(name)}: ${message}` : message);
+  }
+
+  /** Report unknown fields (with a near-miss suggestion) and missing required ones. */
+  expect(allowed: readonly string[], required: readonly string[] = [], describeMissing?: (name: string) => string): void {
+    for (const pair of this.node.items) {
+      const key = scalarText(pair.key);
+      if (key === undefined) {
+        this.ctx.diagnostics.error(positionOf(this.ctx.source, pair.key), `${this.where ? this.where + ': ' : ''}expected a field name, found ${describeNode(pair.key)}`);
+        continue;
+      }
+      if (allowed.includes(key)) continue;
+      const guess = closest(key, allowed);
+      const hint = guess ? `; did you mean "${guess}"?` : `; expected one of ${allowed.join(', ')}`;
+      this.ctx.diagnostics.error(positionOf(this.ctx.source, pair.key), `unknown field "${this.label(key)}"${hint}`);
+    }
+    for (const name of required) {
+      if (this.has(name)) continue;
+      const what = describeMissing ? ` (${describeMissing(name)})` : '';
+      this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}"${what}`);
+    }
+  }
+
+  /** A physical value in SI base units; undefined (with a message) when absent or wrong. */
+  quantity(name: string, dim: Dimension, options: QuantityOptions = {}): number | undefined {
+    if (!this.has(name)) {
+      if (options.required) this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}" (${expectation(dim)})`);
+      return undefined;
+    }
+    return readQuantity(this.ctx, this.valueNode(name), this.label(name), dim, options);
+  }
+
+  /** A ratio greater than zero ("10%" or 0.1). */
+  ratio(name: string): number | undefined {
+    if (!this.has(name)) return undefined;
+    const node = this.valueNode(name);
+    const parsed = parseRatio(scalarText(node));
+    if (!parsed.ok) {
+      this.error(name, parsed.message);
+      return undefined;
+    }
+    if (!(parsed.value > 0)) {
+      this.error(name, `expected a ratio greater than zero, found ${describeNode(node)}`);
+      return undefined;
+    }
+    return parsed.value;
+  }
+
+  text(name: string, options: TextOptions = {}): string | undefined {
+    if (!this.has(name)) {
+      if (options.required) this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}"`);
+      return undefined;
+    }
+    const node = this.valueNode(name);
+    const value = scalarText(node);
+    if (value === undefined || value.trim() === '') {
+      this.error(name, `expected text, found ${describeNode(node)}`);
+      return undefined;
+    }
+    if (options.oneOf && !options.oneOf.includes(value)) {
+      const guess = closest(value, options.oneOf);
+      this.error(name, `expected one of ${options.oneOf.join(', ')}, found ${JSON.stringify(value)}${guess ? `; did you mean "${guess}"?` : ''}`);
+      return undefined;
+    }
+    if (options.pattern && !options.pattern.test(value)) {
+      this.error(name, `expected ${options.patternHint ?? `text matching ${options.pattern}`}, found ${JSON.stringify(value)}`);
+      return undefined;
+    }
+    return value;
+  }
+
+  /** A list of short texts, or a single text standing for a list of one. */
+  textList(name: string): string[] {
+    if (!this.has(name)) return [];
+    const node = this.valueNode(name);
+    const single = scalarText(node);
+    if (single !== undefined) return [single];
+    if (!isSeq(node)) {
+      this.error(name, `expected a list of words, found ${describeNode(node)}`);
+      return [];
+    }
+    const out: string[] = [];
+    for (const item of (node as YAMLSeq<Node>).items) {
+      const text = scalarText(item);
+      if (text === undefined || text.trim() === '') {
+        this.ctx.diagnostics.error(positionOf(this.ctx.source, item), `${this.label(name)}: expected a word, found ${describeNode(item)}`);
+      } else out.push(text);
+    }
+    return out;
+  }
+
+  map(name: string, options: { required?: boolean } = {}): Fields | undefined {
+    if (!this.has(name)) {
+      if (options.required) this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}"`);
+      return undefined;
+    }
+    return Fields.of(this.ctx, this.valueNode(name), this.label(name), this.position(name));
+  }
+
+  seq(name: string, options: { required?: boolean } = {}): YAMLSeq<Node> | undefined {
+    if (!this.has(name)) {
+      if (options.required) this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}" (a list)`);
+      return undefined;
+    }
+    const node = this.valueNode(name);
+    if (!isSeq(node)) {
+      this.error(name, `expected a list, found ${describeNode(node)}`);
+      return undefined;
+    }
+    return node as YAMLSeq<Node>;
+  }
+}
+
+/** Read a quantity from any node (also list items), with the field label for messages. */
+export function readQuantity(ctx: ReadContext, node: Node | null | undefined, label: string, dim: Dimension, options: QuantityOptions = {}): number | undefined {
+  const at = positionOf(ctx.source, node);
+  const text = scalarText(node);
+  if (text === undefined) {
+    ctx.diagnostics.error(at, `${label}: expected ${expectation(dim)}, found ${describeNode(node)}`);
+    return undefined;
+  }
+  const parsed = parseQuantity(text, dim);
+  if (!parsed.ok) {
+    ctx.diagnostics.error(at, `${label}: ${parsed.message}`);
+    return undefined;
+  }
+  const { value } = parsed;
+  const allowZero = options.allowZero ?? false;
+  const allowNegative = options.allowNegative ?? false;
+  if ((value < 0 && !allowNegative) || (value === 0 && !allowZero)) {
+    const want = allowZero ? 'zero or more' : 'greater than zero';
+    const unit = DIMENSIONS[dim].symbol;
+    ctx.diagnostics.error(at, `${label}: expected a value ${want}${unit ? ` (${unit})` : ''}, found ${JSON.stringify(text)}`);
+    return undefined;
+  }
+  return value;
+}

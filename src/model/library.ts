@@ -1,0 +1,84 @@
+// A library folder: folio.yaml and every part file under parts/, read and checked as a whole.
+
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { join, relative, sep } from 'node:path';
+import { DiagnosticList, type Diagnostic } from './diagnostics.js';
+import { readPart, type Part } from './part.js';
+import { DEFAULT_SETTINGS, readSettings, type FolioSettings } from './settings.js';
+import { parseYamlSource, type SourceFile } from './source.js';
+
+export interface Library {
+  /** Absolute path of the library folder. */
+  root: string;
+  settings: FolioSettings;
+  /** In file-path order. */
+  parts: Part[];
+  partsById: ReadonlyMap<string, Part>;
+  /** Every file read, in path order, for hashes and appendices. */
+  sources: SourceFile[];
+}
+
+export interface LoadResult {
+  /** Present when the library has no errors (warnings allowed). */
+  library?: Library;
+  diagnostics: Diagnostic[];
+}
+
+const YAML_FILE = /\.ya?ml$/i;
+
+/** YAML files under `dir` at any depth, as library-relative paths with forward slashes, sorted. */
+export function yamlFilesUnder(root: string, dir: string): string[] {
+  const absolute = join(root, dir);
+  if (!existsSync(absolute)) return [];
+  const out: string[] = [];
+  const walk = (folder: string) => {
+    for (const entry of readdirSync(folder, { withFileTypes: true })) {
+      if (entry.name.startsWith('.')) continue;
+      const path = join(folder, entry.name);
+      if (entry.isDirectory()) walk(path);
+      else if (entry.isFile() && YAML_FILE.test(entry.name)) out.push(relative(root, path).split(sep).join('/'));
+    }
+  };
+  walk(absolute);
+  return out.sort();
+}
+
+export function loadLibrary(root: string): LoadResult {
+  const diagnostics = new DiagnosticList();
+  const sources: SourceFile[] = [];
+  const read = (path: string): SourceFile | undefined => {
+    const text = readFileSync(join(root, path), 'utf8');
+    const source = parseYamlSource(path, text, diagnostics);
+    if (source) sources.push(source);
+    return source;
+  };
+
+  let settings: FolioSettings | undefined = { ...DEFAULT_SETTINGS };
+  if (existsSync(join(root, 'folio.yaml'))) {
+    const source = read('folio.yaml');
+    settings = source ? readSettings({ source, diagnostics }) : undefined;
+  }
+
+  if (!existsSync(join(root, 'parts')) || !statSync(join(root, 'parts')).isDirectory()) {
+    diagnostics.error({ file: 'parts', line: 1, column: 1 }, 'no parts/ folder in the library; each part is a YAML file under parts/');
+  }
+  const parts: Part[] = [];
+  const partsById = new Map<string, Part>();
+  for (const path of yamlFilesUnder(root, 'parts')) {
+    const source = read(path);
+    if (!source) continue;
+    const part = readPart({ source, diagnostics });
+    if (!part) continue;
+    const earlier = partsById.get(part.id);
+    if (earlier) {
+      diagnostics.error(part.at, `duplicate id "${part.id}": already defined at ${earlier.at.file}:${earlier.at.line}:${earlier.at.column}`);
+      continue;
+    }
+    partsById.set(part.id, part);
+    parts.push(part);
+  }
+
+  const sorted = diagnostics.sorted();
+  if (diagnostics.errorCount > 0 || !settings) return { diagnostics: sorted };
+  return { library: { root, settings, parts, partsById, sources }, diagnostics: sorted };
+}

@@ -1,0 +1,333 @@
+// The part file: one passive part, its nominal value and the parasitics that make it real.
+
+import { isMap, isSeq, type Node, type YAMLMap } from 'yaml';
+import { capacitor, inductor, parallel, resistor, series, type Element } from '../circuit/element.js';
+import { parseMarking } from '../units/marking.js';
+import { formatEng } from '../units/format.js';
+import { parseQuantity, parseRatio } from '../units/parse.js';
+import type { Dimension } from '../units/quantity.js';
+import type { SourcePosition } from './diagnostics.js';
+import { Fields, describeNode, readQuantity, scalarText, type ReadContext } from './fields.js';
+import { positionOf, type SourceFile } from './source.js';
+import { closest } from './suggest.js';
+
+export const PART_KINDS = ['capacitor', 'inductor', 'resistor', 'bead', 'network'] as const;
+export type PartKind = (typeof PART_KINDS)[number];
+export const BEHAVIOURS = ['capacitor', 'inductor', 'resistor', 'bead'] as const;
+export type Behaviour = (typeof BEHAVIOURS)[number];
+
+/** The dimension of a nominal value, by the kind the part behaves as. */
+export const NOMINAL_DIMENSION: Readonly<Record<Behaviour, Dimension>> = {
+  capacitor: 'capacitance',
+  inductor: 'inductance',
+  resistor: 'resistance',
+  bead: 'resistance',
+};
+
+export const ID_PATTERN = /^[A-Za-z0-9._-]+$/;
+
+/** Parasitic fields by kind, with their dimension, in the order pages list them. */
+export const PARASITICS: Readonly<Record<'capacitor' | 'inductor' | 'resistor', Readonly<Record<string, Dimension>>>> = {
+  capacitor: { esr: 'resistance', esl: 'inductance', epr: 'resistance' },
+  inductor: { dcr: 'resistance', cp: 'capacitance', rp: 'resistance' },
+  resistor: { ls: 'inductance', cp: 'capacitance' },
+};
+
+export const BEAD_MODEL: Readonly<Record<string, Dimension>> = { rdc: 'resistance', r: 'resistance', l: 'inductance', c: 'capacitance' };
+
+/** Safety classes of capacitors across the mains (IEC 60384-14). */
+export const SAFETY_CLASSES = ['X1', 'X2', 'X3', 'Y1', 'Y2', 'Y3', 'Y4'] as const;
+
+/** A capacitance retained at a DC bias: fraction of nominal at a voltage. */
+export interface BiasPoint {
+  voltageV: number;
+  fraction: number;
+}
+
+export interface Part {
+  id: string;
+  kind: PartKind;
+  /** The kind whose usable-band rule applies; undefined for a network that declares none. */
+  behavesAs?: Behaviour;
+  title: string;
+  /** Nominal value in F, H or Ω; for a bead, its rated impedance at `ratedAtHz`. */
+  nominal?: number;
+  ratedAtHz?: number;
+  marking?: string;
+  tolerance?: number;
+  voltageV?: number;
+  currentA?: number;
+  powerW?: number;
+  package?: string;
+  dielectric?: string;
+  safetyClass?: string;
+  /** Named parameter values in SI units, as written in the file (esr, esl, ... or rdc, r, l, c). */
+  parameters: Record<string, number>;
+  /** The model as an element tree. */
+  network: Element;
+  /** Usable-band criterion from the part file; the library default applies when absent. */
+  within?: number;
+  dcBias: BiasPoint[];
+  cost?: number;
+  tags: string[];
+  notes?: string;
+  source: SourceFile;
+  /** Where the id is written, for messages about this part. */
+  at: SourcePosition;
+}
+
+const COMMON_FIELDS = ['id', 'kind', 'title', 'nominal', 'marking', 'tolerance', 'voltage', 'current', 'power', 'package', 'tags', 'notes', 'band', 'cost'];
+const FIELDS_BY_KIND: Readonly<Record<PartKind, readonly string[]>> = {
+  capacitor: [...COMMON_FIELDS, 'dielectric', 'safety', 'parasitics', 'dc-bias'],
+  inductor: [...COMMON_FIELDS, 'parasitics'],
+  resistor: [...COMMON_FIELDS, 'parasitics'],
+  bead: [...COMMON_FIELDS, 'at', 'model'],
+  network: [...COMMON_FIELDS, 'dielectric', 'behaves-as', 'network', 'dc-bias'],
+};
+
+// EIA-198 ceramic dielectric codes: class 2/3 "X7R" (low temp, high temp, change) and class 1 "C0G" (from
+// memory of the EIA-198 tables: significant figure, multiplier, tolerance letters).
+const EIA_CLASS_2 = /^[XYZ][4-9][PRSTUV]$/;
+const EIA_CLASS_1 = /^[CBLAMPRSTUV][0-9][FGHJKLMN]$/;
+
+/** Read one part file. Returns undefined when the file has errors (all of them reported). */
+export function readPart(ctx: ReadContext): Part | undefined {
+  const { source, diagnostics } = ctx;
+  const before = diagnostics.errorCount;
+  const root = Fields.of(ctx, source.document.contents as Node | null, '');
+  if (!root) return undefined;
+
+  const id = root.text('id', { required: true, pattern: ID_PATTERN, patternHint: 'an id of letters, digits, ".", "_" and "-" only' });
+  const kindText = root.text('kind', { required: true });
+  let kind: PartKind | undefined;
+  if (kindText !== undefined) {
+    if ((PART_KINDS as readonly string[]).includes(kindText)) kind = kindText as PartKind;
+    else {
+      const guess = closest(kindText, PART_KINDS);
+      root.error('kind', `unknown kind ${JSON.stringify(kindText)}; expected one of ${PART_KINDS.join(', ')}${guess ? ` (did you mean "${guess}"?)` : ''}`);
+    }
+  }
+  if (!kind) {
+    root.expect([...new Set(Object.values(FIELDS_BY_KIND).flat())]);
+    return undefined;
+  }
+  root.expect(FIELDS_BY_KIND[kind], kind === 'network' ? ['id', 'kind', 'network'] : kind === 'bead' ? ['id', 'kind', 'model'] : ['id', 'kind', 'nominal']);
+
+  const behavesAs = kind === 'network' ? (root.text('behaves-as', { oneOf: BEHAVIOURS }) as Behaviour | undefined) : (kind as Behaviour);
+  const nominalDimension: Dimension | undefined = behavesAs ? NOMINAL_DIMENSION[behavesAs] : undefined;
+  let nominal: number | undefined;
+  if (nominalDimension) nominal = root.quantity('nominal', nominalDimension);
+  else if (root.has('nominal')) root.error('nominal', 'a network needs "behaves-as" before its nominal value means anything');
+  if (kind === 'network' && behavesAs && behavesAs !== 'bead' && nominal === undefined && !root.has('nominal')) {
+    root.error(undefined, `missing field "nominal" (a network that behaves as a ${behavesAs} needs its nominal value for the usable band)`);
+  }
+
+  const part: Partial<Part> = {
+    id,
+    kind,
+    behavesAs,
+    nominal,
+    title: root.text('title') ?? id,
+    tolerance: root.ratio('tolerance'),
+    voltageV: root.quantity('voltage', 'voltage'),
+    currentA: root.quantity('current', 'current'),
+    powerW: root.quantity('power', 'power'),
+    package: root.text('package'),
+    tags: root.textList('tags'),
+    notes: root.text('notes'),
+    cost: root.quantity('cost', 'ratio', { allowZero: true }),
+    dcBias: [],
+    source,
+    at: root.position('id'),
+  };
+
+  if (root.has('marking')) part.marking = readMarking(root, kind, nominal);
+  if (kind === 'capacitor' || kind === 'network') {
+    part.dielectric = root.text('dielectric');
+    if (part.dielectric !== undefined) checkDielectric(root, part.dielectric);
+  }
+  if (kind === 'capacitor') part.safetyClass = root.text('safety', { oneOf: SAFETY_CLASSES });
+  if (root.has('dc-bias')) {
+    if (behavesAs !== 'capacitor') root.error('dc-bias', 'a DC-bias table applies to capacitors only');
+    else part.dcBias = readDcBias(root, part.voltageV);
+  }
+
+  const band = root.map('band');
+  if (band) {
+    band.expect(['within']);
+    part.within = band.ratio('within');
+  }
+
+  const built = buildNetwork(root, kind, nominal);
+  if (built) {
+    part.parameters = built.parameters;
+    part.network = built.network;
+  }
+  if (kind === 'bead') {
+    part.ratedAtHz = root.quantity('at', 'frequency');
+    if (root.has('nominal') && !root.has('at')) root.error('nominal', 'a bead\'s nominal impedance needs the frequency it is rated at ("at", e.g. at: 100M)');
+  }
+  if (part.tolerance !== undefined && part.tolerance >= 1) {
+    root.warning('tolerance', `a tolerance of ${Math.round(part.tolerance * 100)}% is unusually wide; write 10% or 0.1 for ten percent`);
+  }
+
+  if (diagnostics.errorCount > before) return undefined;
+  return part as Part;
+}
+
+function readMarking(root: Fields, kind: PartKind, nominal: number | undefined): string | undefined {
+  const code = root.text('marking');
+  if (code === undefined) return undefined;
+  if (kind !== 'capacitor' && kind !== 'resistor' && kind !== 'inductor') {
+    root.error('marking', `marking codes are read for capacitors, resistors and inductors, not for a ${kind}`);
+    return undefined;
+  }
+  const parsed = parseMarking(code, kind);
+  if (!parsed.ok) {
+    root.error('marking', parsed.message);
+    return undefined;
+  }
+  if (nominal !== undefined && Math.abs(parsed.value / nominal - 1) > 1e-9) {
+    const unit = NOMINAL_DIMENSION[kind];
+    root.error('marking', `marking ${JSON.stringify(code)} means ${formatEng(parsed.value, unit)}, but nominal is ${formatEng(nominal, unit)}`);
+  }
+  return code;
+}
+
+function checkDielectric(root: Fields, code: string): void {
+  // Only three-character codes are held to EIA-198; longer words ("polymer", "film PP") are free text.
+  if (code.length !== 3 || code === 'NP0') return;
+  if (EIA_CLASS_2.test(code) || EIA_CLASS_1.test(code)) return;
+  root.error('dielectric', `expected an EIA dielectric code such as C0G, X7R or X5R, found ${JSON.stringify(code)}`);
+}
+
+function readDcBias(root: Fields, ratingV: number | undefined): BiasPoint[] {
+  const table = root.map('dc-bias');
+  if (!table) return [];
+  const points: BiasPoint[] = [];
+  for (const key of table.keys) {
+    const volts = parseQuantity(key, 'voltage');
+    if (!volts.ok || volts.value < 0) {
+      table.ctx.diagnostics.error(table.keyPosition(key), `dc-bias: expected a voltage (e.g. 3.3V) as the key, found ${JSON.stringify(key)}`);
+      continue;
+    }
+    const node = table.valueNode(key);
+    const fraction = parseRatio(scalarText(node));
+    if (!fraction.ok || !(fraction.value > 0) || fraction.value > 1.2) {
+      table.error(key, `expected the fraction of nominal capacitance kept at ${key} (e.g. 65%), found ${describeNode(node)}`);
+      continue;
+    }
+    if (points.length > 0 && volts.value <= points[points.length - 1].voltageV) {
+      table.ctx.diagnostics.error(table.keyPosition(key), `dc-bias: voltages must increase down the table; ${key} comes after ${formatEng(points[points.length - 1].voltageV, 'voltage')}`);
+      continue;
+    }
+    points.push({ voltageV: volts.value, fraction: fraction.value });
+  }
+  if (ratingV !== undefined && points.length > 0 && points[points.length - 1].voltageV > ratingV * 1.0000001) {
+    root.warning('dc-bias', `the table goes beyond the voltage rating of ${formatEng(ratingV, 'voltage')}`);
+  }
+  return points;
+}
+
+interface BuiltNetwork {
+  network: Element;
+  parameters: Record<string, number>;
+}
+
+/** The model topology of each kind (DESIGN.md): an absent series parasitic is 0, an absent parallel one open. */
+function buildNetwork(root: Fields, kind: PartKind, nominal: number | undefined): BuiltNetwork | undefined {
+  if (kind === 'network') {
+    if (!root.has('network')) return undefined;
+    const network = readNetworkNode(root.ctx, root.valueNode('network'), 'network');
+    return network ? { network, parameters: {} } : undefined;
+  }
+  if (kind === 'bead') {
+    const model = root.map('model');
+    if (!model) return undefined;
+    model.expect(Object.keys(BEAD_MODEL), ['r', 'l']);
+    const p = readParameters(model, BEAD_MODEL);
+    if (p.r === undefined || p.l === undefined) return undefined;
+    const core = parallel(...[resistor(p.r), inductor(p.l), p.c !== undefined ? capacitor(p.c) : undefined].filter(isElement));
+    return { network: series(...[p.rdc !== undefined ? resistor(p.rdc) : undefined, core].filter(isElement)), parameters: p };
+  }
+  const fields = PARASITICS[kind];
+  const parasitics = root.map('parasitics');
+  let p: Record<string, number> = {};
+  if (parasitics) {
+    parasitics.expect(Object.keys(fields));
+    p = readParameters(parasitics, fields);
+  }
+  if (nominal === undefined) return undefined;
+  let network: Element;
+  switch (kind) {
+    case 'capacitor': {
+      // esr + esl + (C ‖ epr)
+      const c = p.epr !== undefined ? parallel(capacitor(nominal), resistor(p.epr)) : capacitor(nominal);
+      network = series(...[p.esr !== undefined ? resistor(p.esr) : undefined, p.esl !== undefined ? inductor(p.esl) : undefined, c].filter(isElement));
+      break;
+    }
+    case 'inductor': {
+      // (dcr + L) ‖ cp ‖ rp
+      const winding = series(...[p.dcr !== undefined ? resistor(p.dcr) : undefined, inductor(nominal)].filter(isElement));
+      network = parallel(...[winding, p.cp !== undefined ? capacitor(p.cp) : undefined, p.rp !== undefined ? resistor(p.rp) : undefined].filter(isElement));
+      break;
+    }
+    case 'resistor': {
+      // (R + ls) ‖ cp
+      const body = series(...[resistor(nominal), p.ls !== undefined ? inductor(p.ls) : undefined].filter(isElement));
+      network = parallel(...[body, p.cp !== undefined ? capacitor(p.cp) : undefined].filter(isElement));
+      break;
+    }
+  }
+  return { network, parameters: p };
+}
+
+function isElement(e: Element | undefined): e is Element {
+  return e !== undefined;
+}
+
+function readParameters(fields: Fields, spec: Readonly<Record<string, Dimension>>): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const [name, dim] of Object.entries(spec)) {
+    const value = fields.quantity(name, dim);
+    if (value !== undefined) out[name] = value;
+  }
+  return out;
+}
+
+const NETWORK_LEAVES: Readonly<Record<string, Dimension>> = { r: 'resistance', l: 'inductance', c: 'capacitance' };
+const NETWORK_KEYS = ['series', 'parallel', ...Object.keys(NETWORK_LEAVES)];
+
+/** A network node: {r: 5m}, {l: 1.1n}, {c: 10u}, {series: [...]} or {parallel: [...]}. */
+export function readNetworkNode(ctx: ReadContext, node: Node | null | undefined, label: string): Element | undefined {
+  const at = positionOf(ctx.source, node);
+  if (!isMap(node) || (node as YAMLMap).items.length !== 1) {
+    ctx.diagnostics.error(at, `${label}: expected one element such as {r: 5m}, {l: 1n}, {c: 10u}, {series: [...]} or {parallel: [...]}, found ${describeNode(node)}${isMap(node) ? ` with ${(node as YAMLMap).items.length} fields` : ''}`);
+    return undefined;
+  }
+  const pair = (node as YAMLMap<Node, Node | null>).items[0];
+  const key = scalarText(pair.key) ?? '';
+  if (key in NETWORK_LEAVES) {
+    const value = readQuantity(ctx, pair.value, `${label}.${key}`, NETWORK_LEAVES[key]);
+    if (value === undefined) return undefined;
+    return key === 'r' ? resistor(value) : key === 'l' ? inductor(value) : capacitor(value);
+  }
+  if (key === 'series' || key === 'parallel') {
+    if (!isSeq(pair.value) || pair.value.items.length === 0) {
+      ctx.diagnostics.error(positionOf(ctx.source, pair.value ?? pair.key), `${label}.${key}: expected a list of one or more elements, found ${describeNode(pair.value)}`);
+      return undefined;
+    }
+    const children: Element[] = [];
+    let failed = false;
+    pair.value.items.forEach((item, i) => {
+      const child = readNetworkNode(ctx, item as Node, `${label}.${key}[${i}]`);
+      if (child) children.push(child);
+      else failed = true;
+    });
+    if (failed) return undefined;
+    return key === 'series' ? series(...children) : parallel(...children);
+  }
+  const guess = closest(key, NETWORK_KEYS);
+  ctx.diagnostics.error(positionOf(ctx.source, pair.key), `${label}: unknown element "${key}"; expected ${guess ? `"${guess}"` : 'one of ' + NETWORK_KEYS.join(', ')}`);
+  return undefined;
+}

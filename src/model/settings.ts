@@ -1,0 +1,70 @@
+// folio.yaml: library-wide settings. Every field is optional; defaults are chosen for board-level passives.
+
+import type { Node } from 'yaml';
+import type { SweepSpec } from '../circuit/sweep.js';
+import { Fields, scalarText, type ReadContext } from './fields.js';
+
+export const PAPER_SIZES = ['A4', 'Letter'] as const;
+export type PaperSize = (typeof PAPER_SIZES)[number];
+
+export interface FolioSettings {
+  title: string;
+  owner?: string;
+  sweep: SweepSpec;
+  /** Default usable-band criterion (|value_eff/nominal − 1| ≤ within). */
+  within: number;
+  paper: PaperSize;
+  /** Fraction of a capacitor's voltage rating above which rail plans warn (common practice: 80%). */
+  derating: number;
+}
+
+/** 100 Hz to 10 GHz covers bulk electrolytics through RF inductors; 100 points a decade resolves Q ≈ 100. */
+export const DEFAULT_SETTINGS: Readonly<FolioSettings> = {
+  title: 'Part library',
+  sweep: { fromHz: 100, toHz: 10e9, perDecade: 100 },
+  within: 0.1,
+  paper: 'A4',
+  derating: 0.8,
+};
+
+export const MAX_POINTS_PER_DECADE = 10_000;
+
+export function readSettings(ctx: ReadContext): FolioSettings | undefined {
+  const before = ctx.diagnostics.errorCount;
+  const contents = ctx.source.document.contents as Node | null;
+  if (contents === null) return { ...DEFAULT_SETTINGS };
+  const root = Fields.of(ctx, contents, '');
+  if (!root) return undefined;
+  root.expect(['title', 'owner', 'sweep', 'band', 'paper', 'derating']);
+  const settings: FolioSettings = { ...DEFAULT_SETTINGS, sweep: { ...DEFAULT_SETTINGS.sweep } };
+  settings.title = root.text('title') ?? settings.title;
+  settings.owner = root.text('owner');
+  settings.paper = (root.text('paper', { oneOf: PAPER_SIZES }) as PaperSize | undefined) ?? settings.paper;
+
+  const sweep = root.map('sweep');
+  if (sweep) {
+    sweep.expect(['from', 'to', 'per-decade']);
+    settings.sweep.fromHz = sweep.quantity('from', 'frequency') ?? settings.sweep.fromHz;
+    settings.sweep.toHz = sweep.quantity('to', 'frequency') ?? settings.sweep.toHz;
+    const perDecade = sweep.quantity('per-decade', 'ratio');
+    if (perDecade !== undefined) {
+      if (!Number.isInteger(perDecade) || perDecade > MAX_POINTS_PER_DECADE) {
+        sweep.error('per-decade', `expected a whole number of points from 1 to ${MAX_POINTS_PER_DECADE}, found ${JSON.stringify(scalarText(sweep.valueNode('per-decade')))}`);
+      } else settings.sweep.perDecade = perDecade;
+    }
+    if (!(settings.sweep.toHz > settings.sweep.fromHz)) {
+      sweep.error(sweep.has('to') ? 'to' : 'from', `the sweep must end above where it starts (from ${settings.sweep.fromHz} Hz to ${settings.sweep.toHz} Hz)`);
+    }
+  }
+  const band = root.map('band');
+  if (band) {
+    band.expect(['within']);
+    settings.within = band.ratio('within') ?? settings.within;
+  }
+  const derating = root.ratio('derating');
+  if (derating !== undefined) {
+    if (derating > 1) root.error('derating', `expected a fraction of the rating up to 100%, found ${JSON.stringify(scalarText(root.valueNode('derating')))}`);
+    else settings.derating = derating;
+  }
+  return ctx.diagnostics.errorCount > before ? undefined : settings;
+}

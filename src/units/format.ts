@@ -1,0 +1,78 @@
+// SI base units out to engineering notation, for pages, the command line and PDFs only.
+
+import { DIMENSIONS, type Dimension } from './quantity.js';
+
+// Exponent (multiple of 3) to prefix; µ is U+00B5 as the SI Brochure prints it.
+const PREFIX_BY_EXPONENT: ReadonlyMap<number, string> = new Map([
+  [-15, 'f'],
+  [-12, 'p'],
+  [-9, 'n'],
+  [-6, 'µ'],
+  [-3, 'm'],
+  [0, ''],
+  [3, 'k'],
+  [6, 'M'],
+  [9, 'G'],
+  [12, 'T'],
+]);
+
+export interface FormatOptions {
+  /** Significant digits (default 3). */
+  digits?: number;
+  /** Put a space between number and unit (default true, as the SI Brochure asks). */
+  space?: boolean;
+}
+
+/**
+ * Format a value in SI base units as engineering notation: 2.25e7 Hz -> "22.5 MHz".
+ * Trailing zeros are dropped ("100 nF", not "100.0 nF"); values outside f..T fall back to e-notation.
+ */
+export function formatEng(value: number, unit: Dimension | string, options: FormatOptions = {}): string {
+  const digits = options.digits ?? 3;
+  const symbol = unit in DIMENSIONS ? DIMENSIONS[unit as Dimension].symbol : unit;
+  const sep = options.space === false || symbol === '' ? '' : ' ';
+  if (Number.isNaN(value)) return '—';
+  if (!Number.isFinite(value)) return `${value > 0 ? '∞' : '−∞'}${sep}${symbol}`;
+  if (value === 0) return `0${sep}${symbol}`;
+
+  const sign = value < 0 ? '−' : '';
+  const magnitude = Math.abs(value);
+  // Round first, then choose the prefix, so 999.96 becomes "1 k" and not "1000".
+  const rounded = Number(magnitude.toPrecision(digits));
+  let exponent = Math.floor(Math.log10(rounded) / 3) * 3;
+  // log10 can land a hair below an exact power of ten.
+  if (rounded / 10 ** exponent >= 1000) exponent += 3;
+  const prefix = PREFIX_BY_EXPONENT.get(exponent);
+  if (prefix === undefined) {
+    const [mantissa, exp] = rounded.toExponential(digits - 1).split('e');
+    return `${sign}${trimZeros(mantissa)}e${Number(exp)}${sep}${symbol}`;
+  }
+  const scaled = Number((rounded / 10 ** exponent).toPrecision(digits));
+  return `${sign}${trimZeros(String(scaled))}${sep}${prefix}${symbol}`;
+}
+
+function trimZeros(text: string): string {
+  return text.includes('.') ? text.replace(/\.?0+$/, '') : text;
+}
+
+/** A ratio as a percentage: 0.1 -> "10%". */
+export function formatPercent(ratio: number, digits = 3): string {
+  if (!Number.isFinite(ratio)) return '—';
+  return `${trimZeros(String(Number((ratio * 100).toPrecision(digits))))}%`;
+}
+
+/** A phase angle in degrees with one decimal: "−89.9°". */
+export function formatDegrees(degrees: number): string {
+  if (!Number.isFinite(degrees)) return '—';
+  const text = degrees.toFixed(1);
+  return `${text.startsWith('-') ? '−' + text.slice(1) : text}°`;
+}
+
+/** A plain number with a given count of significant digits, no unit: Q = "42.1". */
+export function formatNumber(value: number, digits = 3): string {
+  if (!Number.isFinite(value)) return '—';
+  const rounded = Number(value.toPrecision(digits));
+  const abs = Math.abs(rounded);
+  if (abs !== 0 && (abs >= 1e6 || abs < 1e-3)) return rounded.toExponential(digits - 1).replace(/\.?0+e/, 'e');
+  return (rounded < 0 ? '−' : '') + trimZeros(String(Math.abs(rounded)));
+}
