@@ -1,7 +1,11 @@
 // Complex impedance of an element tree, over a sweep (typed arrays) or at one frequency.
 // Element laws: Z_R = R, Z_L = jωL, Z_C = 1/(jωC) = −j/(ωC); series adds impedances, parallel adds
 // admittances Y = 1/Z (any circuit-analysis text, e.g. Alexander & Sadiku, Fundamentals of Electric
-// Circuits, ch. 9).
+// Circuits, 6th ed., ch. 9).
+//
+// Each tree is compiled once into a straight-line kernel: one loop over the sweep, the whole tree evaluated
+// in local variables at each point, no object per complex number and no intermediate arrays. The generated
+// code holds only numbers taken from the (already validated) tree, never text from a file.
 
 import type { Element } from './element.js';
 
@@ -11,181 +15,129 @@ export interface ImpedanceArrays {
   readonly im: Float64Array;
 }
 
+type Kernel = (omega: Float64Array, re: Float64Array, im: Float64Array) => void;
+
 const TWO_PI = 2 * Math.PI;
+const kernels = new WeakMap<Element, Kernel>();
+// A build sweeps every part over the same frequency array: its ω = 2πf is computed once.
+const angularFrequencies = new WeakMap<Float64Array, Float64Array>();
+
+function omegaOf(frequencies: Float64Array): Float64Array {
+  let omega = angularFrequencies.get(frequencies);
+  if (!omega) {
+    omega = new Float64Array(frequencies.length);
+    for (let i = 0; i < omega.length; i++) omega[i] = TWO_PI * frequencies[i];
+    angularFrequencies.set(frequencies, omega);
+  }
+  return omega;
+}
 
 /** Impedance of `element` at every frequency of `frequencies` (Hz). */
 export function impedanceSweep(element: Element, frequencies: Float64Array): ImpedanceArrays {
   const n = frequencies.length;
-  const omega = new Float64Array(n);
-  for (let i = 0; i < n; i++) omega[i] = TWO_PI * frequencies[i];
-  const re = new Float64Array(n);
-  const im = new Float64Array(n);
-  evaluate(element, omega, re, im);
-  return { re, im };
+  // One allocation for both halves: allocating typed arrays costs more than evaluating a simple model.
+  const buffer = new ArrayBuffer(16 * n);
+  const z = { re: new Float64Array(buffer, 0, n), im: new Float64Array(buffer, 8 * n, n) };
+  impedanceSweepInto(element, frequencies, z.re, z.im);
+  return z;
 }
 
-function evaluate(element: Element, omega: Float64Array, re: Float64Array, im: Float64Array): void {
-  const n = omega.length;
-  switch (element.type) {
-    case 'R':
-      re.fill(element.ohms);
-      im.fill(0);
-      return;
-    case 'L': {
-      const l = element.henries;
-      re.fill(0);
-      for (let i = 0; i < n; i++) im[i] = omega[i] * l;
-      return;
-    }
-    case 'C': {
-      const c = element.farads;
-      re.fill(0);
-      for (let i = 0; i < n; i++) im[i] = -1 / (omega[i] * c);
-      return;
-    }
-    case 'series': {
-      re.fill(0);
-      im.fill(0);
-      let scratchRe: Float64Array | undefined;
-      let scratchIm: Float64Array | undefined;
-      for (const part of element.parts) {
-        if (addLeafImpedance(part, omega, re, im)) continue;
-        scratchRe ??= new Float64Array(n);
-        scratchIm ??= new Float64Array(n);
-        evaluate(part, omega, scratchRe, scratchIm);
-        for (let i = 0; i < n; i++) {
-          re[i] += scratchRe[i];
-          im[i] += scratchIm[i];
-        }
-      }
-      return;
-    }
-    case 'parallel': {
-      // Accumulate the admittance Y = G + jB in re/im, then invert in place.
-      re.fill(0);
-      im.fill(0);
-      let scratchRe: Float64Array | undefined;
-      let scratchIm: Float64Array | undefined;
-      for (const part of element.parts) {
-        if (addLeafAdmittance(part, omega, re, im)) continue;
-        scratchRe ??= new Float64Array(n);
-        scratchIm ??= new Float64Array(n);
-        evaluate(part, omega, scratchRe, scratchIm);
-        for (let i = 0; i < n; i++) {
-          const a = scratchRe[i];
-          const b = scratchIm[i];
-          const d = a * a + b * b;
-          re[i] += a / d;
-          im[i] -= b / d;
-        }
-      }
-      for (let i = 0; i < n; i++) {
-        const g = re[i];
-        const b = im[i];
-        const d = g * g + b * b;
-        re[i] = g / d;
-        im[i] = -b / d;
-      }
-      return;
-    }
-  }
+/** The same into caller-owned arrays (length of `frequencies`), for loops that evaluate many times. */
+export function impedanceSweepInto(element: Element, frequencies: Float64Array, re: Float64Array, im: Float64Array): void {
+  kernelOf(element)(omegaOf(frequencies), re, im);
 }
 
-/** Add a leaf's impedance without a scratch buffer; false when the part is not a leaf. */
-function addLeafImpedance(part: Element, omega: Float64Array, re: Float64Array, im: Float64Array): boolean {
-  const n = omega.length;
-  switch (part.type) {
-    case 'R': {
-      const r = part.ohms;
-      for (let i = 0; i < n; i++) re[i] += r;
-      return true;
-    }
-    case 'L': {
-      const l = part.henries;
-      for (let i = 0; i < n; i++) im[i] += omega[i] * l;
-      return true;
-    }
-    case 'C': {
-      const c = part.farads;
-      for (let i = 0; i < n; i++) im[i] -= 1 / (omega[i] * c);
-      return true;
-    }
-    default:
-      return false;
-  }
-}
-
-/** Add a leaf's admittance (G = 1/R, B_L = −1/(ωL), B_C = ωC); false when the part is not a leaf. */
-function addLeafAdmittance(part: Element, omega: Float64Array, g: Float64Array, b: Float64Array): boolean {
-  const n = omega.length;
-  switch (part.type) {
-    case 'R': {
-      const conductance = 1 / part.ohms;
-      for (let i = 0; i < n; i++) g[i] += conductance;
-      return true;
-    }
-    case 'L': {
-      const l = part.henries;
-      for (let i = 0; i < n; i++) b[i] -= 1 / (omega[i] * l);
-      return true;
-    }
-    case 'C': {
-      const c = part.farads;
-      for (let i = 0; i < n; i++) b[i] += omega[i] * c;
-      return true;
-    }
-    default:
-      return false;
-  }
-}
-
-/** Impedance at a single frequency, as [re, im] in Ω; same laws as the sweep, used by root finders. */
+/** Impedance at a single frequency, as [re, im] in Ω; the same kernel as the sweep, so the same bits. */
 export function impedanceAt(element: Element, frequencyHz: number): [number, number] {
-  return impedanceAtOmega(element, TWO_PI * frequencyHz);
+  const omega = new Float64Array(1);
+  omega[0] = TWO_PI * frequencyHz;
+  const re = new Float64Array(1);
+  const im = new Float64Array(1);
+  kernelOf(element)(omega, re, im);
+  return [re[0], im[0]];
 }
 
-function impedanceAtOmega(element: Element, omega: number): [number, number] {
-  switch (element.type) {
-    case 'R':
-      return [element.ohms, 0];
-    case 'L':
-      return [0, omega * element.henries];
-    case 'C':
-      return [0, -1 / (omega * element.farads)];
-    case 'series': {
-      let re = 0;
-      let im = 0;
-      for (const part of element.parts) {
-        const [a, b] = impedanceAtOmega(part, omega);
-        re += a;
-        im += b;
+function kernelOf(element: Element): Kernel {
+  let kernel = kernels.get(element);
+  if (!kernel) {
+    kernel = compileKernel(element);
+    kernels.set(element, kernel);
+  }
+  return kernel;
+}
+
+/** The generated source of a tree's kernel body (exported for tests and curiosity). */
+export function kernelSource(element: Element): string {
+  const lines: string[] = [];
+  let next = 0;
+  const fresh = (stem: string) => `${stem}${next++}`;
+  const num = (v: number) => {
+    if (!Number.isFinite(v)) throw new RangeError(`element value ${v} is not finite`);
+    return `(${String(v)})`;
+  };
+
+  // Emits statements computing Z of `e` at angular frequency `w`; returns the names of its re and im.
+  const emit = (e: Element): [string, string] => {
+    switch (e.type) {
+      case 'R':
+        return [num(e.ohms), '0'];
+      case 'L': {
+        const im = fresh('x');
+        lines.push(`const ${im} = w * ${num(e.henries)};`);
+        return ['0', im];
       }
-      return [re, im];
-    }
-    case 'parallel': {
-      let g = 0;
-      let b = 0;
-      for (const part of element.parts) {
-        switch (part.type) {
-          case 'R':
-            g += 1 / part.ohms;
-            break;
-          case 'L':
-            b -= 1 / (omega * part.henries);
-            break;
-          case 'C':
-            b += omega * part.farads;
-            break;
-          default: {
-            const [zr, zi] = impedanceAtOmega(part, omega);
-            const d = zr * zr + zi * zi;
-            g += zr / d;
-            b -= zi / d;
+      case 'C': {
+        const im = fresh('x');
+        lines.push(`const ${im} = -1 / (w * ${num(e.farads)});`);
+        return ['0', im];
+      }
+      case 'series': {
+        const re = fresh('r');
+        const im = fresh('x');
+        lines.push(`let ${re} = 0, ${im} = 0;`);
+        for (const part of e.parts) {
+          const [pr, pi] = emit(part);
+          if (pr !== '0') lines.push(`${re} += ${pr};`);
+          if (pi !== '0') lines.push(`${im} += ${pi};`);
+        }
+        return [re, im];
+      }
+      case 'parallel': {
+        // Accumulate Y = G + jB; leaves add their admittance directly (G = 1/R, B = −1/(ωL), B = ωC).
+        const g = fresh('g');
+        const b = fresh('b');
+        lines.push(`let ${g} = 0, ${b} = 0;`);
+        for (const part of e.parts) {
+          if (part.type === 'R') lines.push(`${g} += 1 / ${num(part.ohms)};`);
+          else if (part.type === 'L') lines.push(`${b} -= 1 / (w * ${num(part.henries)});`);
+          else if (part.type === 'C') lines.push(`${b} += w * ${num(part.farads)};`);
+          else {
+            const [pr, pi] = emit(part);
+            const d = fresh('d');
+            lines.push(`const ${d} = ${pr} * ${pr} + ${pi} * ${pi};`, `${g} += ${pr} / ${d};`, `${b} -= ${pi} / ${d};`);
           }
         }
+        const d = fresh('d');
+        const re = fresh('r');
+        const im = fresh('x');
+        lines.push(`const ${d} = ${g} * ${g} + ${b} * ${b};`, `const ${re} = ${g} / ${d};`, `const ${im} = -${b} / ${d};`);
+        return [re, im];
       }
-      const d = g * g + b * b;
-      return [g / d, -b / d];
     }
-  }
+  };
+
+  const [re, im] = emit(element);
+  return [
+    'const n = omega.length;',
+    'for (let i = 0; i < n; i++) {',
+    '  const w = omega[i];',
+    ...lines.map((l) => '  ' + l),
+    `  re[i] = ${re};`,
+    `  im[i] = ${im};`,
+    '}',
+  ].join('\n');
+}
+
+function compileKernel(element: Element): Kernel {
+  return new Function('omega', 're', 'im', kernelSource(element)) as Kernel;
 }

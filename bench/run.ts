@@ -1,0 +1,14 @@
+// `npm run bench`: every benchmark section, each printing figures and ratios measured in this run.
+// Usage: npm run bench [-- SECTION ...]
+
+import { engineBench } from './engine.bench.js';
+import type { BenchSection } from './measure.js';
+
+const SECTIONS: BenchSection[] = [engineBench];
+
+const wanted = process.argv.slice(2);
+for (const section of SECTIONS) {
+  if (wanted.length > 0 && !wanted.includes(section.name)) continue;
+  console.log(`== ${section.name}`);
+  for (const line of await section.run()) console.log(line);
+}
