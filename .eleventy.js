@@ -1,7 +1,9 @@
 // Eleventy configuration for the folio site. The build (src/folio) computes every figure and chart first and
-// hands them to eleventy as global data; templates only lay out what they are given.
+// hands them to eleventy as global data (`folio`); templates only lay out what they are given.
 export default function (eleventyConfig) {
   eleventyConfig.setQuietMode(true);
+  // Everything from a library file is escaped unless a template marks computed markup (SVG) as safe.
+  eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, throwOnUndefined: false });
   return {
     dir: { input: 'templates', includes: '_includes', data: '_data' },
     templateFormats: ['njk'],

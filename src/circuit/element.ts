@@ -1,16 +1,17 @@
 // Element trees: the one circuit description every part, plan and network is reduced to.
 // Values are in SI base units (Ω, H, F) and strictly positive; an absent parasitic is simply not in the tree.
 
+// A leaf may carry the name of its role in a part model ("ESR", "Cp"), for schematics and tables.
 export type Element =
-  | { readonly type: 'R'; readonly ohms: number }
-  | { readonly type: 'L'; readonly henries: number }
-  | { readonly type: 'C'; readonly farads: number }
+  | { readonly type: 'R'; readonly ohms: number; readonly name?: string }
+  | { readonly type: 'L'; readonly henries: number; readonly name?: string }
+  | { readonly type: 'C'; readonly farads: number; readonly name?: string }
   | { readonly type: 'series'; readonly parts: readonly Element[] }
   | { readonly type: 'parallel'; readonly parts: readonly Element[] };
 
-export const resistor = (ohms: number): Element => ({ type: 'R', ohms });
-export const inductor = (henries: number): Element => ({ type: 'L', henries });
-export const capacitor = (farads: number): Element => ({ type: 'C', farads });
+export const resistor = (ohms: number, name?: string): Element => (name ? { type: 'R', ohms, name } : { type: 'R', ohms });
+export const inductor = (henries: number, name?: string): Element => (name ? { type: 'L', henries, name } : { type: 'L', henries });
+export const capacitor = (farads: number, name?: string): Element => (name ? { type: 'C', farads, name } : { type: 'C', farads });
 
 /** Series connection; a single part stands for itself. */
 export function series(...parts: Element[]): Element {

@@ -5,8 +5,10 @@ import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { SweepSpec } from '../circuit/sweep.js';
 import { parseQuantity } from '../units/parse.js';
+import { formatEng } from '../units/format.js';
 import { UsageError, type CommandIO } from './io.js';
 import { MAX_POINTS_PER_DECADE } from '../model/settings.js';
+import { closest } from '../model/suggest.js';
 
 type Options = NonNullable<ParseArgsConfig['options']>;
 
@@ -32,9 +34,17 @@ export function parseCommandLine(args: string[], options: Options, allowPosition
     const { values, positionals } = parseArgs({ args, options, allowPositionals, strict: true });
     return { values: values as Parsed['values'], positionals };
   } catch (error) {
+    const unknown = (error as { code?: string }).code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION' ? /'(-[^']*)'/.exec((error as Error).message)?.[1] : undefined;
+    if (unknown !== undefined) throw new UsageError(unknownOptionMessage(unknown, options));
     const message = (error as Error).message.replace(/\. To specify a positional argument.*$/s, '');
     throw new UsageError(message);
   }
+}
+
+function unknownOptionMessage(option: string, options: Options): string {
+  const names = Object.keys(options);
+  const guess = option.startsWith('--') ? closest(option.slice(2), names) : undefined;
+  return `unknown option ${JSON.stringify(option)}${guess ? `; did you mean --${guess}?` : ''} (this command takes ${names.map((n) => `--${n}`).join(', ')})`;
 }
 
 /** The library folder: --library, else the current folder. It must exist. */
@@ -61,6 +71,8 @@ export function sweepWithOverrides(base: SweepSpec, values: Parsed['values']): S
     if (!Number.isInteger(perDecade) || perDecade > MAX_POINTS_PER_DECADE) throw new UsageError(`--per-decade: expected a whole number from 1 to ${MAX_POINTS_PER_DECADE}`);
     sweep.perDecade = perDecade;
   }
-  if (!(sweep.toHz > sweep.fromHz)) throw new UsageError(`the sweep must end above where it starts (--from ${sweep.fromHz} Hz, --to ${sweep.toHz} Hz)`);
+  if (!(sweep.toHz > sweep.fromHz)) {
+    throw new UsageError(`the sweep must end above where it starts; found from ${formatEng(sweep.fromHz, 'Hz')} to ${formatEng(sweep.toHz, 'Hz')} (--from and --to, or folio.yaml sweep)`);
+  }
   return sweep;
 }

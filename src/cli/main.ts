@@ -39,8 +39,10 @@ export async function main(argv: string[], io: CommandIO): Promise<number> {
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     const topic = name === 'help' ? rest[0] : undefined;
-    if (topic && COMMANDS[topic]) io.out(COMMANDS[topic].help);
-    else io.out(mainHelp());
+    const text = topic && COMMANDS[topic] ? COMMANDS[topic].help : mainHelp();
+    // With no command at all the help is an answer to misuse: stderr and exit 2.
+    if (name === undefined) io.err(text);
+    else io.out(text);
     return name === undefined ? EXIT_MISUSE : EXIT_OK;
   }
   if (name === '--version' || name === '-V') {

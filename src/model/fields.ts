@@ -26,20 +26,52 @@ export interface TextOptions {
   /** Says what the pattern wants, for the message: "letters, digits, . _ - only". */
   patternHint?: string;
   oneOf?: readonly string[];
+  /** What the field holds, for the "missing field" message: 'one of capacitor, inductor, ...'. */
+  describe?: string;
+  /** Offer a "did you mean" from `oneOf` (default true; off where a wrong guess could mislead, e.g. safety classes). */
+  suggest?: boolean;
 }
 
 /** What a found value looks like in a message. */
 export function describeNode(node: Node | null | undefined): string {
   if (node === null || node === undefined) return 'nothing';
-  if (isScalar(node)) return node.value === null || node.value === '' ? 'nothing' : JSON.stringify(String(node.value));
-  if (isMap(node)) return 'a mapping';
-  if (isSeq(node)) return 'a list';
+  if (isScalar(node)) {
+    // A quoted "" was written on purpose: show it; an empty plain value is nothing at all.
+    const quoted = node.type === 'QUOTE_DOUBLE' || node.type === 'QUOTE_SINGLE';
+    return node.value === null || (node.value === '' && !quoted) ? 'nothing' : JSON.stringify(String(node.value));
+  }
+  if (isMap(node)) return node.items.length === 0 ? 'an empty mapping' : 'a mapping';
+  if (isSeq(node)) return node.items.length === 0 ? 'an empty list' : 'a list';
   return 'an alias';
 }
 
 export function scalarText(node: Node | null | undefined): string | undefined {
   if (!isScalar(node)) return undefined;
   return node.value === null ? undefined : String(node.value);
+}
+
+/**
+ * A "did you mean" candidate for a misspelt word. One-letter words get none unless only their case differs:
+ * every one-letter word is one edit from "r", "l" and "c", so a guess would be noise.
+ */
+export function nearMiss(word: string, candidates: readonly string[]): string | undefined {
+  // Two swapped neighbours ("titel") are one slip of the fingers but two edits to Levenshtein.
+  const guess = closest(word, candidates) ?? candidates.find((c) => isTransposition(word.toLowerCase(), c.toLowerCase()));
+  if (guess === undefined) return undefined;
+  if ([...word].length <= 1 && guess.toLowerCase() !== word.toLowerCase()) return undefined;
+  return guess;
+}
+
+function isTransposition(a: string, b: string): boolean {
+  if (a.length !== b.length || a === b) return false;
+  let i = 0;
+  while (a[i] === b[i]) i++;
+  return a[i] === b[i + 1] && a[i + 1] === b[i] && a.slice(i + 2) === b.slice(i + 2);
+}
+
+/** "an inductance in H, e.g. 0.45n or 0.45 nH": the expectation without nested brackets, for "(...)". */
+export function expectationInBrackets(dim: Dimension): string {
+  return expectation(dim).replace(' (e.g. ', ', e.g. ').replace(/\)$/, '');
 }
 
 export class Fields {
@@ -103,8 +135,12 @@ export class Fields {
     this.ctx.diagnostics.warning(this.position(name), name ? `${this.label(name)}: ${message}` : message);
   }
 
-  /** Report unknown fields (with a near-miss suggestion) and missing required ones. */
+  /**
+   * Report unknown fields (with a near-miss suggestion) and missing required ones. A required field that an
+   * unknown one was taken for ("nominl" for "nominal") is not reported again as missing.
+   */
   expect(allowed: readonly string[], required: readonly string[] = [], describeMissing?: (name: string) => string): void {
+    const guessed = new Set<string>();
     for (const pair of this.node.items) {
       const key = scalarText(pair.key);
       if (key === undefined) {
@@ -112,12 +148,13 @@ export class Fields {
         continue;
       }
       if (allowed.includes(key)) continue;
-      const guess = closest(key, allowed);
+      const guess = nearMiss(key, allowed);
+      if (guess) guessed.add(guess);
       const hint = guess ? `; did you mean "${guess}"?` : `; expected one of ${allowed.join(', ')}`;
       this.ctx.diagnostics.error(positionOf(this.ctx.source, pair.key), `unknown field "${this.label(key)}"${hint}`);
     }
     for (const name of required) {
-      if (this.has(name)) continue;
+      if (this.has(name) || guessed.has(name)) continue;
       const what = describeMissing ? ` (${describeMissing(name)})` : '';
       this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}"${what}`);
     }
@@ -126,7 +163,7 @@ export class Fields {
   /** A physical value in SI base units; undefined (with a message) when absent or wrong. */
   quantity(name: string, dim: Dimension, options: QuantityOptions = {}): number | undefined {
     if (!this.has(name)) {
-      if (options.required) this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}" (${expectation(dim)})`);
+      if (options.required) this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}" (${expectationInBrackets(dim)})`);
       return undefined;
     }
     return readQuantity(this.ctx, this.valueNode(name), this.label(name), dim, options);
@@ -150,7 +187,7 @@ export class Fields {
 
   text(name: string, options: TextOptions = {}): string | undefined {
     if (!this.has(name)) {
-      if (options.required) this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}"`);
+      if (options.required) this.ctx.diagnostics.error(this.position(), `missing field "${this.label(name)}"${options.describe ? ` (${options.describe})` : ''}`);
       return undefined;
     }
     const node = this.valueNode(name);
@@ -160,7 +197,7 @@ export class Fields {
       return undefined;
     }
     if (options.oneOf && !options.oneOf.includes(value)) {
-      const guess = closest(value, options.oneOf);
+      const guess = options.suggest === false ? undefined : nearMiss(value, options.oneOf);
       this.error(name, `expected one of ${options.oneOf.join(', ')}, found ${JSON.stringify(value)}${guess ? `; did you mean "${guess}"?` : ''}`);
       return undefined;
     }
@@ -223,17 +260,25 @@ export function readQuantity(ctx: ReadContext, node: Node | null | undefined, la
   }
   const parsed = parseQuantity(text, dim);
   if (!parsed.ok) {
-    ctx.diagnostics.error(at, `${label}: ${parsed.message}`);
+    ctx.diagnostics.error(at, `${label}: ${parsed.message}${rkmHint(text, dim)}`);
     return undefined;
   }
   const { value } = parsed;
   const allowZero = options.allowZero ?? false;
   const allowNegative = options.allowNegative ?? false;
   if ((value < 0 && !allowNegative) || (value === 0 && !allowZero)) {
-    const want = allowZero ? 'zero or more' : 'greater than zero';
-    const unit = DIMENSIONS[dim].symbol;
-    ctx.diagnostics.error(at, `${label}: expected a value ${want}${unit ? ` (${unit})` : ''}, found ${JSON.stringify(text)}`);
+    const noun = dim === 'ratio' ? 'a number' : DIMENSIONS[dim].noun;
+    const want = allowZero ? 'of zero or more' : 'greater than zero';
+    ctx.diagnostics.error(at, `${label}: expected ${noun} ${want}, found ${JSON.stringify(text)}`);
     return undefined;
   }
   return value;
+}
+
+/** Why "4R7" fails outside a resistance field: IEC 60062 uses R as the decimal point of ohms only. */
+function rkmHint(text: string, dim: Dimension): string {
+  const m = /^(\d*)R(\d*)$/.exec(text.trim());
+  if (!m || dim === 'resistance' || dim === 'ratio' || (m[1] === '' && m[2] === '')) return '';
+  const digits = `${m[1] || '0'}.${m[2] || '0'}`;
+  return `; "R" marks the decimal point in resistances only (IEC 60062); for ${DIMENSIONS[dim].noun} write ${digits} with an SI prefix, e.g. ${digits}u or ${m[1] || '0'}u${m[2] || '0'}`;
 }

@@ -4,6 +4,7 @@ import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative, sep } from 'node:path';
 import { DiagnosticList, type Diagnostic } from './diagnostics.js';
 import { readPart, type Part } from './part.js';
+import { readComparison, type Comparison } from './comparison.js';
 import { DEFAULT_SETTINGS, readSettings, type FolioSettings } from './settings.js';
 import { parseYamlSource, type SourceFile } from './source.js';
 
@@ -16,6 +17,8 @@ export interface Library {
   partsById: ReadonlyMap<string, Part>;
   /** Every file read, in path order, for hashes and appendices. */
   sources: SourceFile[];
+  /** comparisons/*.yaml, in path order. */
+  comparisons: Comparison[];
 }
 
 export interface LoadResult {
@@ -78,7 +81,14 @@ export function loadLibrary(root: string): LoadResult {
     parts.push(part);
   }
 
+  const comparisons: Comparison[] = [];
+  for (const path of yamlFilesUnder(root, 'comparisons')) {
+    const source = read(path);
+    const comparison = source && readComparison({ source, diagnostics }, partsById, parts);
+    if (comparison) comparisons.push(comparison);
+  }
+
   const sorted = diagnostics.sorted();
   if (diagnostics.errorCount > 0 || !settings) return { diagnostics: sorted };
-  return { library: { root, settings, parts, partsById, sources }, diagnostics: sorted };
+  return { library: { root, settings, parts, partsById, sources, comparisons }, diagnostics: sorted };
 }

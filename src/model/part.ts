@@ -7,9 +7,8 @@ import { formatEng } from '../units/format.js';
 import { parseQuantity, parseRatio } from '../units/parse.js';
 import type { Dimension } from '../units/quantity.js';
 import type { SourcePosition } from './diagnostics.js';
-import { Fields, describeNode, readQuantity, scalarText, type ReadContext } from './fields.js';
+import { Fields, describeNode, expectationInBrackets, nearMiss, readQuantity, scalarText, type ReadContext } from './fields.js';
 import { positionOf, type SourceFile } from './source.js';
-import { closest } from './suggest.js';
 
 export const PART_KINDS = ['capacitor', 'inductor', 'resistor', 'bead', 'network'] as const;
 export type PartKind = (typeof PART_KINDS)[number];
@@ -85,6 +84,15 @@ const FIELDS_BY_KIND: Readonly<Record<PartKind, readonly string[]>> = {
   network: [...COMMON_FIELDS, 'dielectric', 'behaves-as', 'network', 'dc-bias'],
 };
 
+/** What the one required field (besides id and kind) of each kind holds, for "missing field" messages. */
+const REQUIRED_HINT: Readonly<Record<PartKind, string>> = {
+  capacitor: expectationInBrackets('capacitance'),
+  inductor: expectationInBrackets('inductance'),
+  resistor: expectationInBrackets('resistance'),
+  bead: 'its model, e.g. model: {rdc: 50m, r: 600, l: 1.2u, c: 1.5p}',
+  network: 'its element tree, e.g. network: {series: [{r: 5m}, {l: 1n}, {c: 10u}]}',
+};
+
 // EIA-198 ceramic dielectric codes: class 2/3 "X7R" (low temp, high temp, change) and class 1 "C0G" (from
 // memory of the EIA-198 tables: significant figure, multiplier, tolerance letters).
 const EIA_CLASS_2 = /^[XYZ][4-9][PRSTUV]$/;
@@ -94,30 +102,40 @@ const EIA_CLASS_1 = /^[CBLAMPRSTUV][0-9][FGHJKLMN]$/;
 export function readPart(ctx: ReadContext): Part | undefined {
   const { source, diagnostics } = ctx;
   const before = diagnostics.errorCount;
-  const root = Fields.of(ctx, source.document.contents as Node | null, '');
-  if (!root) return undefined;
+  const contents = source.document.contents as Node | null;
+  if (contents === null || !isMap(contents)) {
+    const found = contents === null ? 'the file has no content' : `found ${describeNode(contents)}`;
+    diagnostics.error(positionOf(source, contents), `expected one part: a mapping of fields such as "id: ...", "kind: ...", "nominal: ..."; ${found}`);
+    return undefined;
+  }
+  const root = new Fields(ctx, contents as YAMLMap<Node, Node | null>, '');
 
-  const id = root.text('id', { required: true, pattern: ID_PATTERN, patternHint: 'an id of letters, digits, ".", "_" and "-" only' });
-  const kindText = root.text('kind', { required: true });
+  const id = root.text('id', { required: true, pattern: ID_PATTERN, patternHint: 'an id of letters, digits, ".", "_" and "-" only', describe: 'a unique id of letters, digits, ".", "_" and "-", e.g. CAP-0402-100N' });
+  const kindText = root.text('kind', { required: true, describe: `one of ${PART_KINDS.join(', ')}` });
   let kind: PartKind | undefined;
   if (kindText !== undefined) {
     if ((PART_KINDS as readonly string[]).includes(kindText)) kind = kindText as PartKind;
     else {
-      const guess = closest(kindText, PART_KINDS);
-      root.error('kind', `unknown kind ${JSON.stringify(kindText)}; expected one of ${PART_KINDS.join(', ')}${guess ? ` (did you mean "${guess}"?)` : ''}`);
+      const guess = nearMiss(kindText, PART_KINDS);
+      root.error('kind', `expected one of ${PART_KINDS.join(', ')}, found ${JSON.stringify(kindText)}${guess ? `; did you mean "${guess}"?` : ''}`);
     }
   }
   if (!kind) {
     root.expect([...new Set(Object.values(FIELDS_BY_KIND).flat())]);
     return undefined;
   }
-  root.expect(FIELDS_BY_KIND[kind], kind === 'network' ? ['id', 'kind', 'network'] : kind === 'bead' ? ['id', 'kind', 'model'] : ['id', 'kind', 'nominal']);
+  // id and kind are reported above when missing.
+  const required = kind === 'network' ? 'network' : kind === 'bead' ? 'model' : 'nominal';
+  root.expect(FIELDS_BY_KIND[kind], [required], () => REQUIRED_HINT[kind]);
 
   const behavesAs = kind === 'network' ? (root.text('behaves-as', { oneOf: BEHAVIOURS }) as Behaviour | undefined) : (kind as Behaviour);
   const nominalDimension: Dimension | undefined = behavesAs ? NOMINAL_DIMENSION[behavesAs] : undefined;
   let nominal: number | undefined;
   if (nominalDimension) nominal = root.quantity('nominal', nominalDimension);
-  else if (root.has('nominal')) root.error('nominal', 'a network needs "behaves-as" before its nominal value means anything');
+  else if (root.has('nominal') && !root.has('behaves-as')) {
+    // The value is not wrong, the field is out of place: point at the key.
+    root.ctx.diagnostics.error(root.keyPosition('nominal'), `nominal: a network's nominal value needs "behaves-as" (one of ${BEHAVIOURS.join(', ')}) to say what it is; add behaves-as or remove nominal`);
+  }
   if (kind === 'network' && behavesAs && behavesAs !== 'bead' && nominal === undefined && !root.has('nominal')) {
     root.error(undefined, `missing field "nominal" (a network that behaves as a ${behavesAs} needs its nominal value for the usable band)`);
   }
@@ -146,7 +164,8 @@ export function readPart(ctx: ReadContext): Part | undefined {
     part.dielectric = root.text('dielectric');
     if (part.dielectric !== undefined) checkDielectric(root, part.dielectric);
   }
-  if (kind === 'capacitor') part.safetyClass = root.text('safety', { oneOf: SAFETY_CLASSES });
+  // No "did you mean" here: a guessed class could name a stricter or weaker rating than the part has.
+  if (kind === 'capacitor') part.safetyClass = root.text('safety', { oneOf: SAFETY_CLASSES, suggest: false });
   if (root.has('dc-bias')) {
     if (behavesAs !== 'capacitor') root.error('dc-bias', 'a DC-bias table applies to capacitors only');
     else part.dcBias = readDcBias(root, part.voltageV);
@@ -189,7 +208,7 @@ function readMarking(root: Fields, kind: PartKind, nominal: number | undefined):
   }
   if (nominal !== undefined && Math.abs(parsed.value / nominal - 1) > 1e-9) {
     const unit = NOMINAL_DIMENSION[kind];
-    root.error('marking', `marking ${JSON.stringify(code)} means ${formatEng(parsed.value, unit)}, but nominal is ${formatEng(nominal, unit)}`);
+    root.error('marking', `${JSON.stringify(code)} means ${formatEng(parsed.value, unit)}, but nominal is ${formatEng(nominal, unit)}`);
   }
   return code;
 }
@@ -214,7 +233,7 @@ function readDcBias(root: Fields, ratingV: number | undefined): BiasPoint[] {
     const node = table.valueNode(key);
     const fraction = parseRatio(scalarText(node));
     if (!fraction.ok || !(fraction.value > 0) || fraction.value > 1.2) {
-      table.error(key, `expected the fraction of nominal capacitance kept at ${key} (e.g. 65%), found ${describeNode(node)}`);
+      table.error(key, `expected the fraction of nominal capacitance kept at ${key}, above 0% and at most 120% (e.g. 65%), found ${describeNode(node)}`);
       continue;
     }
     if (points.length > 0 && volts.value <= points[points.length - 1].voltageV) {
@@ -244,11 +263,11 @@ function buildNetwork(root: Fields, kind: PartKind, nominal: number | undefined)
   if (kind === 'bead') {
     const model = root.map('model');
     if (!model) return undefined;
-    model.expect(Object.keys(BEAD_MODEL), ['r', 'l']);
+    model.expect(Object.keys(BEAD_MODEL), ['r', 'l'], (name) => expectationInBrackets(BEAD_MODEL[name]));
     const p = readParameters(model, BEAD_MODEL);
     if (p.r === undefined || p.l === undefined) return undefined;
-    const core = parallel(...[resistor(p.r), inductor(p.l), p.c !== undefined ? capacitor(p.c) : undefined].filter(isElement));
-    return { network: series(...[p.rdc !== undefined ? resistor(p.rdc) : undefined, core].filter(isElement)), parameters: p };
+    const core = parallel(...[resistor(p.r, 'R'), inductor(p.l, 'L'), p.c !== undefined ? capacitor(p.c, 'C') : undefined].filter(isElement));
+    return { network: series(...[p.rdc !== undefined ? resistor(p.rdc, 'Rdc') : undefined, core].filter(isElement)), parameters: p };
   }
   const fields = PARASITICS[kind];
   const parasitics = root.map('parasitics');
@@ -262,20 +281,20 @@ function buildNetwork(root: Fields, kind: PartKind, nominal: number | undefined)
   switch (kind) {
     case 'capacitor': {
       // esr + esl + (C ‖ epr)
-      const c = p.epr !== undefined ? parallel(capacitor(nominal), resistor(p.epr)) : capacitor(nominal);
-      network = series(...[p.esr !== undefined ? resistor(p.esr) : undefined, p.esl !== undefined ? inductor(p.esl) : undefined, c].filter(isElement));
+      const c = p.epr !== undefined ? parallel(capacitor(nominal, 'C'), resistor(p.epr, 'EPR')) : capacitor(nominal, 'C');
+      network = series(...[p.esr !== undefined ? resistor(p.esr, 'ESR') : undefined, p.esl !== undefined ? inductor(p.esl, 'ESL') : undefined, c].filter(isElement));
       break;
     }
     case 'inductor': {
       // (dcr + L) ‖ cp ‖ rp
-      const winding = series(...[p.dcr !== undefined ? resistor(p.dcr) : undefined, inductor(nominal)].filter(isElement));
-      network = parallel(...[winding, p.cp !== undefined ? capacitor(p.cp) : undefined, p.rp !== undefined ? resistor(p.rp) : undefined].filter(isElement));
+      const winding = series(...[p.dcr !== undefined ? resistor(p.dcr, 'DCR') : undefined, inductor(nominal, 'L')].filter(isElement));
+      network = parallel(...[winding, p.cp !== undefined ? capacitor(p.cp, 'Cp') : undefined, p.rp !== undefined ? resistor(p.rp, 'Rp') : undefined].filter(isElement));
       break;
     }
     case 'resistor': {
       // (R + ls) ‖ cp
-      const body = series(...[resistor(nominal), p.ls !== undefined ? inductor(p.ls) : undefined].filter(isElement));
-      network = parallel(...[body, p.cp !== undefined ? capacitor(p.cp) : undefined].filter(isElement));
+      const body = series(...[resistor(nominal, 'R'), p.ls !== undefined ? inductor(p.ls, 'Ls') : undefined].filter(isElement));
+      network = parallel(...[body, p.cp !== undefined ? capacitor(p.cp, 'Cp') : undefined].filter(isElement));
       break;
     }
   }
@@ -302,7 +321,9 @@ const NETWORK_KEYS = ['series', 'parallel', ...Object.keys(NETWORK_LEAVES)];
 export function readNetworkNode(ctx: ReadContext, node: Node | null | undefined, label: string): Element | undefined {
   const at = positionOf(ctx.source, node);
   if (!isMap(node) || (node as YAMLMap).items.length !== 1) {
-    ctx.diagnostics.error(at, `${label}: expected one element such as {r: 5m}, {l: 1n}, {c: 10u}, {series: [...]} or {parallel: [...]}, found ${describeNode(node)}${isMap(node) ? ` with ${(node as YAMLMap).items.length} fields` : ''}`);
+    const keys = isMap(node) ? (node as YAMLMap<Node, Node | null>).items.map((p) => scalarText(p.key) ?? '?') : [];
+    const found = keys.length > 1 ? `a mapping of ${keys.length} elements (${keys.join(', ')}); give each element its own list item` : describeNode(node);
+    ctx.diagnostics.error(at, `${label}: expected one element such as {r: 5m}, {l: 1n}, {c: 10u}, {series: [...]} or {parallel: [...]}, found ${found}`);
     return undefined;
   }
   const pair = (node as YAMLMap<Node, Node | null>).items[0];
@@ -327,7 +348,7 @@ export function readNetworkNode(ctx: ReadContext, node: Node | null | undefined,
     if (failed) return undefined;
     return key === 'series' ? series(...children) : parallel(...children);
   }
-  const guess = closest(key, NETWORK_KEYS);
-  ctx.diagnostics.error(positionOf(ctx.source, pair.key), `${label}: unknown element "${key}"; expected ${guess ? `"${guess}"` : 'one of ' + NETWORK_KEYS.join(', ')}`);
+  const guess = nearMiss(key, NETWORK_KEYS);
+  ctx.diagnostics.error(positionOf(ctx.source, pair.key), `${label}: unknown element "${key}"; expected one of ${NETWORK_KEYS.join(', ')}${guess ? `; did you mean "${guess}"?` : ''}`);
   return undefined;
 }

@@ -2,6 +2,7 @@
 
 import type { Node } from 'yaml';
 import type { SweepSpec } from '../circuit/sweep.js';
+import { formatEng } from '../units/format.js';
 import { Fields, scalarText, type ReadContext } from './fields.js';
 
 export const PAPER_SIZES = ['A4', 'Letter'] as const;
@@ -10,6 +11,8 @@ export type PaperSize = (typeof PAPER_SIZES)[number];
 export interface FolioSettings {
   title: string;
   owner?: string;
+  /** A line every page of the site shows under the title (e.g. "All data here is invented"). */
+  notice?: string;
   sweep: SweepSpec;
   /** Default usable-band criterion (|value_eff/nominal − 1| ≤ within). */
   within: number;
@@ -35,10 +38,11 @@ export function readSettings(ctx: ReadContext): FolioSettings | undefined {
   if (contents === null) return { ...DEFAULT_SETTINGS };
   const root = Fields.of(ctx, contents, '');
   if (!root) return undefined;
-  root.expect(['title', 'owner', 'sweep', 'band', 'paper', 'derating']);
+  root.expect(['title', 'owner', 'notice', 'sweep', 'band', 'paper', 'derating']);
   const settings: FolioSettings = { ...DEFAULT_SETTINGS, sweep: { ...DEFAULT_SETTINGS.sweep } };
   settings.title = root.text('title') ?? settings.title;
   settings.owner = root.text('owner');
+  settings.notice = root.text('notice');
   settings.paper = (root.text('paper', { oneOf: PAPER_SIZES }) as PaperSize | undefined) ?? settings.paper;
 
   const sweep = root.map('sweep');
@@ -52,8 +56,12 @@ export function readSettings(ctx: ReadContext): FolioSettings | undefined {
         sweep.error('per-decade', `expected a whole number of points from 1 to ${MAX_POINTS_PER_DECADE}, found ${JSON.stringify(scalarText(sweep.valueNode('per-decade')))}`);
       } else settings.sweep.perDecade = perDecade;
     }
-    if (!(settings.sweep.toHz > settings.sweep.fromHz)) {
-      sweep.error(sweep.has('to') ? 'to' : 'from', `the sweep must end above where it starts (from ${settings.sweep.fromHz} Hz to ${settings.sweep.toHz} Hz)`);
+    const { fromHz, toHz } = settings.sweep;
+    if (!(toHz > fromHz)) {
+      if (sweep.has('to')) {
+        const start = sweep.has('from') ? 'from' : 'default from';
+        sweep.error('to', `expected a frequency above the start of the sweep (${start}: ${formatEng(fromHz, 'Hz')}), found ${formatEng(toHz, 'Hz')}`);
+      } else sweep.error('from', `expected a frequency below the end of the sweep (default to: ${formatEng(toHz, 'Hz')}), found ${formatEng(fromHz, 'Hz')}`);
     }
   }
   const band = root.map('band');

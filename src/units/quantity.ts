@@ -23,7 +23,7 @@ export const DIMENSIONS: Readonly<Record<Dimension, DimensionInfo>> = {
   capacitance: { symbol: 'F', aliases: [], noun: 'a capacitance' },
   inductance: { symbol: 'H', aliases: [], noun: 'an inductance' },
   // U+03A9 is the preferred omega; U+2126 (OHM SIGN) is accepted because keyboards and PDFs produce it.
-  resistance: { symbol: 'Ω', aliases: ['Ω', 'ohm', 'ohms', 'Ohm', 'Ohms'], noun: 'a resistance' },
+  resistance: { symbol: 'Ω', aliases: ['\u2126', 'ohm', 'ohms', 'Ohm', 'Ohms'], noun: 'a resistance' },
   frequency: { symbol: 'Hz', aliases: ['hz', 'HZ'], noun: 'a frequency' },
   voltage: { symbol: 'V', aliases: [], noun: 'a voltage' },
   current: { symbol: 'A', aliases: [], noun: 'a current' },

@@ -33,7 +33,7 @@ describe('SI prefixes (BIPM, The International System of Units, 9th ed. 2019, ta
     expect(value('1e-7', 'capacitance')).toBe(1e-7);
     expect(value('104', 'capacitance')).toBe(104); // a bare number is farads, never a marking code
     expect(value('2.2 kΩ', 'resistance')).toBe(2200);
-    expect(value('2.2 kΩ', 'resistance')).toBe(2200); // U+2126 OHM SIGN
+    expect(value('2.2 k\u2126', 'resistance')).toBe(2200); // U+2126 OHM SIGN
     expect(value('10 ohm', 'resistance')).toBe(10);
     expect(value('22.5 MHz', 'frequency')).toBe(22.5e6);
     expect(value('16V', 'voltage')).toBe(16);

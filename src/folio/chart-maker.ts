@@ -1,0 +1,20 @@
+// What the build needs from the chart layer: finished charts for a part and for a comparison. The build
+// does not care whether they come from a cache, this thread or worker threads.
+
+import type { PartAnalysis } from '../analysis/part-figures.js';
+
+export interface ChartArtifact {
+  /** File-name-safe key: "impedance", "phase", "plane", "admittance", "overlay". */
+  key: string;
+  title: string;
+  /** Text alternative: what is plotted and the key values. */
+  description: string;
+  svg: string;
+  /** The vega-lite spec with its data, offered as a download. */
+  spec: object;
+}
+
+export interface ChartMaker {
+  partCharts(analysis: PartAnalysis): Promise<ChartArtifact[]>;
+  comparisonChart(analyses: PartAnalysis[], title: string): Promise<ChartArtifact>;
+}

@@ -1,0 +1,219 @@
+// What a datasheet page shows about one part, computed here and handed to the templates as ready text:
+// facts, headline figures, Z at round frequencies, the model's parameters and the cautions.
+
+import { impedanceAt } from '../circuit/impedance.js';
+import type { PartAnalysis } from '../analysis/part-figures.js';
+import type { UsableBand } from '../analysis/band.js';
+import { NOMINAL_DIMENSION, type Part } from '../model/part.js';
+import { formatDegrees, formatEng, formatNumber, formatPercent } from '../units/format.js';
+import { cautionsFor } from './cautions.js';
+import type { Element } from '../circuit/element.js';
+
+export interface Row {
+  label: string;
+  value: string;
+  note?: string;
+}
+
+export interface ImpedanceRow {
+  frequency: string;
+  resistance: string;
+  reactance: string;
+  magnitude: string;
+  phase: string;
+  /** Effective C or L, or the deviation of |Z| from R for a resistor; empty where it has no meaning. */
+  effective: string;
+  q: string;
+}
+
+export interface PartPageText {
+  kindLabel: string;
+  nominalText: string;
+  facts: Row[];
+  figures: Row[];
+  impedanceTable: ImpedanceRow[];
+  effectiveHeading: string;
+  parameters: Row[];
+  cautions: string[];
+  srfText: string;
+  bandText: string;
+}
+
+const KIND_LABEL: Readonly<Record<string, string>> = {
+  capacitor: 'Capacitor',
+  inductor: 'Inductor',
+  resistor: 'Resistor',
+  bead: 'Ferrite bead',
+  network: 'Network',
+};
+
+export function kindLabel(part: Part): string {
+  if (part.kind === 'network') return part.behavesAs ? `Network (behaves as ${part.behavesAs})` : 'Network';
+  return KIND_LABEL[part.kind];
+}
+
+export function nominalText(part: Part): string {
+  if (part.nominal === undefined || !part.behavesAs) return '—';
+  const value = formatEng(part.nominal, NOMINAL_DIMENSION[part.behavesAs]);
+  if (part.behavesAs === 'bead' && part.ratedAtHz !== undefined) return `${value} at ${formatEng(part.ratedAtHz, 'frequency')}`;
+  return part.tolerance !== undefined ? `${value} ±${formatPercent(part.tolerance)}` : value;
+}
+
+/** "≤ 100 Hz to 7.15 MHz": the ≤/≥ say the band runs on past the sweep's end. */
+export function bandText(band: UsableBand | null): string {
+  if (!band) return 'none in the sweep';
+  return `${band.fromIsSweepEnd ? '≤ ' : ''}${formatEng(band.fromHz, 'frequency')} to ${band.toIsSweepEnd ? '≥ ' : ''}${formatEng(band.toHz, 'frequency')}`;
+}
+
+function facts(part: Part): Row[] {
+  const rows: Row[] = [{ label: 'Kind', value: kindLabel(part) }];
+  rows.push({ label: part.behavesAs === 'bead' ? 'Rated impedance' : 'Nominal', value: nominalText(part) });
+  if (part.marking) rows.push({ label: 'Marking', value: part.marking, note: 'IEC 60062 numeric code' });
+  if (part.voltageV !== undefined) rows.push({ label: 'Rated voltage', value: formatEng(part.voltageV, 'voltage') });
+  if (part.currentA !== undefined) rows.push({ label: 'Rated current', value: formatEng(part.currentA, 'current') });
+  if (part.powerW !== undefined) rows.push({ label: 'Rated power', value: formatEng(part.powerW, 'power') });
+  if (part.package) rows.push({ label: 'Package', value: part.package });
+  if (part.dielectric) rows.push({ label: 'Dielectric', value: part.dielectric });
+  if (part.safetyClass) rows.push({ label: 'Safety class', value: part.safetyClass, note: 'IEC 60384-14' });
+  if (part.dcBias.length > 0) {
+    rows.push({ label: 'DC bias', value: part.dcBias.map((p) => `${formatPercent(p.fraction)} at ${formatEng(p.voltageV, 'voltage')}`).join(', ') });
+  }
+  if (part.cost !== undefined) rows.push({ label: 'Unit cost', value: formatNumber(part.cost, 4) });
+  if (part.tags.length > 0) rows.push({ label: 'Tags', value: part.tags.join(', ') });
+  return rows;
+}
+
+function figures(a: PartAnalysis): Row[] {
+  const { part } = a;
+  const rows: Row[] = [];
+  const srf = a.selfResonance;
+  if (srf) {
+    const atSrf = part.behavesAs === 'capacitor' ? 'ESR at SRF' : '|Z| at SRF';
+    rows.push({ label: 'Self-resonant frequency', value: formatEng(srf.frequencyHz, 'frequency'), note: `${srf.type} resonance` });
+    rows.push({ label: atSrf, value: formatEng(srf.impedanceOhm, 'resistance') });
+  } else {
+    rows.push({ label: 'Self-resonant frequency', value: 'none in the sweep', note: `${formatEng(a.sweep.fromHz, 'frequency')} to ${formatEng(a.sweep.toHz, 'frequency')}` });
+  }
+  for (const r of a.resonances) {
+    if (r === srf) continue;
+    rows.push({ label: `${r.type === 'series' ? 'Series' : 'Parallel'} resonance`, value: formatEng(r.frequencyHz, 'frequency'), note: `|Z| ${formatEng(r.impedanceOhm, 'resistance')}` });
+  }
+  const rule = a.within !== undefined ? `value within ${formatPercent(a.within)} of nominal` : part.behavesAs === 'bead' ? 'resistive: R − Rdc ≥ |X|' : undefined;
+  rows.push({ label: 'Usable band', value: a.bandRule ? bandText(a.usableBand) : 'not defined', note: rule ?? 'the network declares no behaves-as' });
+  const peakQ = peakQuality(a);
+  // A capacitor's Q only grows towards DC; the peak is an inductor's figure of merit.
+  if (peakQ && part.behavesAs === 'inductor') {
+    rows.push({ label: 'Peak Q', value: formatNumber(peakQ.q), note: `at ${formatEng(peakQ.frequencyHz, 'frequency')}` });
+  }
+  if (part.behavesAs === 'bead') {
+    const peak = peakImpedance(a);
+    rows.push({ label: 'Peak |Z|', value: formatEng(peak.ohm, 'resistance'), note: `at ${formatEng(peak.frequencyHz, 'frequency')}` });
+    if (part.ratedAtHz !== undefined) {
+      const [re, im] = impedanceAt(part.network, part.ratedAtHz);
+      rows.push({ label: `|Z| at ${formatEng(part.ratedAtHz, 'frequency')}`, value: formatEng(Math.hypot(re, im), 'resistance'), note: 'model' });
+    }
+  }
+  return rows;
+}
+
+/** The greatest Q = |X|/R over the sweep points where the reactance has the nominal sign. */
+function peakQuality(a: PartAnalysis): { q: number; frequencyHz: number } | undefined {
+  const sign = a.part.behavesAs === 'capacitor' ? -1 : 1;
+  let best: { q: number; frequencyHz: number } | undefined;
+  for (let i = 0; i < a.frequencies.length; i++) {
+    const x = a.z.im[i];
+    if (Math.sign(x) !== sign || !(a.z.re[i] > 0)) continue;
+    const q = Math.abs(x) / a.z.re[i];
+    if (!best || q > best.q) best = { q, frequencyHz: a.frequencies[i] };
+  }
+  return best && Number.isFinite(best.q) ? best : undefined;
+}
+
+function peakImpedance(a: PartAnalysis): { ohm: number; frequencyHz: number } {
+  let best = { ohm: -1, frequencyHz: a.frequencies[0] };
+  for (let i = 0; i < a.frequencies.length; i++) {
+    const m = Math.hypot(a.z.re[i], a.z.im[i]);
+    if (m > best.ohm) best = { ohm: m, frequencyHz: a.frequencies[i] };
+  }
+  return best;
+}
+
+/** Each decade (1, 10, 100 ... Hz) inside the sweep. */
+export function decadeFrequencies(fromHz: number, toHz: number): number[] {
+  const out: number[] = [];
+  for (let e = Math.ceil(Math.log10(fromHz) - 1e-9); 10 ** e <= toHz * (1 + 1e-9); e++) out.push(Number(`1e${e}`));
+  return out;
+}
+
+function impedanceTable(a: PartAnalysis): { heading: string; rows: ImpedanceRow[] } {
+  const { part } = a;
+  const heading = part.behavesAs === 'capacitor' ? 'C_eff' : part.behavesAs === 'inductor' ? 'L_eff' : part.behavesAs === 'resistor' ? '|Z|/R − 1' : '';
+  const rows = decadeFrequencies(a.sweep.fromHz, a.sweep.toHz).map((f) => {
+    const [re, im] = impedanceAt(part.network, f);
+    const w = 2 * Math.PI * f;
+    let effective = '';
+    if (part.behavesAs === 'capacitor' && im < 0) effective = formatEng(-1 / (w * im), 'capacitance');
+    else if (part.behavesAs === 'inductor' && im > 0) effective = formatEng(im / w, 'inductance');
+    else if (part.behavesAs === 'resistor' && part.nominal !== undefined) effective = formatPercent(Math.hypot(re, im) / part.nominal - 1);
+    return {
+      frequency: formatEng(f, 'frequency'),
+      resistance: formatEng(re, 'resistance'),
+      reactance: formatEng(im, 'resistance'),
+      magnitude: formatEng(Math.hypot(re, im), 'resistance'),
+      phase: formatDegrees((Math.atan2(im, re) * 180) / Math.PI),
+      effective,
+      q: re > 0 ? formatNumber(Math.abs(im) / re) : '—',
+    };
+  });
+  return { heading, rows };
+}
+
+const PARAMETER_MEANING: Readonly<Record<string, string>> = {
+  ESR: 'equivalent series resistance',
+  ESL: 'equivalent series inductance',
+  EPR: 'equivalent parallel (leakage) resistance',
+  C: 'capacitance',
+  L: 'inductance',
+  R: 'resistance',
+  DCR: 'winding (DC) resistance',
+  Cp: 'parallel (winding) capacitance',
+  Rp: 'parallel (core loss) resistance',
+  Ls: 'series (lead and body) inductance',
+  Rdc: 'DC resistance',
+};
+
+/** Every leaf of the model with its role and value, in drawing order. */
+function parameters(network: Element, kind: string): Row[] {
+  const rows: Row[] = [];
+  const counters: Record<string, number> = {};
+  const walk = (e: Element) => {
+    if (e.type === 'series' || e.type === 'parallel') {
+      e.parts.forEach(walk);
+      return;
+    }
+    counters[e.type] = (counters[e.type] ?? 0) + 1;
+    const name = e.name ?? `${e.type}${counters[e.type]}`;
+    const value = e.type === 'R' ? formatEng(e.ohms, 'resistance') : e.type === 'L' ? formatEng(e.henries, 'inductance') : formatEng(e.farads, 'capacitance');
+    let meaning = PARAMETER_MEANING[name] ?? '';
+    if (kind === 'bead' && (name === 'R' || name === 'L' || name === 'C')) meaning = `core ${meaning}`;
+    rows.push({ label: name, value, note: meaning });
+  };
+  walk(network);
+  return rows;
+}
+
+export function partPageText(a: PartAnalysis): PartPageText {
+  const table = impedanceTable(a);
+  return {
+    kindLabel: kindLabel(a.part),
+    nominalText: nominalText(a.part),
+    facts: facts(a.part),
+    figures: figures(a),
+    impedanceTable: table.rows,
+    effectiveHeading: table.heading,
+    parameters: parameters(a.part.network, a.part.kind),
+    cautions: cautionsFor(a.part),
+    srfText: a.selfResonance ? formatEng(a.selfResonance.frequencyHz, 'frequency') : '—',
+    bandText: a.bandRule ? bandText(a.usableBand) : '—',
+  };
+}

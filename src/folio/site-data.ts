@@ -1,0 +1,164 @@
+// The data every template reads, assembled once by the build: templates lay out, they never compute.
+
+import type { PartAnalysis } from '../analysis/part-figures.js';
+import type { Comparison } from '../model/comparison.js';
+import type { Library } from '../model/library.js';
+import type { Part, PartKind } from '../model/part.js';
+import { formatEng, formatPercent } from '../units/format.js';
+import { VERSION } from '../version.js';
+import { kindLabel, partPageText, type PartPageText } from './part-page.js';
+import { schematicSvg } from './schematic.js';
+
+/** A chart as a page shows it: inline SVG, caption, and the file its vega-lite spec is written to. */
+export interface ChartOnPage {
+  key: string;
+  title: string;
+  description: string;
+  svg: string;
+  /** Relative to the page's folder. */
+  specFile: string;
+}
+
+export interface PartPageData {
+  id: string;
+  kind: PartKind;
+  title: string;
+  notes?: string;
+  package: string;
+  ratingText: string;
+  tagsText: string;
+  searchText: string;
+  text: PartPageText;
+  /** Numbers the index sorts by (SI units; empty string where there is none). */
+  sort: { nominal: number | ''; rating: number | ''; srf: number | ''; band: number | '' };
+  srfImpedanceText: string;
+  schematic: string;
+  modelCaption: string;
+  charts: ChartOnPage[];
+  sourceFile: string;
+  sourceHash: string;
+  sweepText: string;
+}
+
+export interface ComparisonPageData {
+  slug: string;
+  title: string;
+  description?: string;
+  automatic: boolean;
+  selection: string;
+  sourceFile?: string;
+  parts: PartPageData[];
+  chart?: ChartOnPage;
+}
+
+export interface FolioData {
+  title: string;
+  owner?: string;
+  version: string;
+  demoNotice?: string;
+  sweepText: string;
+  withinText: string;
+  kindCounts: { kind: PartKind; label: string; count: number }[];
+  parts: PartPageData[];
+  comparisons: ComparisonPageData[];
+  plans: unknown[];
+  reviews: unknown[];
+}
+
+const MODEL_CAPTION: Readonly<Record<PartKind, string>> = {
+  capacitor: 'Capacitor model: ESR + ESL + (C ‖ EPR).',
+  inductor: 'Inductor model: (DCR + L) ‖ Cp ‖ Rp.',
+  resistor: 'Resistor model: (R + Ls) ‖ Cp.',
+  bead: 'Bead model: Rdc + (R ‖ L ‖ C).',
+  network: 'Network as written in the part file.',
+};
+
+const KIND_PLURAL: Readonly<Record<PartKind, string>> = {
+  capacitor: 'capacitors',
+  inductor: 'inductors',
+  resistor: 'resistors',
+  bead: 'ferrite beads',
+  network: 'networks',
+};
+
+export function sweepText(a: { fromHz: number; toHz: number; perDecade: number }): string {
+  return `${formatEng(a.fromHz, 'frequency')} to ${formatEng(a.toHz, 'frequency')}, ${a.perDecade} points per decade`;
+}
+
+export function ratingText(part: Part): string {
+  const parts: string[] = [];
+  if (part.voltageV !== undefined) parts.push(formatEng(part.voltageV, 'voltage'));
+  if (part.currentA !== undefined) parts.push(formatEng(part.currentA, 'current'));
+  if (part.powerW !== undefined) parts.push(formatEng(part.powerW, 'power'));
+  return parts.join(', ');
+}
+
+export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageData {
+  const { part } = a;
+  const text = partPageText(a);
+  const rating = part.voltageV ?? part.currentA ?? part.powerW;
+  return {
+    id: part.id,
+    kind: part.kind,
+    title: part.title,
+    notes: part.notes,
+    package: part.package ?? '',
+    ratingText: ratingText(part),
+    tagsText: part.tags.join(', '),
+    searchText: [part.id, part.title, part.kind, part.package ?? '', part.dielectric ?? '', ...part.tags].join(' ').toLowerCase(),
+    text,
+    sort: {
+      nominal: part.nominal ?? '',
+      rating: rating ?? '',
+      srf: a.selfResonance?.frequencyHz ?? '',
+      band: a.usableBand ? a.usableBand.toHz : '',
+    },
+    srfImpedanceText: a.selfResonance ? formatEng(a.selfResonance.impedanceOhm, 'resistance') : '—',
+    schematic: schematicSvg(part.network, `Model of ${part.id}`),
+    modelCaption: MODEL_CAPTION[part.kind],
+    charts,
+    sourceFile: part.source.path,
+    sourceHash: part.source.hash,
+    sweepText: sweepText(a.sweep),
+  };
+}
+
+/** URL-safe folder name for a comparison: from its file name, or "all-<kind>" for automatic ones. */
+export function comparisonSlug(c: Comparison): string {
+  return c.source.path.replace(/^comparisons\//, '').replace(/\.ya?ml$/i, '').replace(/[^A-Za-z0-9._-]+/g, '-');
+}
+
+export function selectionText(c: Comparison): string {
+  if (!c.filter) return `${c.parts.length} parts named in the file`;
+  const f = c.filter;
+  const words = [f.kind ? `kind ${f.kind}` : 'any kind', ...(f.tags.length ? [`tags ${f.tags.join(' + ')}`] : []), ...(f.package ? [`package ${f.package}`] : [])];
+  return `every part with ${words.join(', ')}`;
+}
+
+/** One automatic comparison per kind present in the library. */
+export function automaticComparisons(library: Library): { kind: PartKind; title: string; parts: Part[] }[] {
+  const kinds = [...new Set(library.parts.map((p) => p.kind))].sort();
+  return kinds.map((kind) => ({ kind, title: `All ${KIND_PLURAL[kind]}`, parts: library.parts.filter((p) => p.kind === kind) }));
+}
+
+export function kindCounts(library: Library): FolioData['kindCounts'] {
+  const order: PartKind[] = ['capacitor', 'inductor', 'resistor', 'bead', 'network'];
+  return order
+    .map((kind) => ({ kind, label: KIND_PLURAL[kind], count: library.parts.filter((p) => p.kind === kind).length }))
+    .filter((k) => k.count > 0);
+}
+
+export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'comparisons' | 'plans' | 'reviews'> {
+  const s = library.settings;
+  return {
+    title: s.title,
+    owner: s.owner,
+    demoNotice: s.notice,
+    version: VERSION,
+    sweepText: sweepText(s.sweep),
+    withinText: formatPercent(s.within),
+    kindCounts: kindCounts(library),
+  };
+}
+
+export { kindLabel };

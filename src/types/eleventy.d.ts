@@ -1,0 +1,13 @@
+// The slice of eleventy's programmatic API zfolio uses (the package ships no type declarations).
+declare module '@11ty/eleventy' {
+  interface EleventyOptions {
+    configPath?: string;
+    quietMode?: boolean;
+    config?: (config: { addGlobalData(name: string, value: unknown): void }) => void | Promise<void>;
+  }
+  export default class Eleventy {
+    constructor(input: string, output: string, options?: EleventyOptions);
+    write(): Promise<unknown>;
+    disableLogger(): void;
+  }
+}

@@ -1,0 +1,73 @@
+// Dispatch, help and exit codes of the zfolio command line (0 ok, 1 bad input, 2 misuse), run in-process.
+
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { COMMANDS } from '../../src/cli/main.js';
+import { GOOD_LIBRARY, run } from './fake-io.js';
+
+describe('zfolio', () => {
+  it('with no command prints the overview on stderr and exits 2', async () => {
+    const r = await run([]);
+    expect(r.code).toBe(2);
+    expect(r.out).toBe('');
+    expect(r.err).toContain('Usage: zfolio COMMAND [options]');
+  });
+
+  it('--help lists every command and exits 0', async () => {
+    const r = await run(['--help']);
+    expect(r.code).toBe(0);
+    expect(r.err).toBe('');
+    for (const name of ['check', 'figures', 'sweep']) expect(r.out).toMatch(new RegExp(`^  ${name} +\\S`, 'm'));
+  });
+
+  it('--version prints the version from package.json', async () => {
+    const { version } = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version: string };
+    expect(await run(['--version'])).toEqual({ code: 0, out: `zfolio ${version}\n`, err: '' });
+  });
+
+  it('an unknown command exits 2 and names the commands there are', async () => {
+    const r = await run(['chek']);
+    expect(r.code).toBe(2);
+    expect(r.out).toBe('');
+    expect(r.err).toMatch(/^zfolio: unknown command "chek"; expected one of check, figures, sweep\b/);
+  });
+
+  it('an unknown option exits 2 and lists the options the command takes', async () => {
+    const r = await run(['check', '--bogus']);
+    expect(r).toEqual({
+      code: 2,
+      out: '',
+      err: 'zfolio check: unknown option "--bogus" (this command takes --library, --help)\nRun "zfolio check --help" for usage.\n',
+    });
+  });
+
+  it('a misspelt option gets a "did you mean"', async () => {
+    const r = await run(['figures', '--jsn']);
+    expect(r.code).toBe(2);
+    expect(r.err.split('\n')[0]).toBe('zfolio figures: unknown option "--jsn"; did you mean --json? (this command takes --library, --help, --from, --to, --per-decade, --json)');
+  });
+
+  it('a library folder that does not exist is misuse (2)', async () => {
+    const r = await run(['check', '--library', 'no-such-folder']);
+    expect(r.code).toBe(2);
+    expect(r.err).toContain('library folder not found:');
+    expect(r.err).toContain('no-such-folder');
+  });
+
+  describe.each(['check', 'figures', 'sweep'])('%s --help', (name) => {
+    it('prints the usage of the command on stdout and exits 0', async () => {
+      const r = await run([name, '--help']);
+      expect(r).toEqual({ code: 0, out: COMMANDS[name].help, err: '' });
+      expect(r.out.startsWith(`Usage: zfolio ${name}`)).toBe(true);
+      expect(r.out).toContain('--library DIR');
+    });
+
+    it('is also reachable as "zfolio help COMMAND"', async () => {
+      expect((await run(['help', name])).out).toBe(COMMANDS[name].help);
+    });
+  });
+
+  it('the fixture library is where commands look by default (the current folder)', async () => {
+    expect((await run(['check'], GOOD_LIBRARY)).code).toBe(0);
+  });
+});
