@@ -1,10 +1,11 @@
 // `npm run bench`: every benchmark section, each printing figures and ratios measured in this run.
 // Usage: npm run bench [-- SECTION ...]
 
+import { chartsBench } from './charts.bench.js';
 import { engineBench } from './engine.bench.js';
 import type { BenchSection } from './measure.js';
 
-const SECTIONS: BenchSection[] = [engineBench];
+const SECTIONS: BenchSection[] = [engineBench, chartsBench];
 
 const wanted = process.argv.slice(2);
 for (const section of SECTIONS) {

@@ -1,0 +1,97 @@
+// Titles and text alternatives of a part's charts: what is plotted, on which axes, and the figures a reader
+// would take from the picture (end values, extremes, resonances, the band). Screen readers read these; they
+// are also the charts' captions in text-only views.
+
+import { formatDegrees, formatEng } from '../units/format.js';
+import { bandCaption, bandRange, resonanceLabel, type PartChartInput } from './part-data.js';
+import { planeConstant } from './plane-chart.js';
+import type { ChartText } from './svg-finish.js';
+
+export type PartChartKind = 'impedance' | 'phase' | 'plane' | 'admittance';
+
+function sweepText(input: PartChartInput): string {
+  const f = input.frequencies;
+  return `${formatEng(f[0], 'Hz')} to ${formatEng(f[f.length - 1], 'Hz')}`;
+}
+
+function resonanceText(input: PartChartInput): string {
+  if (input.resonances.length === 0) return 'No resonance in the sweep.';
+  const list = input.resonances.map((r) => `${resonanceLabel(r, input.selfResonance)} (${r.type}, |Z| = ${formatEng(r.impedanceOhm, 'Ω')})`);
+  return `Resonances: ${list.join('; ')}.`;
+}
+
+function bandText(input: PartChartInput): string {
+  return input.usableBand ? `Shaded: ${bandCaption(input)}, ${bandRange(input.usableBand)}.` : 'No usable band in the sweep.';
+}
+
+/** Index and value of the least and greatest of `n` values. */
+function extremes(n: number, value: (i: number) => number): { min: number; minAt: number; max: number; maxAt: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  let minAt = 0;
+  let maxAt = 0;
+  for (let i = 0; i < n; i++) {
+    const v = value(i);
+    if (v < min) [min, minAt] = [v, i];
+    if (v > max) [max, maxAt] = [v, i];
+  }
+  return { min, minAt, max, maxAt };
+}
+
+export function describePartChart(kind: PartChartKind, input: PartChartInput): ChartText {
+  const id = input.part.id;
+  const f = input.frequencies;
+  const n = f.length;
+  const { re, im } = input.z;
+  const at = (i: number) => formatEng(f[i], 'Hz');
+  switch (kind) {
+    case 'impedance': {
+      const m = (i: number) => Math.hypot(re[i], im[i]);
+      const e = extremes(n, m);
+      return {
+        title: `${id}: impedance |Z| and resistance R against frequency`,
+        description:
+          `Log-log chart of |Z| and R of ${id} from ${sweepText(input)}. ` +
+          `|Z| is ${formatEng(m(0), 'Ω')} at ${at(0)} and ${formatEng(m(n - 1), 'Ω')} at ${at(n - 1)}; ` +
+          `least ${formatEng(e.min, 'Ω')} near ${at(e.minAt)}, greatest ${formatEng(e.max, 'Ω')} near ${at(e.maxAt)}. ` +
+          `R is ${formatEng(re[0], 'Ω')} at ${at(0)} and ${formatEng(re[n - 1], 'Ω')} at ${at(n - 1)}. ` +
+          `${resonanceText(input)} ${bandText(input)}`,
+      };
+    }
+    case 'phase': {
+      const p = (i: number) => (Math.atan2(im[i], re[i]) * 180) / Math.PI;
+      return {
+        title: `${id}: phase of the impedance against frequency`,
+        description:
+          `Phase of Z for ${id} on a log frequency axis from ${sweepText(input)}, from −90° (capacitive) to +90° (inductive), with the 0° line. ` +
+          `The phase is ${formatDegrees(p(0))} at ${at(0)} and ${formatDegrees(p(n - 1))} at ${at(n - 1)}; it crosses 0° at each resonance. ` +
+          `${resonanceText(input)} ${bandText(input)}`,
+      };
+    }
+    case 'plane': {
+      const c = planeConstant(Float64Array.from(f, (_, i) => Math.hypot(re[i], im[i])));
+      const side = (x: number) => (x < 0 ? 'capacitive' : x > 0 ? 'inductive' : 'resistive');
+      return {
+        title: `${id}: path of Z = R + jX in the complex plane`,
+        description:
+          `Complex-plane path of the impedance of ${id} as frequency rises from ${sweepText(input)}: resistance R across, reactance X up. ` +
+          `Both axes use a signed-log scale, sign(v)·log10(1 + |v|/c) with c = ${formatEng(c, 'Ω')}, linear within about ±${formatEng(c, 'Ω')} and logarithmic beyond. ` +
+          `Dots mark each decade of frequency, arrowheads the direction of rising frequency. ` +
+          `The path starts at R = ${formatEng(re[0], 'Ω')}, X = ${formatEng(im[0], 'Ω')} (${side(im[0])}) and ends at R = ${formatEng(re[n - 1], 'Ω')}, X = ${formatEng(im[n - 1], 'Ω')} (${side(im[n - 1])}), ` +
+          `crossing X = 0 at each resonance. ${resonanceText(input)}`,
+      };
+    }
+    case 'admittance': {
+      const d = (i: number) => re[i] * re[i] + im[i] * im[i];
+      const g = extremes(n, (i) => re[i] / d(i));
+      return {
+        title: `${id}: admittance G and B against frequency`,
+        description:
+          `Log-log chart of the admittance Y = 1/Z = G + jB of ${id} from ${sweepText(input)}: conductance G and the magnitude of the susceptance |B|, ` +
+          `solid where B > 0 (capacitive) and dashed where B < 0 (inductive); |B| drops to zero at each resonance. ` +
+          `G is greatest, ${formatEng(g.max, 'S')}, near ${at(g.maxAt)} and least, ${formatEng(g.min, 'S')}, near ${at(g.minAt)}. ` +
+          `${resonanceText(input)} ${bandText(input)}`,
+      };
+    }
+  }
+}

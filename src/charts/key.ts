@@ -1,0 +1,67 @@
+// The key (legend) of a chart: one or more rows above the plot, laid out here so the symbols match the
+// curves exactly (same series scales), band swatches and point symbols can sit beside line symbols, and the
+// frame's top padding can grow by whole rows when a comparison lists many parts.
+
+import { FONT_SIZE, type Frame } from './palette.js';
+import type { Row } from './render.js';
+import { cleanText } from './svg-finish.js';
+import { textWidth } from './text-width.js';
+
+export type KeyItem =
+  /** A line symbol drawn with the chart's line scales; `style` holds the row fields they read (e.g. {s: 'mag'}). */
+  | { kind: 'line'; style: Row; text: string }
+  | { kind: 'band'; text: string }
+  | { kind: 'point'; color: string; text: string };
+
+export interface KeyLayout {
+  datasets: { keyBands: Row[]; keyLines: Row[]; keyPoints: Row[]; keyText: Row[] };
+  rows: number;
+  /** Padding above the plot that holds the key. */
+  topPadding: number;
+}
+
+const SYMBOL = 26;
+const SYMBOL_GAP = 5;
+const ITEM_GAP = 18;
+const ROW_HEIGHT = 16;
+/** Space between the key's last row and the plot. */
+const BELOW = 12;
+
+/**
+ * Rows of items, left to right, wrapping at `width` px. With `columns`, items align in that many columns
+ * of equal width (comparisons: ids of similar length read better as a grid).
+ */
+export function layoutKey(items: readonly KeyItem[], width: number, columns?: number): KeyLayout {
+  const datasets: KeyLayout['datasets'] = { keyBands: [], keyLines: [], keyPoints: [], keyText: [] };
+  const size = FONT_SIZE.legend;
+  const widths = items.map((it) => SYMBOL + SYMBOL_GAP + textWidth(it.text, size));
+  const columnWidth = columns ? width / columns : 0;
+  const placed: { item: KeyItem; x: number; row: number }[] = [];
+  let x = 0;
+  let row = 0;
+  items.forEach((item, i) => {
+    const w = columns ? columnWidth : widths[i];
+    if (x > 0 && x + w > width + 0.5) {
+      row++;
+      x = 0;
+    }
+    placed.push({ item, x, row });
+    x += columns ? columnWidth : w + ITEM_GAP;
+  });
+  const rows = items.length === 0 ? 0 : row + 1;
+  const topPadding = rows === 0 ? 14 : rows * ROW_HEIGHT + BELOW;
+  for (const { item, x: x0, row: r } of placed) {
+    // Rows count upwards from the plot: the last row sits just above it.
+    const y = -topPadding + 3 + r * ROW_HEIGHT + ROW_HEIGHT / 2;
+    if (item.kind === 'line') datasets.keyLines.push({ x0, x1: x0 + SYMBOL, y, ...item.style });
+    else if (item.kind === 'band') datasets.keyBands.push({ x0, x1: x0 + SYMBOL, y0: y - 5, y1: y + 5 });
+    else datasets.keyPoints.push({ x: x0 + SYMBOL / 2, y, c: item.color });
+    datasets.keyText.push({ x: x0 + SYMBOL + SYMBOL_GAP, y, t: cleanText(item.text) });
+  }
+  return { datasets, rows, topPadding };
+}
+
+/** The frame with its top padding set to hold the key. */
+export function frameForKey(f: Frame, key: KeyLayout): Frame {
+  return { ...f, padding: { ...f.padding, top: key.topPadding } };
+}

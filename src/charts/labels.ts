@@ -1,0 +1,181 @@
+// Placing short labels next to marked points (resonances, decade marks, rail peaks) so that they stay inside
+// the plot and clear of each other and of the curves. Greedy, in priority order: each label takes the first
+// of its candidate positions that collides with nothing; a label that must be shown takes the position with
+// the least overlap instead, others are dropped (their point stays).
+
+import { textWidth } from './text-width.js';
+
+export type Align = 'left' | 'center' | 'right';
+export type Baseline = 'top' | 'middle' | 'bottom';
+
+export interface Placement {
+  dx: number;
+  dy: number;
+  align: Align;
+  baseline: Baseline;
+}
+
+export interface LabelRequest {
+  /** Anchor in px from the plot's top-left corner. */
+  x: number;
+  y: number;
+  text: string;
+  fontSize: number;
+  /** Shown even when every position collides. */
+  required?: boolean;
+  candidates?: Placement[];
+}
+
+/** A polyline in px that labels should not cover. */
+export interface Obstacle {
+  xs: ArrayLike<number>;
+  ys: ArrayLike<number>;
+}
+
+interface Box {
+  x0: number;
+  y0: number;
+  x1: number;
+  y1: number;
+}
+
+const GAP = 5;
+
+/** Right, left, above, below, then the diagonals. */
+export const AROUND: Placement[] = [
+  { dx: GAP + 2, dy: 0, align: 'left', baseline: 'middle' },
+  { dx: -GAP - 2, dy: 0, align: 'right', baseline: 'middle' },
+  { dx: 0, dy: -GAP - 1, align: 'center', baseline: 'bottom' },
+  { dx: 0, dy: GAP + 1, align: 'center', baseline: 'top' },
+  { dx: GAP, dy: -GAP, align: 'left', baseline: 'bottom' },
+  { dx: GAP, dy: GAP, align: 'left', baseline: 'top' },
+  { dx: -GAP, dy: -GAP, align: 'right', baseline: 'bottom' },
+  { dx: -GAP, dy: GAP, align: 'right', baseline: 'top' },
+];
+
+/** For a dip (series resonance): below first, then beside, then above. */
+export const BELOW_FIRST: Placement[] = [
+  { dx: 0, dy: 8, align: 'center', baseline: 'top' },
+  { dx: 7, dy: 5, align: 'left', baseline: 'top' },
+  { dx: -7, dy: 5, align: 'right', baseline: 'top' },
+  { dx: 7, dy: 0, align: 'left', baseline: 'middle' },
+  { dx: -7, dy: 0, align: 'right', baseline: 'middle' },
+  { dx: 0, dy: -8, align: 'center', baseline: 'bottom' },
+  // Further out, clear of a second curve passing close by.
+  { dx: 7, dy: 16, align: 'left', baseline: 'top' },
+  { dx: -7, dy: 16, align: 'right', baseline: 'top' },
+  { dx: 0, dy: 20, align: 'center', baseline: 'top' },
+  { dx: 0, dy: -20, align: 'center', baseline: 'bottom' },
+];
+
+/** For a peak (parallel resonance): above first, then beside, then below. */
+export const ABOVE_FIRST: Placement[] = [
+  { dx: 0, dy: -8, align: 'center', baseline: 'bottom' },
+  { dx: 7, dy: -5, align: 'left', baseline: 'bottom' },
+  { dx: -7, dy: -5, align: 'right', baseline: 'bottom' },
+  { dx: 7, dy: 0, align: 'left', baseline: 'middle' },
+  { dx: -7, dy: 0, align: 'right', baseline: 'middle' },
+  { dx: 0, dy: 8, align: 'center', baseline: 'top' },
+  { dx: 7, dy: -16, align: 'left', baseline: 'bottom' },
+  { dx: -7, dy: -16, align: 'right', baseline: 'bottom' },
+  { dx: 0, dy: -20, align: 'center', baseline: 'bottom' },
+  { dx: 0, dy: 20, align: 'center', baseline: 'top' },
+];
+
+function boxOf(r: LabelRequest, p: Placement): Box {
+  const w = textWidth(r.text, r.fontSize);
+  const h = r.fontSize * 1.15;
+  const x = r.x + p.dx;
+  const y = r.y + p.dy;
+  const x0 = p.align === 'left' ? x : p.align === 'right' ? x - w : x - w / 2;
+  const y0 = p.baseline === 'top' ? y : p.baseline === 'bottom' ? y - h : y - h / 2;
+  return { x0, y0, x1: x0 + w, y1: y0 + h };
+}
+
+function overlapArea(a: Box, b: Box): number {
+  const w = Math.min(a.x1, b.x1) - Math.max(a.x0, b.x0);
+  const h = Math.min(a.y1, b.y1) - Math.max(a.y0, b.y0);
+  return w > 0 && h > 0 ? w * h : 0;
+}
+
+/** Does the segment (ax, ay)–(bx, by) cross the box? Liang–Barsky clipping. */
+export function segmentHitsBox(ax: number, ay: number, bx: number, by: number, box: Box): boolean {
+  let t0 = 0;
+  let t1 = 1;
+  const dx = bx - ax;
+  const dy = by - ay;
+  const edges: [number, number][] = [
+    [-dx, ax - box.x0],
+    [dx, box.x1 - ax],
+    [-dy, ay - box.y0],
+    [dy, box.y1 - ay],
+  ];
+  for (const [p, q] of edges) {
+    if (p === 0) {
+      if (q < 0) return false;
+    } else {
+      const t = q / p;
+      if (p < 0) {
+        if (t > t1) return false;
+        if (t > t0) t0 = t;
+      } else {
+        if (t < t0) return false;
+        if (t < t1) t1 = t;
+      }
+    }
+  }
+  return true;
+}
+
+function hitsObstacles(box: Box, obstacles: readonly Obstacle[]): number {
+  let hits = 0;
+  for (const o of obstacles) {
+    for (let i = 1; i < o.xs.length; i++) {
+      const ax = o.xs[i - 1];
+      const ay = o.ys[i - 1];
+      const bx = o.xs[i];
+      const by = o.ys[i];
+      if (!Number.isFinite(ax + ay + bx + by)) continue;
+      if (Math.max(ax, bx) < box.x0 || Math.min(ax, bx) > box.x1 || Math.max(ay, by) < box.y0 || Math.min(ay, by) > box.y1) continue;
+      if (segmentHitsBox(ax, ay, bx, by, box)) hits++;
+    }
+  }
+  return hits;
+}
+
+/**
+ * A placement for each request (null: not shown). `plot` is the plot size in px; labels keep a margin
+ * of 2 px inside it. Requests are handled in the order given: put the important ones first.
+ */
+export function placeLabels(
+  requests: readonly LabelRequest[],
+  plot: { width: number; height: number },
+  obstacles: readonly Obstacle[] = [],
+  avoid: readonly Box[] = [],
+): (Placement | null)[] {
+  const placed: Box[] = [...avoid];
+  return requests.map((r) => {
+    let best: { p: Placement; box: Box; cost: number } | null = null;
+    for (const p of r.candidates ?? AROUND) {
+      const box = boxOf(r, p);
+      const outside =
+        Math.max(0, 2 - box.x0) + Math.max(0, box.x1 - plot.width + 2) + Math.max(0, 2 - box.y0) + Math.max(0, box.y1 - plot.height + 2);
+      let cost = outside * 1000;
+      for (const q of placed) cost += overlapArea(box, q) * 10;
+      cost += hitsObstacles(box, obstacles) * 50;
+      if (cost === 0) {
+        best = { p, box, cost };
+        break;
+      }
+      if (best === null || cost < best.cost) best = { p, box, cost };
+    }
+    if (best === null || (best.cost > 0 && !r.required)) return null;
+    placed.push(best.box);
+    return best.p;
+  });
+}
+
+/** The box a placed label covers, for callers that keep other marks clear of it. */
+export function labelBox(r: LabelRequest, p: Placement): Box {
+  return boxOf(r, p);
+}

@@ -1,0 +1,185 @@
+// Rendering a chart: a vega-lite spec (compiled to vega and parsed ONCE per chart kind and process) plus one
+// chart's data, to a finished SVG string, without a browser or a canvas.
+//
+// Each chart kind is a ChartDefinition: a fixed spec whose data sources are named and empty and whose
+// per-chart settings (domains, ticks, labels) are parameters, and a `bind` function that turns one input into
+// datasets and parameter values. Each kind keeps one vega View, made once from the parsed runtime; a render
+// empties it, then sets every parameter and replaces every dataset (a dataset the binding leaves out stays
+// empty), runs the dataflow and serialises the scene. Renders of one kind queue behind each other on its View; kinds run
+// independently. Since every input of the View is replaced, the output depends on the chart's own input
+// only, never on what was drawn before (checked in test/charts/render.test.ts).
+
+import { parse, View, type Runtime, type Spec as VegaSpec } from 'vega';
+import { compile, type TopLevelSpec } from 'vega-lite';
+import { outerSize, type Frame } from './palette.js';
+import { finishSvg, type ChartText } from './svg-finish.js';
+import { installTextMetrics } from './text-width.js';
+
+export type { ChartText } from './svg-finish.js';
+
+/** One data row; values are numbers or short strings (labels already formatted). */
+export type Row = Record<string, number | string | boolean | null>;
+
+export interface ChartBinding {
+  datasets: Record<string, Row[]>;
+  params: Record<string, unknown>;
+  /** Overrides the definition's frame (e.g. a legend that needs more rows). */
+  frame?: Frame;
+}
+
+export interface ChartDefinition<I> {
+  /** The chart kind, e.g. "impedance"; one compiled runtime per name. */
+  readonly name: string;
+  readonly frame: Frame;
+  /** The vega-lite spec, without data values; called once per process. */
+  spec(): TopLevelSpec;
+  bind(input: I): ChartBinding;
+}
+
+export interface ChartOutput {
+  svg: string;
+  /** The vega-lite spec with this chart's data and parameters written in: opens in any vega-lite tool. */
+  spec: object;
+  title: string;
+  description: string;
+}
+
+interface Compiled {
+  spec: TopLevelSpec;
+  runtime: Runtime;
+  view: View;
+  /** Names of the spec's named data sources. */
+  datasets: string[];
+  /** The spec's parameters with their placeholder values. */
+  params: { name: string; value: unknown }[];
+  /** The last render queued on this View. */
+  queue: Promise<unknown>;
+}
+
+const compiled = new Map<string, Compiled>();
+const counters = new Map<string, { compiles: number; renders: number }>();
+
+function counter(name: string) {
+  let c = counters.get(name);
+  if (!c) counters.set(name, (c = { compiles: 0, renders: 0 }));
+  return c;
+}
+
+/** How often each chart kind was compiled and rendered in this process. */
+export function chartStats(): Record<string, { compiles: number; renders: number }> {
+  return Object.fromEntries([...counters].map(([k, v]) => [k, { ...v }]));
+}
+
+/**
+ * Bounds of everything the last chart of a kind drew, in the SVG's coordinates (px from its top-left
+ * corner), or undefined before the first render. Tests use it to check that nothing is drawn outside the
+ * viewBox.
+ */
+export function lastSceneBounds(name: string): { x1: number; y1: number; x2: number; y2: number } | undefined {
+  const c = compiled.get(name);
+  if (!c || counter(name).renders === 0) return undefined;
+  const root = (c.view.scenegraph() as unknown as { root: { bounds: { x1: number; y1: number; x2: number; y2: number } } }).root;
+  const pad = c.view.padding() as { left: number; top: number };
+  const b = root.bounds;
+  return { x1: b.x1 + pad.left, y1: b.y1 + pad.top, x2: b.x2 + pad.left, y2: b.y2 + pad.top };
+}
+
+/** Forget compiled specs and their Views (benchmarks use it to time a cold first chart). */
+export function resetChartCache(): void {
+  for (const c of compiled.values()) c.view.finalize();
+  compiled.clear();
+}
+
+function compiledOf<I>(def: ChartDefinition<I>): Compiled {
+  let c = compiled.get(def.name);
+  if (!c) {
+    installTextMetrics();
+    const spec = withFrame(def.spec(), def.frame);
+    const warnings: string[] = [];
+    const vg = compile(spec, { logger: collectingLogger(warnings) }).spec as VegaSpec;
+    // The specs are fixed: a warning is a defect in a chart definition, found by the chart tests.
+    if (warnings.length > 0) throw new Error(`chart "${def.name}": vega-lite warns: ${warnings.join('; ')}`);
+    const runtime = parse(vg);
+    c = { spec, runtime, view: new View(runtime, { renderer: 'none' }), datasets: namedData(spec), params: paramsOf(spec), queue: Promise.resolve() };
+    compiled.set(def.name, c);
+    counter(def.name).compiles++;
+  }
+  return c;
+}
+
+function collectingLogger(into: string[]) {
+  const logger = {
+    level: () => logger,
+    error: (...args: unknown[]) => void into.push(args.join(' ')),
+    warn: (...args: unknown[]) => void into.push(args.join(' ')),
+    info: () => logger,
+    debug: () => logger,
+  };
+  return logger as never;
+}
+
+function withFrame(spec: TopLevelSpec, f: Frame): TopLevelSpec {
+  return { ...spec, width: f.width, height: f.height, padding: { ...f.padding }, autosize: { type: 'none' } } as TopLevelSpec;
+}
+
+function paramsOf(spec: TopLevelSpec): { name: string; value: unknown }[] {
+  return ((spec as { params?: { name: string; value?: unknown }[] }).params ?? []).map((p) => ({ name: p.name, value: p.value }));
+}
+
+/** Names of the named (value-less) data sources of a layered spec. */
+function namedData(spec: TopLevelSpec): string[] {
+  const names = new Set<string>();
+  const visit = (node: unknown) => {
+    if (!node || typeof node !== 'object') return;
+    const { data, layer } = node as { data?: { name?: string; values?: unknown }; layer?: unknown[] };
+    if (data?.name !== undefined && data.values === undefined) names.add(data.name);
+    layer?.forEach(visit);
+  };
+  visit(spec);
+  return [...names].sort();
+}
+
+/** Render one chart of a kind. */
+export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartText): Promise<ChartOutput> {
+  const c = compiledOf(def);
+  const binding = def.bind(input);
+  const unknown = Object.keys(binding.datasets).filter((name) => !c.datasets.includes(name));
+  if (unknown.length > 0) throw new Error(`chart "${def.name}" has no data source ${unknown.join(', ')}`);
+  const run = c.queue.then(async () => {
+    const { view } = c;
+    // Empty the View first: vega keeps the scene items of data (and axis ticks) that survive an update and
+    // appends new ones after them, so without this the order of elements in the SVG would depend on the
+    // chart drawn before. From empty, every item is created afresh in data order.
+    for (const p of c.params) view.signal(p.name, p.value);
+    for (const name of c.datasets) view.data(name, []);
+    await view.runAsync();
+    const f = binding.frame ?? def.frame;
+    view.width(f.width).height(f.height).padding(f.padding);
+    for (const [name, value] of Object.entries(binding.params)) view.signal(name, value);
+    for (const name of c.datasets) view.data(name, binding.datasets[name] ?? []);
+    await view.runAsync();
+    const raw = await view.toSVG();
+    counter(def.name).renders++;
+    return {
+      svg: finishSvg(raw, text, outerSize(f)),
+      spec: specWithData(c.spec, binding, f, text),
+      title: text.title,
+      description: text.description,
+    };
+  });
+  // A failed render must not block the next one on this View.
+  c.queue = run.catch(() => undefined);
+  return run;
+}
+
+/** The spec as drawn: datasets inlined, parameter values set, the text alternative as description and meta. */
+function specWithData(spec: TopLevelSpec, binding: ChartBinding, f: Frame, text: ChartText): object {
+  const s = withFrame(spec, f) as TopLevelSpec & { params?: { name: string; value?: unknown }[] };
+  return {
+    ...s,
+    description: text.description,
+    usermeta: { title: text.title, generator: 'zfolio' },
+    params: (s.params ?? []).map((p) => (p.name in binding.params ? { ...p, value: binding.params[p.name] } : p)),
+    datasets: binding.datasets,
+  };
+}

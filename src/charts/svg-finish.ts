@@ -1,0 +1,117 @@
+// Turning vega's SVG string into the one zfolio inlines in pages and PDFs:
+//  - accessible: role="img", a <title> and a <desc> named by aria-labelledby (WAI-ARIA 1.2 "img" role;
+//    SVG 2 §5.9 title and desc);
+//  - deterministic and collision-free: vega numbers clip paths with a process-wide counter, so ids depend on
+//    what was drawn before and repeat across charts on one page. Every id is renamed from a hash of the
+//    chart itself, in order of appearance;
+//  - self-contained and inert: no class names (page CSS must not restyle a chart), no xlink namespace, and a
+//    check that nothing can fetch or run (no script, foreignObject, href or url() outside the chart's ids).
+
+import { createHash } from 'node:crypto';
+
+export interface ChartText {
+  title: string;
+  description: string;
+}
+
+// XML 1.0 forbids most C0 controls; a YAML string can still carry them.
+// eslint-disable-next-line no-control-regex
+const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g;
+
+/** Text from a library file made safe for SVG/HTML text and attribute values. */
+export function escapeXml(text: string): string {
+  return text
+    .replace(CONTROL, '')
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;')
+    .replace(/'/g, '&#39;');
+}
+
+/** Control characters removed, for text handed to vega (which escapes markup but keeps controls). */
+export function cleanText(text: string): string {
+  return text.replace(CONTROL, '');
+}
+
+const ROOT = /^<svg\b[^>]*>/;
+const TAG = /<[^>]+>/g;
+const ID = / id="([^"]+)"/g;
+const TEXT_CONTENT = />[^<]*</g;
+const VEGA_ATTRIBUTES = / (?:class|role|aria-roledescription|aria-hidden|aria-label|pointer-events)="[^"]*"/g;
+
+/** A short, stable id prefix derived from the chart's content. */
+export function idPrefix(content: string): string {
+  return 'zc' + createHash('sha256').update(content).digest('hex').slice(0, 10);
+}
+
+/**
+ * The finished SVG. `size` is the chart's outer size in px; the viewBox keeps that coordinate system so the
+ * chart scales to its container (the page sets the displayed width).
+ */
+export function finishSvg(raw: string, text: ChartText, size: { width: number; height: number }): string {
+  const root = ROOT.exec(raw);
+  if (!root || !raw.endsWith('</svg>')) throw new Error('vega produced no SVG document');
+  // Text content cannot hold '<' or '>' (vega escapes them), so every match of TAG is markup: attributes
+  // are edited and checked there only, and text from a library file is never touched or misread.
+  const ids = new Map<string, string>();
+  let body = raw.slice(root[0].length, -'</svg>'.length).replace(TAG, (tag) => {
+    const edited = roundNumbers(tag.replace(VEGA_ATTRIBUTES, ''));
+    for (const m of edited.matchAll(ID)) if (!ids.has(m[1])) ids.set(m[1], '');
+    return edited;
+  });
+  assertInert(body.replace(TEXT_CONTENT, '><'));
+
+  // vega's ids count across the process; number them in order of appearance before anything depends on them.
+  if (ids.size > 0) {
+    let k = 0;
+    for (const id of ids.keys()) ids.set(id, `@${++k}@`);
+    body = body.replace(TAG, (tag) =>
+      tag.includes('id="') || tag.includes('url(#')
+        ? tag.replace(ID, (_, id: string) => ` id="${ids.get(id)}"`).replace(/url\(#([^)]+)\)/g, (_, id: string) => {
+            const to = ids.get(id);
+            if (to === undefined) throw new Error(`chart SVG refers to an undefined id ${id}`);
+            return `url(#${to})`;
+          })
+        : tag,
+    );
+  }
+  const prefix = idPrefix(body + '\u0000' + text.title + '\u0000' + text.description);
+  if (ids.size > 0) body = body.replace(TAG, (tag) => tag.replace(/@(\d+)@/g, (_, k: string) => `${prefix}-${k}`));
+
+  const w = round(size.width);
+  const h = round(size.height);
+  const titleId = `${prefix}-title`;
+  const descId = `${prefix}-desc`;
+  return (
+    `<svg xmlns="http://www.w3.org/2000/svg" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}" role="img" aria-labelledby="${titleId} ${descId}">` +
+    `<title id="${titleId}">${escapeXml(text.title)}</title>` +
+    `<desc id="${descId}">${escapeXml(text.description)}</desc>` +
+    body +
+    '</svg>'
+  );
+}
+
+/**
+ * Throw if markup (text content already removed) could run or load anything: a bug in a chart, never a
+ * user error.
+ */
+export function assertInert(markup: string): void {
+  const found = /<\/?(?:script|foreignObject|image|a|style|iframe|use)\b|\shref=|\son[a-z]+=|url\((?!#)|@import/i.exec(markup);
+  if (found) throw new Error(`chart SVG holds an active or external reference: ${found[0]}`);
+}
+
+/**
+ * Coordinates to 2 decimals (1/100 px is about 3 µm on a printed A4 column): vega writes some with 15, which
+ * costs bytes and nothing else.
+ */
+function roundNumbers(tag: string): string {
+  return tag.replace(/(-?\d+\.\d{3,})/g, (n) => {
+    const r = Number(Number(n).toFixed(2));
+    return String(Object.is(r, -0) ? 0 : r);
+  });
+}
+
+function round(v: number): number {
+  return Math.round(v * 100) / 100;
+}

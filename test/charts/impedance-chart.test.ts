@@ -1,0 +1,63 @@
+import { describe, expect, it } from 'vitest';
+import { PLOT_WIDTH, RESONANCE_MARK } from '../../src/charts/palette.js';
+import { renderPartChart } from '../../src/charts/part-charts.js';
+import { formatEng } from '../../src/units/format.js';
+import { analysed, capacitorPart, resistorPart } from './fixtures.js';
+import { svgTexts } from './svg-text.js';
+
+type Rows = Record<string, Record<string, unknown>[]>;
+
+/** Centres of the resonance dots inside the plot (the key's dot sits above it, at negative y). */
+function resonanceDots(svg: string): { x: number; y: number }[] {
+  return [...svg.matchAll(new RegExp(`<path transform="translate\\(([-\\d.]+),([-\\d.]+)\\)"[^>]*fill="${RESONANCE_MARK}"`, 'g'))]
+    .map((m) => ({ x: Number(m[1]), y: Number(m[2]) }))
+    .filter((p) => p.y >= 0);
+}
+
+describe('impedance chart', () => {
+  // Series R-L-C: |Z| is least, = ESR, at f0 = 1/(2π√(LC)) (any circuit text, e.g. Alexander & Sadiku, ch. 14).
+  const L = 0.45e-9;
+  const C = 100e-9;
+  const f0 = 1 / (2 * Math.PI * Math.sqrt(L * C));
+
+  it('labels the SRF of the demo capacitor at the closed-form frequency, where the dot sits on the log axes', async () => {
+    const a = analysed(capacitorPart);
+    const out = await renderPartChart('impedance', a);
+    expect(Math.abs(a.selfResonance!.frequencyHz / f0 - 1)).toBeLessThan(1e-6);
+    expect(svgTexts(out.svg)).toContain(`SRF ${formatEng(f0, 'Hz')}`);
+    expect(svgTexts(out.svg)).toContain('SRF 23.7 MHz');
+    // Plot: x log over 1 kHz..10 GHz across PLOT_WIDTH; y log over 1 mΩ..10 kΩ across 250 px, up.
+    const [dot] = resonanceDots(out.svg);
+    expect(dot.x).toBeCloseTo((PLOT_WIDTH * Math.log10(f0 / 1e3)) / 7, 1);
+    expect(dot.y).toBeCloseTo(250 - (250 * Math.log10(0.018 / 1e-3)) / 7, 1);
+  });
+
+  it('has engineering-notation ticks, a key and the band with its edge', async () => {
+    const out = await renderPartChart('impedance', analysed(capacitorPart));
+    const texts = svgTexts(out.svg);
+    for (const t of ['1 kHz', '10 MHz', '10 GHz', '1 mΩ', '100 mΩ', '1 Ω', '10 kΩ', 'Frequency', '|Z|', 'R (ESR)', 'resonance (X = 0)']) expect(texts).toContain(t);
+    // Band edge SRF·√(1 − 1/1.1) = 7.153 MHz (closed form for the series model, see src/analysis/band.ts).
+    expect(texts).toContain(`usable band (±10%): up to ${formatEng(f0 * Math.sqrt(1 - 1 / 1.1), 'Hz')}`);
+  });
+
+  it('passes |Z| and R through the exact resonance point, not just the nearest sweep point', async () => {
+    const a = analysed(capacitorPart);
+    const out = await renderPartChart('impedance', a);
+    const curves = (out.spec as { datasets: Rows }).datasets.curves;
+    const srf = a.selfResonance!;
+    for (const s of ['mag', 'res']) expect(curves.some((r) => r.s === s && r.f === srf.frequencyHz && r.v === srf.impedanceOhm)).toBe(true);
+    // Down-sampled: far fewer rows than the two 801-point curves.
+    expect(curves.length).toBeLessThan(400);
+  });
+
+  it('draws no resonance for a resistor without one, and calls R plain R', async () => {
+    const a = analysed(resistorPart);
+    expect(a.resonances).toHaveLength(0);
+    const out = await renderPartChart('impedance', a);
+    const texts = svgTexts(out.svg);
+    expect(texts.some((t) => t.startsWith('SRF'))).toBe(false);
+    expect(texts).toContain('R');
+    expect(texts).not.toContain('resonance (X = 0)');
+    expect(resonanceDots(out.svg)).toHaveLength(0);
+  });
+});

@@ -1,0 +1,37 @@
+import { describe, expect, it } from 'vitest';
+import { describePartChart } from '../../src/charts/describe.js';
+import { PART_CHART_KINDS, renderPartCharts } from '../../src/charts/part-charts.js';
+import { ALL_PARTS, analysed, beadPart, capacitorPart, inductorPart } from './fixtures.js';
+import { svgTexts } from './svg-text.js';
+
+describe('a part’s four charts', () => {
+  it('renders all four for every demo part, titled by the part id', async () => {
+    for (const p of ALL_PARTS) {
+      const charts = await renderPartCharts(analysed(p));
+      expect(Object.keys(charts)).toEqual([...PART_CHART_KINDS]);
+      for (const kind of PART_CHART_KINDS) {
+        expect(charts[kind].title.startsWith(`${p.id}: `)).toBe(true);
+        expect(charts[kind].svg).toContain(`>${charts[kind].title}</title>`);
+      }
+    }
+  });
+
+  it('writes the figures a reader takes from the charts into their descriptions', () => {
+    const c = analysed(capacitorPart);
+    const d = describePartChart('impedance', c).description;
+    expect(d).toContain('SRF 23.7 MHz (series, |Z| = 18 mΩ)'); // at a series resonance |Z| = ESR
+    expect(d).toContain('usable band (±10%), up to 7.15 MHz');
+    // Parallel resonance of (R + jωL) ‖ C: f ≈ 1/(2π√(LC)) = 35.6 MHz for 10 µH and 2 pF (R/L negligible).
+    expect(describePartChart('phase', analysed(inductorPart)).description).toContain('SRF 35.6 MHz (parallel');
+    // Bead core r ‖ l ‖ c: resonance at 1/(2π√(lc)) = 130 MHz, where |Z| = rdc + r = 600.03 Ω.
+    expect(describePartChart('admittance', analysed(beadPart)).description).toContain('SRF 130 MHz (parallel, |Z| = 600 Ω)');
+  });
+
+  it('takes the caller’s title and description where given', async () => {
+    const charts = await renderPartCharts(analysed(capacitorPart), { phase: { title: 'Figure 2', description: 'Phase, as measured.' } });
+    expect(charts.phase.title).toBe('Figure 2');
+    expect(charts.phase.svg).toContain('>Phase, as measured.</desc>');
+    expect(charts.impedance.title).not.toBe('Figure 2');
+    expect(svgTexts(charts.phase.svg)).toContain('SRF 23.7 MHz');
+  });
+});
