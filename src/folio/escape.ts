@@ -7,9 +7,9 @@ export function escapeXml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => XML_ENTITIES[c]);
 }
 
-/** JSON safe to embed in an HTML <script> block: no "</script>", no HTML comment openers, no U+2028/9. */
-export function jsonForHtml(value: unknown): string {
-  return JSON.stringify(value)
+/** JSON text with <, >, & and U+2028/9 as \u escapes: parses to the same value, inert inside HTML. */
+export function escapeJsonMarkup(json: string): string {
+  return json
     .replace(/</g, '\\u003c')
     .replace(/>/g, '\\u003e')
     .replace(/&/g, '\\u0026')

@@ -38,6 +38,8 @@ export interface PartPageData {
   sourceFile: string;
   sourceHash: string;
   sweepText: string;
+  /** Site-relative path of the part's PDF datasheet, when PDFs are built. */
+  pdfFile?: string;
 }
 
 export interface ComparisonPageData {

@@ -1,0 +1,85 @@
+// zfolio build: the whole folio — a static, offline site, and PDFs with --pdf.
+
+import { relative, resolve } from 'node:path';
+import { formatDiagnostic } from '../../model/diagnostics.js';
+import { buildFolio, DEFAULT_OUT_DIR, type BuildResult } from '../../folio/build.js';
+import { terminalProgress } from '../../folio/progress.js';
+import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
+import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
+import { plural } from '../report.js';
+import { PAPER_SIZES, type PaperSize } from '../../model/settings.js';
+
+export const buildHelp = `Usage: zfolio build [--library DIR] [--out DIR] [--pdf] [--chrome PATH] [--paper A4|Letter]
+
+Builds the folio: a datasheet page per part, comparison pages, rail plans and
+reviews, and an index, as a static site that works offline and from the file
+system. The site is built in a staging folder and swapped in whole: a library
+with problems leaves the previous site untouched.
+
+Options:
+  --out DIR           where the site goes (default: ${DEFAULT_OUT_DIR} under the library)
+  --pdf               also print a PDF per part and a pack per review (needs Chromium)
+  --chrome PATH       the Chromium to print with (default: $ZFOLIO_CHROME, then the usual paths)
+  --paper SIZE        A4 or Letter (default: folio.yaml, else A4)
+  --workers N         threads drawing charts (default: one per core)
+  -l, --library DIR   the library folder (default: the current folder)
+  -h, --help          show this help
+`;
+
+export const BUILD_OPTIONS = {
+  ...LIBRARY_OPTION,
+  out: { type: 'string', short: 'o' },
+  pdf: { type: 'boolean' },
+  chrome: { type: 'string' },
+  paper: { type: 'string' },
+  workers: { type: 'string' },
+} as const;
+
+export function workersOption(value: unknown): number | undefined {
+  if (typeof value !== 'string') return undefined;
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < 0 || n > 64) throw new UsageError(`--workers: expected a whole number from 0 to 64, found ${JSON.stringify(value)}`);
+  return n;
+}
+
+export function paperOption(value: unknown): PaperSize | undefined {
+  if (value === undefined) return undefined;
+  const match = PAPER_SIZES.find((p) => p.toLowerCase() === String(value).toLowerCase());
+  if (!match) throw new UsageError(`--paper: expected one of ${PAPER_SIZES.join(', ')}, found ${JSON.stringify(value)}`);
+  return match;
+}
+
+/** Print problems and a summary; the exit code for a build result. */
+export function reportBuild(result: BuildResult, io: CommandIO): number {
+  for (const d of result.diagnostics) io.err(formatDiagnostic(d) + '\n');
+  if (!result.ok) {
+    const errors = result.diagnostics.filter((d) => d.severity === 'error').length;
+    io.err(`${plural(errors, 'error')} in the library; nothing was written (${relative(io.cwd, result.outDir) || '.'} is as it was)\n`);
+    return EXIT_BAD_INPUT;
+  }
+  const pdfs = result.pdfs.length > 0 ? `, ${plural(result.pdfs.length, 'PDF')} (${result.pdfs.reduce((n, p) => n + p.pages, 0)} pages)` : '';
+  io.out(`built ${plural(result.parts, 'part')}, ${plural(result.pages, 'page')}${pdfs} in ${result.seconds.toFixed(1)} s: ${relative(io.cwd, result.outDir) || '.'}/index.html\n`);
+  if (result.pdfProblem) {
+    io.err(`zfolio build: the site was written, but no PDFs. ${result.pdfProblem}\n`);
+    return EXIT_BAD_INPUT;
+  }
+  return EXIT_OK;
+}
+
+export async function build(args: string[], io: CommandIO): Promise<number> {
+  const { values, positionals } = parseCommandLine(args, BUILD_OPTIONS, false);
+  if (values.help) {
+    io.out(buildHelp);
+    return EXIT_OK;
+  }
+  if (positionals.length > 0) throw new UsageError(`build takes no arguments, found ${positionals.join(' ')}`);
+  const root = libraryRoot(values, io);
+  const result = await buildFolio({
+    libraryRoot: root,
+    outDir: typeof values.out === 'string' ? resolve(io.cwd, values.out) : undefined,
+    workers: workersOption(values.workers),
+    progress: terminalProgress((text) => io.err(text), io.isTTY),
+    pdf: values.pdf ? { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper: paperOption(values.paper) } : undefined,
+  });
+  return reportBuild(result, io);
+}

@@ -1,0 +1,31 @@
+// Chart work as plain, cloneable jobs, so the same job can run in this thread or a worker thread.
+
+import type { PartAnalysis } from '../analysis/part-figures.js';
+import { describeComparison, renderComparisonChart } from '../charts/comparison-chart.js';
+import { PART_CHART_KINDS, renderPartCharts, type PartChartInput } from '../charts/part-charts.js';
+import type { ChartArtifact } from './chart-maker.js';
+
+export type ChartJob = { type: 'part'; input: PartChartInput } | { type: 'comparison'; inputs: PartChartInput[]; title: string };
+
+/** The part of an analysis the charts read: typed arrays and plain objects only (no YAML nodes). */
+export function chartInput(a: PartAnalysis): PartChartInput {
+  const { part } = a;
+  return {
+    part: { id: part.id, title: part.title, kind: part.kind, behavesAs: part.behavesAs, network: part.network },
+    frequencies: a.frequencies,
+    z: { re: a.z.re, im: a.z.im },
+    resonances: a.resonances,
+    selfResonance: a.selfResonance,
+    usableBand: a.usableBand,
+    within: a.within,
+  };
+}
+
+export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {
+  if (job.type === 'part') {
+    const charts = await renderPartCharts(job.input);
+    return PART_CHART_KINDS.map((key) => ({ key, ...charts[key] }));
+  }
+  const chart = await renderComparisonChart(job.inputs, describeComparison(job.inputs, job.title));
+  return [{ key: 'overlay', ...chart }];
+}

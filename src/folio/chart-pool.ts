@@ -1,0 +1,158 @@
+// Charts for a build: from the cache when the same input was drawn before, else from worker threads
+// (one per core, each compiling every chart kind once), or in this thread for small libraries.
+//
+// The cache key covers everything a chart depends on: the renderer's own code (a fingerprint of the chart
+// and folio modules' files), the part file's content hash, and the library's sweep and band settings.
+
+import { createHash } from 'node:crypto';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import { gunzipSync, gzipSync } from 'node:zlib';
+import type { PartAnalysis } from '../analysis/part-figures.js';
+import { VERSION } from '../version.js';
+import { chartInput, renderChartJob, type ChartJob } from './chart-jobs.js';
+import type { ChartArtifact, ChartMaker } from './chart-maker.js';
+
+export interface ChartPoolOptions {
+  /** Folder for cached charts; none: no cache. */
+  cacheDir?: string;
+  /** Worker threads; 0 renders in this thread. Default: one per core, none for fewer than `minPartsForWorkers`. */
+  workers?: number;
+  /** The sweep and band settings, part of every key. */
+  settingsKey: string;
+}
+
+export interface ChartPoolStats {
+  rendered: number;
+  fromCache: number;
+}
+
+const HERE = dirname(fileURLToPath(import.meta.url));
+const RUNNING_TYPESCRIPT = import.meta.url.endsWith('.ts');
+
+/** A hash of the code that draws charts, so a changed renderer never serves stale cache entries. */
+function rendererFingerprint(): string {
+  const hash = createHash('sha256').update(VERSION);
+  for (const dir of [join(HERE, '..', 'charts'), HERE]) {
+    for (const name of readdirSync(dir).sort()) {
+      if (/\.(ts|js)$/.test(name)) hash.update(name).update(readFileSync(join(dir, name)));
+    }
+  }
+  return hash.digest('hex').slice(0, 16);
+}
+
+/**
+ * Under TypeScript (tests, development) a worker must register tsx itself: Node 20 applies neither the
+ * parent's loader nor an --import in execArgv to a worker's entry file. The dev dependency tsx is then
+ * present by definition.
+ */
+function typescriptWorker(file: string): Worker {
+  const boot = `import('tsx/esm/api').then((tsx) => { tsx.register(); return import(${JSON.stringify(pathToFileURL(file).href)}); })`;
+  return new Worker(boot, { eval: true });
+}
+
+interface Pending {
+  resolve(charts: ChartArtifact[]): void;
+  reject(error: Error): void;
+}
+
+export class ChartPool implements ChartMaker {
+  readonly stats: ChartPoolStats = { rendered: 0, fromCache: 0 };
+  private readonly fingerprint = rendererFingerprint();
+  private readonly workers: Worker[] = [];
+  private readonly idle: Worker[] = [];
+  private readonly queue: { id: number; job: ChartJob }[] = [];
+  private readonly pending = new Map<number, Pending>();
+  private readonly usedKeys = new Set<string>();
+  private nextId = 0;
+
+  constructor(private readonly options: ChartPoolOptions) {
+    const count = options.workers ?? Math.min(availableParallelism(), 4);
+    for (let i = 0; i < count; i++) this.startWorker();
+    if (options.cacheDir) mkdirSync(options.cacheDir, { recursive: true });
+  }
+
+  async partCharts(a: PartAnalysis): Promise<ChartArtifact[]> {
+    const key = this.key('part', a.part.source.hash);
+    return this.cached(key, () => this.run({ type: 'part', input: chartInput(a) }));
+  }
+
+  async comparisonChart(analyses: PartAnalysis[], title: string): Promise<ChartArtifact> {
+    const key = this.key('comparison', title, ...analyses.map((a) => a.part.source.hash));
+    const [chart] = await this.cached(key, () => this.run({ type: 'comparison', inputs: analyses.map(chartInput), title }));
+    return chart;
+  }
+
+  /** Stop the workers and drop cache entries this build did not use, so the cache never grows stale. */
+  async close(): Promise<void> {
+    await Promise.all(this.workers.map((w) => w.terminate()));
+    this.workers.length = 0;
+    const dir = this.options.cacheDir;
+    if (dir && existsSync(dir)) {
+      for (const name of readdirSync(dir)) {
+        if (!this.usedKeys.has(name.replace(/\.json\.gz$/, ''))) rmSync(join(dir, name), { force: true });
+      }
+    }
+  }
+
+  private key(...parts: string[]): string {
+    return createHash('sha256').update([this.fingerprint, this.options.settingsKey, ...parts].join('\n')).digest('hex').slice(0, 32);
+  }
+
+  private async cached(key: string, render: () => Promise<ChartArtifact[]>): Promise<ChartArtifact[]> {
+    this.usedKeys.add(key);
+    const file = this.options.cacheDir ? join(this.options.cacheDir, `${key}.json.gz`) : undefined;
+    if (file && existsSync(file)) {
+      try {
+        const charts = JSON.parse(gunzipSync(readFileSync(file)).toString('utf8')) as ChartArtifact[];
+        this.stats.fromCache++;
+        return charts;
+      } catch {
+        // A damaged entry is drawn again and rewritten.
+      }
+    }
+    const charts = await render();
+    this.stats.rendered++;
+    if (file) writeFileSync(file, gzipSync(JSON.stringify(charts), { level: 1 }));
+    return charts;
+  }
+
+  private run(job: ChartJob): Promise<ChartArtifact[]> {
+    if (this.workers.length === 0) return renderChartJob(job);
+    return new Promise((resolve, reject) => {
+      const id = this.nextId++;
+      this.pending.set(id, { resolve, reject });
+      this.queue.push({ id, job });
+      this.dispatch();
+    });
+  }
+
+  private dispatch(): void {
+    while (this.idle.length > 0 && this.queue.length > 0) {
+      const worker = this.idle.pop()!;
+      worker.postMessage(this.queue.shift()!);
+    }
+  }
+
+  private startWorker(): void {
+    const worker = RUNNING_TYPESCRIPT ? typescriptWorker(join(HERE, 'chart-worker.ts')) : new Worker(join(HERE, 'chart-worker.js'));
+    worker.on('message', (message: { id: number; charts?: ChartArtifact[]; error?: string }) => {
+      const pending = this.pending.get(message.id);
+      this.pending.delete(message.id);
+      this.idle.push(worker);
+      this.dispatch();
+      if (!pending) return;
+      if (message.error !== undefined) pending.reject(new Error(`chart worker: ${message.error}`));
+      else pending.resolve(message.charts!);
+    });
+    worker.on('error', (error) => {
+      for (const p of this.pending.values()) p.reject(error);
+      this.pending.clear();
+    });
+    this.workers.push(worker);
+    this.idle.push(worker);
+  }
+}

@@ -1,0 +1,95 @@
+// Printing the built site's pages to PDF: one browser for the whole run, two tabs reused from page to page.
+// A review pack is printed twice: the first print's outline (Chromium builds it from the headings) tells
+// on which page each section's heading landed; the contents list is numbered from that, and printed again.
+
+import { writeFileSync, mkdirSync } from 'node:fs';
+import { dirname } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import type { Page } from 'puppeteer-core';
+import type { PaperSize } from '../model/settings.js';
+import { launchChrome } from './browser.js';
+import { headingPages, loadForPrint, pageCount, printLoadedPage, withMetadata, type PageFurniture, type PdfMetadata } from './pdf.js';
+import type { Progress } from './progress.js';
+
+export interface PrintJob {
+  /** The built HTML page to print. */
+  htmlFile: string;
+  pdfFile: string;
+  meta: PdfMetadata;
+  furniture: PageFurniture;
+  /** A review pack: each [data-pack-section] holds one h1; contents entries [data-pages-for=section id]. */
+  pack: boolean;
+}
+
+export interface PrintedFile {
+  pdfFile: string;
+  pages: number;
+  /** For a pack: the page each section starts on, as its contents list prints it. */
+  sectionPages?: Record<string, number>;
+}
+
+/** Tabs printing at once: one per core on the machines zfolio targets. */
+const CONCURRENCY = 2;
+
+export async function printJobs(chromePath: string, jobs: PrintJob[], paper: PaperSize, date: Date, progress: Progress): Promise<PrintedFile[]> {
+  const browser = await launchChrome(chromePath);
+  try {
+    progress.stage('pdf', jobs.length);
+    const results: PrintedFile[] = new Array(jobs.length);
+    let next = 0;
+    const lane = async () => {
+      const page = await browser.newPage();
+      while (next < jobs.length) {
+        const index = next++;
+        results[index] = await printOne(page, jobs[index], paper, date);
+        progress.tick();
+      }
+      await page.close();
+    };
+    await Promise.all(Array.from({ length: Math.min(CONCURRENCY, jobs.length) }, lane));
+    return results;
+  } finally {
+    await browser.close();
+  }
+}
+
+async function printOne(page: Page, job: PrintJob, paper: PaperSize, date: Date): Promise<PrintedFile> {
+  await loadForPrint(page, pathToFileURL(job.htmlFile).href);
+  let raw = await printLoadedPage(page, paper, job.furniture);
+  let sectionPages: Record<string, number> | undefined;
+  if (job.pack) {
+    // Numbering the contents can move a page break only if a number changes a line's length; repeat until
+    // the numbers printed are the pages the sections start on (twice at most in practice).
+    for (let round = 0; round < 4; round++) {
+      const found = await sectionStartPages(page, raw);
+      if (sectionPages && sameNumbers(found, sectionPages)) break;
+      sectionPages = found;
+      await page.evaluate((starts) => {
+        document.querySelectorAll<HTMLElement>('[data-pages-for]').forEach((entry) => {
+          const start = starts[entry.dataset.pagesFor ?? ''];
+          if (start !== undefined) entry.textContent = String(start);
+        });
+      }, found);
+      raw = await printLoadedPage(page, paper, job.furniture);
+    }
+  }
+  const pdf = await withMetadata(raw, job.meta, date);
+  mkdirSync(dirname(job.pdfFile), { recursive: true });
+  writeFileSync(job.pdfFile, pdf);
+  return { pdfFile: job.pdfFile, pages: await pageCount(pdf), sectionPages };
+}
+
+/** Pair each pack section (in document order) with the page of its h1 in the printed outline. */
+async function sectionStartPages(page: Page, pdf: Uint8Array): Promise<Record<string, number>> {
+  const ids = await page.$$eval('[data-pack-section]', (sections) => sections.map((s) => s.id));
+  const pages = await headingPages(pdf);
+  if (pages.length !== ids.length) {
+    throw new Error(`review pack: ${ids.length} sections but ${pages.length} top-level headings in the printed outline; each section needs exactly one h1`);
+  }
+  return Object.fromEntries(ids.map((id, i) => [id, pages[i]]));
+}
+
+function sameNumbers(a: Record<string, number>, b: Record<string, number>): boolean {
+  return Object.keys(a).every((k) => a[k] === b[k]) && Object.keys(a).length === Object.keys(b).length;
+}
+

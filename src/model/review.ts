@@ -1,0 +1,127 @@
+// reviews/*.yaml: a design review — what it covers and what it decided. Each becomes a review page and a
+// review pack PDF.
+//
+//   title: DL-3 main board, power integrity review
+//   date: 2026-11-24
+//   board: DL-3 main board, rev B
+//   reviewers: [{name: A. Person, role: power}, ...]
+//   covers: {parts: [ID, ...], comparisons: [file-stem, ...], plans: [RAIL, ...]}
+//   decisions: ["text (short markdown)", ...]
+//   open-points: [{text: ..., owner: ..., due: 2026-12-05}, ...]
+
+import type { Node } from 'yaml';
+import { Fields, describeNode, scalarText, type ReadContext } from './fields.js';
+import type { Part } from './part.js';
+import { positionOf, type SourceFile } from './source.js';
+import { closest } from './suggest.js';
+import type { SourcePosition } from './diagnostics.js';
+
+export interface Reviewer {
+  name: string;
+  role?: string;
+}
+
+export interface OpenPoint {
+  text: string;
+  owner?: string;
+  due?: string;
+}
+
+/** What a review may name, each by its own handle. */
+export interface ReviewTargets<C, P> {
+  parts: ReadonlyMap<string, Part>;
+  /** By file stem: comparisons/decoupling-0402.yaml is "decoupling-0402". */
+  comparisons: ReadonlyMap<string, C>;
+  /** By rail name. */
+  plans: ReadonlyMap<string, P>;
+}
+
+export interface Review<C, P> {
+  title: string;
+  /** ISO date, YYYY-MM-DD. */
+  date: string;
+  board: string;
+  reviewers: Reviewer[];
+  parts: Part[];
+  comparisons: C[];
+  plans: P[];
+  decisions: string[];
+  openPoints: OpenPoint[];
+  summary?: string;
+  source: SourceFile;
+  at: SourcePosition;
+}
+
+const ISO_DATE = /^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/;
+
+export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>): Review<C, P> | undefined {
+  const before = ctx.diagnostics.errorCount;
+  const root = Fields.of(ctx, ctx.source.document.contents as Node | null, '');
+  if (!root) return undefined;
+  root.expect(['title', 'date', 'board', 'reviewers', 'summary', 'covers', 'decisions', 'open-points'], ['title', 'date', 'board', 'covers']);
+  const title = root.text('title');
+  const date = root.text('date', { pattern: ISO_DATE, patternHint: 'a date written YYYY-MM-DD' });
+  const board = root.text('board');
+  const summary = root.text('summary');
+
+  const reviewers: Reviewer[] = [];
+  for (const item of root.seq('reviewers')?.items ?? []) {
+    const name = scalarText(item as Node);
+    if (name !== undefined) {
+      reviewers.push({ name });
+      continue;
+    }
+    const fields = Fields.of(ctx, item as Node, 'reviewers[]');
+    if (!fields) continue;
+    fields.expect(['name', 'role'], ['name']);
+    const who = fields.text('name');
+    if (who) reviewers.push({ name: who, role: fields.text('role') });
+  }
+
+  const covers = root.map('covers');
+  const pick = <T>(field: string, map: ReadonlyMap<string, T>, what: string): T[] => {
+    if (!covers?.has(field)) return [];
+    const out: T[] = [];
+    for (const item of covers.seq(field)?.items ?? []) {
+      const key = scalarText(item as Node);
+      const at = positionOf(ctx.source, item as Node);
+      if (key === undefined) {
+        ctx.diagnostics.error(at, `covers.${field}: expected ${what}, found ${describeNode(item as Node)}`);
+        continue;
+      }
+      const target = map.get(key);
+      if (target === undefined) {
+        const guess = closest(key, map.keys());
+        ctx.diagnostics.error(at, `covers.${field}: no ${what} "${key}" in the library${guess ? `; did you mean "${guess}"?` : ''}`);
+        continue;
+      }
+      out.push(target);
+    }
+    return out;
+  };
+  covers?.expect(['parts', 'comparisons', 'plans']);
+  const parts = pick('parts', targets.parts, 'part with id');
+  const comparisons = pick('comparisons', targets.comparisons, 'comparison file');
+  const plans = pick('plans', targets.plans, 'rail plan');
+  if (covers && parts.length + comparisons.length + plans.length === 0 && ctx.diagnostics.errorCount === before) {
+    covers.error(undefined, 'covers: a review must cover at least one part, comparison or rail plan');
+  }
+
+  const decisions = root.textList('decisions');
+  const openPoints: OpenPoint[] = [];
+  for (const item of root.seq('open-points')?.items ?? []) {
+    const text = scalarText(item as Node);
+    if (text !== undefined) {
+      openPoints.push({ text });
+      continue;
+    }
+    const fields = Fields.of(ctx, item as Node, 'open-points[]');
+    if (!fields) continue;
+    fields.expect(['text', 'owner', 'due'], ['text']);
+    const point = fields.text('text');
+    if (point) openPoints.push({ text: point, owner: fields.text('owner'), due: fields.text('due', { pattern: ISO_DATE, patternHint: 'a date written YYYY-MM-DD' }) });
+  }
+
+  if (ctx.diagnostics.errorCount > before || !title || !date || !board) return undefined;
+  return { title, date, board, reviewers, parts, comparisons, plans, decisions, openPoints, summary, source: ctx.source, at: root.position() };
+}
