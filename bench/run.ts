@@ -3,9 +3,10 @@
 
 import { chartsBench } from './charts.bench.js';
 import { engineBench } from './engine.bench.js';
+import { railBench } from './rail.bench.js';
 import type { BenchSection } from './measure.js';
 
-const SECTIONS: BenchSection[] = [engineBench, chartsBench];
+const SECTIONS: BenchSection[] = [engineBench, chartsBench, railBench];
 
 const wanted = process.argv.slice(2);
 for (const section of SECTIONS) {

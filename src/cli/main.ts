@@ -3,6 +3,7 @@
 import { check, checkHelp } from './commands/check.js';
 import { figures, figuresHelp } from './commands/figures.js';
 import { sweep, sweepHelp } from './commands/sweep.js';
+import { plan, planHelp } from './commands/plan.js';
 import { build, buildHelp } from './commands/build.js';
 import { EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
 import { VERSION } from '../version.js';
@@ -19,6 +20,7 @@ export const COMMANDS: Record<string, CommandEntry> = {
   check: { run: check, help: checkHelp, summary: 'validate the library and list every problem' },
   figures: { run: figures, help: figuresHelp, summary: 'resonances, SRF and usable band of parts' },
   sweep: { run: sweep, help: sweepHelp, summary: "a part's impedance at every sweep point" },
+  plan: { run: plan, help: planHelp, summary: 'check a rail plan against its target impedance, or --suggest its capacitors' },
   build: { run: build, help: buildHelp, summary: 'build the folio: static site, and PDFs with --pdf' },
 };
 

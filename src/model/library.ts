@@ -4,6 +4,7 @@ import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative, sep } from 'node:path';
 import { DiagnosticList, type Diagnostic } from './diagnostics.js';
 import { readPart, type Part } from './part.js';
+import { readPlan, uniqueRails, type Plan } from './plan.js';
 import { readComparison, type Comparison } from './comparison.js';
 import { DEFAULT_SETTINGS, readSettings, type FolioSettings } from './settings.js';
 import { parseYamlSource, type SourceFile } from './source.js';
@@ -17,6 +18,8 @@ export interface Library {
   partsById: ReadonlyMap<string, Part>;
   /** Every file read, in path order, for hashes and appendices. */
   sources: SourceFile[];
+  /** plans/*.yaml (rail decoupling plans), in path order; empty when there is no plans/ folder. */
+  plans: Plan[];
   /** comparisons/*.yaml, in path order. */
   comparisons: Comparison[];
 }
@@ -88,7 +91,15 @@ export function loadLibrary(root: string): LoadResult {
     if (comparison) comparisons.push(comparison);
   }
 
+  const planned: Plan[] = [];
+  for (const path of yamlFilesUnder(root, 'plans')) {
+    const source = read(path);
+    const plan = source && readPlan({ source, diagnostics }, partsById, (settings ?? DEFAULT_SETTINGS).derating);
+    if (plan) planned.push(plan);
+  }
+  const plans = uniqueRails(planned, diagnostics);
+
   const sorted = diagnostics.sorted();
   if (diagnostics.errorCount > 0 || !settings) return { diagnostics: sorted };
-  return { library: { root, settings, parts, partsById, sources, comparisons }, diagnostics: sorted };
+  return { library: { root, settings, parts, partsById, sources, comparisons, plans }, diagnostics: sorted };
 }

@@ -1,0 +1,198 @@
+// Everything zfolio states about a rail plan, as plain JSON-ready data in SI units: the target, |Z| of the
+// rail and of each branch over the band, the peaks, the worst margin, the DC-bias derating of each part and
+// the plan's warnings. `zfolio plan` prints it; a plan page lays it out.
+
+import type { Element } from '../circuit/element.js';
+import { logSweep } from '../circuit/sweep.js';
+import type { Diagnostic } from '../model/diagnostics.js';
+import type { Part } from '../model/part.js';
+import type { Plan, PlanTarget } from '../model/plan.js';
+import { biasFraction, scaleCapacitance, type BiasedCapacitance } from './dc-bias.js';
+import { evaluateRail, placementElement, planeElement, regulatorElement, targetImpedance, type BranchKind, type RailBranch } from './rail.js';
+
+export interface PlacedModel {
+  /** One placement: the part at its biased capacitance, in series with the mounting inductance. */
+  element: Element;
+  bias: BiasedCapacitance;
+  /** Capacitance at the rail voltage, F. */
+  capacitanceF: number;
+}
+
+// Placement models are shared between analyses of the same part at the same bias and mounting, so their
+// compiled sweep kernels are too.
+const placedModels = new WeakMap<Element, Map<string, Element>>();
+
+/** A part as placed on a rail at `voltageV` with mounting inductance `mountingH`. */
+export function placedModel(part: Part, voltageV: number, mountingH: number): PlacedModel {
+  const bias = biasFraction(part.dcBias, voltageV);
+  let byKey = placedModels.get(part.network);
+  if (!byKey) {
+    byKey = new Map();
+    placedModels.set(part.network, byKey);
+  }
+  const key = `${bias.fraction}/${mountingH}`;
+  let element = byKey.get(key);
+  if (!element) {
+    element = placementElement(scaleCapacitance(part.network, bias.fraction), mountingH);
+    byKey.set(key, element);
+  }
+  return { element, bias, capacitanceF: (part.nominal ?? NaN) * bias.fraction };
+}
+
+export function planTargetOhm(voltageV: number, target: PlanTarget): number {
+  return target.kind === 'explicit' ? target.ohms : targetImpedance(voltageV, target.ripple, target.stepA);
+}
+
+/** The plan's sweep: the library's points per decade, over the plan's band. */
+export function planSweep(plan: Plan, perDecade: number): Float64Array {
+  return logSweep({ fromHz: plan.band.fromHz, toHz: plan.band.toHz, perDecade });
+}
+
+/** The branches that are the same whatever capacitors are placed: regulator and plane. */
+export function fixedBranches(plan: Plan): RailBranch[] {
+  const out: RailBranch[] = [];
+  if (plan.regulator) out.push({ kind: 'regulator', label: 'regulator', element: regulatorElement(plan.regulator.rOhm, plan.regulator.lH), count: 1 });
+  if (plan.plane) out.push({ kind: 'plane', label: 'plane', element: planeElement(plan.plane.cF, plan.plane.rOhm), count: 1 });
+  return out;
+}
+
+export interface PlacementFigures {
+  partId: string;
+  title: string;
+  count: number;
+  mountingH: number;
+  nominalF: number;
+  /** Capacitance at the rail voltage, F. */
+  capacitanceF: number;
+  /** capacitanceF / nominalF. */
+  biasFraction: number;
+  /** The capacitance comes from the part's DC-bias table (false: nominal, the part has no table). */
+  biasFromTable: boolean;
+  /** The rail voltage lies outside the table; its nearest end was used. */
+  biasClamped: boolean;
+  voltageRatingV: number | null;
+  cost: number | null;
+}
+
+export interface BranchFigures {
+  kind: BranchKind;
+  label: string;
+  partId: string | null;
+  count: number;
+  /** |Z| of the branch (all its placements together) at each frequency, Ω. */
+  impedanceOhm: number[];
+}
+
+export interface PeakFigures {
+  frequencyHz: number;
+  impedanceOhm: number;
+  marginDb: number;
+  /** Labels of the branches whose susceptances cancel there (the capacitive and the inductive side). */
+  capacitiveBranch: string | null;
+  inductiveBranch: string | null;
+  /** |I_branch / I_load| per branch, in branch order. */
+  currentRatio: number[];
+}
+
+export interface PlanFigures {
+  rail: string;
+  title: string;
+  file: string;
+  voltageV: number;
+  targetOhm: number;
+  target: PlanTarget;
+  band: { fromHz: number; toHz: number };
+  perDecade: number;
+  /** The plan's default mounting inductance per placement, H. */
+  mountingH: number;
+  regulator: { rOhm: number | null; lH: number | null } | null;
+  plane: { cF: number; rOhm: number | null } | null;
+  pass: boolean;
+  worstMarginDb: number;
+  worstFrequencyHz: number;
+  worstImpedanceOhm: number;
+  peaks: PeakFigures[];
+  placements: PlacementFigures[];
+  /** Ids of parts whose capacitance at the rail voltage comes from their DC-bias table. */
+  biasDerated: string[];
+  totalPlacements: number;
+  /** Sum of count × cost when every placed part has a cost, else null. */
+  totalCost: number | null;
+  frequenciesHz: number[];
+  impedanceOhm: number[];
+  branches: BranchFigures[];
+  warnings: Diagnostic[];
+}
+
+/** The rail's branches for `placements` (which may differ from the plan's own, e.g. a suggested set). */
+export function railBranches(plan: Plan, placements: readonly Plan['placements'][number][]): { branches: RailBranch[]; figures: PlacementFigures[] } {
+  const branches = fixedBranches(plan);
+  const figures: PlacementFigures[] = [];
+  for (const p of placements) {
+    const placed = placedModel(p.part, plan.voltageV, p.mountingH);
+    branches.push({ kind: 'capacitor', label: `${p.count} × ${p.part.id}`, element: placed.element, count: p.count });
+    figures.push({
+      partId: p.part.id,
+      title: p.part.title,
+      count: p.count,
+      mountingH: p.mountingH,
+      nominalF: p.part.nominal ?? NaN,
+      capacitanceF: placed.capacitanceF,
+      biasFraction: placed.bias.fraction,
+      biasFromTable: placed.bias.fromTable,
+      biasClamped: placed.bias.clamped,
+      voltageRatingV: p.part.voltageV ?? null,
+      cost: p.part.cost ?? null,
+    });
+  }
+  return { branches, figures };
+}
+
+/** Analyse a plan (or the plan with other `placements`) over its band at `perDecade` points per decade. */
+export function analysePlan(plan: Plan, perDecade: number, placements: readonly Plan['placements'][number][] = plan.placements): PlanFigures {
+  const targetOhm = planTargetOhm(plan.voltageV, plan.target);
+  const frequencies = planSweep(plan, perDecade);
+  const { branches, figures } = railBranches(plan, placements);
+  const result = evaluateRail(branches, targetOhm, frequencies);
+  const labelOf = (i: number | null) => (i === null ? null : branches[i].label);
+  const costs = figures.map((f) => f.cost);
+  return {
+    rail: plan.rail,
+    title: plan.title,
+    file: plan.source.path,
+    voltageV: plan.voltageV,
+    targetOhm,
+    target: plan.target,
+    band: { ...plan.band },
+    perDecade,
+    mountingH: plan.mountingH,
+    regulator: plan.regulator ? { rOhm: plan.regulator.rOhm ?? null, lH: plan.regulator.lH ?? null } : null,
+    plane: plan.plane ? { cF: plan.plane.cF, rOhm: plan.plane.rOhm ?? null } : null,
+    pass: result.pass,
+    worstMarginDb: result.worst.marginDb,
+    worstFrequencyHz: result.worst.frequencyHz,
+    worstImpedanceOhm: result.worst.impedanceOhm,
+    peaks: result.peaks.map((p) => ({
+      frequencyHz: p.frequencyHz,
+      impedanceOhm: p.impedanceOhm,
+      marginDb: p.marginDb,
+      capacitiveBranch: labelOf(p.capacitiveBranch),
+      inductiveBranch: labelOf(p.inductiveBranch),
+      currentRatio: p.currentRatio,
+    })),
+    placements: figures,
+    biasDerated: [...new Set(figures.filter((f) => f.biasFromTable).map((f) => f.partId))],
+    totalPlacements: figures.reduce((n, f) => n + f.count, 0),
+    totalCost: costs.every((c) => c !== null) ? figures.reduce((sum, f) => sum + f.count * (f.cost ?? 0), 0) : null,
+    frequenciesHz: Array.from(frequencies),
+    impedanceOhm: Array.from(result.magnitude),
+    branches: branches.map((b, i) => ({
+      kind: b.kind,
+      label: b.label,
+      partId: b.kind === 'capacitor' ? figures[i - (branches.length - figures.length)].partId : null,
+      count: b.count,
+      impedanceOhm: Array.from(result.branchMagnitude[i]),
+    })),
+    warnings: plan.warnings,
+  };
+}

@@ -1,0 +1,134 @@
+// zfolio plan: a rail plan checked against its target impedance, or the capacitors to meet it (--suggest).
+
+import { existsSync, readFileSync, statSync } from 'node:fs';
+import { relative, resolve, sep } from 'node:path';
+import type { PlanFigures } from '../../analysis/plan-figures.js';
+import { analysePlan } from '../../analysis/plan-figures.js';
+import { suggestPlacements } from '../../analysis/plan-suggest.js';
+import { DiagnosticList, formatDiagnostic } from '../../model/diagnostics.js';
+import type { Library } from '../../model/library.js';
+import { readPlan, type Plan } from '../../model/plan.js';
+import { parseYamlSource } from '../../model/source.js';
+import { closest } from '../../model/suggest.js';
+import { parseQuantity } from '../../units/parse.js';
+import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
+import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
+import { loadReported } from '../report.js';
+import { describePlan, describeSuggestion, planJson, suggestionJson } from '../plan-report.js';
+
+export const DEFAULT_MAX_COUNT = 16;
+
+export const planHelp = `Usage: zfolio plan [RAIL|FILE ...] [--json] [--library DIR]
+       zfolio plan RAIL|FILE --suggest [--max-count N] [--only TAGS] [--nodes N] [--json]
+
+Checks a rail plan (plans/*.yaml) against its target impedance Z_t = V·ripple/ΔI
+(or its explicit target) across its band: |Z| of the regulator, plane and every
+placed capacitor in parallel, each capacitor at its capacitance under the rail's
+DC voltage and in series with its mounting inductance. Prints pass or fail, the
+worst margin and where, and every anti-resonance peak. With no RAIL or FILE,
+every plan in the library. A FILE outside plans/ is read as a plan too.
+
+With --suggest, chooses how many of each library capacitor to place (0 to N each)
+so that |Z| stays under the target across the band with the fewest placements,
+or the lowest total cost when every candidate part states a cost. The plan's
+regulator and plane are kept; its listed capacitors are replaced. Parts rated
+below the rail voltage, or above the derating limit (folio.yaml "derating"),
+are not candidates.
+
+Options:
+  --json              print JSON (SI units); one object for one plan, else an array
+  --suggest           choose the capacitors instead of checking the listed ones
+  --max-count N       most placements of any one part (default ${DEFAULT_MAX_COUNT})
+  --only TAGS         candidates: only parts with one of these tags (comma-separated)
+  --nodes N           search budget: nodes before the best set found so far is
+                      reported without proof (default 8,000,000 / (candidates + 20))
+  -l, --library DIR   the library folder (default: the current folder)
+  -h, --help          show this help
+
+Exit status: 0 when the plan was evaluated (pass or fail), 1 when the library or
+plan has errors, 2 on a wrong command line.
+`;
+
+export function plan(args: string[], io: CommandIO): number {
+  const options = { ...LIBRARY_OPTION, json: { type: 'boolean' }, suggest: { type: 'boolean' }, 'max-count': { type: 'string' }, only: { type: 'string' }, nodes: { type: 'string' } } as const;
+  const { values, positionals } = parseCommandLine(args, options, true);
+  if (values.help) {
+    io.out(planHelp);
+    return EXIT_OK;
+  }
+  if (!values.suggest) {
+    for (const name of ['max-count', 'only', 'nodes']) if (values[name] !== undefined) throw new UsageError(`--${name} goes with --suggest`);
+  } else if (positionals.length !== 1) throw new UsageError(`--suggest takes exactly one plan (a rail name or file), found ${positionals.length}`);
+  const maxCount = wholeNumber(values['max-count'], 'max-count', DEFAULT_MAX_COUNT);
+  const nodeLimit = values.nodes === undefined ? undefined : wholeNumber(values.nodes, 'nodes', 0);
+  const onlyTags = typeof values.only === 'string' ? values.only.split(',').map((t) => t.trim()).filter(Boolean) : [];
+
+  const library = loadReported(libraryRoot(values, io), io);
+  if (!library) return EXIT_BAD_INPUT;
+  const plans = selectPlans(library, positionals, io);
+  if (!plans) return EXIT_BAD_INPUT;
+  const perDecade = library.settings.sweep.perDecade;
+
+  if (values.suggest) {
+    const suggestion = suggestPlacements(plans[0], library.parts, { maxCount, onlyTags, derating: library.settings.derating, perDecade, nodeLimit });
+    io.out(values.json ? JSON.stringify(suggestionJson(plans[0], suggestion), null, 2) + '\n' : describeSuggestion(plans[0], suggestion, { maxCount, onlyTags }));
+    return EXIT_OK;
+  }
+  if (plans.length === 0) {
+    io.out(values.json ? '[]\n' : 'no plans in the library (rail plans are YAML files under plans/)\n');
+    return EXIT_OK;
+  }
+  const figures: PlanFigures[] = plans.map((p) => analysePlan(p, perDecade));
+  if (values.json) {
+    const out = positionals.length === 1 ? planJson(figures[0]) : figures.map(planJson);
+    io.out(JSON.stringify(out, null, 2) + '\n');
+  } else io.out(figures.map(describePlan).join('\n'));
+  return EXIT_OK;
+}
+
+function wholeNumber(text: unknown, name: string, fallback: number): number {
+  if (typeof text !== 'string') return fallback;
+  const parsed = parseQuantity(text, 'ratio');
+  if (!parsed.ok || !Number.isInteger(parsed.value) || parsed.value < 1) throw new UsageError(`--${name}: expected a whole number of 1 or more, found ${JSON.stringify(text)}`);
+  return parsed.value;
+}
+
+/** Plans named by rail or file, in the order given; every plan when none is named. Undefined on errors. */
+function selectPlans(library: Library, names: string[], io: CommandIO): Plan[] | undefined {
+  if (names.length === 0) return library.plans;
+  const out: Plan[] = [];
+  for (const name of names) {
+    const byRail = library.plans.find((p) => p.rail === name);
+    if (byRail) {
+      out.push(byRail);
+      continue;
+    }
+    const absolute = resolve(io.cwd, name);
+    const path = relative(library.root, absolute).split(sep).join('/');
+    const byFile = library.plans.find((p) => p.source.path === path);
+    if (byFile) {
+      out.push(byFile);
+      continue;
+    }
+    if (existsSync(absolute) && statSync(absolute).isFile()) {
+      // Messages name a file outside the library as the user can find it: relative to the current folder.
+      const shown = relative(io.cwd, absolute).split(sep).join('/');
+      const loose = readLoosePlan(library, shown, readFileSync(absolute, 'utf8'), io);
+      if (!loose) return undefined;
+      out.push(loose);
+      continue;
+    }
+    const guess = closest(name, library.plans.map((p) => p.rail));
+    throw new UsageError(`no plan with rail or file ${JSON.stringify(name)}${guess ? `; did you mean ${guess}?` : library.plans.length === 0 ? ' (the library has no plans/ folder or it is empty)' : ''}`);
+  }
+  return out;
+}
+
+/** A plan file outside plans/, read against the library's parts; its problems are reported like the library's. */
+function readLoosePlan(library: Library, path: string, text: string, io: CommandIO): Plan | undefined {
+  const diagnostics = new DiagnosticList();
+  const source = parseYamlSource(path, text, diagnostics);
+  const read = source && readPlan({ source, diagnostics }, library.partsById, library.settings.derating);
+  for (const d of diagnostics.sorted()) io.err(formatDiagnostic(d) + '\n');
+  return diagnostics.errorCount > 0 ? undefined : read;
+}

@@ -1,0 +1,128 @@
+// What `zfolio plan` prints: the human form (engineering notation) and the JSON form (SI units).
+
+import type { PlanFigures } from '../analysis/plan-figures.js';
+import type { Suggestion } from '../analysis/plan-suggest.js';
+import { formatDiagnostic } from '../model/diagnostics.js';
+import type { Plan } from '../model/plan.js';
+import { formatEng, formatPercent } from '../units/format.js';
+
+/** A margin in dB with its sign: "+1.25 dB", "−3.40 dB". */
+export function formatMargin(db: number): string {
+  if (Number.isNaN(db)) return '—';
+  if (!Number.isFinite(db)) return db > 0 ? '+∞ dB' : '−∞ dB';
+  return `${db >= 0 ? '+' : '−'}${Math.abs(db).toFixed(2)} dB`;
+}
+
+function targetLine(f: PlanFigures): string {
+  const t = f.target;
+  const how = t.kind === 'explicit' ? 'as given' : `= ${formatEng(f.voltageV, 'V')} × ${formatPercent(t.ripple)} / ${formatEng(t.stepA, 'A')}`;
+  return `${formatEng(f.targetOhm, 'Ω')} ${how}`;
+}
+
+function resultLine(f: PlanFigures): string {
+  if (f.branches.length === 0) return 'FAIL  nothing is on the rail yet';
+  const verdict = f.pass ? 'PASS' : 'FAIL';
+  return `${verdict}  worst margin ${formatMargin(f.worstMarginDb)} at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')})`;
+}
+
+function branchLines(f: PlanFigures): string[] {
+  const rows: [string, string][] = [];
+  if (f.regulator) rows.push(['regulator', [f.regulator.rOhm !== null ? formatEng(f.regulator.rOhm, 'Ω') : '', f.regulator.lH !== null ? formatEng(f.regulator.lH, 'H') : ''].filter(Boolean).join(' + ')]);
+  if (f.plane) rows.push(['plane', [formatEng(f.plane.cF, 'F'), f.plane.rOhm !== null ? formatEng(f.plane.rOhm, 'Ω') : ''].filter(Boolean).join(' + ')]);
+  for (const p of f.placements) {
+    const bias = p.biasFromTable
+      ? `${formatEng(p.capacitanceF, 'F')} at ${formatEng(f.voltageV, 'V')} (${formatPercent(p.biasFraction)} of ${formatEng(p.nominalF, 'F')}, DC-bias table${p.biasClamped ? ', nearest end' : ''})`
+      : `${formatEng(p.nominalF, 'F')} (no DC-bias table: nominal)`;
+    rows.push([`${p.count} × ${p.partId}`, `${bias}, mounting ${formatEng(p.mountingH, 'H')}`]);
+  }
+  if (rows.length === 0) return ['    none'];
+  const width = Math.max(0, ...rows.map(([a]) => a.length));
+  return rows.map(([a, b]) => `    ${a.padEnd(width)}  ${b}`);
+}
+
+function peakLines(f: PlanFigures): string[] {
+  if (f.peaks.length === 0) return ['    none in the band'];
+  return f.peaks.map((p) => {
+    const between = p.capacitiveBranch && p.inductiveBranch ? `  between ${p.capacitiveBranch} and ${p.inductiveBranch}` : '';
+    return `    ${formatEng(p.frequencyHz, 'Hz').padEnd(11)} |Z| ${formatEng(p.impedanceOhm, 'Ω').padEnd(9)} margin ${formatMargin(p.marginDb).padEnd(10)}${between}`;
+  });
+}
+
+/** The human form of one analysed plan. */
+export function describePlan(f: PlanFigures): string {
+  const lines = [`${f.rail}${f.title !== f.rail ? `  ·  ${f.title}` : ''}  (${f.file})`];
+  lines.push(`  target     ${targetLine(f)}`);
+  lines.push(`  band       ${formatEng(f.band.fromHz, 'Hz')} to ${formatEng(f.band.toHz, 'Hz')}, ${f.perDecade} points per decade, peaks refined`);
+  lines.push(`  result     ${resultLine(f)}`);
+  lines.push(`  branches`, ...branchLines(f));
+  lines.push(`  peaks`, ...peakLines(f));
+  if (f.biasDerated.length > 0) lines.push(`  DC bias    capacitance at ${formatEng(f.voltageV, 'V')} from the DC-bias table of ${f.biasDerated.join(', ')}`);
+  if (f.warnings.length > 0) lines.push('  warnings', ...f.warnings.map((w) => `    ${formatDiagnostic(w)}`));
+  return lines.join('\n') + '\n';
+}
+
+/** The JSON form: every figure of the plan except the curves (SI units). */
+export function planJson(f: PlanFigures): Record<string, unknown> {
+  const out: Record<string, unknown> = { ...f };
+  delete out.frequenciesHz;
+  delete out.impedanceOhm;
+  out.branches = f.branches.map((b) => ({ kind: b.kind, label: b.label, partId: b.partId, count: b.count }));
+  return out;
+}
+
+export interface SuggestRequest {
+  maxCount: number;
+  onlyTags: readonly string[];
+}
+
+function statusLine(s: Suggestion, request: SuggestRequest): string {
+  const of = `0 to ${request.maxCount} of each of ${s.candidateIds.length} candidate${s.candidateIds.length === 1 ? '' : 's'}`;
+  switch (s.status) {
+    case 'optimal':
+      return `optimal, proven by search (${s.nodes} nodes)`;
+    case 'unmeetable':
+      return `cannot be met: no choice of ${of} keeps |Z| under the target across the band (proven, ${s.nodes} nodes)`;
+    case 'unproven':
+      return s.placements.length > 0
+        ? `best found in ${s.nodes} nodes; a better set has not been ruled out (--nodes raises the budget)`
+        : `no passing set found in ${s.nodes} nodes, and none ruled out (--nodes raises the budget)`;
+  }
+}
+
+/** The human form of a suggestion. */
+export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRequest): string {
+  const goal = s.objective === 'cost' ? 'lowest total cost' : 'fewest placements';
+  const lines = [`${plan.rail}: suggested capacitors (${goal}; ${s.candidateIds.length} candidates${request.onlyTags.length ? ` tagged ${request.onlyTags.join(' or ')}` : ''})`];
+  lines.push(`  status     ${statusLine(s, request)}`);
+  if (s.skipped.length > 0) lines.push(`  left out   ${s.skipped.map((k) => `${k.partId} (${k.reason === 'over-rating' ? 'rated below the rail' : 'above derating'})`).join(', ')}`);
+  if (s.unratedIds.length > 0) {
+    const one = s.unratedIds.length === 1;
+    lines.push(`  unrated    ${s.unratedIds.join(', ')} ${one ? 'states' : 'state'} no voltage rating; check ${one ? 'it' : 'them'} against the rail by hand`);
+  }
+  if (s.figures) {
+    const f = s.figures;
+    lines.push(`  target     ${targetLine(f)}`);
+    lines.push(`  result     ${resultLine(f)}`);
+    lines.push(`  placements ${f.totalPlacements}${f.totalCost !== null ? `, total cost ${Number(f.totalCost.toPrecision(6))}` : ''}`, ...branchLines(f));
+    lines.push(`  peaks`, ...peakLines(f));
+    lines.push('  as plan YAML', '    capacitors:', ...s.placements.map((p) => `      - {part: ${p.part.id}, count: ${p.count}}`));
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** The JSON form of a suggestion (SI units). */
+export function suggestionJson(plan: Plan, s: Suggestion): Record<string, unknown> {
+  return {
+    rail: plan.rail,
+    objective: s.objective,
+    status: s.status,
+    proven: s.status !== 'unproven',
+    nodes: s.nodes,
+    cutsHz: s.cutsHz,
+    candidates: s.candidateIds,
+    skipped: s.skipped,
+    unrated: s.unratedIds,
+    placements: s.placements.map((p) => ({ partId: p.part.id, count: p.count, mountingH: p.mountingH })),
+    plan: s.figures ? planJson(s.figures) : null,
+  };
+}

@@ -1,0 +1,219 @@
+// The plan file (plans/*.yaml): a power rail, its target impedance and the capacitors placed on it.
+
+import type { Node } from 'yaml';
+import { formatEng, formatPercent } from '../units/format.js';
+import type { Diagnostic, DiagnosticList, SourcePosition } from './diagnostics.js';
+import { Fields, readQuantity, scalarText, type ReadContext } from './fields.js';
+import { ID_PATTERN, type Part } from './part.js';
+import type { SourceFile } from './source.js';
+import { closest } from './suggest.js';
+
+export type PlanTarget = { kind: 'explicit'; ohms: number } | { kind: 'ripple'; ripple: number; stepA: number };
+
+export interface Placement {
+  part: Part;
+  /** Identical placements in parallel. */
+  count: number;
+  /** Mounting (pad and via loop) inductance of each placement, H: the entry's own or the plan's default. */
+  mountingH: number;
+  /** Where the entry's part id is written. */
+  at: SourcePosition;
+}
+
+export interface Plan {
+  rail: string;
+  title: string;
+  notes?: string;
+  voltageV: number;
+  target: PlanTarget;
+  band: { fromHz: number; toHz: number };
+  /** Default mounting inductance per placement, H (zero allowed: an ideal mount). */
+  mountingH: number;
+  regulator?: { rOhm?: number; lH?: number };
+  plane?: { cF: number; rOhm?: number };
+  placements: Placement[];
+  /** Warnings about this plan (also among the library's diagnostics), for its page. */
+  warnings: Diagnostic[];
+  source: SourceFile;
+  /** Where the rail name is written. */
+  at: SourcePosition;
+}
+
+const PLAN_FIELDS = ['rail', 'title', 'notes', 'voltage', 'ripple', 'step', 'target', 'band', 'mounting', 'regulator', 'plane', 'capacitors'];
+const ENTRY_FIELDS = ['part', 'count', 'mounting'];
+
+export type VoltageStress = 'ok' | 'unrated' | 'above-derating' | 'over-rating';
+
+/** How a rail voltage stands against a part's rating: over it, above `derating` × it (common practice: 80%), or fine. */
+export function voltageStress(part: Part, railV: number, derating: number): VoltageStress {
+  if (part.voltageV === undefined) return 'unrated';
+  if (railV > part.voltageV) return 'over-rating';
+  if (railV > derating * part.voltageV) return 'above-derating';
+  return 'ok';
+}
+
+/** Read one plan file against the library's parts. Returns undefined when it has errors (all reported). */
+export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>, derating: number): Plan | undefined {
+  const { diagnostics } = ctx;
+  const before = diagnostics.errorCount;
+  const warnings: Diagnostic[] = [];
+  const warn = (at: SourcePosition, message: string) => {
+    diagnostics.warning(at, message);
+    warnings.push({ ...at, severity: 'warning', message });
+  };
+  const root = Fields.of(ctx, ctx.source.document.contents as Node | null, '');
+  if (!root) return undefined;
+  root.expect(PLAN_FIELDS, ['rail', 'voltage', 'band', 'mounting']);
+
+  const rail = root.text('rail', { pattern: ID_PATTERN, patternHint: 'a rail name of letters, digits, ".", "_" and "-" only' });
+  const voltageV = root.quantity('voltage', 'voltage');
+  const target = readTarget(root);
+  const band = readBand(root);
+  const mountingH = root.quantity('mounting', 'inductance', { allowZero: true });
+
+  let regulator: Plan['regulator'];
+  const reg = root.map('regulator');
+  if (reg) {
+    reg.expect(['r', 'l']);
+    regulator = { rOhm: reg.quantity('r', 'resistance'), lH: reg.quantity('l', 'inductance') };
+    if (!reg.has('r') && !reg.has('l')) reg.error(undefined, 'regulator: expected its output resistance "r", inductance "l" or both, found neither');
+  }
+  let plane: Plan['plane'];
+  const pl = root.map('plane');
+  if (pl) {
+    pl.expect(['c', 'r'], ['c']);
+    const cF = pl.quantity('c', 'capacitance');
+    if (cF !== undefined) plane = { cF, rOhm: pl.quantity('r', 'resistance') };
+  }
+
+  const placements: Placement[] = [];
+  const list = root.seq('capacitors');
+  list?.items.forEach((item, i) => {
+    const label = `capacitors[${i}]`;
+    const entry = Fields.of(ctx, item, label);
+    if (!entry) return;
+    entry.expect(ENTRY_FIELDS, ['part', 'count']);
+    const part = readPlacedPart(entry, partsById);
+    const count = readCount(ctx, entry);
+    const ownMounting = entry.quantity('mounting', 'inductance', { allowZero: true });
+    if (!part || count === undefined || (entry.has('mounting') && ownMounting === undefined)) return;
+    const at = entry.position('part');
+    if (voltageV !== undefined) {
+      const stress = voltageStress(part, voltageV, derating);
+      const rating = part.voltageV ?? 0;
+      if (stress === 'over-rating') {
+        entry.error('part', `the rail's ${formatEng(voltageV, 'V')} exceeds the ${formatEng(rating, 'V')} rating of ${part.id}; choose a part rated above the rail`);
+      } else if (stress === 'above-derating') {
+        warn(at, `${label}.part: the rail's ${formatEng(voltageV, 'V')} is ${formatPercent(voltageV / rating)} of the ${formatEng(rating, 'V')} rating of ${part.id}, above the derating limit of ${formatPercent(derating)} (folio.yaml "derating")`);
+      } else if (stress === 'unrated') {
+        warn(at, `${label}.part: ${part.id} states no voltage rating, so the rail's ${formatEng(voltageV, 'V')} cannot be checked against it`);
+      }
+    }
+    placements.push({ part, count, mountingH: ownMounting ?? mountingH ?? 0, at });
+  });
+
+  if (!reg && !pl && (!list || list.items.length === 0)) {
+    warn(root.position(), 'the rail has no regulator, plane or capacitors yet; "zfolio plan --suggest" can choose capacitors for it');
+  }
+  if (diagnostics.errorCount > before || rail === undefined || voltageV === undefined || !target || !band || mountingH === undefined) return undefined;
+  return {
+    rail,
+    title: root.text('title') ?? rail,
+    notes: root.text('notes'),
+    voltageV,
+    target,
+    band,
+    mountingH,
+    regulator,
+    plane,
+    placements,
+    warnings,
+    source: ctx.source,
+    at: root.position('rail'),
+  };
+}
+
+/** Either an explicit target impedance, or ripple and step current for Z_t = V·ripple/ΔI; not both, not neither. */
+function readTarget(root: Fields): PlanTarget | undefined {
+  const explicit = root.has('target');
+  const fromRipple = root.has('ripple') || root.has('step');
+  if (explicit && fromRipple) {
+    root.error('target', `give either "target" or "ripple" and "step" (Z_t = V·ripple/ΔI), not both`);
+    return undefined;
+  }
+  if (explicit) {
+    const ohms = root.quantity('target', 'resistance');
+    return ohms === undefined ? undefined : { kind: 'explicit', ohms };
+  }
+  if (!fromRipple) {
+    root.error(undefined, 'missing the target impedance: give "ripple" and "step" (Z_t = V·ripple/ΔI, e.g. ripple: 3% and step: 6A) or "target" (e.g. target: 4.5m)');
+    return undefined;
+  }
+  const ripple = root.ratio('ripple');
+  const stepA = root.quantity('step', 'current');
+  if (!root.has('ripple')) root.error(undefined, 'missing field "ripple" (the allowed ripple as a fraction of the voltage, e.g. 3%), needed with "step"');
+  if (!root.has('step')) root.error(undefined, 'missing field "step" (the load\'s step current ΔI, e.g. 6A), needed with "ripple"');
+  if (ripple !== undefined && ripple >= 1) {
+    root.error('ripple', `expected a fraction of the rail voltage below 100%, found ${JSON.stringify(scalarText(root.valueNode('ripple')))}`);
+    return undefined;
+  }
+  return ripple !== undefined && stepA !== undefined ? { kind: 'ripple', ripple, stepA } : undefined;
+}
+
+function readBand(root: Fields): Plan['band'] | undefined {
+  const band = root.map('band');
+  if (!band) return undefined;
+  band.expect(['from', 'to'], ['from', 'to']);
+  const fromHz = band.quantity('from', 'frequency');
+  const toHz = band.quantity('to', 'frequency');
+  if (fromHz === undefined || toHz === undefined) return undefined;
+  if (!(toHz > fromHz)) {
+    band.error('to', `expected a frequency above band.from (${formatEng(fromHz, 'Hz')}), found ${formatEng(toHz, 'Hz')}: the band is empty`);
+    return undefined;
+  }
+  return { fromHz, toHz };
+}
+
+function readPlacedPart(entry: Fields, partsById: ReadonlyMap<string, Part>): Part | undefined {
+  const id = entry.text('part');
+  if (id === undefined) return undefined;
+  const part = partsById.get(id);
+  if (!part) {
+    const guess = closest(id, partsById.keys());
+    entry.error('part', `no part with id ${JSON.stringify(id)} in the library${guess ? `; did you mean "${guess}"?` : ''}`);
+    return undefined;
+  }
+  if (part.behavesAs !== 'capacitor' || part.nominal === undefined) {
+    const article = (word: string) => (/^[aeiou]/.test(word) ? `an ${word}` : `a ${word}`);
+    const what = part.kind === 'network' ? `a network that behaves as ${part.behavesAs ? article(part.behavesAs) : 'nothing declared'}` : article(part.kind);
+    entry.error('part', `${part.id} is ${what}; a plan places capacitors (or networks with "behaves-as: capacitor")`);
+    return undefined;
+  }
+  return part;
+}
+
+function readCount(ctx: ReadContext, entry: Fields): number | undefined {
+  if (!entry.has('count')) return undefined;
+  const node = entry.valueNode('count');
+  const value = readQuantity(ctx, node, entry.label('count'), 'ratio', { allowZero: true, allowNegative: true });
+  if (value === undefined) return undefined;
+  if (!Number.isInteger(value) || value < 1) {
+    entry.error('count', `expected a whole number of placements, 1 or more, found ${JSON.stringify(scalarText(node))}`);
+    return undefined;
+  }
+  return value;
+}
+
+/** Plans with a rail name already taken are reported and dropped; the rest keep their order. */
+export function uniqueRails(plans: readonly Plan[], diagnostics: DiagnosticList): Plan[] {
+  const seen = new Map<string, Plan>();
+  return plans.filter((plan) => {
+    const earlier = seen.get(plan.rail);
+    if (earlier) {
+      diagnostics.error(plan.at, `duplicate rail "${plan.rail}": already planned at ${earlier.at.file}:${earlier.at.line}:${earlier.at.column}`);
+      return false;
+    }
+    seen.set(plan.rail, plan);
+    return true;
+  });
+}

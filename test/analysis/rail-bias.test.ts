@@ -1,0 +1,79 @@
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { capacitor, inductor, parallel, resistor, series, type Element } from '../../src/circuit/element.js';
+import { biasFraction, scaleCapacitance } from '../../src/analysis/dc-bias.js';
+import { placedModel } from '../../src/analysis/plan-figures.js';
+import { loadLibrary } from '../../src/model/library.js';
+
+// Linear interpolation between table points, clamped at the ends (common practice for DC-bias tables;
+// the arithmetic is checked by hand in each comment).
+const table = [
+  { voltageV: 1, fraction: 0.9 },
+  { voltageV: 3.3, fraction: 0.6 },
+  { voltageV: 6.3, fraction: 0.35 },
+];
+
+describe('biasFraction', () => {
+  it('no table: nominal capacitance', () => {
+    expect(biasFraction([], 5)).toEqual({ fraction: 1, fromTable: false, clamped: false });
+  });
+  it('on a table point: that point', () => {
+    expect(biasFraction(table, 3.3)).toEqual({ fraction: 0.6, fromTable: true, clamped: false });
+  });
+  it('between points: linear, 2.15 V is halfway from 1 V (90 %) to 3.3 V (60 %) → 75 %', () => {
+    const b = biasFraction(table, 2.15);
+    expect(b.fraction).toBeCloseTo(0.75, 14);
+    expect(b.clamped).toBe(false);
+  });
+  it('4.8 V: half of the way from 3.3 V (60 %) to 6.3 V (35 %) → 47.5 %', () => {
+    expect(biasFraction(table, 4.8).fraction).toBeCloseTo(0.475, 14);
+  });
+  it('outside the table: clamped to the nearest end, and says so', () => {
+    expect(biasFraction(table, 0.5)).toEqual({ fraction: 0.9, fromTable: true, clamped: true });
+    expect(biasFraction(table, 10)).toEqual({ fraction: 0.35, fromTable: true, clamped: true });
+  });
+});
+
+describe('scaleCapacitance', () => {
+  const collect = (e: Element, out: number[] = []): number[] => {
+    if (e.type === 'C') out.push(e.farads);
+    if (e.type === 'series' || e.type === 'parallel') e.parts.forEach((p) => collect(p, out));
+    return out;
+  };
+  it('scales every capacitance of a tree and nothing else', () => {
+    const tree = parallel(series(resistor(0.004), inductor(0.9e-9), capacitor(10e-6)), series(resistor(0.2), inductor(0.2e-9), capacitor(1e-9)));
+    const scaled = scaleCapacitance(tree, 0.5);
+    expect(collect(scaled)).toEqual([5e-6, 0.5e-9]);
+    expect(JSON.stringify(scaled).replace(/"farads":[^,}]+/g, '')).toBe(JSON.stringify(tree).replace(/"farads":[^,}]+/g, ''));
+  });
+  it('returns the same tree when nothing changes, so its compiled kernel is reused', () => {
+    const tree = series(resistor(0.01), capacitor(1e-6));
+    expect(scaleCapacitance(tree, 1)).toBe(tree);
+  });
+});
+
+describe('placed parts from the fixture library (invented parts)', () => {
+  const { library } = loadLibrary(fileURLToPath(new URL('../fixtures/rail-library', import.meta.url)));
+  it('loads', () => {
+    expect(library).toBeDefined();
+  });
+  const part = (id: string) => library!.partsById.get(id)!;
+
+  it('RT-C-22U at 1 V keeps 90 % of 22 µF (its table point) and mounts in series with the mounting L', () => {
+    const placed = placedModel(part('RT-C-22U'), 1, 0.3e-9);
+    expect(placed.bias).toEqual({ fraction: 0.9, fromTable: true, clamped: false });
+    expect(placed.capacitanceF).toBeCloseTo(19.8e-6, 18);
+    expect(placed.element.type).toBe('series');
+  });
+  it('RT-C-4U7 at 1 V: between 0.5 V (96 %) and 2 V (80 %), a third of the way → 90.67 %', () => {
+    expect(placedModel(part('RT-C-4U7'), 1, 0).bias.fraction).toBeCloseTo(0.96 - 0.16 / 3, 14);
+  });
+  it('a part without a table keeps its nominal value', () => {
+    const placed = placedModel(part('RT-C-1U'), 1, 0.3e-9);
+    expect(placed.bias.fromTable).toBe(false);
+    expect(placed.capacitanceF).toBe(1e-6);
+  });
+  it('the same part, bias and mounting give the same element (kernels are shared between analyses)', () => {
+    expect(placedModel(part('RT-C-22U'), 1, 0.3e-9).element).toBe(placedModel(part('RT-C-22U'), 1, 0.3e-9).element);
+  });
+});

@@ -1,0 +1,166 @@
+import { cpSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, describe, expect, it } from 'vitest';
+import { main } from '../../src/cli/main.js';
+import { targetImpedance } from '../../src/analysis/rail.js';
+
+// `zfolio plan` run in-process on the fixture library (invented parts and rails).
+const fixture = fileURLToPath(new URL('../fixtures/rail-library', import.meta.url));
+
+async function run(args: string[], cwd = fixture) {
+  let out = '';
+  let err = '';
+  const code = await main(args, { cwd, env: {}, isTTY: false, out: (t) => (out += t), err: (t) => (err += t) });
+  return { code, out, err };
+}
+
+const temp: string[] = [];
+afterAll(() => temp.forEach((d) => rmSync(d, { recursive: true, force: true })));
+const tempDir = () => {
+  const dir = mkdtempSync(join(tmpdir(), 'zfolio-plan-cli-'));
+  temp.push(dir);
+  return dir;
+};
+
+describe('zfolio plan --json', () => {
+  it('has the keys targetOhm, pass, worstMarginDb, worstFrequencyHz and peaks [{frequencyHz, impedanceOhm}]', async () => {
+    const { code, out } = await run(['plan', 'VDD_TEST', '--json']);
+    expect(code).toBe(0);
+    const json = JSON.parse(out);
+    expect(Object.keys(json)).toEqual(expect.arrayContaining(['targetOhm', 'pass', 'worstMarginDb', 'worstFrequencyHz', 'peaks']));
+    // Z_t = V·ripple/ΔI = 1 V × 5 % / 2 A = 25 mΩ (Smith et al., 1999)
+    expect(json.targetOhm).toBeCloseTo(targetImpedance(1, 0.05, 2), 15);
+    expect(json.targetOhm).toBeCloseTo(0.025, 15);
+    expect(json.pass).toBe(true);
+    expect(json.worstMarginDb).toBeGreaterThan(0);
+    expect(json.worstFrequencyHz).toBeGreaterThanOrEqual(1e5);
+    expect(json.worstFrequencyHz).toBeLessThanOrEqual(1e8);
+    expect(json.peaks.length).toBeGreaterThan(0);
+    for (const p of json.peaks) {
+      expect(typeof p.frequencyHz).toBe('number');
+      expect(p.impedanceOhm).toBeLessThanOrEqual(json.targetOhm);
+      // each peak's margin is 20·log10(Z_t/|Z|)
+      expect(p.marginDb).toBeCloseTo(20 * Math.log10(json.targetOhm / p.impedanceOhm), 9);
+    }
+    // DC bias: RT-C-22U at 1 V keeps 90 % (its table), RT-C-1U has no table.
+    const bulk = json.placements.find((p: { partId: string }) => p.partId === 'RT-C-22U');
+    expect(bulk.biasFraction).toBe(0.9);
+    expect(bulk.biasFromTable).toBe(true);
+    expect(json.biasDerated).toEqual(['RT-C-22U', 'RT-C-4U7']);
+    expect(json.branches.map((b: { label: string }) => b.label)).toEqual(['regulator', 'plane', '6 × RT-C-22U', '4 × RT-C-4U7', '6 × RT-C-1U', '8 × RT-C-100N', '4 × RT-C-10N']);
+  });
+
+  it('a failing rail says so, with its derating warning', async () => {
+    const json = JSON.parse((await run(['plan', 'VDD_WEAK', '--json'])).out);
+    expect(json.pass).toBe(false);
+    expect(json.worstMarginDb).toBeLessThan(0);
+    expect(json.targetOhm).toBe(0.01);
+    expect(json.warnings).toHaveLength(1);
+    expect(json.warnings[0]).toMatchObject({ file: 'plans/vdd-weak.yaml', line: 10, column: 12, severity: 'warning' });
+  });
+
+  it('every plan when none is named: an array', async () => {
+    const json = JSON.parse((await run(['plan', '--json'])).out);
+    expect(json.map((p: { rail: string }) => p.rail)).toEqual(['VDD_TEST', 'VDD_WEAK']);
+  });
+
+  it('is byte-identical from run to run', async () => {
+    expect((await run(['plan', '--json'])).out).toBe((await run(['plan', '--json'])).out);
+  });
+});
+
+describe('zfolio plan (human form)', () => {
+  it('names the target, the verdict, the worst margin and the peaks, by file path too', async () => {
+    const { code, out } = await run(['plan', 'plans/vdd-test.yaml']);
+    expect(code).toBe(0);
+    expect(out).toContain('target     25 mΩ = 1 V × 5% / 2 A');
+    expect(out).toMatch(/result {5}PASS {2}worst margin \+\d+\.\d\d dB at [\d.]+ [kM]?Hz/);
+    expect(out).toContain('6 × RT-C-22U   19.8 µF at 1 V (90% of 22 µF, DC-bias table), mounting 300 pH');
+    expect(out).toMatch(/peaks\n {4}[\d.]+ [kM]Hz/);
+  });
+  it('a failing plan shows FAIL and its warning', async () => {
+    const { out } = await run(['plan', 'VDD_WEAK']);
+    expect(out).toMatch(/result {5}FAIL {2}worst margin −\d+\.\d\d dB/);
+    expect(out).toContain('warnings\n    plans/vdd-weak.yaml:10:12: warning: capacitors[1].part:');
+  });
+});
+
+describe('zfolio plan --suggest', () => {
+  it('chooses a set that passes, proven optimal, and prints it as plan YAML', async () => {
+    const { code, out } = await run(['plan', 'VDD_TEST', '--suggest']);
+    expect(code).toBe(0);
+    expect(out).toContain('status     optimal, proven by search');
+    expect(out).toContain('left out   RT-C-1U-LV (above derating)');
+    expect(out).toMatch(/result {5}PASS/);
+    expect(out).toMatch(/as plan YAML\n {4}capacitors:\n {6}- \{part: RT-C-/);
+  });
+  it('--json: the chosen placements and the analysed plan', async () => {
+    const json = JSON.parse((await run(['plan', 'VDD_TEST', '--suggest', '--json'])).out);
+    expect(json.status).toBe('optimal');
+    expect(json.proven).toBe(true);
+    // RT-C-2U2-NR states no cost, so the goal is the fewest placements.
+    expect(json.objective).toBe('count');
+    expect(json.plan.pass).toBe(true);
+    const total = json.placements.reduce((n: number, p: { count: number }) => n + p.count, 0);
+    expect(json.plan.totalPlacements).toBe(total);
+    expect(json.candidates).not.toContain('RT-C-1U-LV');
+    expect(json.candidates).not.toContain('RT-L-1U');
+  });
+  it('with costs on every candidate (--only decoupling), the goal is the lowest cost', async () => {
+    const json = JSON.parse((await run(['plan', 'VDD_TEST', '--suggest', '--only', 'decoupling,bulk', '--json'])).out);
+    expect(json.objective).toBe('cost');
+    expect(json.status).toBe('optimal');
+    expect(json.plan.pass).toBe(true);
+    expect(json.plan.totalCost).toBeGreaterThan(0);
+  });
+  it('a rail that cannot be met is reported as such, not as a pass', async () => {
+    const { code, out } = await run(['plan', 'VDD_TEST', '--suggest', '--only', 'hf', '--max-count', '2']);
+    expect(code).toBe(0);
+    expect(out).toContain('status     cannot be met: no choice of 0 to 2 of each of 1 candidate keeps |Z| under the target across the band (proven');
+    expect(out).not.toContain('PASS');
+    const json = JSON.parse((await run(['plan', 'VDD_TEST', '--suggest', '--only', 'hf', '--max-count', '2', '--json'])).out);
+    expect(json.status).toBe('unmeetable');
+    expect(json.plan).toBeNull();
+    expect(json.placements).toEqual([]);
+  });
+});
+
+describe('plan files, paths and misuse', () => {
+  it('reads a plan file outside plans/ against the library, and reports its errors with file:line:col', async () => {
+    const dir = tempDir();
+    const good = join(dir, 'draft.yaml');
+    writeFileSync(good, 'rail: DRAFT\nvoltage: 1V\ntarget: 20m\nband: {from: 1M, to: 10M}\nmounting: 0.3nH\ncapacitors:\n  - {part: RT-C-100N, count: 10}\n');
+    const ok = await run(['plan', good, '--json']);
+    expect(ok.code).toBe(0);
+    expect(JSON.parse(ok.out).rail).toBe('DRAFT');
+    const bad = join(dir, 'bad.yaml');
+    writeFileSync(bad, 'rail: DRAFT\nvoltage: 1V\ntarget: 20m\nband: {from: 1M, to: 10M}\nmounting: 0.3nH\ncapacitors:\n  - {part: RT-C-100N, count: 0}\n');
+    const failed = await run(['plan', 'bad.yaml', '--library', fixture], dir);
+    expect(failed.code).toBe(1);
+    expect(failed.err.split('\n')).toContain('bad.yaml:7:30: capacitors[0].count: expected a whole number of placements, 1 or more, found "0"');
+  });
+  it('an unknown rail is misuse (exit 2) with a suggestion', async () => {
+    const { code, err } = await run(['plan', 'VDD_TSET']);
+    expect(code).toBe(2);
+    expect(err).toContain('no plan with rail or file "VDD_TSET"; did you mean VDD_TEST?');
+  });
+  it('--max-count without --suggest, and --suggest without one plan, are misuse', async () => {
+    expect((await run(['plan', 'VDD_TEST', '--max-count', '3'])).code).toBe(2);
+    expect((await run(['plan', '--suggest'])).code).toBe(2);
+    expect((await run(['plan', 'VDD_TEST', '--suggest', '--max-count', '0'])).code).toBe(2);
+  });
+  it('a library without plans/ says so', async () => {
+    const dir = tempDir();
+    cpSync(join(fixture, 'parts'), join(dir, 'parts'), { recursive: true });
+    const { code, out } = await run(['plan'], dir);
+    expect(code).toBe(0);
+    expect(out).toBe('no plans in the library (rail plans are YAML files under plans/)\n');
+  });
+  it('--help prints the usage', async () => {
+    const { code, out } = await run(['plan', '--help']);
+    expect(code).toBe(0);
+    expect(out).toMatch(/^Usage: zfolio plan/);
+  });
+});

@@ -1,0 +1,160 @@
+import { cpSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, describe, expect, it } from 'vitest';
+import { DiagnosticList, formatDiagnostic } from '../../src/model/diagnostics.js';
+import { loadLibrary } from '../../src/model/library.js';
+import { readPlan, uniqueRails, voltageStress } from '../../src/model/plan.js';
+import { parseYamlSource } from '../../src/model/source.js';
+
+// Plan files are checked like part files: every problem at file:line:col with what was expected and what
+// was found. The fixture library's parts are invented (see its files).
+const fixture = fileURLToPath(new URL('../fixtures/rail-library', import.meta.url));
+const { library } = loadLibrary(fixture);
+const partsById = library!.partsById;
+
+const GOOD: Record<string, string> = {
+  rail: 'VDD_X',
+  voltage: '1.0V',
+  ripple: '5%',
+  step: '2A',
+  band: '{from: 100k, to: 100M}',
+  mounting: '0.3nH',
+  capacitors: '\n  - {part: RT-C-1U, count: 2}',
+};
+
+/** A plan file: the good fields with some replaced ('' drops a field), in this order, extras last. */
+function planText(over: Record<string, string> = {}): string {
+  const fields = { ...GOOD, ...over };
+  return Object.entries(fields)
+    .filter(([, v]) => v !== '')
+    .map(([k, v]) => `${k}: ${v}`)
+    .join('\n') + '\n';
+}
+
+function read(text: string, derating = 0.8) {
+  const diagnostics = new DiagnosticList();
+  const source = parseYamlSource('plans/bad.yaml', text, diagnostics);
+  const plan = source ? readPlan({ source, diagnostics }, partsById, derating) : undefined;
+  return { plan, messages: diagnostics.sorted().map(formatDiagnostic) };
+}
+
+describe('a good plan', () => {
+  it('reads every field in SI units', () => {
+    const { plan, messages } = read(planText({ regulator: '{r: 2m, l: 15nH}', plane: '{c: 10nF, r: 3m}', capacitors: '\n  - {part: RT-C-1U, count: 2}\n  - {part: RT-C-22U, count: 3, mounting: 0.5nH}' }));
+    expect(messages).toEqual([]);
+    expect(plan).toMatchObject({ rail: 'VDD_X', title: 'VDD_X', voltageV: 1, target: { kind: 'ripple', ripple: 0.05, stepA: 2 }, band: { fromHz: 1e5, toHz: 1e8 }, mountingH: 0.3e-9 });
+    expect(plan!.regulator).toEqual({ rOhm: 2e-3, lH: 15e-9 });
+    expect(plan!.plane).toEqual({ cF: 10e-9, rOhm: 3e-3 });
+    expect(plan!.placements.map((p) => [p.part.id, p.count, p.mountingH])).toEqual([
+      ['RT-C-1U', 2, 0.3e-9],
+      ['RT-C-22U', 3, 0.5e-9],
+    ]);
+    expect(plan!.placements[1].at).toEqual({ file: 'plans/bad.yaml', line: 9, column: 12 });
+  });
+  it('takes an explicit target instead of ripple and step', () => {
+    const { plan, messages } = read(planText({ ripple: '', step: '', target: '4.5m' }));
+    expect(messages).toEqual([]);
+    expect(plan!.target).toEqual({ kind: 'explicit', ohms: 4.5e-3 });
+  });
+  it('accepts a network that behaves as a capacitor', () => {
+    const { plan, messages } = read(planText({ capacitors: '\n  - {part: RT-N-10U, count: 1}' }));
+    expect(messages).toEqual([]);
+    expect(plan!.placements[0].part.kind).toBe('network');
+  });
+});
+
+describe('bad plan files, each with its exact message', () => {
+  const cases: [string, Record<string, string>, string][] = [
+    ['an unknown part id, with a near miss', { capacitors: '\n  - {part: RT-C-1U, count: 2}\n  - {part: RT-C-22V, count: 2}' }, 'plans/bad.yaml:9:12: capacitors[1].part: no part with id "RT-C-22V" in the library; did you mean "RT-C-22U"?'],
+    ['a part that is not a capacitor', { capacitors: '\n  - {part: RT-L-1U, count: 1}' }, 'plans/bad.yaml:8:12: capacitors[0].part: RT-L-1U is an inductor; a plan places capacitors (or networks with "behaves-as: capacitor")'],
+    ['a zero voltage', { voltage: '0V' }, 'plans/bad.yaml:2:10: voltage: expected a voltage greater than zero, found "0V"'],
+    ['a negative step current', { step: '-2A' }, 'plans/bad.yaml:4:7: step: expected a current greater than zero, found "-2A"'],
+    ['a zero count', { capacitors: '\n  - part: RT-C-1U\n    count: 0' }, 'plans/bad.yaml:9:12: capacitors[0].count: expected a whole number of placements, 1 or more, found "0"'],
+    ['a fractional count', { capacitors: '\n  - {part: RT-C-1U, count: 2.5}' }, 'plans/bad.yaml:8:28: capacitors[0].count: expected a whole number of placements, 1 or more, found "2.5"'],
+    ['an empty band', { band: '{from: 10M, to: 1M}' }, 'plans/bad.yaml:5:23: band.to: expected a frequency above band.from (10 MHz), found 1 MHz: the band is empty'],
+    ['a band with equal ends', { band: '{from: 1M, to: 1M}' }, 'plans/bad.yaml:5:22: band.to: expected a frequency above band.from (1 MHz), found 1 MHz: the band is empty'],
+    ['both a target and ripple/step', { target: '10m' }, 'plans/bad.yaml:9:9: target: give either "target" or "ripple" and "step" (Z_t = V·ripple/ΔI), not both'],
+    ['neither a target nor ripple/step', { ripple: '', step: '' }, 'plans/bad.yaml:1:1: missing the target impedance: give "ripple" and "step" (Z_t = V·ripple/ΔI, e.g. ripple: 3% and step: 6A) or "target" (e.g. target: 4.5m)'],
+    ['ripple without step', { step: '' }, 'plans/bad.yaml:1:1: missing field "step" (the load\'s step current ΔI, e.g. 6A), needed with "ripple"'],
+    ['a ripple of 100 % or more', { ripple: '120%' }, 'plans/bad.yaml:3:9: ripple: expected a fraction of the rail voltage below 100%, found "120%"'],
+    ['a rail above a part\'s voltage rating', { voltage: '1.5V', capacitors: '\n  - {part: RT-C-1U-LV, count: 1}' }, "plans/bad.yaml:8:12: capacitors[0].part: the rail's 1.5 V exceeds the 1.2 V rating of RT-C-1U-LV; choose a part rated above the rail"],
+    ['a misspelt field', { mounting: '', mountng: '0.3nH' }, 'plans/bad.yaml:8:1: unknown field "mountng"; did you mean "mounting"?'],
+    ['a regulator with neither r nor l', { regulator: '{}' }, 'plans/bad.yaml:9:12: regulator: expected its output resistance "r", inductance "l" or both, found neither'],
+    ['a missing band', { band: '' }, 'plans/bad.yaml:1:1: missing field "band"'],
+  ];
+  it.each(cases)('%s', (_, over, expected) => {
+    const { plan, messages } = read(planText(over));
+    expect(plan).toBeUndefined();
+    expect(messages).toEqual([expected]);
+  });
+});
+
+describe('voltage ratings', () => {
+  it('a rail above settings.derating × rating is a warning on the plan, which still loads', () => {
+    const { plan, messages } = read(planText({ capacitors: '\n  - {part: RT-C-1U-LV, count: 1}' }));
+    const expected = 'plans/bad.yaml:8:12: warning: capacitors[0].part: the rail\'s 1 V is 83.3% of the 1.2 V rating of RT-C-1U-LV, above the derating limit of 80% (folio.yaml "derating")';
+    expect(messages).toEqual([expected]);
+    expect(plan!.warnings.map(formatDiagnostic)).toEqual([expected]);
+  });
+  it('the derating limit comes from the settings: at 90 % the same part is fine', () => {
+    expect(read(planText({ capacitors: '\n  - {part: RT-C-1U-LV, count: 1}' }), 0.9).messages).toEqual([]);
+  });
+  it('a part with no rating is a warning', () => {
+    expect(read(planText({ capacitors: '\n  - {part: RT-C-2U2-NR, count: 1}' })).messages).toEqual([
+      "plans/bad.yaml:8:12: warning: capacitors[0].part: RT-C-2U2-NR states no voltage rating, so the rail's 1 V cannot be checked against it",
+    ]);
+  });
+  it('voltageStress: exactly at the rating is allowed, above it is not (common practice: a rating is a maximum)', () => {
+    const part = partsById.get('RT-C-1U-LV')!;
+    expect(voltageStress(part, 1.2, 0.8)).toBe('above-derating');
+    expect(voltageStress(part, 1.21, 0.8)).toBe('over-rating');
+    expect(voltageStress(part, 0.96, 0.8)).toBe('ok');
+  });
+});
+
+describe('plans in a library', () => {
+  const temp: string[] = [];
+  afterAll(() => temp.forEach((d) => rmSync(d, { recursive: true, force: true })));
+  const copy = () => {
+    const dir = mkdtempSync(join(tmpdir(), 'zfolio-plan-'));
+    cpSync(fixture, dir, { recursive: true });
+    temp.push(dir);
+    return dir;
+  };
+
+  it('the fixture library loads its two plans in path order, with the derating warning among its diagnostics', () => {
+    const { library: lib, diagnostics } = loadLibrary(fixture);
+    expect(lib!.plans.map((p) => p.rail)).toEqual(['VDD_TEST', 'VDD_WEAK']);
+    expect(diagnostics.map(formatDiagnostic)).toEqual([
+      'plans/vdd-weak.yaml:10:12: warning: capacitors[1].part: the rail\'s 1 V is 83.3% of the 1.2 V rating of RT-C-1U-LV, above the derating limit of 80% (folio.yaml "derating")',
+    ]);
+  });
+  it('a library without plans/ has no plans and no complaint', () => {
+    const dir = copy();
+    rmSync(join(dir, 'plans'), { recursive: true });
+    const { library: lib, diagnostics } = loadLibrary(dir);
+    expect(lib!.plans).toEqual([]);
+    expect(diagnostics).toEqual([]);
+  });
+  it('a bad plan makes the library fail to load, with its message', () => {
+    const dir = copy();
+    writeFileSync(join(dir, 'plans', 'vdd-bad.yaml'), planText({ rail: 'VDD_BAD', capacitors: '\n  - {part: RT-C-100M, count: 1}' }));
+    const { library: lib, diagnostics } = loadLibrary(dir);
+    expect(lib).toBeUndefined();
+    expect(diagnostics.map(formatDiagnostic)).toContain('plans/vdd-bad.yaml:8:12: capacitors[0].part: no part with id "RT-C-100M" in the library; did you mean "RT-C-100N"?');
+  });
+  it('two plans of one rail: the second is an error at its rail name', () => {
+    const dir = copy();
+    writeFileSync(join(dir, 'plans', 'vdd-twin.yaml'), planText({ rail: 'VDD_TEST' }));
+    const { diagnostics } = loadLibrary(dir);
+    expect(diagnostics.map(formatDiagnostic)).toContain('plans/vdd-twin.yaml:1:7: duplicate rail "VDD_TEST": already planned at plans/vdd-test.yaml:2:7');
+  });
+  it('uniqueRails keeps the first of each rail', () => {
+    const a = read(planText()).plan!;
+    const diagnostics = new DiagnosticList();
+    expect(uniqueRails([a, { ...a }], diagnostics)).toHaveLength(1);
+    expect(diagnostics.errorCount).toBe(1);
+  });
+});
