@@ -196,3 +196,12 @@ export function analysePlan(plan: Plan, perDecade: number, placements: readonly 
     warnings: plan.warnings,
   };
 }
+
+/** Every figure of a plan except the curves (SI units): what `zfolio plan --json` prints and pages offer. */
+export function planFiguresWithoutCurves(f: PlanFigures): Record<string, unknown> {
+  const out: Record<string, unknown> = { ...f };
+  delete out.frequenciesHz;
+  delete out.impedanceOhm;
+  out.branches = f.branches.map((b) => ({ kind: b.kind, label: b.label, partId: b.partId, count: b.count }));
+  return out;
+}

@@ -5,6 +5,7 @@ import { figures, figuresHelp } from './commands/figures.js';
 import { sweep, sweepHelp } from './commands/sweep.js';
 import { plan, planHelp } from './commands/plan.js';
 import { build, buildHelp } from './commands/build.js';
+import { print, printHelp } from './commands/print.js';
 import { serve, serveHelp } from './commands/serve.js';
 import { EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
 import { VERSION } from '../version.js';
@@ -23,6 +24,7 @@ export const COMMANDS: Record<string, CommandEntry> = {
   sweep: { run: sweep, help: sweepHelp, summary: "a part's impedance at every sweep point" },
   plan: { run: plan, help: planHelp, summary: 'check a rail plan against its target impedance, or --suggest its capacitors' },
   build: { run: build, help: buildHelp, summary: 'build the folio: static site, and PDFs with --pdf' },
+  print: { run: print, help: printHelp, summary: 'PDFs of chosen parts and review packs' },
   serve: { run: serve, help: serveHelp, summary: 'build, serve on this machine, and rebuild on every change' },
 };
 

@@ -1,28 +1,18 @@
 // What `zfolio plan` prints: the human form (engineering notation) and the JSON form (SI units).
 
-import type { PlanFigures } from '../analysis/plan-figures.js';
+import { planFiguresWithoutCurves, type PlanFigures } from '../analysis/plan-figures.js';
 import type { Suggestion } from '../analysis/plan-suggest.js';
 import { formatDiagnostic } from '../model/diagnostics.js';
 import type { Plan } from '../model/plan.js';
-import { formatEng, formatPercent } from '../units/format.js';
+import { formatDecibels, formatEng, formatPercent } from '../units/format.js';
+import { planTargetText as targetLine } from '../folio/plan-page.js';
 
-/** A margin in dB with its sign: "+1.25 dB", "−3.40 dB". */
-export function formatMargin(db: number): string {
-  if (Number.isNaN(db)) return '—';
-  if (!Number.isFinite(db)) return db > 0 ? '+∞ dB' : '−∞ dB';
-  return `${db >= 0 ? '+' : '−'}${Math.abs(db).toFixed(2)} dB`;
-}
 
-function targetLine(f: PlanFigures): string {
-  const t = f.target;
-  const how = t.kind === 'explicit' ? 'as given' : `= ${formatEng(f.voltageV, 'V')} × ${formatPercent(t.ripple)} / ${formatEng(t.stepA, 'A')}`;
-  return `${formatEng(f.targetOhm, 'Ω')} ${how}`;
-}
 
 function resultLine(f: PlanFigures): string {
   if (f.branches.length === 0) return 'FAIL  nothing is on the rail yet';
   const verdict = f.pass ? 'PASS' : 'FAIL';
-  return `${verdict}  worst margin ${formatMargin(f.worstMarginDb)} at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')})`;
+  return `${verdict}  worst margin ${formatDecibels(f.worstMarginDb)} at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')})`;
 }
 
 function branchLines(f: PlanFigures): string[] {
@@ -44,7 +34,7 @@ function peakLines(f: PlanFigures): string[] {
   if (f.peaks.length === 0) return ['    none in the band'];
   return f.peaks.map((p) => {
     const between = p.capacitiveBranch && p.inductiveBranch ? `  between ${p.capacitiveBranch} and ${p.inductiveBranch}` : '';
-    return `    ${formatEng(p.frequencyHz, 'Hz').padEnd(11)} |Z| ${formatEng(p.impedanceOhm, 'Ω').padEnd(9)} margin ${formatMargin(p.marginDb).padEnd(10)}${between}`;
+    return `    ${formatEng(p.frequencyHz, 'Hz').padEnd(11)} |Z| ${formatEng(p.impedanceOhm, 'Ω').padEnd(9)} margin ${formatDecibels(p.marginDb).padEnd(10)}${between}`;
   });
 }
 
@@ -62,13 +52,7 @@ export function describePlan(f: PlanFigures): string {
 }
 
 /** The JSON form: every figure of the plan except the curves (SI units). */
-export function planJson(f: PlanFigures): Record<string, unknown> {
-  const out: Record<string, unknown> = { ...f };
-  delete out.frequenciesHz;
-  delete out.impedanceOhm;
-  out.branches = f.branches.map((b) => ({ kind: b.kind, label: b.label, partId: b.partId, count: b.count }));
-  return out;
-}
+export const planJson = planFiguresWithoutCurves;
 
 export interface SuggestRequest {
   maxCount: number;

@@ -3,9 +3,14 @@
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { describeComparison, renderComparisonChart } from '../charts/comparison-chart.js';
 import { PART_CHART_KINDS, renderPartCharts, type PartChartInput } from '../charts/part-charts.js';
+import { renderRailChart, type RailChartData } from '../charts/rail-chart.js';
+import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact } from './chart-maker.js';
 
-export type ChartJob = { type: 'part'; input: PartChartInput } | { type: 'comparison'; inputs: PartChartInput[]; title: string };
+export type ChartJob =
+  | { type: 'part'; input: PartChartInput }
+  | { type: 'comparison'; inputs: PartChartInput[]; title: string }
+  | { type: 'rail'; data: RailChartData };
 
 /** The part of an analysis the charts read: typed arrays and plain objects only (no YAML nodes). */
 export function chartInput(a: PartAnalysis): PartChartInput {
@@ -26,6 +31,20 @@ export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {
     const charts = await renderPartCharts(job.input);
     return PART_CHART_KINDS.map((key) => ({ key, ...charts[key] }));
   }
+  if (job.type === 'rail') return [{ key: 'rail', ...(await renderRailChart(job.data)) }];
   const chart = await renderComparisonChart(job.inputs, describeComparison(job.inputs, job.title));
   return [{ key: 'overlay', ...chart }];
+}
+
+/** What the rail chart draws of an analysed plan. */
+export function railChartData(f: PlanFigures): RailChartData {
+  return {
+    rail: f.rail,
+    frequencies: f.frequenciesHz,
+    totalOhm: f.impedanceOhm,
+    target: f.targetOhm,
+    branches: f.branches.map((b) => ({ label: b.label, ohm: b.impedanceOhm })),
+    peaks: f.peaks.map((p) => ({ frequencyHz: p.frequencyHz, impedanceOhm: p.impedanceOhm })),
+    band: { ...f.band },
+  };
 }

@@ -2,6 +2,7 @@
 // does not care whether they come from a cache, this thread or worker threads.
 
 import type { PartAnalysis } from '../analysis/part-figures.js';
+import type { PlanFigures } from '../analysis/plan-figures.js';
 
 export interface ChartArtifact {
   /** File-name-safe key: "impedance", "phase", "plane", "admittance", "overlay". */
@@ -17,4 +18,6 @@ export interface ChartArtifact {
 export interface ChartMaker {
   partCharts(analysis: PartAnalysis): Promise<ChartArtifact[]>;
   comparisonChart(analyses: PartAnalysis[], title: string): Promise<ChartArtifact>;
+  /** `inputsKey` names everything the plan's figures came from (file hashes), for caching. */
+  railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact>;
 }

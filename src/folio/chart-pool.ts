@@ -13,7 +13,8 @@ import { Worker } from 'node:worker_threads';
 import { gunzipSync, gzipSync } from 'node:zlib';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { VERSION } from '../version.js';
-import { chartInput, renderChartJob, type ChartJob } from './chart-jobs.js';
+import { chartInput, railChartData, renderChartJob, type ChartJob } from './chart-jobs.js';
+import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 
 export interface ChartPoolOptions {
@@ -83,6 +84,12 @@ export class ChartPool implements ChartMaker {
   async comparisonChart(analyses: PartAnalysis[], title: string): Promise<ChartArtifact> {
     const key = this.key('comparison', title, ...analyses.map((a) => a.part.source.hash));
     const [chart] = await this.cached(key, () => this.run({ type: 'comparison', inputs: analyses.map(chartInput), title }));
+    return chart;
+  }
+
+  async railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact> {
+    const key = this.key('rail', inputsKey);
+    const [chart] = await this.cached(key, () => this.run({ type: 'rail', data: railChartData(figures) }));
     return chart;
   }
 

@@ -1,13 +1,15 @@
 // The data every template reads, assembled once by the build: templates lay out, they never compute.
 
 import type { PartAnalysis } from '../analysis/part-figures.js';
-import type { Comparison } from '../model/comparison.js';
+import { comparisonKey, type Comparison } from '../model/comparison.js';
 import type { Library } from '../model/library.js';
 import type { Part, PartKind } from '../model/part.js';
 import { formatEng, formatPercent } from '../units/format.js';
 import { VERSION } from '../version.js';
 import { kindLabel, partPageText, type PartPageText } from './part-page.js';
 import { schematicSvg } from './schematic.js';
+import type { PlanPageData } from './plan-page.js';
+import type { ReviewPageData } from './review-page.js';
 
 /** A chart as a page shows it: inline SVG, caption, and the file its vega-lite spec is written to. */
 export interface ChartOnPage {
@@ -57,14 +59,15 @@ export interface FolioData {
   title: string;
   owner?: string;
   version: string;
-  demoNotice?: string;
+  /** folio.yaml's notice line, shown under the index title. */
+  notice?: string;
   sweepText: string;
   withinText: string;
   kindCounts: { kind: PartKind; label: string; count: number }[];
   parts: PartPageData[];
   comparisons: ComparisonPageData[];
-  plans: unknown[];
-  reviews: unknown[];
+  plans: PlanPageData[];
+  reviews: ReviewPageData[];
 }
 
 const MODEL_CAPTION: Readonly<Record<PartKind, string>> = {
@@ -127,7 +130,7 @@ export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageDa
 
 /** URL-safe folder name for a comparison: from its file name, or "all-<kind>" for automatic ones. */
 export function comparisonSlug(c: Comparison): string {
-  return c.source.path.replace(/^comparisons\//, '').replace(/\.ya?ml$/i, '').replace(/[^A-Za-z0-9._-]+/g, '-');
+  return comparisonKey(c).replace(/[^A-Za-z0-9._-]+/g, '-');
 }
 
 export function selectionText(c: Comparison): string {
@@ -155,7 +158,7 @@ export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'compar
   return {
     title: s.title,
     owner: s.owner,
-    demoNotice: s.notice,
+    notice: s.notice,
     version: VERSION,
     sweepText: sweepText(s.sweep),
     withinText: formatPercent(s.within),

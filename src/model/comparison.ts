@@ -79,6 +79,11 @@ export function readComparison(ctx: ReadContext, partsById: ReadonlyMap<string, 
   return { title, description, parts, filter, source: ctx.source, at: root.position() };
 }
 
+/** How reviews name a comparison: its path under comparisons/ without the extension ("decoupling-0402"). */
+export function comparisonKey(c: Comparison): string {
+  return c.source.path.replace(/^comparisons\//, '').replace(/\.ya?ml$/i, '');
+}
+
 export function matches(part: Part, filter: PartFilter): boolean {
   if (filter.kind && part.kind !== filter.kind) return false;
   if (filter.package && part.package !== filter.package) return false;

@@ -5,7 +5,8 @@ import { join, relative, sep } from 'node:path';
 import { DiagnosticList, type Diagnostic } from './diagnostics.js';
 import { readPart, type Part } from './part.js';
 import { readPlan, uniqueRails, type Plan } from './plan.js';
-import { readComparison, type Comparison } from './comparison.js';
+import { comparisonKey, readComparison, type Comparison } from './comparison.js';
+import { readReview, type Review } from './review.js';
 import { DEFAULT_SETTINGS, readSettings, type FolioSettings } from './settings.js';
 import { parseYamlSource, type SourceFile } from './source.js';
 
@@ -22,7 +23,12 @@ export interface Library {
   plans: Plan[];
   /** comparisons/*.yaml, in path order. */
   comparisons: Comparison[];
+  /** reviews/*.yaml, in path order. */
+  reviews: LibraryReview[];
 }
+
+/** A review as the library holds it: its comparisons and plans resolved. */
+export type LibraryReview = Review<Comparison, Plan>;
 
 export interface LoadResult {
   /** Present when the library has no errors (warnings allowed). */
@@ -70,17 +76,20 @@ export function loadLibrary(root: string): LoadResult {
   }
   const parts: Part[] = [];
   const partsById = new Map<string, Part>();
+  const idsIgnoringCase = new Map<string, Part>();
   for (const path of yamlFilesUnder(root, 'parts')) {
     const source = read(path);
     if (!source) continue;
     const part = readPart({ source, diagnostics });
     if (!part) continue;
-    const earlier = partsById.get(part.id);
+    const earlier = partsById.get(part.id) ?? idsIgnoringCase.get(part.id.toLowerCase());
     if (earlier) {
-      diagnostics.error(part.at, `duplicate id "${part.id}": already defined at ${earlier.at.file}:${earlier.at.line}:${earlier.at.column}`);
+      const how = earlier.id === part.id ? `duplicate id "${part.id}"` : `id "${part.id}" differs from "${earlier.id}" only in letter case, and their pages would collide on many file systems`;
+      diagnostics.error(part.at, `${how}: already defined at ${earlier.at.file}:${earlier.at.line}:${earlier.at.column}`);
       continue;
     }
     partsById.set(part.id, part);
+    idsIgnoringCase.set(part.id.toLowerCase(), part);
     parts.push(part);
   }
 
@@ -99,7 +108,19 @@ export function loadLibrary(root: string): LoadResult {
   }
   const plans = uniqueRails(planned, diagnostics);
 
+  const reviews: LibraryReview[] = [];
+  const targets = {
+    parts: partsById,
+    comparisons: new Map(comparisons.map((c) => [comparisonKey(c), c])),
+    plans: new Map(plans.map((p) => [p.rail, p])),
+  };
+  for (const path of yamlFilesUnder(root, 'reviews')) {
+    const source = read(path);
+    const review = source && readReview({ source, diagnostics }, targets);
+    if (review) reviews.push(review);
+  }
+
   const sorted = diagnostics.sorted();
   if (diagnostics.errorCount > 0 || !settings) return { diagnostics: sorted };
-  return { library: { root, settings, parts, partsById, sources, comparisons, plans }, diagnostics: sorted };
+  return { library: { root, settings, parts, partsById, sources, comparisons, plans, reviews }, diagnostics: sorted };
 }

@@ -23,7 +23,8 @@ export const NOMINAL_DIMENSION: Readonly<Record<Behaviour, Dimension>> = {
   bead: 'resistance',
 };
 
-export const ID_PATTERN = /^[A-Za-z0-9._-]+$/;
+// At least one letter or digit: an id names a folder of the site, so "." and ".." must not be ids.
+export const ID_PATTERN = /^(?=.*[A-Za-z0-9])[A-Za-z0-9._-]+$/;
 
 /** Parasitic fields by kind, with their dimension, in the order pages list them. */
 export const PARASITICS: Readonly<Record<'capacitor' | 'inductor' | 'resistor', Readonly<Record<string, Dimension>>>> = {

@@ -100,10 +100,11 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
     return out;
   };
   covers?.expect(['parts', 'comparisons', 'plans']);
+  const beforeCovers = ctx.diagnostics.errorCount;
   const parts = pick('parts', targets.parts, 'part with id');
   const comparisons = pick('comparisons', targets.comparisons, 'comparison file');
   const plans = pick('plans', targets.plans, 'rail plan');
-  if (covers && parts.length + comparisons.length + plans.length === 0 && ctx.diagnostics.errorCount === before) {
+  if (covers && parts.length + comparisons.length + plans.length === 0 && ctx.diagnostics.errorCount === beforeCovers) {
     covers.error(undefined, 'covers: a review must cover at least one part, comparison or rail plan');
   }
 

@@ -76,3 +76,10 @@ export function formatNumber(value: number, digits = 3): string {
   if (abs !== 0 && (abs >= 1e6 || abs < 1e-3)) return rounded.toExponential(digits - 1).replace(/\.?0+e/, 'e');
   return (rounded < 0 ? '−' : '') + trimZeros(String(Math.abs(rounded)));
 }
+
+/** A ratio in decibels with its sign: "+1.25 dB", "−3.40 dB" (margins to a target). */
+export function formatDecibels(db: number): string {
+  if (Number.isNaN(db)) return '—';
+  if (!Number.isFinite(db)) return db > 0 ? '+∞ dB' : '−∞ dB';
+  return `${db >= 0 ? '+' : '−'}${Math.abs(db).toFixed(2)} dB`;
+}

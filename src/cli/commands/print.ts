@@ -1,0 +1,79 @@
+// zfolio print: PDFs of a few parts or reviews, without touching the built site.
+
+import { copyFileSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { basename, join, relative, resolve, sep } from 'node:path';
+import { buildFolio } from '../../folio/build.js';
+import { terminalProgress } from '../../folio/progress.js';
+import { reviewSlug } from '../../folio/review-page.js';
+import { closest } from '../../model/suggest.js';
+import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
+import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
+import { loadReported, plural } from '../report.js';
+import { paperOption } from './build.js';
+
+export const printHelp = `Usage: zfolio print ID|REVIEW ... [--out DIR] [--library DIR] [--chrome PATH] [--paper A4|Letter]
+
+Prints the datasheet of each part named by id, and the review pack of each
+review named by its file (reviews/NAME.yaml) or NAME, to NAME.pdf in the
+output folder. The built site is left alone. Needs Chromium.
+
+Options:
+  --out DIR           where the PDFs go (default: the current folder)
+  --chrome PATH       the Chromium to print with (default: $ZFOLIO_CHROME, then the usual paths)
+  --paper SIZE        A4 or Letter (default: folio.yaml, else A4)
+  -l, --library DIR   the library folder (default: the current folder)
+  -h, --help          show this help
+`;
+
+export async function print(args: string[], io: CommandIO): Promise<number> {
+  const { values, positionals } = parseCommandLine(args, { ...LIBRARY_OPTION, out: { type: 'string', short: 'o' }, chrome: { type: 'string' }, paper: { type: 'string' } }, true);
+  if (values.help) {
+    io.out(printHelp);
+    return EXIT_OK;
+  }
+  if (positionals.length === 0) throw new UsageError('name at least one part id or review to print');
+  const root = libraryRoot(values, io);
+  const paper = paperOption(values.paper);
+  const library = loadReported(root, io);
+  if (!library) return EXIT_BAD_INPUT;
+
+  const reviewsBySlug = new Map(library.reviews.map((r) => [reviewSlug(r), r]));
+  const parts = new Set<string>();
+  const reviews = new Set<string>();
+  for (const name of positionals) {
+    const asFile = relative(root, resolve(io.cwd, name)).split(sep).join('/');
+    const review = library.reviews.find((r) => r.source.path === asFile) ?? reviewsBySlug.get(basename(name).replace(/\.ya?ml$/i, ''));
+    if (library.partsById.has(name)) parts.add(name);
+    else if (review) reviews.add(reviewSlug(review));
+    else {
+      const guess = closest(name, [...library.partsById.keys(), ...reviewsBySlug.keys()]);
+      throw new UsageError(`no part or review called ${JSON.stringify(name)}${guess ? `; did you mean ${guess}?` : ''}`);
+    }
+  }
+
+  const scratch = mkdtempSync(join(tmpdir(), 'zfolio-print-'));
+  try {
+    const result = await buildFolio({
+      libraryRoot: root,
+      outDir: join(scratch, 'site'),
+      progress: terminalProgress((text) => io.err(text), io.isTTY),
+      pdf: { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper, select: { parts, reviews } },
+    });
+    if (!result.ok) return EXIT_BAD_INPUT;
+    if (result.pdfProblem) {
+      io.err(`zfolio print: ${result.pdfProblem}\n`);
+      return EXIT_BAD_INPUT;
+    }
+    const outDir = resolve(io.cwd, typeof values.out === 'string' ? values.out : '.');
+    mkdirSync(outDir, { recursive: true });
+    for (const pdf of result.pdfs) {
+      const target = join(outDir, basename(pdf.pdfFile));
+      copyFileSync(join(result.outDir, pdf.pdfFile), target);
+      io.out(`${relative(io.cwd, target) || target}  ${plural(pdf.pages, 'page')}\n`);
+    }
+    return EXIT_OK;
+  } finally {
+    rmSync(scratch, { recursive: true, force: true });
+  }
+}

@@ -1,0 +1,94 @@
+// What a rail-plan page shows: the target and how it was found, the verdict with the worst margin, the
+// anti-resonance peaks, the placements with their capacitance at the rail voltage, and the warnings.
+
+import type { PlanFigures } from '../analysis/plan-figures.js';
+import { formatDiagnostic } from '../model/diagnostics.js';
+import { formatDecibels, formatEng, formatNumber, formatPercent } from '../units/format.js';
+import type { Row } from './part-page.js';
+import type { ChartOnPage } from './site-data.js';
+
+export interface PlanPageData {
+  slug: string;
+  rail: string;
+  title: string;
+  notes?: string;
+  sourceFile: string;
+  sourceHash: string;
+  pass: boolean;
+  verdict: string;
+  facts: Row[];
+  peaks: { frequency: string; impedance: string; margin: string; between: string; over: boolean }[];
+  placements: { partId: string; title: string; count: number; mounting: string; nominal: string; atRail: string; rating: string; note: string }[];
+  warnings: string[];
+  biasNote: string;
+  chart?: ChartOnPage;
+}
+
+/** "4.5 mΩ = 0.9 V × 3% / 6 A" (Smith et al., 1999), or "4.5 mΩ as given". */
+export function planTargetText(f: Pick<PlanFigures, 'target' | 'targetOhm' | 'voltageV'>): string {
+  const t = f.target;
+  const how = t.kind === 'explicit' ? 'as given' : `= ${formatEng(f.voltageV, 'V')} × ${formatPercent(t.ripple)} / ${formatEng(t.stepA, 'A')}`;
+  return `${formatEng(f.targetOhm, 'Ω')} ${how}`;
+}
+
+/** "passes, worst margin +2.10 dB at 31.6 MHz" / "fails by 4.20 dB at 12 MHz". */
+export function planVerdict(f: PlanFigures): string {
+  if (f.branches.length === 0) return 'fails: nothing is on the rail yet';
+  const where = `at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')})`;
+  return f.pass ? `passes, worst margin ${formatDecibels(f.worstMarginDb)} ${where}` : `fails, worst margin ${formatDecibels(f.worstMarginDb)} ${where}`;
+}
+
+export function railSlug(rail: string): string {
+  return rail.replace(/[^A-Za-z0-9._-]+/g, '-');
+}
+
+export function planPageData(f: PlanFigures, sourceHash: string, notes: string | undefined, chart: ChartOnPage | undefined): PlanPageData {
+  const facts: Row[] = [
+    { label: 'Rail voltage', value: formatEng(f.voltageV, 'V') },
+    { label: 'Target impedance', value: planTargetText(f), note: f.target.kind === 'explicit' ? undefined : 'V · ripple / ΔI' },
+    { label: 'Band checked', value: `${formatEng(f.band.fromHz, 'Hz')} to ${formatEng(f.band.toHz, 'Hz')}`, note: `${f.perDecade} points per decade, peaks refined` },
+    { label: 'Mounting inductance', value: formatEng(f.mountingH, 'H'), note: 'per placement unless the entry sets its own' },
+  ];
+  if (f.regulator) {
+    const r = [f.regulator.rOhm !== null ? formatEng(f.regulator.rOhm, 'Ω') : '', f.regulator.lH !== null ? formatEng(f.regulator.lH, 'H') : ''].filter(Boolean).join(' + ');
+    facts.push({ label: 'Regulator output', value: r, note: 'series R + L' });
+  }
+  if (f.plane) facts.push({ label: 'Plane capacitance', value: [formatEng(f.plane.cF, 'F'), f.plane.rOhm !== null ? formatEng(f.plane.rOhm, 'Ω') : ''].filter(Boolean).join(' + ') });
+  facts.push({ label: 'Placements', value: String(f.totalPlacements), note: f.totalCost !== null ? `total cost ${formatNumber(f.totalCost, 4)}` : undefined });
+
+  const warnings = f.warnings.map(formatDiagnostic);
+  return {
+    slug: railSlug(f.rail),
+    rail: f.rail,
+    title: f.title,
+    notes,
+    sourceFile: f.file,
+    sourceHash,
+    pass: f.pass,
+    verdict: planVerdict(f),
+    facts,
+    peaks: f.peaks.map((p) => ({
+      frequency: formatEng(p.frequencyHz, 'Hz'),
+      impedance: formatEng(p.impedanceOhm, 'Ω'),
+      margin: formatDecibels(p.marginDb),
+      between: p.capacitiveBranch && p.inductiveBranch ? `${p.capacitiveBranch} ↔ ${p.inductiveBranch}` : '',
+      over: p.marginDb < 0,
+    })),
+    placements: f.placements.map((p) => ({
+      partId: p.partId,
+      title: p.title,
+      count: p.count,
+      mounting: formatEng(p.mountingH, 'H'),
+      nominal: formatEng(p.nominalF, 'F'),
+      atRail: p.biasFromTable ? `${formatEng(p.capacitanceF, 'F')} (${formatPercent(p.biasFraction)})` : formatEng(p.nominalF, 'F'),
+      rating: p.voltageRatingV !== null ? formatEng(p.voltageRatingV, 'V') : 'not rated',
+      note: p.biasFromTable ? `DC-bias table${p.biasClamped ? ', nearest end' : ''}` : 'no DC-bias table: nominal',
+    })),
+    warnings,
+    biasNote:
+      f.biasDerated.length > 0
+        ? `Capacitances at ${formatEng(f.voltageV, 'V')} come from the DC-bias tables of ${f.biasDerated.join(', ')} (linear interpolation); other parts count at nominal.`
+        : 'No placed part has a DC-bias table: every capacitance counts at nominal.',
+    chart,
+  };
+}

@@ -1,0 +1,97 @@
+// What a review page and its pack show: the review's facts and decisions (short markdown, rendered inert),
+// the sheets of everything it covers, the cautions that apply to them, and every source file with its hash.
+
+import type { LibraryReview, Library } from '../model/library.js';
+import type { ComparisonPageData, PartPageData } from './site-data.js';
+import type { PlanPageData } from './plan-page.js';
+import { markdownBlock, markdownInline } from './markdown.js';
+import { GENERAL_CAUTION, RATINGS_CAUTION } from './cautions.js';
+import { comparisonKey } from '../model/comparison.js';
+
+export interface ReviewPageData {
+  slug: string;
+  title: string;
+  date: string;
+  board: string;
+  sourceFile: string;
+  reviewers: { name: string; role: string }[];
+  summaryHtml: string;
+  decisions: string[];
+  openPoints: { html: string; owner: string; due: string }[];
+  coverText: string;
+  parts: PartPageData[];
+  comparisons: ComparisonPageData[];
+  plans: PlanPageData[];
+  /** Pack sections after the contents page, in order, with the ids the pack template gives them. */
+  sections: { id: string; title: string }[];
+  cautions: string[];
+  sources: { file: string; hash: string }[];
+  /** Site-relative path of the pack PDF, when PDFs are built. */
+  pdfFile?: string;
+}
+
+export function reviewSlug(review: LibraryReview): string {
+  return review.source.path.replace(/^reviews\//, '').replace(/\.ya?ml$/i, '').replace(/[^A-Za-z0-9._-]+/g, '-');
+}
+
+function count(n: number, one: string, many: string): string {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
+export function reviewPageData(
+  review: LibraryReview,
+  library: Library,
+  pages: { parts: ReadonlyMap<string, PartPageData>; comparisons: ReadonlyMap<string, ComparisonPageData>; plans: ReadonlyMap<string, PlanPageData> },
+): ReviewPageData {
+  const parts = review.parts.map((p) => pages.parts.get(p.id)!);
+  const comparisons = review.comparisons.map((c) => pages.comparisons.get(comparisonKey(c))!);
+  const plans = review.plans.map((p) => pages.plans.get(p.rail)!);
+
+  const sections = [
+    { id: 'pack-decisions', title: 'Decisions and open points' },
+    ...plans.map((p, i) => ({ id: `pack-plan-${i + 1}`, title: `Rail plan ${p.rail}` })),
+    ...comparisons.map((c, i) => ({ id: `pack-comparison-${i + 1}`, title: `Comparison: ${c.title}` })),
+    ...parts.map((p, i) => ({ id: `pack-part-${i + 1}`, title: `${p.id} — ${p.title}` })),
+    { id: 'pack-cautions', title: 'Cautions' },
+    { id: 'pack-sources', title: 'Appendix: source files' },
+  ];
+
+  // Every part the review draws on, directly or through a plan or comparison, brings its cautions.
+  const involved = new Set([...review.parts, ...review.comparisons.flatMap((c) => c.parts), ...review.plans.flatMap((p) => p.placements.map((x) => x.part))]);
+  const specific = [...involved].flatMap((p) => pages.parts.get(p.id)?.text.cautions ?? []).filter((c) => c !== GENERAL_CAUTION && c !== RATINGS_CAUTION);
+  const cautions = [...new Set(specific)].sort().concat(GENERAL_CAUTION, RATINGS_CAUTION);
+
+  const files = new Map<string, string>();
+  const add = (file: string, hash: string) => files.set(file, hash);
+  add(review.source.path, review.source.hash);
+  const folio = library.sources.find((s) => s.path === 'folio.yaml');
+  if (folio) add(folio.path, folio.hash);
+  for (const p of involved) add(p.source.path, p.source.hash);
+  for (const c of review.comparisons) add(c.source.path, c.source.hash);
+  for (const p of review.plans) add(p.source.path, p.source.hash);
+
+  const covered = [
+    plans.length ? count(plans.length, 'rail plan', 'rail plans') : '',
+    comparisons.length ? count(comparisons.length, 'comparison', 'comparisons') : '',
+    parts.length ? count(parts.length, 'part', 'parts') : '',
+  ].filter(Boolean);
+
+  return {
+    slug: reviewSlug(review),
+    title: review.title,
+    date: review.date,
+    board: review.board,
+    sourceFile: review.source.path,
+    reviewers: review.reviewers.map((r) => ({ name: r.name, role: r.role ?? '' })),
+    summaryHtml: review.summary ? markdownBlock(review.summary) : '',
+    decisions: review.decisions.map(markdownInline),
+    openPoints: review.openPoints.map((o) => ({ html: markdownInline(o.text), owner: o.owner ?? '', due: o.due ?? '' })),
+    coverText: covered.join(', '),
+    parts,
+    comparisons,
+    plans,
+    sections,
+    cautions,
+    sources: [...files].map(([file, hash]) => ({ file, hash })).sort((a, b) => (a.file < b.file ? -1 : 1)),
+  };
+}
