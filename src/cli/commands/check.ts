@@ -23,6 +23,13 @@ export function check(args: string[], io: CommandIO): number {
   }
   const library = loadReported(libraryRoot(values, io), io);
   if (!library) return EXIT_BAD_INPUT;
-  io.out(`ok: ${plural(library.parts.length, 'part')} in ${plural(library.sources.length, 'file')}, no errors\n`);
+  // Parts always; comparisons, plans and reviews when the library holds any.
+  const held = [
+    plural(library.parts.length, 'part'),
+    ...(library.comparisons.length ? [plural(library.comparisons.length, 'comparison')] : []),
+    ...(library.plans.length ? [plural(library.plans.length, 'rail plan')] : []),
+    ...(library.reviews.length ? [plural(library.reviews.length, 'review')] : []),
+  ];
+  io.out(`ok: ${held.join(', ')} in ${plural(library.sources.length, 'file')}, no errors\n`);
   return EXIT_OK;
 }

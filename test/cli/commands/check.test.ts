@@ -1,14 +1,38 @@
 // zfolio check: every problem on stderr as file:line:col, exit 1; a summary on stdout and exit 0 when sound.
 
+import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { formatDiagnostic } from '../../../src/model/diagnostics.js';
-import { loadLibrary } from '../../../src/model/library.js';
+import { loadLibrary, yamlFilesUnder } from '../../../src/model/library.js';
 import { BAD_LIBRARY, GOOD_LIBRARY, run } from '../fake-io.js';
+
+const RAIL_LIBRARY = fileURLToPath(new URL('../../fixtures/rail-library/', import.meta.url));
+const DEMO_LIBRARY = fileURLToPath(new URL('../../../', import.meta.url));
 
 describe('zfolio check', () => {
   it('passes the good library: exit 0, a one-line summary, nothing on stderr', async () => {
     // 5 part files and folio.yaml.
     expect(await run(['check', '--library', GOOD_LIBRARY], '/')).toEqual({ code: 0, out: 'ok: 5 parts in 6 files, no errors\n', err: '' });
+  });
+
+  it('counts the rail plans of a library that has some, and passes it with its warning on stderr', async () => {
+    // 9 part files, 2 plan files and folio.yaml; the fixture has no comparisons or reviews, so none are named.
+    const r = await run(['check', '--library', RAIL_LIBRARY], '/');
+    expect(r.code).toBe(0);
+    expect(r.out).toBe('ok: 9 parts, 2 rail plans in 12 files, no errors\n');
+    expect(r.err).toMatch(/^plans\/vdd-weak\.yaml:\d+:\d+: warning: .*above the derating limit of 80%/);
+  });
+
+  it('counts everything the demo library holds: parts, comparisons, rail plans and reviews', async () => {
+    const r = await run(['check', '--library', DEMO_LIBRARY], '/');
+    expect(r.code).toBe(0);
+    // The expected counts come from the files on disk, not from the loaded library.
+    const files = (dir: string) => yamlFilesUnder(DEMO_LIBRARY, dir).length;
+    const total = 1 + files('parts') + files('comparisons') + files('plans') + files('reviews');
+    expect(files('comparisons')).toBeGreaterThanOrEqual(2);
+    expect(files('reviews')).toBeGreaterThanOrEqual(1);
+    const reviews = files('reviews') === 1 ? '1 review' : `${files('reviews')} reviews`;
+    expect(r.out).toBe(`ok: ${files('parts')} parts, ${files('comparisons')} comparisons, ${files('plans')} rail plans, ${reviews} in ${total} files, no errors\n`);
   });
 
   it('fails the bad-parts corpus: exit 1, every diagnostic on stderr, one a line, then the count', async () => {
