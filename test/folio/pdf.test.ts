@@ -1,0 +1,136 @@
+// PDFs of the demo folio, printed by the system Chromium and read back with poppler's pdftotext and pdfinfo
+// (Debian poppler-utils): searchable text, the SRF as the HTML page states it, page x of y, metadata, and a
+// review pack whose contents list points at the pages its sections really start on.
+
+import { execFileSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { buildFolio, type BuildResult } from '../../src/folio/build.js';
+import { main } from '../../src/cli/main.js';
+import { loadLibrary } from '../../src/model/library.js';
+import { read, REPO, tempDir, copyLibrary } from './site-helpers.js';
+
+const DATE = new Date('2026-12-01T12:00:00Z');
+const CAPACITOR = 'ORV-C-0402-100N-X7R';
+const INDUCTOR = 'ORV-L-PWR-4U7-3A';
+const library = loadLibrary(REPO).library!;
+let result: BuildResult;
+let site: string;
+
+const pdftotext = (file: string, first?: number, last?: number) =>
+  execFileSync('pdftotext', [...(first ? ['-f', String(first), '-l', String(last ?? first)] : []), '-layout', file, '-'], { encoding: 'utf8' });
+const pdfinfo = (file: string) => Object.fromEntries(execFileSync('pdfinfo', [file], { encoding: 'utf8' }).split('\n').filter(Boolean).map((l) => [l.slice(0, l.indexOf(':')), l.slice(l.indexOf(':') + 1).trim()]));
+
+beforeAll(async () => {
+  site = join(tempDir('pdf'), '_site');
+  result = await buildFolio({
+    libraryRoot: REPO,
+    outDir: site,
+    pdf: { env: process.env, date: DATE, select: { parts: new Set([CAPACITOR, INDUCTOR]) } },
+  });
+  if (result.pdfProblem) throw new Error(`PDF tests need Chromium: ${result.pdfProblem}`);
+}, 300_000);
+
+describe('part datasheets', () => {
+  it('are written for the parts asked for, and linked from their pages', () => {
+    const files = result.pdfs.map((p) => p.pdfFile).sort();
+    expect(files).toEqual([`pdf/parts/${CAPACITOR}.pdf`, `pdf/parts/${INDUCTOR}.pdf`, 'pdf/reviews/dl3-power-integrity.pdf'].sort());
+    expect(read(site, `parts/${CAPACITOR}/index.html`)).toContain(`href="../../pdf/parts/${CAPACITOR}.pdf"`);
+  });
+
+  it.each([CAPACITOR, INDUCTOR])('%s: searchable text with its id, its SRF as the HTML page prints it, and page furniture', (id) => {
+    const file = join(site, 'pdf', 'parts', `${id}.pdf`);
+    const text = pdftotext(file);
+    const srf = /<dd class="srf">([^<]+)<\/dd>/.exec(read(site, `parts/${id}/index.html`))![1];
+    expect(text).toContain(id);
+    expect(text).toContain(srf);
+    const pages = Number(pdfinfo(file).Pages);
+    expect(pages).toBeGreaterThanOrEqual(2);
+    for (let n = 1; n <= pages; n++) expect(text).toContain(`page ${n} of ${pages}`);
+    const part = library.partsById.get(id)!;
+    expect(text).toContain(`built 2026-12-01 · ${part.source.path} · sha256:${part.source.hash}`);
+    expect(text).toContain(library.settings.title);
+  });
+
+  it('carry title, subject, creator and producer metadata', () => {
+    const info = pdfinfo(join(site, 'pdf', 'parts', `${CAPACITOR}.pdf`));
+    expect(info.Title).toBe(`${CAPACITOR} — ${library.partsById.get(CAPACITOR)!.title}`);
+    expect(info.Subject).toMatch(/^Impedance datasheet of ORV-C-0402-100N-X7R \(capacitor\)/);
+    expect(info.Creator).toMatch(/^zfolio \d+\.\d+\.\d+$/);
+    expect(info.Producer).toMatch(/^zfolio/);
+    expect(info['Page size']).toMatch(/A4/);
+  });
+});
+
+describe('the review pack', () => {
+  const file = () => join(site, 'pdf', 'reviews', 'dl3-power-integrity.pdf');
+  const review = library.reviews[0];
+
+  it('opens with a cover holding the review facts and a sign-off table', () => {
+    const cover = pdftotext(file(), 1);
+    expect(cover).toContain(review.title);
+    expect(cover).toMatch(/Name\s+Role\s+Decision\s+Signature\s+Date/);
+    for (const who of review.reviewers) expect(cover).toContain(who.name);
+  });
+
+  it('has a contents list whose page numbers are where each section starts, and pages that add up', () => {
+    const contents = pdftotext(file(), 2);
+    expect(contents).toContain('Contents');
+    const entries = [...contents.matchAll(/^\s*(\S.*?)\s{2,}(\d+)\s*$/gm)].map((m) => ({ title: m[1].trim(), page: Number(m[2]) }));
+    // Decisions, every plan, comparison and part, cautions, appendix.
+    expect(entries.length).toBe(3 + review.plans.length + review.comparisons.length + review.parts.length);
+    const pages = Number(pdfinfo(file()).Pages);
+    const starts = entries.map((e) => e.page);
+    expect(starts[0]).toBe(3);
+    expect([...starts].sort((a, b) => a - b)).toEqual(starts);
+    expect(starts[starts.length - 1]).toBeLessThanOrEqual(pages);
+    for (const entry of entries) {
+      const page = pdftotext(file(), entry.page);
+      // The section's own heading is on the page the contents give (ids and titles as printed).
+      const heading = entry.title.replace(/^Rail plan /, '').replace(/^Comparison: /, '').split(' — ')[0];
+      expect(page, `${entry.title} on page ${entry.page}`).toContain(heading);
+      if (entry.page > 1) expect(pdftotext(file(), entry.page - 1)).not.toMatch(new RegExp(`^\\s*${heading.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\s*$`, 'm'));
+    }
+    // Every page carries "page x of N" with the true N.
+    const all = pdftotext(file());
+    for (let n = 1; n <= pages; n++) expect(all).toContain(`page ${n} of ${pages}`);
+    expect(result.pdfs.find((p) => p.pdfFile.endsWith('dl3-power-integrity.pdf'))!.pages).toBe(pages);
+  });
+
+  it('ends with the cautions and an appendix of every source file with its hash', () => {
+    const all = pdftotext(file());
+    expect(all).toContain('Appendix: source files');
+    expect(all).toContain(`${review.source.path}`);
+    for (const part of review.parts) expect(all).toContain(part.source.hash);
+    expect(all).toMatch(/licensed practice/);
+  });
+});
+
+describe('without Chromium', () => {
+  it('build --pdf still writes the site, then exits 1 with one line saying how to get PDFs', async () => {
+    const root = copyLibrary(join(REPO, 'test/fixtures/good-library'), 'nochrome');
+    const out: string[] = [];
+    const err: string[] = [];
+    const code = await main(['build', '--pdf', '--library', root, '--chrome', '/nonexistent/chromium', '--workers', '0'], {
+      cwd: root,
+      env: {},
+      isTTY: false,
+      out: (t) => out.push(t),
+      err: (t) => err.push(t),
+    });
+    expect(code).toBe(1);
+    expect(existsSync(join(root, '_site', 'index.html'))).toBe(true);
+    const lines = err.join('').split('\n').filter((l) => l.includes('Chromium'));
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toMatch(/--chrome PATH or ZFOLIO_CHROME=PATH/);
+  }, 120_000);
+
+  it('build without --pdf asks nothing of the browser', async () => {
+    const root = copyLibrary(join(REPO, 'test/fixtures/good-library'), 'nopdf');
+    const err: string[] = [];
+    const code = await main(['build', '--library', root, '--workers', '0'], { cwd: root, env: { ZFOLIO_CHROME: '/nonexistent' }, isTTY: false, out: () => {}, err: (t) => err.push(t) });
+    expect(code).toBe(0);
+    expect(err.join('')).not.toMatch(/Chromium/);
+  }, 120_000);
+});
