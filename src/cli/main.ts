@@ -24,8 +24,8 @@ export const COMMANDS: Record<string, CommandEntry> = {
   sweep: { run: sweep, help: sweepHelp, summary: "a part's impedance at every sweep point" },
   plan: { run: plan, help: planHelp, summary: 'check a rail plan against its target impedance, or --suggest its capacitors' },
   build: { run: build, help: buildHelp, summary: 'build the folio: static site, and PDFs with --pdf' },
-  print: { run: print, help: printHelp, summary: 'PDFs of chosen parts and review packs' },
   serve: { run: serve, help: serveHelp, summary: 'build, serve on this machine, and rebuild on every change' },
+  print: { run: print, help: printHelp, summary: 'PDFs of chosen parts and review packs' },
 };
 
 export function mainHelp(): string {
@@ -39,7 +39,8 @@ Commands:
 ${lines.join('\n')}
 
 Every command takes --library DIR (default: the current folder) and --help.
-Exit status: 0 success, 1 problems in the library, 2 wrong command line.
+Exit status: 0 success, 1 problems in the library, 2 wrong command line,
+3 a rail plan misses its target (plan).
 `;
 }
 

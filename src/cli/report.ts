@@ -4,11 +4,15 @@ import { formatDiagnostic } from '../model/diagnostics.js';
 import { loadLibrary, type Library } from '../model/library.js';
 import type { CommandIO } from './io.js';
 
-/** Load and report. Problems go to stderr, one per line; undefined means the library has errors. */
-export function loadReported(root: string, io: CommandIO): Library | undefined {
+/**
+ * Load and report. Problems go to stderr, one per line; undefined means the library has errors. Warnings
+ * are printed by the commands that judge the whole library (check, build); the others print them only
+ * alongside errors, so `figures` on one part is not drowned in warnings about a rail plan.
+ */
+export function loadReported(root: string, io: CommandIO, options: { warnings?: boolean } = {}): Library | undefined {
   const { library, diagnostics } = loadLibrary(root);
-  for (const d of diagnostics) io.err(formatDiagnostic(d) + '\n');
   const errors = diagnostics.filter((d) => d.severity === 'error').length;
+  for (const d of diagnostics) if (d.severity === 'error' || options.warnings || errors > 0) io.err(formatDiagnostic(d) + '\n');
   if (errors > 0) {
     const warnings = diagnostics.length - errors;
     io.err(`${plural(errors, 'error')}${warnings ? `, ${plural(warnings, 'warning')}` : ''} in the library; nothing was done\n`);

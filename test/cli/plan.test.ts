@@ -24,6 +24,14 @@ const tempDir = () => {
   return dir;
 };
 
+describe('exit status', () => {
+  it('is 0 when every plan checked passes and 3 when one fails its target', async () => {
+    expect((await run(['plan', 'VDD_TEST'])).code).toBe(0);
+    expect((await run(['plan', 'VDD_WEAK'])).code).toBe(3);
+    expect((await run(['plan'])).code).toBe(3);
+  });
+});
+
 describe('zfolio plan --json', () => {
   it('has the keys targetOhm, pass, worstMarginDb, worstFrequencyHz and peaks [{frequencyHz, impedanceOhm}]', async () => {
     const { code, out } = await run(['plan', 'VDD_TEST', '--json']);
@@ -117,7 +125,7 @@ describe('zfolio plan --suggest', () => {
   });
   it('a rail that cannot be met is reported as such, not as a pass', async () => {
     const { code, out } = await run(['plan', 'VDD_TEST', '--suggest', '--only', 'hf', '--max-count', '2']);
-    expect(code).toBe(0);
+    expect(code).toBe(3);
     expect(out).toContain('status     cannot be met: no choice of 0 to 2 of each of 1 candidate keeps |Z| under the target across the band (proven');
     expect(out).not.toContain('PASS');
     const json = JSON.parse((await run(['plan', 'VDD_TEST', '--suggest', '--only', 'hf', '--max-count', '2', '--json'])).out);
@@ -133,7 +141,9 @@ describe('plan files, paths and misuse', () => {
     const good = join(dir, 'draft.yaml');
     writeFileSync(good, 'rail: DRAFT\nvoltage: 1V\ntarget: 20m\nband: {from: 1M, to: 10M}\nmounting: 0.3nH\ncapacitors:\n  - {part: RT-C-100N, count: 10}\n');
     const ok = await run(['plan', good, '--json']);
-    expect(ok.code).toBe(0);
+    // Evaluated; 10 × 100 nF cannot hold 20 mΩ down to 1 MHz, so the exit status says the target is missed.
+    expect(JSON.parse(ok.out).pass).toBe(false);
+    expect(ok.code).toBe(3);
     expect(JSON.parse(ok.out).rail).toBe('DRAFT');
     const bad = join(dir, 'bad.yaml');
     writeFileSync(bad, 'rail: DRAFT\nvoltage: 1V\ntarget: 20m\nband: {from: 1M, to: 10M}\nmounting: 0.3nH\ncapacitors:\n  - {part: RT-C-100N, count: 0}\n');

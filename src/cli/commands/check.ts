@@ -21,7 +21,7 @@ export function check(args: string[], io: CommandIO): number {
     io.out(checkHelp);
     return EXIT_OK;
   }
-  const library = loadReported(libraryRoot(values, io), io);
+  const library = loadReported(libraryRoot(values, io), io, { warnings: true });
   if (!library) return EXIT_BAD_INPUT;
   // Parts always; comparisons, plans and reviews when the library holds any.
   const held = [

@@ -45,9 +45,13 @@ Options:
   -l, --library DIR   the library folder (default: the current folder)
   -h, --help          show this help
 
-Exit status: 0 when the plan was evaluated (pass or fail), 1 when the library or
-plan has errors, 2 on a wrong command line.
+Exit status: 0 when every plan checked passes (or a suggestion meets the target),
+3 when a plan fails its target (or no set of candidates can meet it), 1 when the
+library or plan has errors, 2 on a wrong command line.
 `;
+
+/** Evaluated, and a rail misses its target: distinct from bad input, so CI can tell them apart. */
+export const EXIT_TARGET_MISSED = 3;
 
 export function plan(args: string[], io: CommandIO): number {
   const options = { ...LIBRARY_OPTION, json: { type: 'boolean' }, suggest: { type: 'boolean' }, 'max-count': { type: 'string' }, only: { type: 'string' }, nodes: { type: 'string' } } as const;
@@ -72,7 +76,7 @@ export function plan(args: string[], io: CommandIO): number {
   if (values.suggest) {
     const suggestion = suggestPlacements(plans[0], library.parts, { maxCount, onlyTags, derating: library.settings.derating, perDecade, nodeLimit });
     io.out(values.json ? JSON.stringify(suggestionJson(plans[0], suggestion), null, 2) + '\n' : describeSuggestion(plans[0], suggestion, { maxCount, onlyTags }));
-    return EXIT_OK;
+    return suggestion.figures?.pass ? EXIT_OK : EXIT_TARGET_MISSED;
   }
   if (plans.length === 0) {
     io.out(values.json ? '[]\n' : 'no plans in the library (rail plans are YAML files under plans/)\n');
@@ -83,7 +87,7 @@ export function plan(args: string[], io: CommandIO): number {
     const out = positionals.length === 1 ? planJson(figures[0]) : figures.map(planJson);
     io.out(JSON.stringify(out, null, 2) + '\n');
   } else io.out(figures.map(describePlan).join('\n'));
-  return EXIT_OK;
+  return figures.every((f) => f.pass) ? EXIT_OK : EXIT_TARGET_MISSED;
 }
 
 function wholeNumber(text: unknown, name: string, fallback: number): number {
