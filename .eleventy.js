@@ -4,8 +4,9 @@ export default function (eleventyConfig) {
   eleventyConfig.setQuietMode(true);
   // Everything from a library file is escaped unless a template marks computed markup (SVG) as safe.
   eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, throwOnUndefined: false });
+  // The input folder is the package's templates/, passed by src/folio/eleventy.ts; these are relative to it.
   return {
-    dir: { input: 'templates', includes: '_includes', data: '_data' },
+    dir: { includes: '_includes', data: '_data' },
     templateFormats: ['njk'],
     htmlTemplateEngine: 'njk',
   };
