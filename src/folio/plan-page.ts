@@ -31,11 +31,10 @@ export function planTargetText(f: Pick<PlanFigures, 'target' | 'targetOhm' | 'vo
   return `${formatEng(f.targetOhm, 'Ω')} ${how}`;
 }
 
-/** "passes, worst margin +2.10 dB at 31.6 MHz" / "fails by 4.20 dB at 12 MHz". */
+/** "worst margin +2.10 dB at 31.6 MHz (|Z| 7.8 mΩ)": what the PASS or FAIL beside it rests on. */
 export function planVerdict(f: PlanFigures): string {
-  if (f.branches.length === 0) return 'fails: nothing is on the rail yet';
-  const where = `at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')})`;
-  return f.pass ? `passes, worst margin ${formatDecibels(f.worstMarginDb)} ${where}` : `fails, worst margin ${formatDecibels(f.worstMarginDb)} ${where}`;
+  if (f.branches.length === 0) return 'nothing is on the rail yet';
+  return `worst margin ${formatDecibels(f.worstMarginDb)} at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')})`;
 }
 
 export function railSlug(rail: string): string {
