@@ -3,7 +3,7 @@
 // review pack whose contents list points at the pages its sections really start on.
 
 import { execFileSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio, type BuildResult } from '../../src/folio/build.js';
@@ -104,6 +104,30 @@ describe('the review pack', () => {
     expect(all).toContain(`${review.source.path}`);
     for (const part of review.parts) expect(all).toContain(part.source.hash);
     expect(all).toMatch(/licensed practice/);
+  });
+});
+
+describe('zfolio print', () => {
+  it('prints one datasheet on Letter paper into the folder asked for, leaving the site alone', async () => {
+    const out = tempDir('print');
+    const repoSite = join(REPO, '_site');
+    const siteBefore = existsSync(repoSite) ? statSync(repoSite).mtimeMs : null;
+    const lines: string[] = [];
+    const code = await main(['print', INDUCTOR, '--paper', 'letter', '--out', out, '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
+    expect(code).toBe(0);
+    const file = join(out, `${INDUCTOR}.pdf`);
+    expect(lines.join('')).toMatch(new RegExp(`${INDUCTOR}\\.pdf  \\d+ pages?\\n$`));
+    // US Letter is 612 × 792 pt (ANSI/ASME Y14.1).
+    expect(pdfinfo(file)['Page size']).toMatch(/^612 x 792 pts \(letter\)/);
+    expect(pdftotext(file)).toContain(INDUCTOR);
+    expect(existsSync(repoSite) ? statSync(repoSite).mtimeMs : null).toBe(siteBefore);
+  }, 180_000);
+
+  it('names what it cannot find', async () => {
+    const err: string[] = [];
+    const code = await main(['print', 'ORV-C-0402-100N-X7X', '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: () => {}, err: (t) => err.push(t) });
+    expect(code).toBe(2);
+    expect(err.join('')).toContain('no part or review called "ORV-C-0402-100N-X7X"; did you mean ORV-C-0402-100N-X7R?');
   });
 });
 
