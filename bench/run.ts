@@ -3,10 +3,12 @@
 
 import { chartsBench } from './charts.bench.js';
 import { engineBench } from './engine.bench.js';
+import { pdfBench } from './pdf.bench.js';
 import { railBench } from './rail.bench.js';
+import { siteBench } from './site.bench.js';
 import type { BenchSection } from './measure.js';
 
-const SECTIONS: BenchSection[] = [engineBench, chartsBench, railBench];
+const SECTIONS: BenchSection[] = [engineBench, chartsBench, railBench, siteBench, pdfBench];
 
 const wanted = process.argv.slice(2);
 for (const section of SECTIONS) {

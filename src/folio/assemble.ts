@@ -8,6 +8,7 @@ import { partSummary } from '../analysis/summary.js';
 import { sweepCsv } from '../analysis/sweep-table.js';
 import { comparisonKey } from '../model/comparison.js';
 import type { Library } from '../model/library.js';
+import type { Part } from '../model/part.js';
 import type { Plan } from '../model/plan.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 import { escapeJsonMarkup } from './escape.js';
@@ -37,11 +38,54 @@ export const jsonFile = (value: unknown) => escapeJsonMarkup(JSON.stringify(valu
 export const partPdfPath = (id: string) => `pdf/parts/${id}.pdf`;
 export const reviewPdfPath = (slug: string) => `pdf/reviews/${slug}.pdf`;
 
+/** A chart as its page shows it; its spec is (or was) written beside the page. */
+function chartOnPage(chart: ChartArtifact): ChartOnPage {
+  return { key: chart.key, title: chart.title, description: chart.description, svg: chart.svg, specFile: `${chart.key}.vl.json` };
+}
+
+/** Time spent on parts of the work, in seconds (for benchmarks and a build's breakdown). */
+export interface AssembleTimings {
+  /** Analysing every part (sweeps, resonances, bands). */
+  analyse: number;
+  /** Writing downloads: sweep CSVs, figures and chart specs (made into text and written). */
+  downloads: number;
+}
+
+/** Write a file and add the time it took, text making included, to `timings.downloads`. */
+function timedWrite(timings: AssembleTimings | undefined, path: string, content: () => string): void {
+  const started = performance.now();
+  writeFileDeep(path, content());
+  if (timings) timings.downloads += (performance.now() - started) / 1000;
+}
+
 /** Write a chart's spec beside its page and say where it is, relative to the page. */
-function placeChart(chart: ChartArtifact, folder: string): ChartOnPage {
-  const specFile = `${chart.key}.vl.json`;
-  writeFileDeep(join(folder, specFile), jsonFile(chart.spec));
-  return { key: chart.key, title: chart.title, description: chart.description, svg: chart.svg, specFile };
+function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimings): ChartOnPage {
+  const page = chartOnPage(chart);
+  timedWrite(timings, join(folder, page.specFile), () => jsonFile(chart.spec));
+  return page;
+}
+
+/** A part's page data as a build records it for the next: all but its charts and its PDF link. */
+export type RecordedPage = Omit<PartPageData, 'charts' | 'pdfFile'>;
+
+/**
+ * A part's analysis, made the first time a figure of it is read: a chart maker needs only the part to find
+ * its charts in the cache, and draws (reading the sweep) only when they are not there.
+ */
+function deferredAnalysis(part: Part, analyse: () => PartAnalysis): PartAnalysis {
+  let made: PartAnalysis | undefined;
+  const analysis = () => (made ??= analyse());
+  return {
+    part,
+    get sweep() { return analysis().sweep; },
+    get frequencies() { return analysis().frequencies; },
+    get z() { return analysis().z; },
+    get resonances() { return analysis().resonances; },
+    get selfResonance() { return analysis().selfResonance; },
+    get bandRule() { return analysis().bandRule; },
+    get usableBand() { return analysis().usableBand; },
+    get within() { return analysis().within; },
+  };
 }
 
 export interface AssembleOptions {
@@ -51,30 +95,54 @@ export interface AssembleOptions {
   progress: Progress;
   /** Link each part and review to its PDF. */
   withPdfs: boolean;
+  /**
+   * Parts whose folders (page, downloads) were carried over whole from the last build: nothing is drawn or
+   * written for them; their charts are read from the chart maker only where another page shows them. With
+   * the page data the last build recorded for them (the same, by the key it was carried over with), they
+   * are not even analysed unless a chart of theirs must be drawn again.
+   */
+  carried?: ReadonlyMap<string, RecordedPage | undefined>;
+  /** Filled in when given. */
+  timings?: AssembleTimings;
 }
 
-export async function assembleSite({ library, siteDir, charts, progress, withPdfs }: AssembleOptions): Promise<FolioData> {
-  const analyses = library.parts.map((p) => analysePart(p, library.settings.sweep, library.settings.within));
-  const byId = new Map(analyses.map((a) => [a.part.id, a]));
+export async function assembleSite({ library, siteDir, charts, progress, withPdfs, carried = new Map(), timings }: AssembleOptions): Promise<FolioData> {
+  const analyse = (part: Part) => {
+    const started = performance.now();
+    const a = analysePart(part, library.settings.sweep, library.settings.within);
+    if (timings) timings.analyse += (performance.now() - started) / 1000;
+    return a;
+  };
+  const byId = new Map(library.parts.map((p) => [p.id, deferredAnalysis(p, () => analyse(p))]));
+  // Review packs print whole datasheets, charts included.
+  const shownElsewhere = new Set(library.reviews.flatMap((r) => r.parts.map((p) => p.id)));
 
-  progress.stage('charts', analyses.length);
+  progress.stage('charts', library.parts.length);
   // All requests at once: the chart maker spreads them over its workers and answers from its cache.
   const parts: PartPageData[] = await Promise.all(
-    analyses.map(async (a) => {
-      const drawn = await charts.partCharts(a);
-      const folder = join(siteDir, 'parts', a.part.id);
-      writeFileDeep(join(folder, 'sweep.csv'), sweepCsv(a));
-      writeFileDeep(join(folder, 'figures.json'), jsonFile(partSummary(a)));
+    library.parts.map(async (part) => {
+      const a = byId.get(part.id)!;
+      let page: PartPageData;
+      if (carried.has(part.id)) {
+        const drawn = shownElsewhere.has(part.id) ? (await charts.partCharts(a)).map(chartOnPage) : [];
+        const recorded = carried.get(part.id);
+        page = recorded ? { ...recorded, charts: drawn } : partPageData(a, drawn);
+      } else {
+        const drawn = await charts.partCharts(a);
+        const folder = join(siteDir, 'parts', part.id);
+        timedWrite(timings, join(folder, 'sweep.csv'), () => sweepCsv(a));
+        timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(partSummary(a)));
+        page = partPageData(a, drawn.map((c) => placeChart(c, folder, timings)));
+      }
       progress.tick();
-      const page = partPageData(a, drawn.map((c) => placeChart(c, folder)));
-      if (withPdfs) page.pdfFile = partPdfPath(a.part.id);
+      if (withPdfs) page.pdfFile = partPdfPath(part.id);
       return page;
     }),
   );
   const partsById = new Map(parts.map((p) => [p.id, p]));
 
-  const { pages: comparisons, byKey } = await comparisonPages(library, byId, partsById, siteDir, charts);
-  const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts)));
+  const { pages: comparisons, byKey } = await comparisonPages(library, byId, partsById, siteDir, charts, timings);
+  const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts, timings)));
   const reviews = library.reviews.map((r) => {
     const page = reviewPageData(r, library, { parts: partsById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
     if (withPdfs) page.pdfFile = reviewPdfPath(page.slug);
@@ -83,13 +151,13 @@ export async function assembleSite({ library, siteDir, charts, progress, withPdf
   return { ...folioHeader(library), parts, comparisons, plans, reviews };
 }
 
-async function planPage(plan: Plan, library: Library, siteDir: string, charts: ChartMaker): Promise<PlanPageData> {
+async function planPage(plan: Plan, library: Library, siteDir: string, charts: ChartMaker, timings?: AssembleTimings): Promise<PlanPageData> {
   const figures = analysePlan(plan, library.settings.sweep.perDecade);
   const inputs = [plan.source.hash, ...plan.placements.map((p) => p.part.source.hash)].join(',');
   const page = planPageData(figures, plan.source.hash, plan.notes, undefined);
   const folder = join(siteDir, 'plans', page.slug);
-  page.chart = placeChart(await charts.railChart(figures, inputs), folder);
-  writeFileDeep(join(folder, 'figures.json'), jsonFile(planFiguresWithoutCurves(figures)));
+  page.chart = placeChart(await charts.railChart(figures, inputs), folder, timings);
+  timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(planFiguresWithoutCurves(figures)));
   return page;
 }
 
@@ -99,6 +167,7 @@ async function comparisonPages(
   pagesById: ReadonlyMap<string, PartPageData>,
   siteDir: string,
   charts: ChartMaker,
+  timings?: AssembleTimings,
 ): Promise<{ pages: ComparisonPageData[]; byKey: Map<string, ComparisonPageData> }> {
   const pages: ComparisonPageData[] = [];
   const byKey = new Map<string, ComparisonPageData>();
@@ -110,7 +179,7 @@ async function comparisonPages(
     slugs.add(slug);
     const analyses = partIds.map((id) => byId.get(id)!);
     const folder = join(siteDir, 'comparisons', slug);
-    const chart = analyses.length > 0 ? placeChart(await charts.comparisonChart(analyses, page.title), folder) : undefined;
+    const chart = analyses.length > 0 ? placeChart(await charts.comparisonChart(analyses, page.title), folder, timings) : undefined;
     const data: ComparisonPageData = { slug, ...page, parts: partIds.map((id) => pagesById.get(id)!), chart };
     pages.push(data);
     return data;

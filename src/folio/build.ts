@@ -6,15 +6,17 @@ import { join, relative, resolve, sep } from 'node:path';
 import type { Diagnostic } from '../model/diagnostics.js';
 import { loadLibrary, type Library } from '../model/library.js';
 import type { PaperSize } from '../model/settings.js';
-import { assembleSite } from './assemble.js';
+import { assembleSite, type AssembleTimings } from './assemble.js';
 import { chromeHint, findChrome } from './browser.js';
 import type { ChartMaker } from './chart-maker.js';
-import { ChartPool } from './chart-pool.js';
+import { ChartPool, type ChartPoolStats } from './chart-pool.js';
 import { renderPages, TEMPLATES_DIR } from './eleventy.js';
 import { stageOutput } from './output.js';
+import type { FolioData } from './site-data.js';
 import { printJobs, type PrintedFile } from './print.js';
 import { buildDate, printJobsFor, type PrintSelection } from './print-jobs.js';
 import { silentProgress, type Progress } from './progress.js';
+import { dropRecord, linkPartFolders, partKey, readRecord, recordFile, reusableParts, siteKey, writeRecord } from './reuse.js';
 
 export interface BuildOptions {
   libraryRoot: string;
@@ -23,11 +25,15 @@ export interface BuildOptions {
   progress?: Progress;
   /** Where charts come from; default: a ChartPool with the library's cache (see chartPoolFor). */
   charts?: ChartMaker;
-  /** Worker threads for charts (default: one per core for larger libraries, none for small ones). */
+  /** Worker threads for charts (default: one per core when many parts need drawing, none for a few). */
   workers?: number;
   /** Print PDFs too. */
   pdf?: PdfOptions;
-  /** Chart cache folder; false for none. Default: .zfolio-cache/charts under the library. */
+  /**
+   * Cache folder: drawn charts (charts/) and a record of the last build of each output folder (builds/), so
+   * that a rebuild draws, writes and renders only what changed. False for none (every build starts from
+   * nothing). Default: .zfolio-cache under the library.
+   */
   cache?: string | false;
 }
 
@@ -51,10 +57,44 @@ export interface BuildResult {
   pages: number;
   seconds: number;
   library?: Library;
+  /** The data the pages were rendered from (a carried-over part's charts are left out: its page was not rendered). */
+  folio?: FolioData;
   /** PDFs written (site-relative paths) with their page counts. */
   pdfs: PrintedFile[];
   /** Set when PDFs were asked for but could not be made (the HTML site was still written). */
   pdfProblem?: string;
+  /** Parts whose folders were carried over unchanged from the last build. */
+  reused: number;
+  /** The chart pool's counts (absent when charts came from a given chart maker). */
+  charts?: ChartPoolStats;
+  timings: BuildTimings;
+}
+
+/** Wall-clock seconds and CPU seconds of the whole process (every thread) spent in one stage. */
+export interface StageTime {
+  seconds: number;
+  cpuSeconds: number;
+}
+
+export interface BuildTimings {
+  /** Reading and checking the library; finding what the last build left that can be reused. */
+  load: StageTime;
+  /** Analyses, charts and downloads: the site's data. */
+  assemble: StageTime & AssembleTimings;
+  /** Eleventy rendering and writing the pages, the static assets, and linking the carried-over part folders. */
+  pages: StageTime;
+  pdf: StageTime;
+  /** Putting the new site in place of the old, and recording what it holds. */
+  swap: StageTime;
+}
+
+function stageClock(): () => StageTime {
+  const wall = performance.now();
+  const cpu = process.cpuUsage();
+  return () => {
+    const used = process.cpuUsage(cpu);
+    return { seconds: (performance.now() - wall) / 1000, cpuSeconds: (used.user + used.system) / 1e6 };
+  };
 }
 
 export const DEFAULT_OUT_DIR = '_site';
@@ -66,22 +106,43 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   const progress = options.progress ?? silentProgress;
   const libraryRoot = resolve(options.libraryRoot);
   const outDir = resolve(libraryRoot, options.outDir ?? DEFAULT_OUT_DIR);
+  const zero = { seconds: 0, cpuSeconds: 0 };
+  const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
+  let clock = stageClock();
   const { library, diagnostics } = loadLibrary(libraryRoot);
-  const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [] };
+  const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, timings };
   if (!library) return result;
   result.library = library;
 
-  const pool = options.charts ? undefined : chartPoolFor(library, options.workers, options.cache);
+  const cacheRoot = options.cache === false ? undefined : resolve(libraryRoot, options.cache ?? CACHE_DIR);
+  // Part folders can be carried over only when charts come from the cache-keyed pool.
+  const reuse = cacheRoot && !options.charts ? { file: recordFile(cacheRoot, outDir), site: siteKey(library, Boolean(options.pdf)) } : undefined;
+  const partKeys = new Map(reuse ? library.parts.map((p) => [p.id, partKey(reuse.site, p)]) : []);
   const staging = stageOutput(outDir);
+  let pool: ChartPool | undefined;
   try {
-    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, withPdfs: Boolean(options.pdf) });
+    const record = reuse ? readRecord(reuse.file, outDir) : undefined;
+    const carried = reusableParts(record, partKeys, outDir);
+    const fresh = library.parts.length - carried.size;
+    pool = options.charts ? undefined : chartPoolFor(library, options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), cacheRoot ? join(cacheRoot, 'charts') : false);
+    for (const part of library.parts) if (carried.has(part.id)) pool?.keepPartCharts({ part });
+    timings.load = clock();
+
+    clock = stageClock();
+    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, withPdfs: Boolean(options.pdf), carried, timings: timings.assemble });
     await pool?.close();
+    Object.assign(timings.assemble, clock());
+
+    clock = stageClock();
     progress.stage('pages', 1);
-    const written = await renderPages(staging.dir, folio);
+    const written = await renderPages(staging.dir, folio, carried.size > 0 ? { partPages: new Set(library.parts.filter((p) => !carried.has(p.id)).map((p) => p.id)) } : {});
     progress.tick();
     cpSync(join(TEMPLATES_DIR, 'assets'), join(staging.dir, 'assets'), { recursive: true });
+    const linked = linkPartFolders(record, carried.keys(), outDir, staging.dir);
+    timings.pages = clock();
 
     if (options.pdf) {
+      clock = stageClock();
       const chrome = findChrome(options.pdf.chrome, options.pdf.env);
       if ('problem' in chrome) result.pdfProblem = chromeHint(chrome.problem);
       else {
@@ -90,9 +151,24 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
         const printed = await printJobs(chrome.path, printJobsFor(library, folio, staging.dir, date, options.pdf.select), paper, date, progress);
         result.pdfs = printed.map((p) => ({ ...p, pdfFile: relative(staging.dir, p.pdfFile).split(sep).join('/') }));
       }
+      timings.pdf = clock();
     }
+
+    clock = stageClock();
+    // The record is dropped before the swap and written after it, so it never describes a site not in place.
+    if (reuse) dropRecord(reuse.file);
     staging.commit();
-    Object.assign(result, { ok: true, parts: folio.parts.length, pages: written, seconds: (performance.now() - started) / 1000 });
+    if (reuse) writeRecord(reuse.file, outDir, partKeys, new Map(folio.parts.map((p) => [p.id, p])), record, linked);
+    timings.swap = clock();
+    Object.assign(result, {
+      ok: true,
+      parts: folio.parts.length,
+      pages: written + carried.size,
+      reused: carried.size,
+      charts: pool?.stats,
+      folio,
+      seconds: (performance.now() - started) / 1000,
+    });
     return result;
   } catch (error) {
     staging.abandon();
@@ -101,7 +177,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   }
 }
 
-/** Below this many parts, starting worker threads costs more than it saves. */
+/** Below this many parts to draw (not carried over), starting worker threads costs more than it saves. */
 const PARTS_PER_WORKER_START = 40;
 
 export function chartPoolFor(library: Library, workers?: number, cache?: string | false): ChartPool {

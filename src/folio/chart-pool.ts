@@ -12,7 +12,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { gunzipSync, gzipSync } from 'node:zlib';
 import type { PartAnalysis } from '../analysis/part-figures.js';
-import { VERSION } from '../version.js';
+import { codeKey } from './reuse.js';
 import { chartInput, railChartData, renderChartJob, type ChartJob } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
@@ -27,23 +27,17 @@ export interface ChartPoolOptions {
 }
 
 export interface ChartPoolStats {
+  /** Requests (a part's charts, a comparison, a rail) drawn, and answered from the cache. */
   rendered: number;
   fromCache: number;
+  /** Charts drawn, each counted (a part's request draws four). */
+  drawn: number;
+  /** Seconds the worker threads spent on jobs, summed over workers (from sending a job to its answer). */
+  workerSeconds: number;
 }
 
 const HERE = dirname(fileURLToPath(import.meta.url));
 const RUNNING_TYPESCRIPT = import.meta.url.endsWith('.ts');
-
-/** A hash of the code that draws charts, so a changed renderer never serves stale cache entries. */
-function rendererFingerprint(): string {
-  const hash = createHash('sha256').update(VERSION);
-  for (const dir of [join(HERE, '..', 'charts'), HERE]) {
-    for (const name of readdirSync(dir).sort()) {
-      if (/\.(ts|js)$/.test(name)) hash.update(name).update(readFileSync(join(dir, name)));
-    }
-  }
-  return hash.digest('hex').slice(0, 16);
-}
 
 /**
  * Under TypeScript (tests, development) a worker must register tsx itself: Node 20 applies neither the
@@ -58,11 +52,15 @@ function typescriptWorker(file: string): Worker {
 interface Pending {
   resolve(charts: ChartArtifact[]): void;
   reject(error: Error): void;
+  /** When the job was handed to a worker (performance.now()). */
+  sentAt?: number;
 }
 
 export class ChartPool implements ChartMaker {
-  readonly stats: ChartPoolStats = { rendered: 0, fromCache: 0 };
-  private readonly fingerprint = rendererFingerprint();
+  readonly stats: ChartPoolStats = { rendered: 0, fromCache: 0, drawn: 0, workerSeconds: 0 };
+  // Everything that turns a part file into charts besides the file: all of zfolio's code and the rendering
+  // packages' versions, so a changed analysis or renderer never serves a stale chart.
+  private readonly fingerprint = codeKey();
   private readonly workers: Worker[] = [];
   private readonly idle: Worker[] = [];
   private readonly queue: { id: number; job: ChartJob }[] = [];
@@ -79,6 +77,11 @@ export class ChartPool implements ChartMaker {
   async partCharts(a: PartAnalysis): Promise<ChartArtifact[]> {
     const key = this.key('part', a.part.source.hash);
     return this.cached(key, () => this.run({ type: 'part', input: chartInput(a) }));
+  }
+
+  /** Keep a part's cached charts through this build's pruning without reading them (its page is reused). */
+  keepPartCharts(a: Pick<PartAnalysis, 'part'>): void {
+    this.usedKeys.add(this.key('part', a.part.source.hash));
   }
 
   async comparisonChart(analyses: PartAnalysis[], title: string): Promise<ChartArtifact> {
@@ -123,6 +126,7 @@ export class ChartPool implements ChartMaker {
     }
     const charts = await render();
     this.stats.rendered++;
+    this.stats.drawn += charts.length;
     if (file) writeFileSync(file, gzipSync(JSON.stringify(charts), { level: 1 }));
     return charts;
   }
@@ -140,7 +144,10 @@ export class ChartPool implements ChartMaker {
   private dispatch(): void {
     while (this.idle.length > 0 && this.queue.length > 0) {
       const worker = this.idle.pop()!;
-      worker.postMessage(this.queue.shift()!);
+      const message = this.queue.shift()!;
+      const pending = this.pending.get(message.id);
+      if (pending) pending.sentAt = performance.now();
+      worker.postMessage(message);
     }
   }
 
@@ -149,6 +156,7 @@ export class ChartPool implements ChartMaker {
     worker.on('message', (message: { id: number; charts?: ChartArtifact[]; error?: string }) => {
       const pending = this.pending.get(message.id);
       this.pending.delete(message.id);
+      if (pending?.sentAt !== undefined) this.stats.workerSeconds += (performance.now() - pending.sentAt) / 1000;
       this.idle.push(worker);
       this.dispatch();
       if (!pending) return;

@@ -3,7 +3,7 @@
 // review pack whose contents list points at the pages its sections really start on.
 
 import { execFileSync } from 'node:child_process';
-import { existsSync, statSync } from 'node:fs';
+import { existsSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio, type BuildResult } from '../../src/folio/build.js';
@@ -51,6 +51,10 @@ describe('part datasheets', () => {
     const part = library.partsById.get(id)!;
     expect(text).toContain(`built 2026-12-01 · ${part.source.path} · sha256:${part.source.hash}`);
     expect(text).toContain(library.settings.title);
+  });
+
+  it('hold no link to the build\'s own files (they would point into a folder that is gone)', () => {
+    for (const pdf of result.pdfs) expect(readFileSync(join(site, pdf.pdfFile)).includes('file:'), pdf.pdfFile).toBe(false);
   });
 
   it('carry title, subject, creator and producer metadata', () => {
