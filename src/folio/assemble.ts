@@ -148,7 +148,9 @@ export async function assembleSite({ library, siteDir, charts, progress, withPdf
     if (withPdfs) page.pdfFile = reviewPdfPath(page.slug);
     return page;
   });
-  return { ...folioHeader(library), parts, comparisons, plans, reviews };
+  // Carried-over parts keep the page the last build wrote; only the others are rendered.
+  const partPages = parts.filter((p) => !carried.has(p.id));
+  return { ...folioHeader(library), parts, partPages, comparisons, plans, reviews };
 }
 
 async function planPage(plan: Plan, library: Library, siteDir: string, charts: ChartMaker, timings?: AssembleTimings): Promise<PlanPageData> {

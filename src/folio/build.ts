@@ -135,7 +135,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
 
     clock = stageClock();
     progress.stage('pages', 1);
-    const written = await renderPages(staging.dir, folio, carried.size > 0 ? { partPages: new Set(library.parts.filter((p) => !carried.has(p.id)).map((p) => p.id)) } : {});
+    const written = await renderPages(staging.dir, folio);
     progress.tick();
     cpSync(join(TEMPLATES_DIR, 'assets'), join(staging.dir, 'assets'), { recursive: true });
     const linked = linkPartFolders(record, carried.keys(), outDir, staging.dir);

@@ -65,6 +65,8 @@ export interface FolioData {
   withinText: string;
   kindCounts: { kind: PartKind; label: string; count: number }[];
   parts: PartPageData[];
+  /** The parts whose pages this build renders (all but those carried over from the last build). */
+  partPages: PartPageData[];
   comparisons: ComparisonPageData[];
   plans: PlanPageData[];
   reviews: ReviewPageData[];
@@ -153,7 +155,7 @@ export function kindCounts(library: Library): FolioData['kindCounts'] {
     .filter((k) => k.count > 0);
 }
 
-export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'comparisons' | 'plans' | 'reviews'> {
+export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partPages' | 'comparisons' | 'plans' | 'reviews'> {
   const s = library.settings;
   return {
     title: s.title,

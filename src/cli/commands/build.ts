@@ -58,7 +58,8 @@ export function reportBuild(result: BuildResult, io: CommandIO): number {
     return EXIT_BAD_INPUT;
   }
   const pdfs = result.pdfs.length > 0 ? `, ${plural(result.pdfs.length, 'PDF')} (${result.pdfs.reduce((n, p) => n + p.pages, 0)} pages)` : '';
-  io.out(`built ${plural(result.parts, 'part')}, ${plural(result.pages, 'page')}${pdfs} in ${result.seconds.toFixed(1)} s: ${relative(io.cwd, result.outDir) || '.'}/index.html\n`);
+  const carried = result.reused > 0 ? ` (${result.reused} unchanged, carried over)` : '';
+  io.out(`built ${plural(result.parts, 'part')}${carried}, ${plural(result.pages, 'page')}${pdfs} in ${result.seconds.toFixed(1)} s: ${relative(io.cwd, result.outDir) || '.'}/index.html\n`);
   if (result.pdfProblem) {
     io.err(`zfolio build: the site was written, but no PDFs. ${result.pdfProblem}\n`);
     return EXIT_BAD_INPUT;
