@@ -23,14 +23,6 @@ export function parallel(...parts: Element[]): Element {
   return parts.length === 1 ? parts[0] : { type: 'parallel', parts };
 }
 
-/** Count of leaf elements, for benchmarks and sanity checks. */
-export function elementCount(element: Element): number {
-  if (element.type === 'series' || element.type === 'parallel') {
-    return element.parts.reduce((n, p) => n + elementCount(p), 0);
-  }
-  return 1;
-}
-
 /** Impedance of a tree at DC, as a limit: 0 for a short, Infinity for an open. */
 export function dcResistance(element: Element): number {
   switch (element.type) {

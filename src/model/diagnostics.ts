@@ -21,10 +21,6 @@ export function formatDiagnostic(d: Diagnostic): string {
   return `${d.file}:${d.line}:${d.column}: ${d.severity === 'warning' ? 'warning: ' : ''}${d.message}`;
 }
 
-export function formatPosition(p: SourcePosition): string {
-  return `${p.file}:${p.line}:${p.column}`;
-}
-
 /** Collects problems across a whole library so that one run reports them all. */
 export class DiagnosticList {
   private readonly items: Diagnostic[] = [];
@@ -50,12 +46,5 @@ export class DiagnosticList {
     return [...this.items].sort(
       (a, b) => (a.file < b.file ? -1 : a.file > b.file ? 1 : 0) || a.line - b.line || a.column - b.column || (a.message < b.message ? -1 : a.message > b.message ? 1 : 0),
     );
-  }
-}
-
-/** Thrown by library loading when the library has errors; carries every diagnostic found. */
-export class LibraryError extends Error {
-  constructor(readonly diagnostics: Diagnostic[]) {
-    super(`${diagnostics.filter((d) => d.severity === 'error').length} problem(s) in the library`);
   }
 }

@@ -3,6 +3,7 @@
 import { analysePart } from '../../analysis/part-figures.js';
 import { partSummary, type PartSummary } from '../../analysis/summary.js';
 import { formatEng, formatPercent } from '../../units/format.js';
+import { bandText } from '../../folio/part-page.js';
 import { LIBRARY_OPTION, SWEEP_OPTIONS, libraryRoot, parseCommandLine, sweepWithOverrides } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_OK, type CommandIO } from '../io.js';
 import { loadReported } from '../report.js';
@@ -48,14 +49,8 @@ export function describeFigures(s: PartSummary): string {
   for (const r of s.resonances) {
     lines.push(`  resonance    ${formatEng(r.frequencyHz, 'Hz').padEnd(11)} ${r.type.padEnd(8)} |Z| ${formatEng(r.impedanceOhm, 'Ω')}`);
   }
-  if (s.usableBand) {
-    const b = s.usableBand;
-    const from = `${b.fromIsSweepEnd ? '≤ ' : ''}${formatEng(b.fromHz, 'Hz')}`;
-    const to = `${b.toIsSweepEnd ? '≥ ' : ''}${formatEng(b.toHz, 'Hz')}`;
-    const rule = s.within !== null ? ` (value within ${formatPercent(s.within)} of nominal)` : s.behavesAs === 'bead' ? ' (resistive: R − Rdc ≥ |X|)' : '';
-    lines.push(`  usable band  ${from} to ${to}${rule}`);
-  } else {
-    lines.push(s.behavesAs ? '  usable band  none in the sweep' : '  usable band  not defined (the network declares no behaves-as)');
-  }
+  const rule = s.within !== null ? ` (value within ${formatPercent(s.within)} of nominal)` : s.behavesAs === 'bead' ? ' (resistive: R − Rdc ≥ |X|)' : '';
+  if (s.behavesAs) lines.push(`  usable band  ${s.usableBand ? bandText(s.usableBand) + rule : 'none in the sweep'}`);
+  else lines.push('  usable band  not defined (the network declares no behaves-as)');
   return lines.join('\n') + '\n';
 }
