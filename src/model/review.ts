@@ -64,19 +64,7 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
   const board = root.text('board');
   const summary = root.text('summary');
 
-  const reviewers: Reviewer[] = [];
-  for (const item of root.seq('reviewers')?.items ?? []) {
-    const name = scalarText(item as Node);
-    if (name !== undefined) {
-      reviewers.push({ name });
-      continue;
-    }
-    const fields = Fields.of(ctx, item as Node, 'reviewers[]');
-    if (!fields) continue;
-    fields.expect(['name', 'role'], ['name']);
-    const who = fields.text('name');
-    if (who) reviewers.push({ name: who, role: fields.text('role') });
-  }
+  const reviewers = readEntries(ctx, root, 'reviewers', ['name', 'role'], (name, fields) => ({ name, role: fields?.text('role') }));
 
   const covers = root.map('covers');
   const pick = <T>(field: string, map: ReadonlyMap<string, T>, what: string): T[] => {
@@ -109,20 +97,34 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
   }
 
   const decisions = root.textList('decisions');
-  const openPoints: OpenPoint[] = [];
-  for (const item of root.seq('open-points')?.items ?? []) {
-    const text = scalarText(item as Node);
-    if (text !== undefined) {
-      openPoints.push({ text });
-      continue;
-    }
-    const fields = Fields.of(ctx, item as Node, 'open-points[]');
-    if (!fields) continue;
-    fields.expect(['text', 'owner', 'due'], ['text']);
-    const point = fields.text('text');
-    if (point) openPoints.push({ text: point, owner: fields.text('owner'), due: fields.text('due', { pattern: ISO_DATE, patternHint: 'a date written YYYY-MM-DD' }) });
-  }
+  const openPoints = readEntries(ctx, root, 'open-points', ['text', 'owner', 'due'], (text, fields) => ({
+    text,
+    owner: fields?.text('owner'),
+    due: fields?.text('due', { pattern: ISO_DATE, patternHint: 'a date written YYYY-MM-DD' }),
+  }));
 
   if (ctx.diagnostics.errorCount > before || !title || !date || !board) return undefined;
   return { title, date, board, reviewers, parts, comparisons, plans, decisions, openPoints, summary, source: ctx.source, at: root.position() };
+}
+
+/**
+ * A list whose entries are either a plain text (the first field alone) or a mapping of `names`, the first of
+ * them required: `reviewers: [A. Person, {name: B. Person, role: layout}]`. Optional fields of a plain-text
+ * entry are absent; `make` builds each entry from its first field and, for a mapping, its other fields.
+ */
+function readEntries<T>(ctx: ReadContext, root: Fields, list: string, names: readonly string[], make: (first: string, fields?: Fields) => T): T[] {
+  const out: T[] = [];
+  for (const item of root.seq(list)?.items ?? []) {
+    const plain = scalarText(item as Node);
+    if (plain !== undefined) {
+      out.push(make(plain));
+      continue;
+    }
+    const fields = Fields.of(ctx, item as Node, `${list}[]`);
+    if (!fields) continue;
+    fields.expect(names, [names[0]]);
+    const first = fields.text(names[0]);
+    if (first) out.push(make(first, fields));
+  }
+  return out;
 }

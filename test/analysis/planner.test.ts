@@ -2,22 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { capacitor, inductor, resistor, series, type Element } from '../../src/circuit/element.js';
 import { logSweep } from '../../src/circuit/sweep.js';
 import { planDecoupling, type PlannerCandidate, type PlannerProblem } from '../../src/analysis/planner.js';
+import { mulberry32 } from '../../bench/generate.js';
 import { evaluateRail, placementElement, regulatorElement, planeElement, type RailBranch } from '../../src/analysis/rail.js';
 
 // The planner is checked against the most direct reference there is: exhaustive enumeration of every
 // count vector (0..N for each candidate), each judged by the same full rail evaluation. Cases are random
 // but seeded (mulberry32, a public-domain 32-bit generator), so every run checks the same cases.
-
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const logUniform = (r: () => number, lo: number, hi: number) => 10 ** (lo + (hi - lo) * r());
 
