@@ -1,6 +1,9 @@
 // DC bias: the capacitance a part keeps at a rail's DC voltage, and its model with that capacitance.
 // Class 2 ceramics lose a large part of their capacitance under DC bias (common practice: makers publish a
-// table of retained capacitance against voltage); between the table's points we interpolate linearly.
+// table of retained capacitance against voltage). Nominal capacitance is stated without DC bias (common
+// practice: it is measured at 0 V DC), so the curve starts at 100 % at 0 V unless the table gives its own
+// 0 V point; between points it is linear. Above the table's last point nothing is known: the last fraction
+// is held and the result says so, since class 2 ceramics keep losing capacitance as the voltage rises.
 
 import { parallel, series, type Element } from '../circuit/element.js';
 
@@ -15,26 +18,31 @@ export interface BiasedCapacitance {
   fraction: number;
   /** Whether a DC-bias table was used (false: nominal capacitance, no table). */
   fromTable: boolean;
-  /** The voltage lies outside the table and the nearest end point was used. */
-  clamped: boolean;
+  /** The voltage lies above the table's last point, whose fraction was held: an extrapolation. */
+  extrapolated: boolean;
+  /** The table's last voltage, V (null without a table). */
+  tableEndV: number | null;
 }
 
 /**
- * The fraction of nominal capacitance at `voltageV`: linear interpolation between the table's points,
- * clamped to the first and last points outside the table; 1 when the table is empty.
+ * The fraction of nominal capacitance at `voltageV`: linear between the table's points, through 100 % at
+ * 0 V unless the table has a 0 V point, the last fraction held (and `extrapolated`) above the last point;
+ * 1 when the table is empty.
  */
 export function biasFraction(table: readonly BiasTablePoint[], voltageV: number): BiasedCapacitance {
-  if (table.length === 0) return { fraction: 1, fromTable: false, clamped: false };
-  const first = table[0];
-  const last = table[table.length - 1];
-  if (voltageV <= first.voltageV) return { fraction: first.fraction, fromTable: true, clamped: voltageV < first.voltageV };
-  if (voltageV >= last.voltageV) return { fraction: last.fraction, fromTable: true, clamped: voltageV > last.voltageV };
+  if (table.length === 0) return { fraction: 1, fromTable: false, extrapolated: false, tableEndV: null };
+  const points = table[0].voltageV > 0 ? [{ voltageV: 0, fraction: 1 }, ...table] : table;
+  const last = points[points.length - 1];
+  const at = (fraction: number, extrapolated = false) => ({ fraction, fromTable: true, extrapolated, tableEndV: last.voltageV });
+  if (voltageV <= points[0].voltageV) return at(points[0].fraction);
+  if (voltageV > last.voltageV) return at(last.fraction, true);
   let i = 1;
-  while (table[i].voltageV < voltageV) i++;
-  const a = table[i - 1];
-  const b = table[i];
+  while (points[i].voltageV < voltageV) i++;
+  const a = points[i - 1];
+  const b = points[i];
+  if (voltageV === b.voltageV) return at(b.fraction);
   const t = (voltageV - a.voltageV) / (b.voltageV - a.voltageV);
-  return { fraction: a.fraction + t * (b.fraction - a.fraction), fromTable: true, clamped: false };
+  return at(a.fraction + t * (b.fraction - a.fraction));
 }
 
 /**

@@ -68,8 +68,10 @@ export interface PlacementFigures {
   biasFraction: number;
   /** The capacitance comes from the part's DC-bias table (false: nominal, the part has no table). */
   biasFromTable: boolean;
-  /** The rail voltage lies outside the table; its nearest end was used. */
-  biasClamped: boolean;
+  /** The rail voltage lies above the table's last point; that point's fraction was held (an extrapolation). */
+  biasExtrapolated: boolean;
+  /** The last voltage of the part's DC-bias table, V (null without a table). */
+  biasTableEndV: number | null;
   voltageRatingV: number | null;
   cost: number | null;
 }
@@ -140,7 +142,8 @@ export function railBranches(plan: Plan, placements: readonly Plan['placements']
       capacitanceF: placed.capacitanceF,
       biasFraction: placed.bias.fraction,
       biasFromTable: placed.bias.fromTable,
-      biasClamped: placed.bias.clamped,
+      biasExtrapolated: placed.bias.extrapolated,
+      biasTableEndV: placed.bias.tableEndV,
       voltageRatingV: p.part.voltageV ?? null,
       cost: p.part.cost ?? null,
     });

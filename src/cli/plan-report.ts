@@ -21,7 +21,7 @@ function branchLines(f: PlanFigures): string[] {
   if (f.plane) rows.push(['plane', [formatEng(f.plane.cF, 'F'), f.plane.rOhm !== null ? formatEng(f.plane.rOhm, 'Ω') : ''].filter(Boolean).join(' + ')]);
   for (const p of f.placements) {
     const bias = p.biasFromTable
-      ? `${formatEng(p.capacitanceF, 'F')} at ${formatEng(f.voltageV, 'V')} (${formatPercent(p.biasFraction)} of ${formatEng(p.nominalF, 'F')}, DC-bias table${p.biasClamped ? ', nearest end' : ''})`
+      ? `${formatEng(p.capacitanceF, 'F')} at ${formatEng(f.voltageV, 'V')} (${formatPercent(p.biasFraction)} of ${formatEng(p.nominalF, 'F')}, ${p.biasExtrapolated ? `extrapolated: the DC-bias table ends at ${formatEng(p.biasTableEndV ?? NaN, 'V')}` : 'DC-bias table'})`
       : `${formatEng(p.nominalF, 'F')} (no DC-bias table: nominal)`;
     rows.push([`${p.count} × ${p.partId}`, `${bias}, mounting ${formatEng(p.mountingH, 'H')}`]);
   }

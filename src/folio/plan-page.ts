@@ -81,12 +81,12 @@ export function planPageData(f: PlanFigures, sourceHash: string, notes: string |
       nominal: formatEng(p.nominalF, 'F'),
       atRail: p.biasFromTable ? `${formatEng(p.capacitanceF, 'F')} (${formatPercent(p.biasFraction)})` : formatEng(p.nominalF, 'F'),
       rating: p.voltageRatingV !== null ? formatEng(p.voltageRatingV, 'V') : 'not rated',
-      note: p.biasFromTable ? `DC-bias table${p.biasClamped ? ', nearest end' : ''}` : 'no DC-bias table: nominal',
+      note: p.biasFromTable ? (p.biasExtrapolated ? `DC-bias table, extrapolated: the table ends at ${formatEng(p.biasTableEndV ?? NaN, 'V')}, its last fraction is held` : 'DC-bias table') : 'no DC-bias table: nominal',
     })),
     warnings,
     biasNote:
       f.biasDerated.length > 0
-        ? `Capacitances at ${formatEng(f.voltageV, 'V')} come from the DC-bias tables of ${f.biasDerated.join(', ')} (linear interpolation); other parts count at nominal.`
+        ? `Capacitances at ${formatEng(f.voltageV, 'V')} come from the DC-bias tables of ${f.biasDerated.join(', ')} (linear between points, from 100% at 0 V unless the table gives 0 V${f.placements.some((p) => p.biasExtrapolated) ? '; above a table\'s last point its last fraction is held, which is likely optimistic' : ''}); other parts count at nominal.`
         : 'No placed part has a DC-bias table: every capacitance counts at nominal.',
     chart,
   };

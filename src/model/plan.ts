@@ -52,6 +52,16 @@ export function voltageStress(part: Part, railV: number, derating: number): Volt
   return 'ok';
 }
 
+/**
+ * When `railV` lies above the last point of the part's DC-bias table: the warning, naming the part, the
+ * table's last voltage, the rail voltage and the fraction held there (src/analysis/dc-bias.ts holds it).
+ */
+export function beyondBiasTable(part: Part, railV: number): string | undefined {
+  const last = part.dcBias[part.dcBias.length - 1];
+  if (!last || !(railV > last.voltageV)) return undefined;
+  return `the DC-bias table of ${part.id} ends at ${formatEng(last.voltageV, 'V')}, below the rail's ${formatEng(railV, 'V')}; its last fraction, ${formatPercent(last.fraction)}, is used, which is likely optimistic (class 2 ceramics keep losing capacitance as the voltage rises)`;
+}
+
 /** Read one plan file against the library's parts. Returns undefined when it has errors (all reported). */
 export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>, derating: number): Plan | undefined {
   const { diagnostics } = ctx;
@@ -108,6 +118,8 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
       } else if (stress === 'unrated') {
         warn(at, `${label}.part: ${part.id} states no voltage rating, so the rail's ${formatEng(voltageV, 'V')} cannot be checked against it`);
       }
+      const beyond = beyondBiasTable(part, voltageV);
+      if (beyond) warn(at, `${label}.part: ${beyond}`);
     }
     placements.push({ part, count, mountingH: ownMounting ?? mountingH ?? 0, at });
   });

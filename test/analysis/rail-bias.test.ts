@@ -5,8 +5,9 @@ import { biasFraction, scaleCapacitance } from '../../src/analysis/dc-bias.js';
 import { placedModel } from '../../src/analysis/plan-figures.js';
 import { loadLibrary } from '../../src/model/library.js';
 
-// Linear interpolation between table points, clamped at the ends (common practice for DC-bias tables;
-// the arithmetic is checked by hand in each comment).
+// Linear interpolation between table points, through 100 % at 0 V where nominal capacitance is stated
+// (common practice: nominal is measured without DC bias), the last fraction held above the last point;
+// the arithmetic is checked by hand in each comment.
 const table = [
   { voltageV: 1, fraction: 0.9 },
   { voltageV: 3.3, fraction: 0.6 },
@@ -15,22 +16,49 @@ const table = [
 
 describe('biasFraction', () => {
   it('no table: nominal capacitance', () => {
-    expect(biasFraction([], 5)).toEqual({ fraction: 1, fromTable: false, clamped: false });
+    expect(biasFraction([], 5)).toEqual({ fraction: 1, fromTable: false, extrapolated: false, tableEndV: null });
   });
   it('on a table point: that point', () => {
-    expect(biasFraction(table, 3.3)).toEqual({ fraction: 0.6, fromTable: true, clamped: false });
+    expect(biasFraction(table, 3.3)).toEqual({ fraction: 0.6, fromTable: true, extrapolated: false, tableEndV: 6.3 });
+    expect(biasFraction(table, 1)).toEqual({ fraction: 0.9, fromTable: true, extrapolated: false, tableEndV: 6.3 });
   });
   it('between points: linear, 2.15 V is halfway from 1 V (90 %) to 3.3 V (60 %) → 75 %', () => {
     const b = biasFraction(table, 2.15);
     expect(b.fraction).toBeCloseTo(0.75, 14);
-    expect(b.clamped).toBe(false);
+    expect(b.extrapolated).toBe(false);
   });
   it('4.8 V: half of the way from 3.3 V (60 %) to 6.3 V (35 %) → 47.5 %', () => {
     expect(biasFraction(table, 4.8).fraction).toBeCloseTo(0.475, 14);
   });
-  it('outside the table: clamped to the nearest end, and says so', () => {
-    expect(biasFraction(table, 0.5)).toEqual({ fraction: 0.9, fromTable: true, clamped: true });
-    expect(biasFraction(table, 10)).toEqual({ fraction: 0.35, fromTable: true, clamped: true });
+  it('below the first point: on the line from 100 % at 0 V, 0.5 V is halfway to 1 V (90 %) → 95 %', () => {
+    const b = biasFraction(table, 0.5);
+    expect(b.fraction).toBeCloseTo(0.95, 14);
+    expect(b.extrapolated).toBe(false);
+  });
+  it('a 0 V point in the table is used as given: 0.5 V halfway from 0 V (98 %) to 1 V (90 %) → 94 %', () => {
+    expect(biasFraction([{ voltageV: 0, fraction: 0.98 }, ...table], 0.5).fraction).toBeCloseTo(0.94, 14);
+    expect(biasFraction([{ voltageV: 0, fraction: 0.98 }, ...table], 0).fraction).toBe(0.98);
+  });
+  it('above the last point: its fraction is held, marked extrapolated, with the table end', () => {
+    expect(biasFraction(table, 10)).toEqual({ fraction: 0.35, fromTable: true, extrapolated: true, tableEndV: 6.3 });
+  });
+  it('a table of one point: 0 V to it linear, held above', () => {
+    const one = [{ voltageV: 12, fraction: 0.78 }];
+    // 6 V: halfway from 100 % at 0 V to 78 % at 12 V → 89 %
+    expect(biasFraction(one, 6).fraction).toBeCloseTo(0.89, 14);
+    expect(biasFraction(one, 24)).toMatchObject({ fraction: 0.78, extrapolated: true });
+  });
+});
+
+describe('the 10 µF X7R part at 0.9 V (demo library, invented part)', () => {
+  // Its table starts at 12 V (78 %). At 0.9 V the capacitance lies on the line from 100 % at 0 V:
+  // 1 − 0.22 · 0.9/12 = 98.35 %, 9.835 µF — not 78 %, the 12 V value.
+  const { library } = loadLibrary(fileURLToPath(new URL('../..', import.meta.url)));
+  it('keeps 98.35 % of its nominal value, from its table, not extrapolated', () => {
+    const placed = placedModel(library!.partsById.get('ORV-C-1210-10U-X7R')!, 0.9, 0.3e-9);
+    expect(placed.bias.fraction).toBeCloseTo(1 - (0.22 * 0.9) / 12, 14);
+    expect(placed.bias).toMatchObject({ fromTable: true, extrapolated: false });
+    expect(placed.capacitanceF).toBeCloseTo(9.835e-6, 17);
   });
 });
 
@@ -61,7 +89,7 @@ describe('placed parts from the fixture library (invented parts)', () => {
 
   it('RT-C-22U at 1 V keeps 90 % of 22 µF (its table point) and mounts in series with the mounting L', () => {
     const placed = placedModel(part('RT-C-22U'), 1, 0.3e-9);
-    expect(placed.bias).toEqual({ fraction: 0.9, fromTable: true, clamped: false });
+    expect(placed.bias).toEqual({ fraction: 0.9, fromTable: true, extrapolated: false, tableEndV: 6.3 });
     expect(placed.capacitanceF).toBeCloseTo(19.8e-6, 18);
     expect(placed.element.type).toBe('series');
   });

@@ -69,6 +69,21 @@ describe('zfolio plan --json', () => {
     expect(json.warnings[0]).toMatchObject({ file: 'plans/vdd-weak.yaml', line: 10, column: 12, severity: 'warning' });
   });
 
+  it('a part placed above its DC-bias table: the JSON says the value was extrapolated, and warns', async () => {
+    const dir = tempDir();
+    const file = join(dir, 'hot.yaml');
+    writeFileSync(file, 'rail: HOT\nvoltage: 3.3V\ntarget: 20m\nband: {from: 1M, to: 10M}\nmounting: 0.3nH\ncapacitors:\n  - {part: RT-C-4U7, count: 4}\n  - {part: RT-C-22U, count: 2}\n');
+    const { out, err } = await run(['plan', file, '--json']);
+    const json = JSON.parse(out);
+    // RT-C-4U7's table ends at 2 V (80 %): held above it. RT-C-22U's goes to 6.3 V: 3.3 V is a table point (60 %).
+    expect(json.placements[0]).toMatchObject({ partId: 'RT-C-4U7', biasFraction: 0.8, biasFromTable: true, biasExtrapolated: true, biasTableEndV: 2 });
+    expect(json.placements[1]).toMatchObject({ partId: 'RT-C-22U', biasFraction: 0.6, biasExtrapolated: false, biasTableEndV: 6.3 });
+    expect(json.warnings.map((w: { message: string }) => w.message)).toEqual([expect.stringContaining('the DC-bias table of RT-C-4U7 ends at 2 V, below the rail\'s 3.3 V; its last fraction, 80%, is used')]);
+    expect(err).toContain('hot.yaml:7:12: warning: capacitors[0].part: the DC-bias table of RT-C-4U7 ends at 2 V');
+    const text = (await run(['plan', file])).out;
+    expect(text).toContain('4 × RT-C-4U7  3.76 µF at 3.3 V (80% of 4.7 µF, extrapolated: the DC-bias table ends at 2 V), mounting 300 pH');
+  });
+
   it('every plan when none is named: an array', async () => {
     const json = JSON.parse((await run(['plan', '--json'])).out);
     expect(json.map((p: { rail: string }) => p.rail)).toEqual(['VDD_TEST', 'VDD_WEAK']);

@@ -106,6 +106,15 @@ describe('voltage ratings', () => {
       "plans/bad.yaml:8:12: warning: capacitors[0].part: RT-C-2U2-NR states no voltage rating, so the rail's 1 V cannot be checked against it",
     ]);
   });
+  it('a rail above the last point of a part\'s DC-bias table is a warning naming the part, both voltages and the fraction held', () => {
+    // RT-C-4U7's table ends at 2 V (80 %); the rail is at 3.3 V.
+    expect(read(planText({ voltage: '3.3V', capacitors: '\n  - {part: RT-C-4U7, count: 1}' })).messages).toEqual([
+      "plans/bad.yaml:8:12: warning: capacitors[0].part: the DC-bias table of RT-C-4U7 ends at 2 V, below the rail's 3.3 V; its last fraction, 80%, is used, which is likely optimistic (class 2 ceramics keep losing capacitance as the voltage rises)",
+    ]);
+    // At the table's last voltage, or below its first point, nothing is extrapolated.
+    expect(read(planText({ voltage: '2V', capacitors: '\n  - {part: RT-C-4U7, count: 1}' })).messages).toEqual([]);
+    expect(read(planText({ voltage: '0.3V', capacitors: '\n  - {part: RT-C-4U7, count: 1}' })).messages).toEqual([]);
+  });
   it('voltageStress: exactly at the rating is allowed, above it is not (common practice: a rating is a maximum)', () => {
     const part = partsById.get('RT-C-1U-LV')!;
     expect(voltageStress(part, 1.2, 0.8)).toBe('above-derating');
