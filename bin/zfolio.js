@@ -8,7 +8,8 @@ main(process.argv.slice(2), processIO()).then(
     process.exitCode = code;
   },
   (error) => {
-    process.stderr.write(`zfolio: internal error: ${error && error.stack ? error.stack : error}\n`);
-    process.exitCode = 70;
+    // main answers every failure itself; this is the last line of defence, still one line and exit 1.
+    process.stderr.write(`zfolio: internal error: ${String(error && error.message ? error.message : error).split('\n', 1)[0]}\n`);
+    process.exitCode = 1;
   },
 );

@@ -9,11 +9,21 @@ export interface CommandIO {
   err(text: string): void;
 }
 
+// zfolio exits with 0, 1, 2 or 3 and nothing else (3 is plan's: a rail misses its target).
 export const EXIT_OK = 0;
-/** The library (or a file named on the command line) has problems. */
+/**
+ * The library (or a file named on the command line) has problems; or the command failed for another reason
+ * (a full disk, a Chromium that does not start, a fault in zfolio itself), said in one line.
+ */
 export const EXIT_BAD_INPUT = 1;
-/** The command line itself is wrong: unknown command or option, missing argument. */
+/**
+ * The command cannot run as asked: unknown command or option, missing argument, or an output folder zfolio
+ * will not replace (see folio/output-guard.ts) or cannot write.
+ */
 export const EXIT_MISUSE = 2;
+
+/** Set to any value to see the stack trace behind a one-line failure. */
+export const DEBUG_ENV = 'ZFOLIO_DEBUG';
 
 /** Thrown for command-line misuse; main prints the message and the command's usage hint. */
 export class UsageError extends Error {}

@@ -1,4 +1,4 @@
-// The zfolio command: dispatch, help, and exit codes (0 ok, 1 bad input, 2 misuse).
+// The zfolio command: dispatch, help, and exit codes (0 ok, 1 bad input or a failure, 2 misuse; 3 from plan).
 
 import { check, checkHelp } from './commands/check.js';
 import { figures, figuresHelp } from './commands/figures.js';
@@ -7,7 +7,9 @@ import { plan, planHelp } from './commands/plan.js';
 import { build, buildHelp } from './commands/build.js';
 import { print, printHelp } from './commands/print.js';
 import { serve, serveHelp } from './commands/serve.js';
-import { EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
+import { DEBUG_ENV, EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
+import { failureDetails, failureLine } from './failure.js';
+import { OutputRefused } from '../folio/output-guard.js';
 import { VERSION } from '../version.js';
 
 type Command = (args: string[], io: CommandIO) => number | Promise<number>;
@@ -39,7 +41,8 @@ Commands:
 ${lines.join('\n')}
 
 Every command takes --library DIR (default: the current folder) and --help.
-Exit status: 0 success, 1 problems in the library, 2 wrong command line,
+Exit status: 0 success; 1 problems in the library, or a failure said in one
+line; 2 wrong command line, or an output folder zfolio will not replace;
 3 a rail plan misses its target (plan).
 `;
 }
@@ -70,6 +73,12 @@ export async function main(argv: string[], io: CommandIO): Promise<number> {
       io.err(`zfolio ${name}: ${error.message}\nRun "zfolio ${name} --help" for usage.\n`);
       return EXIT_MISUSE;
     }
-    throw error;
+    if (error instanceof OutputRefused) {
+      io.err(`zfolio ${name}: ${error.message}\n`);
+      return EXIT_MISUSE;
+    }
+    io.err(`zfolio ${name}: ${failureLine(error)}\n`);
+    if (io.env[DEBUG_ENV]) io.err(failureDetails(error) + '\n');
+    return EXIT_BAD_INPUT;
   }
 }

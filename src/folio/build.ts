@@ -12,6 +12,7 @@ import type { ChartMaker } from './chart-maker.js';
 import { ChartPool, type ChartPoolStats } from './chart-pool.js';
 import { renderPages, TEMPLATES_DIR } from './eleventy.js';
 import { stageOutput } from './output.js';
+import { guardOutput } from './output-guard.js';
 import type { FolioData } from './site-data.js';
 import { printJobs, type PrintedFile } from './print.js';
 import { buildDate, printJobsFor, type PrintSelection } from './print-jobs.js';
@@ -20,8 +21,12 @@ import { dropRecord, linkPartFolders, partKey, readRecord, recordFile, reusableP
 
 export interface BuildOptions {
   libraryRoot: string;
-  /** Default: _site under the library. */
+  /** Default: _site under the library. Must be a site zfolio wrote, an empty folder or absent (see output-guard.ts). */
   outDir?: string;
+  /** The command's current folder, which the site may not replace (default: the process's). */
+  cwd?: string;
+  /** The home folder, which the site may not replace (default: the system's). */
+  home?: string;
   progress?: Progress;
   /** Where charts come from; default: a ChartPool with the library's cache (see chartPoolFor). */
   charts?: ChartMaker;
@@ -109,6 +114,8 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   const zero = { seconds: 0, cpuSeconds: 0 };
   const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
   let clock = stageClock();
+  // Before anything is read or written: a refused output leaves the disk exactly as it was.
+  guardOutput(outDir, { libraryRoot, cwd: options.cwd ?? process.cwd(), home: options.home });
   const { library, diagnostics } = loadLibrary(libraryRoot);
   const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, timings };
   if (!library) return result;

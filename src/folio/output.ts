@@ -3,6 +3,7 @@
 
 import { existsSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { dirname, basename, join } from 'node:path';
+import { MARKER_TEXT, SITE_MARKER } from './output-guard.js';
 
 export interface Staging {
   /** Where to write the new site. */
@@ -19,6 +20,8 @@ export function stageOutput(outDir: string): Staging {
   const dir = join(parent, `.${basename(outDir)}.staging-${process.pid}`);
   rmSync(dir, { recursive: true, force: true });
   mkdirSync(dir, { recursive: true });
+  // Written first, so that whatever of this folder ends up at the site path, the next build recognises it.
+  writeFileSync(join(dir, SITE_MARKER), MARKER_TEXT);
   return {
     dir,
     commit() {

@@ -107,3 +107,13 @@ export async function withMetadata(pdf: Uint8Array, meta: PdfMetadata, date: Dat
   doc.setModificationDate(date);
   return { bytes: await doc.save({ useObjectStreams: false, objectsPerTick: Infinity }), pages: doc.getPageCount() };
 }
+
+/** True for a PDF that zfolio made (its creator says so); false for anything else, a broken file included. */
+export async function madeByZfolio(bytes: Uint8Array): Promise<boolean> {
+  try {
+    const doc = await PDFDocument.load(bytes, { updateMetadata: false, ignoreEncryption: true });
+    return /^zfolio\b/.test(doc.getCreator() ?? '');
+  } catch {
+    return false;
+  }
+}

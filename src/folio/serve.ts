@@ -5,14 +5,18 @@
 import { join, resolve } from 'node:path';
 import { buildFolio, CACHE_DIR, DEFAULT_OUT_DIR, type BuildResult } from './build.js';
 import { TEMPLATES_DIR } from './eleventy.js';
+import { guardOutput } from './output-guard.js';
 import { silentProgress, type Progress } from './progress.js';
 import { startServer, type StaticServer } from './static-server.js';
 import { watchLibrary, type LibraryWatcher } from './watch.js';
 
 export interface ServeOptions {
   libraryRoot: string;
-  /** Default: _site under the library. */
+  /** Default: _site under the library; refused as a build refuses it (output-guard.ts). */
   outDir?: string;
+  /** As for a build: the current folder and the home folder, which the site may not replace. */
+  cwd?: string;
+  home?: string;
   /** Default 8080 (or the next free port); 0 lets the system choose. */
   port?: number;
   /** Default 127.0.0.1. */
@@ -99,6 +103,9 @@ export function oneAtATime(task: (changed: string[]) => Promise<void>) {
 export async function serveFolio(options: ServeOptions): Promise<FolioServer> {
   const libraryRoot = resolve(options.libraryRoot);
   const outDir = resolve(libraryRoot, options.outDir ?? DEFAULT_OUT_DIR);
+  const { cwd, home } = options;
+  // An output folder that may not be replaced is refused before anything else happens.
+  guardOutput(outDir, { libraryRoot, cwd: cwd ?? process.cwd(), home });
   // Listen first: a port or host that cannot work is reported before the build's time is spent.
   const server: StaticServer = await startServer({ root: outDir, port: options.port, host: options.host });
 
@@ -109,7 +116,7 @@ export async function serveFolio(options: ServeOptions): Promise<FolioServer> {
     const report: BuildReport = { round: round++, changed, at: new Date() };
     const progress = report.round === 0 ? (options.progress ?? silentProgress) : silentProgress;
     try {
-      report.result = await buildFolio({ libraryRoot, outDir, workers: options.workers, progress });
+      report.result = await buildFolio({ libraryRoot, outDir, cwd, home, workers: options.workers, progress });
     } catch (error) {
       report.error = error instanceof Error ? error : new Error(String(error));
     }

@@ -13,13 +13,13 @@ export interface Run {
   err: string;
 }
 
-/** Run `zfolio ...argv` in-process with `cwd` as the current folder. */
-export async function run(argv: string[], cwd: string = GOOD_LIBRARY): Promise<Run> {
+/** Run `zfolio ...argv` in-process with `cwd` as the current folder (and `env` as the environment). */
+export async function run(argv: string[], cwd: string = GOOD_LIBRARY, env: Record<string, string> = {}): Promise<Run> {
   let out = '';
   let err = '';
   const io: CommandIO = {
     cwd,
-    env: {},
+    env,
     isTTY: false,
     out: (text) => {
       out += text;

@@ -1,7 +1,7 @@
 // Dispatch, help and exit codes of the zfolio command line (0 ok, 1 bad input, 2 misuse), run in-process.
 
 import { readFileSync } from 'node:fs';
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
 import { COMMANDS } from '../../src/cli/main.js';
 import { GOOD_LIBRARY, run } from './fake-io.js';
 
@@ -69,5 +69,39 @@ describe('zfolio', () => {
 
   it('the fixture library is where commands look by default (the current folder)', async () => {
     expect((await run(['check'], GOOD_LIBRARY)).code).toBe(0);
+  });
+});
+
+describe('a failure no command expected', () => {
+  const failing = (error: unknown) => {
+    COMMANDS.failing = { run: () => Promise.reject(error), help: '', summary: '' };
+  };
+  afterEach(() => {
+    delete COMMANDS.failing;
+  });
+
+  it('is one line and exit 1, never a stack trace', async () => {
+    failing(new TypeError('cannot read properties of undefined\n    at somewhere (file.js:1:1)'));
+    const r = await run(['failing']);
+    expect(r).toEqual({ code: 1, out: '', err: 'zfolio failing: internal error: cannot read properties of undefined (set ZFOLIO_DEBUG=1 for details)\n' });
+  });
+
+  it('names the file and the system error in words', async () => {
+    failing(Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC', syscall: 'write', path: '/tmp/x/_site/index.html' }));
+    expect((await run(['failing'])).err).toBe('zfolio failing: cannot write /tmp/x/_site/index.html: no space left on the device (ENOSPC)\n');
+  });
+
+  it('shows the stack under ZFOLIO_DEBUG', async () => {
+    failing(new Error('kaput'));
+    const r = await run(['failing'], GOOD_LIBRARY, { ZFOLIO_DEBUG: '1' });
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/^zfolio failing: internal error: kaput \(set ZFOLIO_DEBUG=1 for details\)\nError: kaput\n\s+at /);
+  });
+
+  it('cuts a very long message', async () => {
+    failing(new Error('x'.repeat(100_000)));
+    const r = await run(['failing']);
+    expect(r.err.length).toBeLessThan(300);
+    expect(r.err.split('\n')).toHaveLength(2);
   });
 });

@@ -1,7 +1,7 @@
 // Helpers for tests that build folios: temporary folders, file trees and their hashes.
 
 import { createHash } from 'node:crypto';
-import { cpSync, mkdtempSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { cpSync, lstatSync, mkdtempSync, readdirSync, readFileSync, readlinkSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -46,4 +46,28 @@ export function treeHashes(dir: string): Map<string, string> {
 
 export function read(dir: string, file: string): string {
   return readFileSync(join(dir, file), 'utf8');
+}
+
+/**
+ * Everything on disk under `dir`, links not followed: each entry's kind, mode, size, mtime and inode, a
+ * file's SHA-256 and a link's target. Two equal snapshots mean nothing under `dir` was written, moved,
+ * touched or removed.
+ */
+export function diskSnapshot(dir: string): Map<string, string> {
+  const out = new Map<string, string>();
+  const walk = (d: string) => {
+    for (const name of readdirSync(d).sort()) {
+      const path = join(d, name);
+      const s = lstatSync(path);
+      const rel = relative(dir, path).split(sep).join('/');
+      const stamp = `${s.mode} ${s.size} ${s.mtimeMs} ${s.ino}`;
+      if (s.isSymbolicLink()) out.set(rel, `link ${stamp} -> ${readlinkSync(path)}`);
+      else if (s.isDirectory()) {
+        out.set(rel, `folder ${s.mode} ${s.mtimeMs} ${s.ino}`);
+        walk(path);
+      } else out.set(rel, `file ${stamp} ${createHash('sha256').update(readFileSync(path)).digest('hex')}`);
+    }
+  };
+  walk(dir);
+  return out;
 }

@@ -14,7 +14,8 @@ export const buildHelp = `Usage: zfolio build [--library DIR] [--out DIR] [--pdf
 Builds the folio: a datasheet page per part, comparison pages, rail plans and
 reviews, and an index, as a static site that works offline and from the file
 system. The site is built in a staging folder and swapped in whole: a library
-with problems leaves the previous site untouched.
+with problems leaves the previous site untouched. The output folder must be a
+site zfolio built, an empty folder or a new path; anything else is refused.
 
 Options:
   --out DIR           where the site goes (default: ${DEFAULT_OUT_DIR} under the library)
@@ -78,6 +79,8 @@ export async function build(args: string[], io: CommandIO): Promise<number> {
   const result = await buildFolio({
     libraryRoot: root,
     outDir: typeof values.out === 'string' ? resolve(io.cwd, values.out) : undefined,
+    cwd: io.cwd,
+    home: io.env.HOME,
     workers: workersOption(values.workers),
     progress: terminalProgress((text) => io.err(text), io.isTTY),
     pdf: values.pdf ? { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper: paperOption(values.paper) } : undefined,

@@ -1,11 +1,13 @@
 // zfolio print: PDFs of a few parts or reviews, without touching the built site.
 
-import { copyFileSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, renameSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { basename, join, relative, resolve, sep } from 'node:path';
 import { buildFolio } from '../../folio/build.js';
 import { terminalProgress } from '../../folio/progress.js';
 import { reviewSlug } from '../../folio/review-page.js';
+import { OutputRefused } from '../../folio/output-guard.js';
+import { madeByZfolio } from '../../folio/pdf.js';
 import { closest } from '../../model/suggest.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
@@ -16,7 +18,8 @@ export const printHelp = `Usage: zfolio print ID|REVIEW ... [--out DIR] [--libra
 
 Prints the datasheet of each part named by id, and the review pack of each
 review named by its file (reviews/NAME.yaml) or NAME, to NAME.pdf in the
-output folder. The built site is left alone. Needs Chromium.
+output folder. The built site is left alone. Needs Chromium. An existing file
+of the same name is replaced only if it is a PDF zfolio made.
 
 Options:
   --out DIR           where the PDFs go (default: the current folder)
@@ -52,11 +55,15 @@ export async function print(args: string[], io: CommandIO): Promise<number> {
     }
   }
 
+  const outDir = resolve(io.cwd, typeof values.out === 'string' ? values.out : '.');
+  await guardPdfFolder(outDir, [...parts, ...reviews].map((name) => `${name}.pdf`));
+
   const scratch = mkdtempSync(join(tmpdir(), 'zfolio-print-'));
   try {
     const result = await buildFolio({
       libraryRoot: root,
       outDir: join(scratch, 'site'),
+      cwd: io.cwd,
       progress: terminalProgress((text) => io.err(text), io.isTTY),
       pdf: { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper, select: { parts, reviews } },
     });
@@ -65,15 +72,47 @@ export async function print(args: string[], io: CommandIO): Promise<number> {
       io.err(`zfolio print: ${result.pdfProblem}\n`);
       return EXIT_BAD_INPUT;
     }
-    const outDir = resolve(io.cwd, typeof values.out === 'string' ? values.out : '.');
     mkdirSync(outDir, { recursive: true });
     for (const pdf of result.pdfs) {
       const target = join(outDir, basename(pdf.pdfFile));
-      copyFileSync(join(result.outDir, pdf.pdfFile), target);
+      // Copied beside the target and renamed over it, so a reader never sees half a file.
+      const temp = join(outDir, `.${basename(target)}.${process.pid}.tmp`);
+      try {
+        copyFileSync(join(result.outDir, pdf.pdfFile), temp);
+        renameSync(temp, target);
+      } finally {
+        rmSync(temp, { force: true });
+      }
       io.out(`${relative(io.cwd, target) || target}  ${plural(pdf.pages, 'page')}\n`);
     }
     return EXIT_OK;
   } finally {
     rmSync(scratch, { recursive: true, force: true });
+  }
+}
+
+/**
+ * Print adds files to a folder rather than replacing it, so the folder may be any folder; but a file already
+ * there under a name print writes is replaced only when it is a PDF zfolio made. Checked before printing.
+ */
+async function guardPdfFolder(outDir: string, names: string[]): Promise<void> {
+  const kind = (path: string) => {
+    try {
+      const s = statSync(path);
+      return s.isDirectory() ? 'folder' : s.isFile() ? 'file' : 'other';
+    } catch {
+      return 'none';
+    }
+  };
+  const folder = kind(outDir);
+  if (folder === 'none') return;
+  if (folder !== 'folder') throw new OutputRefused(`will not write PDFs to ${outDir}: it is not a folder; choose another --out`);
+  for (const name of names) {
+    const target = join(outDir, name);
+    const found = kind(target);
+    if (found === 'none') continue;
+    if (found !== 'file' || !(await madeByZfolio(readFileSync(target)))) {
+      throw new OutputRefused(`will not replace ${target}: it is not a PDF zfolio made; move it or choose another --out`);
+    }
   }
 }

@@ -119,6 +119,8 @@ export async function serveUntil(args: string[], io: CommandIO, stop: AbortSigna
     folio = await serveFolio({
       libraryRoot: root,
       outDir: typeof values.out === 'string' ? resolve(io.cwd, values.out) : undefined,
+      cwd: io.cwd,
+      home: io.env.HOME,
       port,
       host,
       workers,
