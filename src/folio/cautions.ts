@@ -3,6 +3,8 @@
 
 import type { Part } from '../model/part.js';
 import { formatEng } from '../units/format.js';
+import { formatVoltageRating, peakVolts, type VoltageRating } from '../model/voltage-rating.js';
+import { MAINS_PRACTICE_CAUTION, safetyClassCaution, safetyFamily } from './mains.js';
 
 export const GENERAL_CAUTION =
   'The model is a small-signal, linear approximation at room temperature. Real parts change with DC bias, temperature, ageing, signal level and mounting; confirm anything that matters by measurement.';
@@ -11,32 +13,66 @@ export const RATINGS_CAUTION =
   'Voltage, ripple-current, power and safety ratings are set by the part maker and the applicable codes, not by this folio. Follow the maker\'s derating guidance, local electrical codes and licensed practice.';
 
 // Energy above which a charged capacitor can hurt (a common rule of thumb is around 0.25 J; voltages above
-// 50 V DC are commonly treated as hazardous). Both are common practice, not a standard's limits.
+// 50 V DC are commonly treated as hazardous). Both are common practice, not a standard's limits; the voltage
+// compared is the peak, √2 times the r.m.s. value of an AC rating.
 const HAZARDOUS_ENERGY_J = 0.25;
 const HAZARDOUS_VOLTAGE_V = 50;
 
 const CLASS_2 = /^[XYZ][4-9][PRSTUV]$/;
 
+/** The highest peak voltage the part's ratings allow, with the rating it comes from. */
+export function ratedPeak(part: Part): { volts: number; rating: VoltageRating } | undefined {
+  let best: { volts: number; rating: VoltageRating } | undefined;
+  for (const rating of part.voltageRatings) {
+    const volts = peakVolts(rating);
+    if (!best || volts > best.volts) best = { volts, rating };
+  }
+  return best;
+}
+
+/** Energy a capacitance holds at a voltage: E = ½·C·V² (closed form, any physics text). */
+export function storedEnergyJ(capacitanceF: number, volts: number): number {
+  return 0.5 * capacitanceF * volts * volts;
+}
+
+/** "At the 438 V peak of its 310 V AC rating (√2 × r.m.s.) it holds 9.61 mJ (½·C·V²).", or undefined. */
+export function storedEnergyText(part: Part): string | undefined {
+  const peak = ratedPeak(part);
+  if (part.behavesAs !== 'capacitor' || part.nominal === undefined || !peak) return undefined;
+  const energy = formatEng(storedEnergyJ(part.nominal, peak.volts), 'J');
+  if (peak.rating.kind === 'AC') {
+    return `At the ${formatEng(peak.volts, 'voltage')} peak of its ${formatVoltageRating(peak.rating)} rating (√2 × r.m.s.) it holds ${energy} (½·C·V²).`;
+  }
+  return `At its rated ${formatVoltageRating(peak.rating)} it holds ${energy} (½·C·V²).`;
+}
+
 /** The cautions for one part, most specific first, the general ones last. */
 export function cautionsFor(part: Part): string[] {
   const out: string[] = [];
   const behaves = part.behavesAs;
-  if (part.safetyClass) {
-    out.push(
-      `Safety capacitor, class ${part.safetyClass} (IEC 60384-14). Across the mains only an approved part of the required class may be fitted, and a replacement must carry the same or a higher class. Design, installation and repair of mains equipment fall under local electrical codes and must be done or checked by a qualified person.`,
-    );
-  }
-  if (behaves === 'capacitor' && part.nominal !== undefined && part.voltageV !== undefined) {
-    const energy = 0.5 * part.nominal * part.voltageV ** 2;
-    if (energy >= HAZARDOUS_ENERGY_J || part.voltageV > HAZARDOUS_VOLTAGE_V) {
-      out.push(
-        `Stored charge: at its rated ${formatEng(part.voltageV, 'voltage')} this capacitor holds ${formatEng(energy, 'J')}. It can stay charged after power is removed; discharge it through a suitable resistor and check with a meter before touching.`,
-      );
+  const classCaution = safetyClassCaution(part);
+  if (classCaution) out.push(classCaution, MAINS_PRACTICE_CAUTION);
+  const peak = ratedPeak(part);
+  if (behaves === 'capacitor' && part.nominal !== undefined && peak) {
+    const energy = storedEnergyJ(part.nominal, peak.volts);
+    if (energy >= HAZARDOUS_ENERGY_J || peak.volts > HAZARDOUS_VOLTAGE_V) {
+      // An X part across the line keeps its charge on the plug's pins once unplugged; a bleeder across the
+      // line is the usual remedy (common practice). Any other part: discharge and measure before touching.
+      const bleed =
+        safetyFamily(part) === 'X'
+          ? 'Unplugged, it can leave that voltage on the plug\'s pins: common practice is a bleeder resistor across the line that brings it to a safe voltage within the time the equipment safety standard allows, and a check with a meter before touching.'
+          : 'Discharge it through a suitable resistor and check with a meter before touching.';
+      out.push(`Stored charge: ${lowerFirst(storedEnergyText(part)!)} It can stay charged after power is removed. ${bleed}`);
     }
   }
   if (behaves === 'capacitor') {
-    if (part.voltageV !== undefined) {
-      out.push(`Do not exceed the rated ${formatEng(part.voltageV, 'voltage')} including ripple peaks and transients; rail plans warn above the library's derating fraction of the rating.`);
+    if (part.voltageRatings.length > 0) {
+      const limits = part.voltageRatings.map((r) => (r.kind === 'AC' ? `the rated ${formatVoltageRating(r)} (r.m.s., in continuous service)` : `the rated ${formatVoltageRating(r)} including ripple peaks and transients`));
+      const plans =
+        part.voltageV !== undefined
+          ? "rail plans warn above the library's derating fraction of the DC rating"
+          : 'an AC rating is not a DC rating, and rail plans, which check DC ratings only, cannot check this part on a DC rail';
+      out.push(`Do not exceed ${limits.join(', nor ')}; ${plans}.`);
     }
     if (part.dielectric && CLASS_2.test(part.dielectric)) {
       out.push(`${part.dielectric} is a class 2 ceramic: its capacitance falls with DC bias, temperature and age. The curves show the zero-bias model${part.dcBias.length > 0 ? '; rail plans use the DC-bias table' : ''}.`);
@@ -56,4 +92,8 @@ export function cautionsFor(part: Part): string[] {
   }
   out.push(GENERAL_CAUTION, RATINGS_CAUTION);
   return out;
+}
+
+function lowerFirst(text: string): string {
+  return text.charAt(0).toLowerCase() + text.slice(1);
 }

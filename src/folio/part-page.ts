@@ -6,7 +6,9 @@ import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { UsableBand } from '../analysis/band.js';
 import { NOMINAL_DIMENSION, type Part } from '../model/part.js';
 import { formatDegrees, formatEng, formatNumber, formatPercent } from '../units/format.js';
-import { cautionsFor } from './cautions.js';
+import { cautionsFor, storedEnergyText } from './cautions.js';
+import { mainsBanner, type MainsBanner } from './mains.js';
+import { formatVoltageRating } from '../model/voltage-rating.js';
 import type { Element } from '../circuit/element.js';
 
 export interface Row {
@@ -35,6 +37,8 @@ export interface PartPageText {
   effectiveHeading: string;
   parameters: Row[];
   cautions: string[];
+  /** The banner at the top of a mains part's sheet. */
+  mainsBanner?: MainsBanner;
   srfText: string;
   bandText: string;
 }
@@ -69,7 +73,10 @@ function facts(part: Part): Row[] {
   const rows: Row[] = [{ label: 'Kind', value: kindLabel(part) }];
   rows.push({ label: part.behavesAs === 'bead' ? 'Rated impedance' : 'Nominal', value: nominalText(part) });
   if (part.marking) rows.push({ label: 'Marking', value: part.marking, note: 'IEC 60062 numeric code' });
-  if (part.voltageV !== undefined) rows.push({ label: 'Rated voltage', value: formatEng(part.voltageV, 'voltage') });
+  if (part.voltageRatings.length > 0) {
+    const ac = part.voltageRatings.some((r) => r.kind === 'AC');
+    rows.push({ label: 'Rated voltage', value: part.voltageRatings.map(formatVoltageRating).join(', '), note: ac ? 'AC as r.m.s.' : undefined });
+  }
   if (part.currentA !== undefined) rows.push({ label: 'Rated current', value: formatEng(part.currentA, 'current') });
   if (part.powerW !== undefined) rows.push({ label: 'Rated power', value: formatEng(part.powerW, 'power') });
   if (part.package) rows.push({ label: 'Package', value: part.package });
@@ -213,6 +220,7 @@ export function partPageText(a: PartAnalysis): PartPageText {
     effectiveHeading: table.heading,
     parameters: parameters(a.part.network, a.part.kind),
     cautions: cautionsFor(a.part),
+    mainsBanner: mainsBanner(a.part, storedEnergyText(a.part)),
     srfText: a.selfResonance ? formatEng(a.selfResonance.frequencyHz, 'frequency') : '—',
     bandText: a.bandRule ? bandText(a.usableBand) : '—',
   };

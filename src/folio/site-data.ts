@@ -5,7 +5,9 @@ import { comparisonKey, type Comparison } from '../model/comparison.js';
 import type { Library } from '../model/library.js';
 import type { Part, PartKind } from '../model/part.js';
 import { formatEng, formatPercent } from '../units/format.js';
+import { formatVoltageRating } from '../model/voltage-rating.js';
 import { VERSION } from '../version.js';
+import { MAINS_LEGEND, mainsMark, type MainsMark } from './mains.js';
 import { kindLabel, partPageText, type PartPageText } from './part-page.js';
 import { schematicSvg } from './schematic.js';
 import type { PlanPageData } from './plan-page.js';
@@ -28,6 +30,8 @@ export interface PartPageData {
   notes?: string;
   package: string;
   ratingText: string;
+  /** The index's mark of a mains (safety-class) part. */
+  mainsMark?: MainsMark;
   tagsText: string;
   searchText: string;
   text: PartPageText;
@@ -64,6 +68,8 @@ export interface FolioData {
   sweepText: string;
   withinText: string;
   kindCounts: { kind: PartKind; label: string; count: number }[];
+  /** The index's legend for mains marks, when the library holds a mains part. */
+  mainsLegend?: string;
   parts: PartPageData[];
   /** The parts whose pages this build renders (all but those carried over from the last build). */
   partPages: PartPageData[];
@@ -94,7 +100,7 @@ export function sweepText(a: { fromHz: number; toHz: number; perDecade: number }
 
 export function ratingText(part: Part): string {
   const parts: string[] = [];
-  if (part.voltageV !== undefined) parts.push(formatEng(part.voltageV, 'voltage'));
+  parts.push(...part.voltageRatings.map(formatVoltageRating));
   if (part.currentA !== undefined) parts.push(formatEng(part.currentA, 'current'));
   if (part.powerW !== undefined) parts.push(formatEng(part.powerW, 'power'));
   return parts.join(', ');
@@ -103,7 +109,7 @@ export function ratingText(part: Part): string {
 export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageData {
   const { part } = a;
   const text = partPageText(a);
-  const rating = part.voltageV ?? part.currentA ?? part.powerW;
+  const rating = part.voltageV ?? part.voltageAcV ?? part.currentA ?? part.powerW;
   return {
     id: part.id,
     kind: part.kind,
@@ -111,8 +117,9 @@ export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageDa
     notes: part.notes,
     package: part.package ?? '',
     ratingText: ratingText(part),
+    mainsMark: mainsMark(part),
     tagsText: part.tags.join(', '),
-    searchText: [part.id, part.title, part.kind, part.package ?? '', part.dielectric ?? '', ...part.tags].join(' ').toLowerCase(),
+    searchText: [part.id, part.title, part.kind, part.package ?? '', part.dielectric ?? '', ...(part.safetyClass ? ['mains', part.safetyClass] : []), ...part.tags].join(' ').toLowerCase(),
     text,
     sort: {
       nominal: part.nominal ?? '',
@@ -165,6 +172,7 @@ export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partPa
     sweepText: sweepText(s.sweep),
     withinText: formatPercent(s.within),
     kindCounts: kindCounts(library),
+    mainsLegend: library.parts.some((p) => p.safetyClass) ? MAINS_LEGEND : undefined,
   };
 }
 

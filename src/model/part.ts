@@ -9,6 +9,7 @@ import type { Dimension } from '../units/quantity.js';
 import type { SourcePosition } from './diagnostics.js';
 import { Fields, describeNode, expectationInBrackets, nearMiss, readQuantity, scalarText, type ReadContext } from './fields.js';
 import { positionOf, type SourceFile } from './source.js';
+import { formatVoltageRating, readVoltageRatings, type VoltageRating } from './voltage-rating.js';
 
 export const PART_KINDS = ['capacitor', 'inductor', 'resistor', 'bead', 'network'] as const;
 export type PartKind = (typeof PART_KINDS)[number];
@@ -55,7 +56,12 @@ export interface Part {
   ratedAtHz?: number;
   marking?: string;
   tolerance?: number;
+  /** The voltage ratings as written (at most one DC and one AC), for pages. */
+  voltageRatings: VoltageRating[];
+  /** The DC voltage rating, V: a bare "16V" or "400V DC". Undefined for a part rated in AC alone. */
   voltageV?: number;
+  /** The AC voltage rating, V r.m.s. ("310V AC"), as mains parts are rated. */
+  voltageAcV?: number;
   currentA?: number;
   powerW?: number;
   package?: string;
@@ -148,7 +154,7 @@ export function readPart(ctx: ReadContext): Part | undefined {
     nominal,
     title: root.text('title') ?? id,
     tolerance: root.ratio('tolerance'),
-    voltageV: root.quantity('voltage', 'voltage'),
+    voltageRatings: readVoltageRatings(root),
     currentA: root.quantity('current', 'current'),
     powerW: root.quantity('power', 'power'),
     package: root.text('package'),
@@ -160,6 +166,9 @@ export function readPart(ctx: ReadContext): Part | undefined {
     at: root.position('id'),
   };
 
+  part.voltageV = part.voltageRatings!.find((r) => r.kind === 'DC')?.volts;
+  part.voltageAcV = part.voltageRatings!.find((r) => r.kind === 'AC')?.volts;
+
   if (root.has('marking')) part.marking = readMarking(root, kind, nominal);
   if (kind === 'capacitor' || kind === 'network') {
     part.dielectric = root.text('dielectric');
@@ -167,6 +176,7 @@ export function readPart(ctx: ReadContext): Part | undefined {
   }
   // No "did you mean" here: a guessed class could name a stricter or weaker rating than the part has.
   if (kind === 'capacitor') part.safetyClass = root.text('safety', { oneOf: SAFETY_CLASSES, suggest: false });
+  if (part.safetyClass) checkSafetyRating(root, part.safetyClass, part.voltageRatings!);
   if (root.has('dc-bias')) {
     if (behavesAs !== 'capacitor') root.error('dc-bias', 'a DC-bias table applies to capacitors only');
     else part.dcBias = readDcBias(root, part.voltageV);
@@ -212,6 +222,23 @@ function readMarking(root: Fields, kind: PartKind, nominal: number | undefined):
     root.error('marking', `${JSON.stringify(code)} means ${formatEng(parsed.value, unit)}, but nominal is ${formatEng(nominal, unit)}`);
   }
   return code;
+}
+
+/**
+ * A safety-class part is connected to the mains, whose voltage is alternating: a bare "310V" could be read as
+ * a DC rating and understate its peak by √2, so each of its ratings must say AC or DC (IEC 60384-14 rates
+ * these parts for the supply mains).
+ */
+function checkSafetyRating(root: Fields, safetyClass: string, ratings: readonly VoltageRating[]): void {
+  if (!root.has('voltage')) {
+    root.error('safety', `a class ${safetyClass} capacitor (IEC 60384-14) needs its voltage rating with its kind, e.g. voltage: 310V AC`);
+    return;
+  }
+  const bare = ratings.find((r) => !r.stated);
+  if (bare) {
+    const value = formatVoltageRating(bare);
+    root.error('voltage', `a class ${safetyClass} capacitor (IEC 60384-14) is a mains part: say whether its rating is AC or DC, e.g. "${value.replace(/ /g, '')} AC" for the r.m.s. mains rating; found ${JSON.stringify(scalarText(root.valueNode('voltage')) ?? value)}`);
+  }
 }
 
 function checkDielectric(root: Fields, code: string): void {

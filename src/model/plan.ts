@@ -44,7 +44,11 @@ const ENTRY_FIELDS = ['part', 'count', 'mounting'];
 
 export type VoltageStress = 'ok' | 'unrated' | 'above-derating' | 'over-rating';
 
-/** How a rail voltage stands against a part's rating: over it, above `derating` × it (common practice: 80%), or fine. */
+/**
+ * How a DC rail voltage stands against a part's DC rating: over it, above `derating` × it (common practice:
+ * 80%), or fine. Only a DC rating counts: a part rated in AC alone ("310V AC", r.m.s.) is 'unrated' here,
+ * because an AC rating states nothing certain about DC.
+ */
 export function voltageStress(part: Part, railV: number, derating: number): VoltageStress {
   if (part.voltageV === undefined) return 'unrated';
   if (railV > part.voltageV) return 'over-rating';
@@ -116,7 +120,8 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
       } else if (stress === 'above-derating') {
         warn(at, `${label}.part: the rail's ${formatEng(voltageV, 'V')} is ${formatPercent(voltageV / rating)} of the ${formatEng(rating, 'V')} rating of ${part.id}, above the derating limit of ${formatPercent(derating)} (folio.yaml "derating")`);
       } else if (stress === 'unrated') {
-        warn(at, `${label}.part: ${part.id} states no voltage rating, so the rail's ${formatEng(voltageV, 'V')} cannot be checked against it`);
+        const why = part.voltageAcV !== undefined ? `is rated ${formatEng(part.voltageAcV, 'V')} AC only, and an AC rating is not a DC rating` : 'states no voltage rating';
+        warn(at, `${label}.part: ${part.id} ${why}, so the rail's ${formatEng(voltageV, 'V')} cannot be checked against it`);
       }
       const beyond = beyondBiasTable(part, voltageV);
       if (beyond) warn(at, `${label}.part: ${beyond}`);

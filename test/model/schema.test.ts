@@ -13,6 +13,7 @@ import { yamlFilesUnder } from '../../src/model/library.js';
 import { readPart } from '../../src/model/part.js';
 import { parseYamlSource } from '../../src/model/source.js';
 import { parseQuantity } from '../../src/units/parse.js';
+import { parseVoltageRating } from '../../src/model/voltage-rating.js';
 import type { Dimension } from '../../src/units/quantity.js';
 
 const Ajv = AjvModule.default;
@@ -128,6 +129,9 @@ const WRONG: WrongFile[] = [
   { what: 'a bead nominal without its frequency', text: BEAD.replace('at: 100M\n', ''), keyword: 'dependencies', param: ['missingProperty', 'at'] },
   { what: 'a network nominal without behaves-as', text: NETWORK.replace('behaves-as: capacitor\n', ''), keyword: 'false schema', where: '/nominal' },
   { what: 'a typed network without nominal', text: NETWORK.replace('nominal: 10u\n', ''), keyword: 'required', param: ['missingProperty', 'nominal'] },
+  { what: 'a safety class with a bare voltage (IEC 60384-14: say AC or DC)', text: CAPACITOR.replace('voltage: 16V', 'voltage: 310V') + 'safety: X2\n', keyword: 'pattern', where: '/voltage' },
+  { what: 'a safety class without a voltage', text: CAPACITOR.replace('voltage: 16V\n', '').replace(/dc-bias:.*\n/, '') + 'safety: Y2\n', keyword: 'required', param: ['missingProperty', 'voltage'] },
+  { what: 'a voltage rating of an unknown kind', text: CAPACITOR.replace('voltage: 16V', 'voltage: 16V RF'), keyword: 'pattern', where: '/voltage' },
   { what: 'a marking code with multiplier 8', text: CAPACITOR + 'marking: "108"\n', keyword: 'pattern', where: '/marking' },
 ];
 
@@ -220,6 +224,21 @@ describe('the schema number patterns agree with zfolio\'s parser', () => {
     expect(validate(text)).toBe(accepted);
     const parsed = parseQuantity(text, dim);
     expect(parsed.ok && parsed.value > 0).toBe(accepted);
+  });
+
+  it.each([
+    ['16V', true],
+    ['400V DC', true],
+    ['310V AC', true],
+    ['310 V AC', true],
+    ['310VAC', true],
+    ['250 V~', true],
+    ['310V rms', false],
+    ['310A AC', false],
+  ])('voltage rating %j → %s', (text, accepted) => {
+    const validate = ajv.getSchema('part#/definitions/voltageRating') as ValidateFunction;
+    expect(validate(text)).toBe(accepted);
+    expect(parseVoltageRating(text).ok).toBe(accepted);
   });
 
   it('numbers in SI base units are accepted when positive', () => {
