@@ -6,7 +6,7 @@ import type { Element } from '../circuit/element.js';
 import { logSweep } from '../circuit/sweep.js';
 import type { Diagnostic } from '../model/diagnostics.js';
 import type { Part } from '../model/part.js';
-import type { Plan, PlanTarget } from '../model/plan.js';
+import type { MountingSource, Placement, Plan, PlanTarget } from '../model/plan.js';
 import { biasFraction, scaleCapacitance, type BiasedCapacitance } from './dc-bias.js';
 import { evaluateRail, placementElement, planeElement, regulatorElement, targetImpedance, type BranchKind, type RailBranch } from './rail.js';
 
@@ -59,8 +59,12 @@ export function fixedBranches(plan: Plan): RailBranch[] {
 export interface PlacementFigures {
   partId: string;
   title: string;
+  /** The part's package, as its file writes it. */
+  package: string | null;
   count: number;
   mountingH: number;
+  /** Where the mounting comes from: the entry, the part file, the plan's package table or the rail default. */
+  mountingFrom: MountingSource;
   nominalF: number;
   /** Capacitance at the rail voltage, F. */
   capacitanceF: number;
@@ -107,6 +111,8 @@ export interface PlanFigures {
   perDecade: number;
   /** The plan's default mounting inductance per placement, H. */
   mountingH: number;
+  /** The plan's mounting inductance by package, H. */
+  mountingByPackage: Readonly<Record<string, number>>;
   regulator: { rOhm: number | null; lH: number | null } | null;
   plane: { cF: number; rOhm: number | null } | null;
   pass: boolean;
@@ -127,7 +133,7 @@ export interface PlanFigures {
 }
 
 /** The rail's branches for `placements` (which may differ from the plan's own, e.g. a suggested set). */
-export function railBranches(plan: Plan, placements: readonly Plan['placements'][number][]): { branches: RailBranch[]; figures: PlacementFigures[] } {
+export function railBranches(plan: Plan, placements: readonly Placement[]): { branches: RailBranch[]; figures: PlacementFigures[] } {
   const branches = fixedBranches(plan);
   const figures: PlacementFigures[] = [];
   for (const p of placements) {
@@ -136,8 +142,10 @@ export function railBranches(plan: Plan, placements: readonly Plan['placements']
     figures.push({
       partId: p.part.id,
       title: p.part.title,
+      package: p.part.package ?? null,
       count: p.count,
       mountingH: p.mountingH,
+      mountingFrom: p.mountingFrom,
       nominalF: p.part.nominal ?? NaN,
       capacitanceF: placed.capacitanceF,
       biasFraction: placed.bias.fraction,
@@ -151,8 +159,11 @@ export function railBranches(plan: Plan, placements: readonly Plan['placements']
   return { branches, figures };
 }
 
-/** Analyse a plan (or the plan with other `placements`) over its band at `perDecade` points per decade. */
-export function analysePlan(plan: Plan, perDecade: number, placements: readonly Plan['placements'][number][] = plan.placements): PlanFigures {
+/**
+ * Analyse a plan (or the plan with other `placements`) over its band at `perDecade` points per decade.
+ * `warnings` are the plan's own unless other placements bring theirs.
+ */
+export function analysePlan(plan: Plan, perDecade: number, placements: readonly Placement[] = plan.placements, warnings: readonly Diagnostic[] = plan.warnings): PlanFigures {
   const targetOhm = planTargetOhm(plan.voltageV, plan.target);
   const frequencies = planSweep(plan, perDecade);
   const { branches, figures } = railBranches(plan, placements);
@@ -169,6 +180,7 @@ export function analysePlan(plan: Plan, perDecade: number, placements: readonly 
     band: { ...plan.band },
     perDecade,
     mountingH: plan.mountingH,
+    mountingByPackage: { ...plan.mountingByPackage },
     regulator: plan.regulator ? { rOhm: plan.regulator.rOhm ?? null, lH: plan.regulator.lH ?? null } : null,
     plane: plan.plane ? { cF: plan.plane.cF, rOhm: plan.plane.rOhm ?? null } : null,
     pass: result.pass,
@@ -196,7 +208,7 @@ export function analysePlan(plan: Plan, perDecade: number, placements: readonly 
       count: b.count,
       impedanceOhm: Array.from(result.branchMagnitude[i]),
     })),
-    warnings: plan.warnings,
+    warnings: [...warnings],
   };
 }
 

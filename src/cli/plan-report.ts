@@ -4,10 +4,9 @@ import { planFiguresWithoutCurves, type PlanFigures } from '../analysis/plan-fig
 import type { Suggestion } from '../analysis/plan-suggest.js';
 import { formatDiagnostic } from '../model/diagnostics.js';
 import type { Plan } from '../model/plan.js';
+import { capacitorsYaml } from './plan-yaml.js';
 import { formatDecibels, formatEng, formatPercent } from '../units/format.js';
-import { planTargetText as targetLine } from '../folio/plan-page.js';
-
-
+import { mountingSourceText, planTargetText as targetLine } from '../folio/plan-page.js';
 
 function resultLine(f: PlanFigures): string {
   if (f.branches.length === 0) return 'FAIL  nothing is on the rail yet';
@@ -23,7 +22,7 @@ function branchLines(f: PlanFigures): string[] {
     const bias = p.biasFromTable
       ? `${formatEng(p.capacitanceF, 'F')} at ${formatEng(f.voltageV, 'V')} (${formatPercent(p.biasFraction)} of ${formatEng(p.nominalF, 'F')}, ${p.biasExtrapolated ? `extrapolated: the DC-bias table ends at ${formatEng(p.biasTableEndV ?? NaN, 'V')}` : 'DC-bias table'})`
       : `${formatEng(p.nominalF, 'F')} (no DC-bias table: nominal)`;
-    rows.push([`${p.count} × ${p.partId}`, `${bias}, mounting ${formatEng(p.mountingH, 'H')}`]);
+    rows.push([`${p.count} × ${p.partId}`, `${bias}, mounting ${formatEng(p.mountingH, 'H')} (${mountingSourceText(p)})`]);
   }
   if (rows.length === 0) return ['    none'];
   const width = Math.max(0, ...rows.map(([a]) => a.length));
@@ -89,7 +88,7 @@ export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRe
     lines.push(`  result     ${resultLine(f)}`);
     lines.push(`  placements ${f.totalPlacements}${f.totalCost !== null ? `, total cost ${Number(f.totalCost.toPrecision(6))}` : ''}`, ...branchLines(f));
     lines.push(`  peaks`, ...peakLines(f));
-    lines.push('  as plan YAML', '    capacitors:', ...s.placements.map((p) => `      - {part: ${p.part.id}, count: ${p.count}}`));
+    lines.push('  as plan YAML', ...capacitorsYaml(s.placements, '    '));
   }
   return lines.join('\n') + '\n';
 }
@@ -106,7 +105,10 @@ export function suggestionJson(plan: Plan, s: Suggestion): Record<string, unknow
     candidates: s.candidateIds,
     skipped: s.skipped,
     unrated: s.unratedIds,
-    placements: s.placements.map((p) => ({ partId: p.part.id, count: p.count, mountingH: p.mountingH })),
+    candidateMountings: s.candidates.map((c) => ({ partId: c.part.id, mountingH: c.mountingH, mountingFrom: c.mountingFrom })),
+    placements: s.placements.map((p) => ({ partId: p.part.id, count: p.count, mountingH: p.mountingH, mountingFrom: p.mountingFrom })),
+    /** The chosen capacitors as plan YAML, exactly as the human form prints them (without its indent). */
+    yaml: s.figures ? capacitorsYaml(s.placements).join('\n') + '\n' : null,
     plan: s.figures ? planJson(s.figures) : null,
   };
 }

@@ -1,7 +1,7 @@
 // What a rail-plan page shows: the target and how it was found, the verdict with the worst margin, the
 // anti-resonance peaks, the placements with their capacitance at the rail voltage, and the warnings.
 
-import type { PlanFigures } from '../analysis/plan-figures.js';
+import type { PlacementFigures, PlanFigures } from '../analysis/plan-figures.js';
 import { formatDiagnostic } from '../model/diagnostics.js';
 import { formatDecibels, formatEng, formatNumber, formatPercent } from '../units/format.js';
 import type { Row } from './part-page.js';
@@ -18,7 +18,7 @@ export interface PlanPageData {
   verdict: string;
   facts: Row[];
   peaks: { frequency: string; impedance: string; margin: string; between: string; over: boolean }[];
-  placements: { partId: string; title: string; count: number; mounting: string; nominal: string; atRail: string; rating: string; note: string }[];
+  placements: { partId: string; title: string; count: number; mounting: string; mountingFrom: string; nominal: string; atRail: string; rating: string; note: string }[];
   warnings: string[];
   biasNote: string;
   chart?: ChartOnPage;
@@ -37,6 +37,20 @@ export function planVerdict(f: PlanFigures): string {
   return `worst margin ${formatDecibels(f.worstMarginDb)} at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')})`;
 }
 
+/** Where a placement's mounting comes from, in words: "plan entry", "part file", "package 0402", "rail default". */
+export function mountingSourceText(p: Pick<PlacementFigures, 'mountingFrom' | 'package'>): string {
+  switch (p.mountingFrom) {
+    case 'entry':
+      return 'plan entry';
+    case 'part':
+      return 'part file';
+    case 'package':
+      return `package ${p.package ?? ''}`.trim();
+    case 'rail':
+      return 'rail default';
+  }
+}
+
 export function railSlug(rail: string): string {
   return rail.replace(/[^A-Za-z0-9._-]+/g, '-');
 }
@@ -46,13 +60,15 @@ export function planPageData(f: PlanFigures, sourceHash: string, notes: string |
     { label: 'Rail voltage', value: formatEng(f.voltageV, 'V') },
     { label: 'Target impedance', value: planTargetText(f), note: f.target.kind === 'explicit' ? undefined : 'V · ripple / ΔI' },
     { label: 'Band checked', value: `${formatEng(f.band.fromHz, 'Hz')} to ${formatEng(f.band.toHz, 'Hz')}`, note: `${f.perDecade} points per decade, peaks refined` },
-    { label: 'Mounting inductance', value: formatEng(f.mountingH, 'H'), note: 'per placement unless the entry sets its own' },
+    { label: 'Mounting inductance', value: formatEng(f.mountingH, 'H'), note: 'per placement unless the entry, the part file or the package table sets its own' },
   ];
   if (f.regulator) {
     const r = [f.regulator.rOhm !== null ? formatEng(f.regulator.rOhm, 'Ω') : '', f.regulator.lH !== null ? formatEng(f.regulator.lH, 'H') : ''].filter(Boolean).join(' + ');
     facts.push({ label: 'Regulator output', value: r, note: 'series R + L' });
   }
   if (f.plane) facts.push({ label: 'Plane capacitance', value: [formatEng(f.plane.cF, 'F'), f.plane.rOhm !== null ? formatEng(f.plane.rOhm, 'Ω') : ''].filter(Boolean).join(' + ') });
+  const byPackage = Object.entries(f.mountingByPackage);
+  if (byPackage.length > 0) facts.push({ label: 'Mounting by package', value: byPackage.map(([name, h]) => `${name}: ${formatEng(h, 'H')}`).join(', ') });
   facts.push({ label: 'Placements', value: String(f.totalPlacements), note: f.totalCost !== null ? `total cost ${formatNumber(f.totalCost, 4)}` : undefined });
 
   const warnings = f.warnings.map(formatDiagnostic);
@@ -78,6 +94,7 @@ export function planPageData(f: PlanFigures, sourceHash: string, notes: string |
       title: p.title,
       count: p.count,
       mounting: formatEng(p.mountingH, 'H'),
+      mountingFrom: mountingSourceText(p),
       nominal: formatEng(p.nominalF, 'F'),
       atRail: p.biasFromTable ? `${formatEng(p.capacitanceF, 'F')} (${formatPercent(p.biasFraction)})` : formatEng(p.nominalF, 'F'),
       rating: p.voltageRatingV !== null ? formatEng(p.voltageRatingV, 'V') : 'not rated',

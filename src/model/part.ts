@@ -74,6 +74,8 @@ export interface Part {
   /** Usable-band criterion from the part file; the library default applies when absent. */
   within?: number;
   dcBias: BiasPoint[];
+  /** Mounting inductance this part gets when a rail plan does not say (its pads, vias or leads), H. */
+  mountingH?: number;
   cost?: number;
   tags: string[];
   notes?: string;
@@ -84,11 +86,11 @@ export interface Part {
 
 const COMMON_FIELDS = ['id', 'kind', 'title', 'nominal', 'marking', 'tolerance', 'voltage', 'current', 'power', 'package', 'tags', 'notes', 'band', 'cost'];
 const FIELDS_BY_KIND: Readonly<Record<PartKind, readonly string[]>> = {
-  capacitor: [...COMMON_FIELDS, 'dielectric', 'safety', 'parasitics', 'dc-bias'],
+  capacitor: [...COMMON_FIELDS, 'dielectric', 'safety', 'parasitics', 'dc-bias', 'mounting'],
   inductor: [...COMMON_FIELDS, 'parasitics'],
   resistor: [...COMMON_FIELDS, 'parasitics'],
   bead: [...COMMON_FIELDS, 'at', 'model'],
-  network: [...COMMON_FIELDS, 'dielectric', 'behaves-as', 'network', 'dc-bias'],
+  network: [...COMMON_FIELDS, 'dielectric', 'behaves-as', 'network', 'dc-bias', 'mounting'],
 };
 
 /** What the one required field (besides id and kind) of each kind holds, for "missing field" messages. */
@@ -180,6 +182,12 @@ export function readPart(ctx: ReadContext): Part | undefined {
   if (root.has('dc-bias')) {
     if (behavesAs !== 'capacitor') root.error('dc-bias', 'a DC-bias table applies to capacitors only');
     else part.dcBias = readDcBias(root, part.voltageV);
+  }
+
+  // Other kinds are told the field is unknown to them (expect above).
+  if (root.has('mounting') && (kind === 'capacitor' || kind === 'network')) {
+    if (behavesAs !== 'capacitor') root.error('mounting', 'a mounting inductance applies to capacitors placed on rails only; this network does not behave as a capacitor');
+    else part.mountingH = root.quantity('mounting', 'inductance', { allowZero: true });
   }
 
   const band = root.map('band');

@@ -10,12 +10,22 @@ import { closest } from './suggest.js';
 
 export type PlanTarget = { kind: 'explicit'; ohms: number } | { kind: 'ripple'; ripple: number; stepA: number };
 
-export interface Placement {
+/**
+ * Where a placement's mounting inductance comes from, most specific first: the plan entry's own
+ * `mounting`, the part file's `mounting`, the plan's `mounting-by-package` entry for the part's package,
+ * the plan's `mounting` (the rail default).
+ */
+export type MountingSource = 'entry' | 'part' | 'package' | 'rail';
+
+export interface Mounting {
+  mountingH: number;
+  mountingFrom: MountingSource;
+}
+
+export interface Placement extends Mounting {
   part: Part;
   /** Identical placements in parallel. */
   count: number;
-  /** Mounting (pad and via loop) inductance of each placement, H: the entry's own or the plan's default. */
-  mountingH: number;
   /** Where the entry's part id is written. */
   at: SourcePosition;
 }
@@ -29,6 +39,8 @@ export interface Plan {
   band: { fromHz: number; toHz: number };
   /** Default mounting inductance per placement, H (zero allowed: an ideal mount). */
   mountingH: number;
+  /** Mounting inductance by package name (exactly as the part files write it), H. */
+  mountingByPackage: Readonly<Record<string, number>>;
   regulator?: { rOhm?: number; lH?: number };
   plane?: { cF: number; rOhm?: number };
   placements: Placement[];
@@ -39,7 +51,7 @@ export interface Plan {
   at: SourcePosition;
 }
 
-const PLAN_FIELDS = ['rail', 'title', 'notes', 'voltage', 'ripple', 'step', 'target', 'band', 'mounting', 'regulator', 'plane', 'capacitors'];
+const PLAN_FIELDS = ['rail', 'title', 'notes', 'voltage', 'ripple', 'step', 'target', 'band', 'mounting', 'mounting-by-package', 'regulator', 'plane', 'capacitors'];
 const ENTRY_FIELDS = ['part', 'count', 'mounting'];
 
 export type VoltageStress = 'ok' | 'unrated' | 'above-derating' | 'over-rating';
@@ -54,6 +66,14 @@ export function voltageStress(part: Part, railV: number, derating: number): Volt
   if (railV > part.voltageV) return 'over-rating';
   if (railV > derating * part.voltageV) return 'above-derating';
   return 'ok';
+}
+
+/** A part's mounting on this rail when no plan entry gives one: its own, else its package's, else the rail's. */
+export function defaultMounting(plan: Pick<Plan, 'mountingH' | 'mountingByPackage'>, part: Part): Mounting {
+  if (part.mountingH !== undefined) return { mountingH: part.mountingH, mountingFrom: 'part' };
+  const byPackage = part.package !== undefined && Object.hasOwn(plan.mountingByPackage, part.package) ? plan.mountingByPackage[part.package] : undefined;
+  if (byPackage !== undefined) return { mountingH: byPackage, mountingFrom: 'package' };
+  return { mountingH: plan.mountingH, mountingFrom: 'rail' };
 }
 
 /**
@@ -84,6 +104,7 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
   const target = readTarget(root);
   const band = readBand(root);
   const mountingH = root.quantity('mounting', 'inductance', { allowZero: true });
+  const mountingByPackage = readMountingByPackage(root, partsById, warn);
 
   let regulator: Plan['regulator'];
   const reg = root.map('regulator');
@@ -126,7 +147,8 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
       const beyond = beyondBiasTable(part, voltageV);
       if (beyond) warn(at, `${label}.part: ${beyond}`);
     }
-    placements.push({ part, count, mountingH: ownMounting ?? mountingH ?? 0, at });
+    const mounting: Mounting = ownMounting !== undefined ? { mountingH: ownMounting, mountingFrom: 'entry' } : defaultMounting({ mountingH: mountingH ?? 0, mountingByPackage }, part);
+    placements.push({ part, count, ...mounting, at });
   });
 
   if (!reg && !pl && (!list || list.items.length === 0)) {
@@ -141,6 +163,7 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
     target,
     band,
     mountingH,
+    mountingByPackage,
     regulator,
     plane,
     placements,
@@ -189,6 +212,24 @@ function readBand(root: Fields): Plan['band'] | undefined {
     return undefined;
   }
   return { fromHz, toHz };
+}
+
+/** `mounting-by-package: {"0402": 0.25nH, ...}`; a package no part in the library has is a warning. */
+function readMountingByPackage(root: Fields, partsById: ReadonlyMap<string, Part>, warn: (at: SourcePosition, message: string) => void): Record<string, number> {
+  const table = root.map('mounting-by-package');
+  const out: Record<string, number> = {};
+  if (!table) return out;
+  const packages = new Set([...partsById.values()].flatMap((p) => (p.package !== undefined ? [p.package] : [])));
+  for (const name of table.keys) {
+    const value = table.quantity(name, 'inductance', { allowZero: true });
+    if (value === undefined) continue;
+    out[name] = value;
+    if (!packages.has(name)) {
+      const guess = closest(name, packages);
+      warn(table.keyPosition(name), `mounting-by-package: no part in the library has package ${JSON.stringify(name)}${guess ? `; did you mean "${guess}"?` : ''}`);
+    }
+  }
+  return out;
 }
 
 function readPlacedPart(entry: Fields, partsById: ReadonlyMap<string, Part>): Part | undefined {

@@ -96,6 +96,7 @@ ripple: 3%
 step: 2A
 band: {from: 100k, to: 40M}
 mounting: 0.3nH
+mounting-by-package: {"0402": 0.25nH, "0805": 0.35nH}
 regulator: {r: 1m, l: 15nH}
 plane: {c: 10nF, r: 2m}
 capacitors:
@@ -146,6 +147,8 @@ const WRONG: WrongFile[] = [
   { kind: 'plan', what: 'a band without its upper end', text: PLAN.replace('band: {from: 100k, to: 40M}', 'band: {from: 100k}'), keyword: 'required', param: ['missingProperty', 'to'] },
   { kind: 'plan', what: 'a band end that is not a frequency', text: PLAN.replace('to: 40M', 'to: 40 MF'), keyword: 'pattern', where: '/band/to' },
   { kind: 'plan', what: 'a plan without mounting inductance', text: PLAN.replace('mounting: 0.3nH\n', ''), keyword: 'required', param: ['missingProperty', 'mounting'] },
+  { kind: 'plan', what: 'a package mounting that is not an inductance', text: PLAN.replace('"0805": 0.35nH', '"0805": 0.35nF'), keyword: 'pattern', where: '/mounting-by-package/0805' },
+  { kind: 'plan', what: 'a package mounting that is a list', text: PLAN.replace('mounting-by-package: {"0402": 0.25nH, "0805": 0.35nH}', 'mounting-by-package: [0.25nH]'), keyword: 'type', where: '/mounting-by-package' },
   { kind: 'plan', what: 'a regulator with neither r nor l', text: PLAN.replace('regulator: {r: 1m, l: 15nH}', 'regulator: {}'), keyword: 'minProperties', where: '/regulator' },
   { kind: 'plan', what: 'a plane without its capacitance', text: PLAN.replace('plane: {c: 10nF, r: 2m}', 'plane: {r: 2m}'), keyword: 'required', param: ['missingProperty', 'c'] },
   { kind: 'plan', what: 'a zero count', text: PLAN.replace('count: 4', 'count: 0'), keyword: 'anyOf', where: '/capacitors/0/count' },

@@ -225,8 +225,8 @@ describe('VDD_3V3, the 3.3 V rail of rev B: fails at an anti-resonance, with a d
     const reworked: Placement[] = [
       polymer,
       bulk,
-      { part: partOf('ORV-C-0805-10U-X5R'), count: 2, mountingH: plan.mountingH, at: hundred.at },
-      { part: partOf('ORV-C-0402-1U-X5R'), count: 4, mountingH: plan.mountingH, at: hundred.at },
+      { part: partOf('ORV-C-0805-10U-X5R'), count: 2, mountingH: plan.mountingH, mountingFrom: 'rail', at: hundred.at },
+      { part: partOf('ORV-C-0402-1U-X5R'), count: 4, mountingH: plan.mountingH, mountingFrom: 'rail', at: hundred.at },
       { ...hundred, count: 8 },
     ];
     const f = analysePlan(plan, perDecade(), reworked);

@@ -5,7 +5,8 @@ import { fileURLToPath } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import { DiagnosticList, formatDiagnostic } from '../../src/model/diagnostics.js';
 import { loadLibrary } from '../../src/model/library.js';
-import { readPlan, uniqueRails, voltageStress } from '../../src/model/plan.js';
+import { readPart, type Part } from '../../src/model/part.js';
+import { defaultMounting, readPlan, uniqueRails, voltageStress } from '../../src/model/plan.js';
 import { parseYamlSource } from '../../src/model/source.js';
 
 // Plan files are checked like part files: every problem at file:line:col with what was expected and what
@@ -120,6 +121,74 @@ describe('voltage ratings', () => {
     expect(voltageStress(part, 1.2, 0.8)).toBe('above-derating');
     expect(voltageStress(part, 1.21, 0.8)).toBe('over-rating');
     expect(voltageStress(part, 0.96, 0.8)).toBe('ok');
+  });
+});
+
+// Mounting inductance, most specific first: the entry's own, the part file's, the plan's package table,
+// the plan's default. Two invented parts beside the fixture's: a 0402 part with no mounting of its own and a
+// can that states one.
+function partOf(text: string): Part {
+  const diagnostics = new DiagnosticList();
+  const source = parseYamlSource('parts/extra.yaml', text, diagnostics)!;
+  const part = readPart({ source, diagnostics });
+  expect(diagnostics.sorted().map(formatDiagnostic)).toEqual([]);
+  return part!;
+}
+const SMALL = partOf('id: MT-C-0402\nkind: capacitor\nnominal: 1u\nvoltage: 10V\npackage: "0402"\nparasitics: {esr: 10m, esl: 0.4n}\n');
+const CAN = partOf('id: MT-C-CAN\nkind: capacitor\nnominal: 100u\nvoltage: 10V\npackage: "0402"\nmounting: 1.2nH\nparasitics: {esr: 15m, esl: 2n}\n');
+const withExtras = new Map([...partsById, [SMALL.id, SMALL], [CAN.id, CAN]]);
+
+function readWith(text: string) {
+  const diagnostics = new DiagnosticList();
+  const source = parseYamlSource('plans/m.yaml', text, diagnostics);
+  const plan = source ? readPlan({ source, diagnostics }, withExtras, 0.8) : undefined;
+  return { plan, messages: diagnostics.sorted().map(formatDiagnostic) };
+}
+
+describe('mounting inductance of each placement', () => {
+  const text = planText({
+    mounting: '0.3nH\nmounting-by-package: {"0402": 0.25nH}',
+    capacitors: '\n  - {part: MT-C-0402, count: 2}\n  - {part: MT-C-0402, count: 1, mounting: 0.6nH}\n  - {part: MT-C-CAN, count: 1}\n  - {part: MT-C-CAN, count: 1, mounting: 0.9nH}\n  - {part: RT-C-1U, count: 1}',
+  });
+  it('the entry\'s own first, then the part file\'s, then the package table, then the rail default', () => {
+    const { plan, messages } = readWith(text);
+    expect(messages).toEqual([]);
+    expect(plan!.mountingByPackage).toEqual({ '0402': 0.25e-9 });
+    expect(plan!.placements.map((p) => [p.part.id, p.mountingH, p.mountingFrom])).toEqual([
+      ['MT-C-0402', 0.25e-9, 'package'],
+      ['MT-C-0402', 0.6e-9, 'entry'],
+      ['MT-C-CAN', 1.2e-9, 'part'], // its own 1.2 nH, though its package is in the table
+      ['MT-C-CAN', 0.9e-9, 'entry'],
+      ['RT-C-1U', 0.3e-9, 'rail'], // states no package
+    ]);
+  });
+  it('defaultMounting is the same resolution without an entry', () => {
+    const plan = readWith(text).plan!;
+    expect(defaultMounting(plan, SMALL)).toEqual({ mountingH: 0.25e-9, mountingFrom: 'package' });
+    expect(defaultMounting(plan, CAN)).toEqual({ mountingH: 1.2e-9, mountingFrom: 'part' });
+    expect(defaultMounting({ mountingH: 0.3e-9, mountingByPackage: {} }, SMALL)).toEqual({ mountingH: 0.3e-9, mountingFrom: 'rail' });
+  });
+  it('a package no part has is a warning with a near miss; a value that is no inductance is an error', () => {
+    expect(readWith(planText({ mounting: '0.3nH\nmounting-by-package: {"0403": 0.25nH}' })).messages).toEqual([
+      'plans/m.yaml:7:23: warning: mounting-by-package: no part in the library has package "0403"; did you mean "0402"?',
+    ]);
+    const bad = readWith(planText({ mounting: '0.3nH\nmounting-by-package: {"0402": 0.25nF}' }));
+    expect(bad.plan).toBeUndefined();
+    expect(bad.messages).toEqual([expect.stringMatching(/^plans\/m\.yaml:7:31: mounting-by-package\.0402: /)]);
+  });
+  it('a part file\'s mounting belongs to capacitors: on an inductor, or a network that is not one, it is an error', () => {
+    const errors = (text: string) => {
+      const diagnostics = new DiagnosticList();
+      const source = parseYamlSource('parts/l.yaml', text, diagnostics)!;
+      expect(readPart({ source, diagnostics })).toBeUndefined();
+      return diagnostics.sorted().map(formatDiagnostic);
+    };
+    expect(errors('id: MT-L\nkind: inductor\nnominal: 1u\nmounting: 1nH\n')).toEqual([
+      'parts/l.yaml:4:1: unknown field "mounting"; expected one of id, kind, title, nominal, marking, tolerance, voltage, current, power, package, tags, notes, band, cost, parasitics',
+    ]);
+    expect(errors('id: MT-N\nkind: network\nbehaves-as: inductor\nnominal: 1u\nnetwork: {l: 1u}\nmounting: 1nH\n')).toEqual([
+      'parts/l.yaml:6:11: mounting: a mounting inductance applies to capacitors placed on rails only; this network does not behave as a capacitor',
+    ]);
   });
 });
 

@@ -80,6 +80,7 @@ package: "0402"
 dielectric: X7R
 parasitics: {esr: 18m, esl: 0.45n}
 dc-bias: {3.3V: 80%, 16V: 40%}
+mounting: 0.35nH
 cost: 0.01
 `;
 const BEAD = `id: T-FB-1
@@ -124,6 +125,9 @@ const WRONG: WrongFile[] = [
   { what: 'a three-letter dielectric that is no EIA code', text: CAPACITOR.replace('dielectric: X7R', 'dielectric: X7Q'), keyword: 'pattern', where: '/dielectric' },
   { what: 'a DC-bias key that is not a voltage', text: CAPACITOR.replace('3.3V: 80%', 'high: 80%'), keyword: 'pattern', where: '/dc-bias' },
   { what: 'a DC-bias table on an inductor', text: 'id: T-L-1\nkind: inductor\nnominal: 4u7\ndc-bias: {1V: 90%}\n', keyword: 'false schema', where: '/dc-bias' },
+  { what: 'a mounting inductance on an inductor', text: 'id: T-L-1\nkind: inductor\nnominal: 4u7\nmounting: 1nH\n', keyword: 'false schema', where: '/mounting' },
+  { what: 'a mounting inductance on a network that does not behave as a capacitor', text: NETWORK.replace('behaves-as: capacitor', 'behaves-as: resistor') + 'mounting: 1nH\n', keyword: 'false schema', where: '/mounting' },
+  { what: 'a mounting that is not an inductance', text: CAPACITOR.replace('mounting: 0.35nH', 'mounting: 0.35nF'), keyword: 'pattern', where: '/mounting' },
   { what: 'a safety class on an inductor', text: 'id: T-L-1\nkind: inductor\nnominal: 4u7\nsafety: X2\n', keyword: 'false schema', where: '/safety' },
   { what: 'a marking on a bead', text: BEAD + 'marking: "601"\n', keyword: 'false schema', where: '/marking' },
   { what: 'a bead nominal without its frequency', text: BEAD.replace('at: 100M\n', ''), keyword: 'dependencies', param: ['missingProperty', 'at'] },

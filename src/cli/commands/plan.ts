@@ -24,7 +24,9 @@ export const planHelp = `Usage: zfolio plan [RAIL|FILE ...] [--json] [--library 
 Checks a rail plan (plans/*.yaml) against its target impedance Z_t = V·ripple/ΔI
 (or its explicit target) across its band: |Z| of the regulator, plane and every
 placed capacitor in parallel, each capacitor at its capacitance under the rail's
-DC voltage and in series with its mounting inductance. Prints pass or fail, the
+DC voltage and in series with its mounting inductance (the entry's "mounting",
+else the part file's, else the plan's "mounting-by-package", else the plan's
+"mounting"). Prints pass or fail, the
 worst margin and where, and every anti-resonance peak. With no RAIL or FILE,
 every plan in the library. A FILE outside plans/ is read as a plan too.
 
@@ -33,7 +35,9 @@ so that |Z| stays under the target across the band with the fewest placements,
 or the lowest total cost when every candidate part states a cost. The plan's
 regulator and plane are kept; its listed capacitors are replaced. Parts rated
 below the rail voltage, or above the derating limit (folio.yaml "derating"),
-are not candidates.
+are not candidates. Each candidate is weighed at the mounting it is printed
+with: a part the plan lists at that entry's mounting, any other at its default
+as above. The chosen set is printed as plan YAML with every entry's mounting.
 
 Options:
   --json              print JSON (SI units); one object for one plan, else an array
