@@ -2,7 +2,7 @@
 
 import { frameForKey, layoutKey } from './key.js';
 import { ABOVE_FIRST, BELOW_FIRST, placeLabels, type LabelRequest } from './labels.js';
-import { FONT_SIZE, PART_SERIES, PLOT_WIDTH, RESONANCE_MARK, frame } from './palette.js';
+import { FONT_SIZE, PART_SERIES, PLOT_WIDTH, RATED_MARK, RESONANCE_MARK, frame } from './palette.js';
 import {
   bandData,
   curveRows,
@@ -19,6 +19,7 @@ import type { ChartBinding, ChartDefinition, Row } from './render.js';
 import { logAxis, logTicks, paddedLogDomain, positiveExtent } from './scales.js';
 import { axisBinding, axisParams, bandLayers, curveLayer, frameLayer, gridLayers, keyLayers, placedLabelLayer, seriesEncoding, pointLayer, position, type SeriesScale } from './spec-parts.js';
 import { CHART_CONFIG } from './theme.js';
+import { formatEng } from '../units/format.js';
 
 const SERIES: SeriesScale = { keys: ['mag', 'res'], styles: [PART_SERIES.magnitude, PART_SERIES.resistance] };
 const FRAME = frame(PLOT_WIDTH, 250, 28, 42);
@@ -43,6 +44,8 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
         ...bandLayers(X),
         curveLayer('curves', X, Y, seriesEncoding(SERIES)),
         pointLayer('points', X, Y),
+        // The rated point, larger than a resonance dot: on a bead it often sits close to the SRF.
+        { ...pointLayer('rated', X, Y, RATED_MARK, 'diamond'), mark: { type: 'point', shape: 'diamond', size: 90, filled: true, color: RATED_MARK, stroke: '#ffffff', strokeWidth: 1, opacity: 1, clip: true } },
         placedLabelLayer('labels', X, Y),
         frameLayer(),
         ...keyLayers(seriesEncoding(SERIES)),
@@ -53,7 +56,8 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
     const fa = sweepAxis(input.frequencies, FRAME.width);
     const { re, im } = input.z;
     const magnitude = (i: number) => Math.hypot(re[i], im[i]);
-    let [lo, hi] = positiveExtent([input.resonances.map((r) => r.impedanceOhm), Float64Array.from(input.frequencies, (_, i) => magnitude(i)), re], MAX_DECADES);
+    const rated = ratedPoint(input);
+    let [lo, hi] = positiveExtent([input.resonances.map((r) => r.impedanceOhm), Float64Array.from(input.frequencies, (_, i) => magnitude(i)), re, rated ? [rated.v] : []], MAX_DECADES);
     // Room for resonance labels: below a dip, above a peak.
     if (input.resonances.some((r) => r.type === 'series')) lo /= LABEL_ROOM;
     if (input.resonances.some((r) => r.type === 'parallel')) hi *= LABEL_ROOM;
@@ -93,6 +97,7 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
         { kind: 'line', style: { s: 'mag' }, text: '|Z|' },
         { kind: 'line', style: { s: 'res' }, text: input.part.behavesAs === 'capacitor' ? 'R (ESR)' : 'R' },
         ...(ordered.length > 0 ? [{ kind: 'point' as const, color: RESONANCE_MARK, text: 'resonance (X = 0)' }] : []),
+        ...(rated ? [{ kind: 'point' as const, color: RATED_MARK, shape: 'diamond', text: `rated |Z| ${formatEng(rated.v, 'Ω')} at ${formatEng(rated.f, 'Hz')}` }] : []),
         ...(band.key ? [band.key] : []),
       ],
       FRAME.width,
@@ -107,6 +112,7 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
         bandEdges: band.bandEdges,
         curves,
         points: input.resonances.map((r) => ({ f: r.frequencyHz, v: r.impedanceOhm })),
+        rated: rated ? [rated] : [],
         labels,
         ...key.datasets,
       },
@@ -114,3 +120,12 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
     return binding;
   },
 };
+
+/** A bead's rated impedance at its rated frequency, when that lies in the sweep: where the model should pass. */
+function ratedPoint(input: PartChartInput): { f: number; v: number } | undefined {
+  const { nominal, ratedAtHz, behavesAs } = input.part;
+  const f = input.frequencies;
+  if (behavesAs !== 'bead' || nominal === undefined || ratedAtHz === undefined) return undefined;
+  if (!(ratedAtHz >= f[0] && ratedAtHz <= f[f.length - 1])) return undefined;
+  return { f: ratedAtHz, v: nominal };
+}

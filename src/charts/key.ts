@@ -11,7 +11,8 @@ export type KeyItem =
   /** A line symbol drawn with the chart's line scales; `style` holds the row fields they read (e.g. {s: 'mag'}). */
   | { kind: 'line'; style: Row; text: string }
   | { kind: 'band'; text: string }
-  | { kind: 'point'; color: string; text: string };
+  /** A point symbol: a vega point shape (default circle). */
+  | { kind: 'point'; color: string; text: string; shape?: string };
 
 export interface KeyLayout {
   datasets: { keyBands: Row[]; keyLines: Row[]; keyPoints: Row[]; keyText: Row[] };
@@ -55,7 +56,7 @@ export function layoutKey(items: readonly KeyItem[], width: number, columns?: nu
     const y = -topPadding + 3 + r * ROW_HEIGHT + ROW_HEIGHT / 2;
     if (item.kind === 'line') datasets.keyLines.push({ x0, x1: x0 + SYMBOL, y, ...item.style });
     else if (item.kind === 'band') datasets.keyBands.push({ x0, x1: x0 + SYMBOL, y0: y - 5, y1: y + 5 });
-    else datasets.keyPoints.push({ x: x0 + SYMBOL / 2, y, c: item.color });
+    else datasets.keyPoints.push({ x: x0 + SYMBOL / 2, y, c: item.color, sh: item.shape ?? 'circle' });
     datasets.keyText.push({ x: x0 + SYMBOL + SYMBOL_GAP, y, t: cleanText(item.text) });
   }
   return { datasets, rows, topPadding };

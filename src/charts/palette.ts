@@ -41,6 +41,8 @@ export const PART_SERIES = {
 
 /** Resonance markers and their labels. */
 export const RESONANCE_MARK = '#7a1d3c';
+/** A bead's rated impedance at its rated frequency. */
+export const RATED_MARK = '#13795b';
 /** A rail's target impedance. */
 export const TARGET_LINE: SeriesStyle = { color: '#a3152d', dash: [9, 3], width: 1.5 };
 /** A rail's total impedance. */

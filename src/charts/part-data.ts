@@ -15,7 +15,8 @@ import { axisBinding } from './spec-parts.js';
 
 /** The part facts the charts use; `PartAnalysis` (src/analysis/part-figures.ts) is one. */
 export interface PartChartInput {
-  part: { id: string; title: string; kind: string; behavesAs?: string; network?: Element };
+  /** `nominal` and `ratedAtHz`: a bead's rated impedance and where it is rated. */
+  part: { id: string; title: string; kind: string; behavesAs?: string; network?: Element; nominal?: number; ratedAtHz?: number };
   frequencies: Float64Array;
   z: ImpedanceArrays;
   resonances: readonly Resonance[];

@@ -172,8 +172,8 @@ export function keyLayers(lineStyle: Json): Json[] {
     { data: { name: 'keyLines' }, mark: { type: 'rule' }, encoding: { x: px('x0'), x2: px('x1'), y: px('y'), ...lineStyle } },
     {
       data: { name: 'keyPoints' },
-      mark: { type: 'point', shape: 'circle', size: 42, filled: true, stroke: '#ffffff', strokeWidth: 1, opacity: 1 },
-      encoding: { x: px('x'), y: px('y'), color: { field: 'c', type: 'nominal', scale: null } },
+      mark: { type: 'point', size: 42, filled: true, stroke: '#ffffff', strokeWidth: 1, opacity: 1 },
+      encoding: { x: px('x'), y: px('y'), color: { field: 'c', type: 'nominal', scale: null }, shape: { field: 'sh', type: 'nominal', scale: null } },
     },
     { data: { name: 'keyText' }, mark: { type: 'text', fontSize: FONT_SIZE.legend, color: INK, align: 'left', baseline: 'middle' }, encoding: { x: px('x'), y: px('y'), text: { field: 't' } } },
   ];

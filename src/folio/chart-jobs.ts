@@ -16,7 +16,7 @@ export type ChartJob =
 export function chartInput(a: PartAnalysis): PartChartInput {
   const { part } = a;
   return {
-    part: { id: part.id, title: part.title, kind: part.kind, behavesAs: part.behavesAs, network: part.network },
+    part: { id: part.id, title: part.title, kind: part.kind, behavesAs: part.behavesAs, network: part.network, nominal: part.nominal, ratedAtHz: part.ratedAtHz },
     frequencies: a.frequencies,
     z: { re: a.z.re, im: a.z.im },
     resonances: a.resonances,

@@ -117,10 +117,17 @@ function figures(a: PartAnalysis): Row[] {
     rows.push({ label: 'Peak |Z|', value: formatEng(peak.ohm, 'resistance'), note: `at ${formatEng(peak.frequencyHz, 'frequency')}` });
     if (part.ratedAtHz !== undefined) {
       const [re, im] = impedanceAt(part.network, part.ratedAtHz);
-      rows.push({ label: `|Z| at ${formatEng(part.ratedAtHz, 'frequency')}`, value: formatEng(Math.hypot(re, im), 'resistance'), note: 'model' });
+      const modelOhm = Math.hypot(re, im);
+      const rated = part.nominal !== undefined ? `; rated ${formatEng(part.nominal, 'resistance')}, ${signedPercent(modelOhm / part.nominal - 1)}` : '';
+      rows.push({ label: `|Z| at ${formatEng(part.ratedAtHz, 'frequency')}`, value: formatEng(modelOhm, 'resistance'), note: `model${rated}` });
     }
   }
   return rows;
+}
+
+/** "+0.61%", "−1.83%": a model's deviation from a rating. */
+function signedPercent(ratio: number): string {
+  return `${ratio < 0 ? '−' : '+'}${formatPercent(Math.abs(ratio))}`;
 }
 
 /** The greatest Q = |X|/R over the sweep points where the reactance has the nominal sign. */

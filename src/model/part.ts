@@ -3,7 +3,8 @@
 import { isMap, isSeq, type Node, type YAMLMap } from 'yaml';
 import { capacitor, inductor, parallel, resistor, series, type Element } from '../circuit/element.js';
 import { parseMarking } from '../units/marking.js';
-import { formatEng } from '../units/format.js';
+import { formatEng, formatPercent } from '../units/format.js';
+import { impedanceAt } from '../circuit/impedance.js';
 import { parseQuantity, parseRatio } from '../units/parse.js';
 import type { Dimension } from '../units/quantity.js';
 import type { SourcePosition } from './diagnostics.js';
@@ -204,6 +205,7 @@ export function readPart(ctx: ReadContext): Part | undefined {
   if (kind === 'bead') {
     part.ratedAtHz = root.quantity('at', 'frequency');
     if (root.has('nominal') && !root.has('at')) root.error('nominal', 'a bead\'s nominal impedance needs the frequency it is rated at ("at", e.g. at: 100M)');
+    if (part.network && nominal !== undefined && part.ratedAtHz !== undefined) checkBeadRating(root, part.network, nominal, part.ratedAtHz, part.tolerance);
   }
   if (part.tolerance !== undefined && part.tolerance >= 1) {
     root.warning('tolerance', `a tolerance of ${Math.round(part.tolerance * 100)}% is unusually wide; write 10% or 0.1 for ten percent`);
@@ -211,6 +213,30 @@ export function readPart(ctx: ReadContext): Part | undefined {
 
   if (diagnostics.errorCount > before) return undefined;
   return part as Part;
+}
+
+/** Without a stated tolerance, a bead's model may miss its rated impedance by this much (common practice). */
+export const BEAD_RATING_TOLERANCE = 0.25;
+
+/** How far the model's |Z| at the rated frequency is from the rated impedance: |Z|/nominal − 1. */
+export function beadRatingDeviation(network: Element, nominal: number, ratedAtHz: number): number {
+  const [re, im] = impedanceAt(network, ratedAtHz);
+  return Math.hypot(re, im) / nominal - 1;
+}
+
+/** A bead's model must reproduce its rating: |Z(at)| within the tolerance (else 25%) of nominal. */
+function checkBeadRating(root: Fields, network: Element, nominal: number, ratedAtHz: number, tolerance: number | undefined): void {
+  const deviation = beadRatingDeviation(network, nominal, ratedAtHz);
+  const allowed = tolerance ?? BEAD_RATING_TOLERANCE;
+  // A hair of slack for rounding: a model fitted exactly to the tolerance edge passes.
+  if (!(Math.abs(deviation) > allowed * (1 + 1e-9))) return;
+  const modelOhm = (1 + deviation) * nominal;
+  const how = `${formatPercent(Math.abs(deviation))} ${deviation < 0 ? 'below' : 'above'}`;
+  const limit = tolerance !== undefined ? `its ±${formatPercent(tolerance)} tolerance` : `±${formatPercent(BEAD_RATING_TOLERANCE)} (no tolerance given; common practice)`;
+  root.warning(
+    'nominal',
+    `the model gives |Z| = ${formatEng(modelOhm, 'resistance')} at ${formatEng(ratedAtHz, 'frequency')}, ${how} the rated ${formatEng(nominal, 'resistance')}, outside ${limit}; fit the model to the rating or correct the rating`,
+  );
 }
 
 function readMarking(root: Fields, kind: PartKind, nominal: number | undefined): string | undefined {

@@ -2,7 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { PLOT_WIDTH, RESONANCE_MARK } from '../../src/charts/palette.js';
 import { renderPartChart } from '../../src/charts/part-charts.js';
 import { formatEng } from '../../src/units/format.js';
-import { analysed, capacitorPart, resistorPart } from './fixtures.js';
+import { analysed, beadPart, capacitorPart, resistorPart } from './fixtures.js';
+import { RATED_MARK } from '../../src/charts/palette.js';
+import type { Part } from '../../src/model/part.js';
 import { svgTexts } from './svg-text.js';
 
 type Rows = Record<string, Record<string, unknown>[]>;
@@ -59,5 +61,28 @@ describe('impedance chart', () => {
     expect(texts).toContain('R');
     expect(texts).not.toContain('resonance (X = 0)');
     expect(resonanceDots(out.svg)).toHaveLength(0);
+  });
+
+  it('marks a bead\'s rated point (nominal at its rated frequency) and names it in the key in words', async () => {
+    // The fixture bead, rated 600 Ω at 100 MHz. Plot as above: x log over 1 kHz..10 GHz (7 decades).
+    const rated = { ...beadPart, ratedAtHz: 100e6 } as Part;
+    const out = await renderPartChart('impedance', analysed(rated));
+    const rows = (out.spec as { datasets: Rows }).datasets.rated;
+    expect(rows).toMatchObject([{ f: 100e6, v: 600 }]);
+    expect(svgTexts(out.svg)).toContain('rated |Z| 600 Ω at 100 MHz');
+    const diamonds = [...out.svg.matchAll(new RegExp(`<path transform="translate\\(([-\\d.]+),([-\\d.]+)\\)"[^>]*fill="${RATED_MARK}"`, 'g'))].map((m) => ({ x: Number(m[1]), y: Number(m[2]) }));
+    const inPlot = diamonds.filter((p) => p.y >= 0);
+    expect(inPlot).toHaveLength(1);
+    expect(inPlot[0].x).toBeCloseTo((PLOT_WIDTH * Math.log10(100e6 / 1e3)) / 7, 1);
+    // And one more in the key, above the plot.
+    expect(diamonds.filter((p) => p.y < 0)).toHaveLength(1);
+  });
+
+  it('marks no rated point where there is no rating, or it lies outside the sweep', async () => {
+    for (const p of [beadPart, { ...beadPart, ratedAtHz: 1e11 } as Part, { ...capacitorPart, ratedAtHz: 1e6 } as Part]) {
+      const out = await renderPartChart('impedance', analysed(p));
+      expect((out.spec as { datasets: Rows }).datasets.rated).toEqual([]);
+      expect(svgTexts(out.svg).some((t) => t.startsWith('rated'))).toBe(false);
+    }
   });
 });
