@@ -11,7 +11,7 @@ import { chromeHint, findChrome } from './browser.js';
 import type { ChartMaker } from './chart-maker.js';
 import { ChartPool, type ChartPoolStats } from './chart-pool.js';
 import { renderPages, TEMPLATES_DIR } from './eleventy.js';
-import { stageOutput } from './output.js';
+import { checkWritable, stageOutput, type SwapStep } from './output.js';
 import { guardOutput } from './output-guard.js';
 import type { FolioData } from './site-data.js';
 import { printJobs, type PrintedFile } from './print.js';
@@ -40,6 +40,8 @@ export interface BuildOptions {
    * nothing). Default: .zfolio-cache under the library.
    */
   cache?: string | false;
+  /** Called at each step of putting the new site in place (tests stop the process there). */
+  onSwapStep?(step: SwapStep): void;
 }
 
 export interface PdfOptions {
@@ -116,6 +118,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   let clock = stageClock();
   // Before anything is read or written: a refused output leaves the disk exactly as it was.
   guardOutput(outDir, { libraryRoot, cwd: options.cwd ?? process.cwd(), home: options.home });
+  checkWritable(outDir);
   const { library, diagnostics } = loadLibrary(libraryRoot);
   const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, timings };
   if (!library) return result;
@@ -125,7 +128,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   // Part folders can be carried over only when charts come from the cache-keyed pool.
   const reuse = cacheRoot && !options.charts ? { file: recordFile(cacheRoot, outDir), site: siteKey(library, Boolean(options.pdf)) } : undefined;
   const partKeys = new Map(reuse ? library.parts.map((p) => [p.id, partKey(reuse.site, p)]) : []);
-  const staging = stageOutput(outDir);
+  const staging = stageOutput(outDir, { onStep: options.onSwapStep });
   let pool: ChartPool | undefined;
   try {
     const record = reuse ? readRecord(reuse.file, outDir) : undefined;

@@ -3,7 +3,8 @@
 // review pack whose contents list points at the pages its sections really start on.
 
 import { execFileSync } from 'node:child_process';
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio, type BuildResult } from '../../src/folio/build.js';
@@ -117,8 +118,15 @@ describe('zfolio print', () => {
     const repoSite = join(REPO, '_site');
     const siteBefore = existsSync(repoSite) ? statSync(repoSite).mtimeMs : null;
     const lines: string[] = [];
+    // What a killed print left behind: its scratch folder, named with its (ended) process id.
+    const dead = Number(execFileSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], { encoding: 'utf8' }));
+    const leftover = join(tmpdir(), `zfolio-print-${dead}-Ab12Cd`);
+    mkdirSync(join(leftover, 'site'), { recursive: true });
+    // A PDF zfolio made, under the name print writes: replaced without a word.
+    copyFileSync(join(site, 'pdf', 'parts', `${CAPACITOR}.pdf`), join(out, `${INDUCTOR}.pdf`));
     const code = await main(['print', INDUCTOR, '--paper', 'letter', '--out', out, '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
     expect(code).toBe(0);
+    expect(existsSync(leftover)).toBe(false);
     const file = join(out, `${INDUCTOR}.pdf`);
     expect(lines.join('')).toMatch(new RegExp(`${INDUCTOR}\\.pdf  \\d+ pages?\\n$`));
     // US Letter is 612 × 792 pt (ANSI/ASME Y14.1).

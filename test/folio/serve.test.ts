@@ -3,7 +3,7 @@
 // Waits poll with a deadline; nothing sleeps blindly.
 
 import { request } from 'node:http';
-import { cpSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdtempSync, readdirSync, readFileSync, readlinkSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -119,8 +119,9 @@ describe('serveFolio', () => {
     await vi.waitFor(async () => expect((await partPage()).body).toContain('100 nF test capacitor (invented)'), { timeout: 20_000, interval: 100 });
     await folio.idle();
     expect(folio.latest().result?.ok).toBe(true);
-    // No build overlapped another: each staging folder was committed or removed.
-    expect(readdirSync(lib).filter((name) => name.includes('staging'))).toEqual([]);
+    // No build overlapped another: each version of the site was put in place or removed, and only the
+    // current one is left.
+    expect(readdirSync(join(lib, '._site.zfolio'))).toEqual([readlinkSync(join(lib, '_site')).split('/')[1]]);
   }, 30_000);
 });
 

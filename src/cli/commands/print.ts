@@ -1,6 +1,6 @@
 // zfolio print: PDFs of a few parts or reviews, without touching the built site.
 
-import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, renameSync, rmSync, statSync } from 'node:fs';
+import { copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, renameSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { basename, join, relative, resolve, sep } from 'node:path';
 import { buildFolio } from '../../folio/build.js';
@@ -8,6 +8,7 @@ import { terminalProgress } from '../../folio/progress.js';
 import { reviewSlug } from '../../folio/review-page.js';
 import { OutputRefused } from '../../folio/output-guard.js';
 import { madeByZfolio } from '../../folio/pdf.js';
+import { alive } from '../../folio/output.js';
 import { closest } from '../../model/suggest.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
@@ -58,7 +59,8 @@ export async function print(args: string[], io: CommandIO): Promise<number> {
   const outDir = resolve(io.cwd, typeof values.out === 'string' ? values.out : '.');
   await guardPdfFolder(outDir, [...parts, ...reviews].map((name) => `${name}.pdf`));
 
-  const scratch = mkdtempSync(join(tmpdir(), 'zfolio-print-'));
+  removeDeadScratch();
+  const scratch = mkdtempSync(join(tmpdir(), `${SCRATCH_PREFIX}${process.pid}-`));
   try {
     const result = await buildFolio({
       libraryRoot: root,
@@ -113,6 +115,27 @@ async function guardPdfFolder(outDir: string, names: string[]): Promise<void> {
     if (found === 'none') continue;
     if (found !== 'file' || !(await madeByZfolio(readFileSync(target)))) {
       throw new OutputRefused(`will not replace ${target}: it is not a PDF zfolio made; move it or choose another --out`);
+    }
+  }
+}
+
+/** print builds in a scratch folder named with its process id; one a killed print left is removed by the next. */
+const SCRATCH_PREFIX = 'zfolio-print-';
+
+function removeDeadScratch(): void {
+  let names: string[] = [];
+  try {
+    names = readdirSync(tmpdir());
+  } catch {
+    return;
+  }
+  for (const name of names) {
+    const pid = new RegExp(`^${SCRATCH_PREFIX}(\\d+)-\\w+$`).exec(name)?.[1];
+    if (pid === undefined || alive(Number(pid))) continue;
+    try {
+      rmSync(join(tmpdir(), name), { recursive: true, force: true });
+    } catch {
+      // another user's, or gone already
     }
   }
 }
