@@ -8,6 +8,7 @@
 // SRF·√(1 − 1/(1 + within)) (from C_eff = C/(1 − (f/SRF)²)).
 
 import { impedanceAt, type ImpedanceArrays } from '../circuit/impedance.js';
+import type { ResolvedSweep } from './resolved-sweep.js';
 import type { Element } from '../circuit/element.js';
 import { frequencyRoot } from './root.js';
 
@@ -46,8 +47,11 @@ export function bandMargin(rule: BandRule, frequencyHz: number, re: number, im: 
   }
 }
 
-/** The usable band over the sweep, edges refined by root finding; null when no sweep point qualifies. */
-export function usableBand(element: Element, rule: BandRule, frequencies: Float64Array, z: ImpedanceArrays): UsableBand | null {
+/**
+ * The usable band over a resolved sweep (every narrow feature sampled), edges refined by root finding; null
+ * when no sample qualifies.
+ */
+export function usableBand(element: Element, rule: BandRule, { frequencies, z }: ResolvedSweep): UsableBand | null {
   const n = frequencies.length;
   const inside = new Uint8Array(n);
   for (let i = 0; i < n; i++) inside[i] = bandMargin(rule, frequencies[i], z.re[i], z.im[i]) >= 0 ? 1 : 0;
@@ -63,8 +67,13 @@ export function usableBand(element: Element, rule: BandRule, frequencies: Float6
   const [first, last] = run;
   const fromIsSweepEnd = first === 0;
   const toIsSweepEnd = last === n - 1;
-  const fromHz = fromIsSweepEnd ? frequencies[0] : frequencyRoot(margin, frequencies[first - 1], frequencies[first], BAND_EDGE_TOLERANCE);
-  const toHz = toIsSweepEnd ? frequencies[n - 1] : frequencyRoot(margin, frequencies[last], frequencies[last + 1], BAND_EDGE_TOLERANCE);
+  // Where the refined margin disagrees with the samples' (rounding at an edge), the inside sample is the edge.
+  const edge = (low: number, inside: number) => {
+    const f = frequencyRoot(margin, frequencies[low], frequencies[low + 1], BAND_EDGE_TOLERANCE);
+    return Number.isFinite(f) ? f : frequencies[inside];
+  };
+  const fromHz = fromIsSweepEnd ? frequencies[0] : edge(first - 1, first);
+  const toHz = toIsSweepEnd ? frequencies[n - 1] : edge(last, last);
   return { fromHz, toHz, fromIsSweepEnd, toIsSweepEnd };
 }
 

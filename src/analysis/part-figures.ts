@@ -6,6 +6,9 @@ import { impedanceAt, impedanceSweep, type ImpedanceArrays } from '../circuit/im
 import { logSweep, type SweepSpec } from '../circuit/sweep.js';
 import type { Part } from '../model/part.js';
 import { usableBand, type BandRule, type UsableBand } from './band.js';
+import type { ImpedancePoint } from './extremum.js';
+import { peakImpedance, peakQuality, type QualityPeak } from './part-peaks.js';
+import { resolvedSweep, type ResolvedSweep } from './resolved-sweep.js';
 import { selfResonances, type Resonance } from './resonance.js';
 
 export interface PartAnalysis {
@@ -13,6 +16,8 @@ export interface PartAnalysis {
   sweep: SweepSpec;
   frequencies: Float64Array;
   z: ImpedanceArrays;
+  /** The sweep with ladders of points around every natural frequency: where features are searched. */
+  resolved: ResolvedSweep;
   resonances: Resonance[];
   /** The self-resonant frequency: a capacitor's first series resonance, an inductor's or bead's first parallel one. */
   selfResonance?: Resonance;
@@ -20,6 +25,10 @@ export interface PartAnalysis {
   usableBand: UsableBand | null;
   /** The criterion used for the band (|value_eff/nominal − 1| ≤ within), when the rule has one. */
   within?: number;
+  /** The greatest |Z| over the sweep, refined. */
+  peakImpedance: ImpedancePoint & { atSweepEnd: boolean };
+  /** The greatest Q with the reactance of the part's kind (inductors, capacitors), refined. */
+  peakQuality?: QualityPeak;
 }
 
 export function bandRuleOf(part: Part, within: number): BandRule | undefined {
@@ -39,10 +48,12 @@ export function bandRuleOf(part: Part, within: number): BandRule | undefined {
 export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number): PartAnalysis {
   const frequencies = logSweep(sweep);
   const z = impedanceSweep(part.network, frequencies);
-  const resonances = selfResonances(part.network, frequencies, z);
+  const resolved = resolvedSweep(part.network, frequencies, z);
+  const resonances = selfResonances(part.network, resolved);
   const within = part.within ?? defaultWithin;
   const bandRule = bandRuleOf(part, within);
-  const band = bandRule ? usableBand(part.network, bandRule, frequencies, z) : null;
+  const band = bandRule ? usableBand(part.network, bandRule, resolved) : null;
+  const reactanceSign = part.behavesAs === 'capacitor' ? -1 : part.behavesAs === 'inductor' ? 1 : undefined;
   const wanted = part.behavesAs === 'capacitor' ? 'series' : part.behavesAs === 'inductor' || part.behavesAs === 'bead' ? 'parallel' : undefined;
   const selfResonance = wanted ? resonances.find((r) => r.type === wanted) : resonances[0];
   return {
@@ -50,11 +61,14 @@ export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number)
     sweep,
     frequencies,
     z,
+    resolved,
     resonances,
     selfResonance,
     bandRule,
     usableBand: band,
     within: bandRule && bandRule.behavesAs !== 'bead' ? within : undefined,
+    peakImpedance: peakImpedance(part.network, resolved),
+    peakQuality: reactanceSign ? peakQuality(part.network, resolved, reactanceSign) : undefined,
   };
 }
 

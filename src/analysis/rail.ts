@@ -9,6 +9,8 @@
 import { inductor, series, type Element, capacitor, resistor } from '../circuit/element.js';
 import { impedanceSweepInto } from '../circuit/impedance.js';
 import { admittanceSlope, impedanceSlopeAt, impedanceSlopeInto, type ImpedanceSlope } from '../circuit/slope.js';
+import { naturalFrequencies, type ComplexFrequency, type FrequencyRange } from '../circuit/natural-frequencies.js';
+import { featureGrid, sweepRange, sweepIndices } from './feature-grid.js';
 import { impedancePeaks } from './peaks.js';
 
 /** Z_t = V·ripple/ΔI, Ω (Smith et al., 1999). */
@@ -122,30 +124,55 @@ export interface RailOptions {
   branchCurves?: boolean;
 }
 
-/** |Z(f)| of the rail over `frequencies` (the band's sweep), its peaks, worst margin and pass/fail. */
+/**
+ * The zeros of the rail's impedance: a zero of Z is a pole of Y = Σ Y_branch, so the rail's zeros are the
+ * zeros of its branches (each branch's series resonances, whatever the counts), found branch by branch.
+ */
+export function railZeros(branches: readonly RailBranch[], range: FrequencyRange): ComplexFrequency[] {
+  return branches.flatMap((b) => naturalFrequencies(b.element, range).zeros);
+}
+
+/**
+ * |Z(f)| of the rail over `frequencies` (the band's sweep), its peaks, worst margin and pass/fail.
+ *
+ * Peaks are searched on the sweep refined around every zero of the rail's impedance (railZeros,
+ * feature-grid.ts). The poles of Z, its anti-resonances, alternate with its zeros along the frequency
+ * axis when losses are light (Foster's reactance theorem), so with each zero's neighbourhood sampled at a
+ * fraction of the distance to it, every anti-resonance shows as a local maximum of the samples between two
+ * zeros and is refined there, however narrow, even when it sits inside one step of the band's sweep.
+ */
 export function evaluateRail(branches: readonly RailBranch[], targetOhm: number, frequencies: Float64Array, options: RailOptions = {}): RailEvaluation {
-  const n = frequencies.length;
   const keepCurves = options.branchCurves ?? true;
-  const g = new Float64Array(n);
-  const b = new Float64Array(n);
-  const re = new Float64Array(n);
-  const im = new Float64Array(n);
+  const grid = featureGrid(frequencies, railZeros(branches, sweepRange(frequencies)));
+  const onSweep = grid === frequencies ? undefined : sweepIndices(grid, frequencies);
+  const n = frequencies.length;
+  const m = grid.length;
+  const g = new Float64Array(m);
+  const b = new Float64Array(m);
+  const re = new Float64Array(m);
+  const im = new Float64Array(m);
   const branchMagnitude: Float64Array[] = [];
   for (const branch of branches) {
-    impedanceSweepInto(branch.element, frequencies, re, im);
-    const curve = keepCurves ? new Float64Array(n) : undefined;
-    for (let i = 0; i < n; i++) {
+    impedanceSweepInto(branch.element, grid, re, im);
+    for (let i = 0; i < m; i++) {
       const d = re[i] * re[i] + im[i] * im[i];
       g[i] += (branch.count * re[i]) / d;
       b[i] -= (branch.count * im[i]) / d;
-      if (curve) curve[i] = Math.sqrt(d) / branch.count;
     }
-    if (curve) branchMagnitude.push(curve);
+    if (keepCurves) {
+      const curve = new Float64Array(n);
+      for (let i = 0; i < n; i++) {
+        const j = onSweep ? onSweep[i] : i;
+        curve[i] = Math.hypot(re[j], im[j]) / branch.count;
+      }
+      branchMagnitude.push(curve);
+    }
   }
-  const magnitude = new Float64Array(n);
-  for (let i = 0; i < n; i++) magnitude[i] = 1 / Math.hypot(g[i], b[i]);
+  const gridMagnitude = new Float64Array(m);
+  for (let i = 0; i < m; i++) gridMagnitude[i] = 1 / Math.hypot(g[i], b[i]);
+  const magnitude = onSweep ? Float64Array.from(onSweep, (j) => gridMagnitude[j]) : gridMagnitude;
 
-  const found = impedancePeaks(frequencies, magnitude, (f) => railSlopeAt(branches, f));
+  const found = impedancePeaks(grid, gridMagnitude, (f) => railSlopeAt(branches, f));
   const peaks: RailPeak[] = found.map((p) => {
     const { total, branch } = railAdmittanceAt(branches, p.frequencyHz);
     const y = Math.hypot(total.re, total.im);

@@ -22,6 +22,10 @@ export interface PartSummary {
   usableBand: UsableBand | null;
   /** Usable-band criterion, when the rule has one. */
   within: number | null;
+  /** The greatest |Z| over the sweep, refined (a bead's peak). */
+  peakImpedance: { frequencyHz: number; impedanceOhm: number; atSweepEnd: boolean };
+  /** The greatest Q = |X|/R with the reactance of the part's kind (capacitors and inductors), refined. */
+  peakQuality: { frequencyHz: number; q: number } | null;
   sweep: { fromHz: number; toHz: number; perDecade: number };
   source: { file: string; hash: string };
 }
@@ -35,10 +39,12 @@ export function partSummary(a: PartAnalysis): PartSummary {
     title: part.title,
     nominal: part.nominal ?? null,
     unit: part.behavesAs && part.nominal !== undefined ? DIMENSIONS[NOMINAL_DIMENSION[part.behavesAs]].symbol : null,
-    resonances: a.resonances.map((r) => ({ frequencyHz: r.frequencyHz, type: r.type, impedanceOhm: r.impedanceOhm })),
+    resonances: a.resonances.map((r) => ({ frequencyHz: r.frequencyHz, type: r.type, impedanceOhm: r.impedanceOhm, extremum: { ...r.extremum } })),
     selfResonanceHz: a.selfResonance?.frequencyHz ?? null,
     usableBand: a.usableBand ? { ...a.usableBand } : null,
     within: a.within ?? null,
+    peakImpedance: { ...a.peakImpedance },
+    peakQuality: a.peakQuality ? { ...a.peakQuality } : null,
     sweep: { ...a.sweep },
     source: { file: part.source.path, hash: part.source.hash },
   };

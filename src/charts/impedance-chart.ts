@@ -67,7 +67,9 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
 
     // At a resonance X = 0, so |Z| = R = the resonance's impedance: both curves pass through it exactly.
     const exact = input.resonances.map((r) => ({ f: r.frequencyHz, v: r.impedanceOhm }));
-    const mag = mergeCurve(input.frequencies, magnitude, exact, true);
+    // |Z| also passes through each resonance's refined extremum (a lossy peak sits off its X = 0 point).
+    const extrema = input.resonances.filter((r) => !r.extremum.atSweepEnd && r.extremum.frequencyHz !== r.frequencyHz).map((r) => ({ f: r.extremum.frequencyHz, v: r.extremum.impedanceOhm }));
+    const mag = mergeCurve(input.frequencies, magnitude, [...exact, ...extrema], true);
     const res = mergeCurve(input.frequencies, (i) => re[i], exact, true);
     const curves = [...curveRows(mag, fa.map, yMap, 'mag'), ...curveRows(res, fa.map, yMap, 'res')];
 

@@ -6,7 +6,7 @@ import type { ImpedanceArrays } from '../circuit/impedance.js';
 import type { Element } from '../circuit/element.js';
 import type { UsableBand } from '../analysis/band.js';
 import type { Resonance } from '../analysis/resonance.js';
-import { formatEng, formatPercent } from '../units/format.js';
+import { formatEng, formatEngRange, formatPercent } from '../units/format.js';
 import type { KeyItem } from './key.js';
 import type { Row } from './render.js';
 import { logAxis, logTicks, type AxisMap } from './scales.js';
@@ -79,8 +79,7 @@ export function bandCaption(input: PartChartInput): string {
 
 /** "1.2 kHz – 7.11 MHz", "to 7.11 MHz" (from the sweep start), "from 1.2 kHz", "whole sweep". */
 export function bandRange(band: UsableBand): string {
-  const from = formatEng(band.fromHz, 'Hz');
-  const to = formatEng(band.toHz, 'Hz');
+  const [from, to] = formatEngRange(band.fromHz, band.toHz, 'Hz');
   if (band.fromIsSweepEnd && band.toIsSweepEnd) return 'whole sweep';
   if (band.fromIsSweepEnd) return `up to ${to}`;
   if (band.toIsSweepEnd) return `from ${from}`;

@@ -80,11 +80,14 @@ function deferredAnalysis(part: Part, analyse: () => PartAnalysis): PartAnalysis
     get sweep() { return analysis().sweep; },
     get frequencies() { return analysis().frequencies; },
     get z() { return analysis().z; },
+    get resolved() { return analysis().resolved; },
     get resonances() { return analysis().resonances; },
     get selfResonance() { return analysis().selfResonance; },
     get bandRule() { return analysis().bandRule; },
     get usableBand() { return analysis().usableBand; },
     get within() { return analysis().within; },
+    get peakImpedance() { return analysis().peakImpedance; },
+    get peakQuality() { return analysis().peakQuality; },
   };
 }
 

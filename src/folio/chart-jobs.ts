@@ -17,8 +17,9 @@ export function chartInput(a: PartAnalysis): PartChartInput {
   const { part } = a;
   return {
     part: { id: part.id, title: part.title, kind: part.kind, behavesAs: part.behavesAs, network: part.network, nominal: part.nominal, ratedAtHz: part.ratedAtHz },
-    frequencies: a.frequencies,
-    z: { re: a.z.re, im: a.z.im },
+    // The resolved sweep: curves pass through every narrow peak and notch the figures name.
+    frequencies: a.resolved.frequencies,
+    z: { re: a.resolved.z.re, im: a.resolved.z.im },
     resonances: a.resonances,
     selfResonance: a.selfResonance,
     usableBand: a.usableBand,

@@ -4,8 +4,9 @@
 import { impedanceAt } from '../circuit/impedance.js';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { UsableBand } from '../analysis/band.js';
+import type { Resonance } from '../analysis/resonance.js';
 import { NOMINAL_DIMENSION, type Part } from '../model/part.js';
-import { formatDegrees, formatEng, formatNumber, formatPercent } from '../units/format.js';
+import { formatDegrees, formatEng, formatEngRange, formatNumber, formatPercent } from '../units/format.js';
 import { cautionsFor, storedEnergyText } from './cautions.js';
 import { mainsBanner, type MainsBanner } from './mains.js';
 import { formatVoltageRating } from '../model/voltage-rating.js';
@@ -66,7 +67,23 @@ export function nominalText(part: Part): string {
 /** "≤ 100 Hz to 7.15 MHz": the ≤/≥ say the band runs on past the sweep's end. */
 export function bandText(band: UsableBand | null): string {
   if (!band) return 'none in the sweep';
-  return `${band.fromIsSweepEnd ? '≤ ' : ''}${formatEng(band.fromHz, 'frequency')} to ${band.toIsSweepEnd ? '≥ ' : ''}${formatEng(band.toHz, 'frequency')}`;
+  const [from, to] = formatEngRange(band.fromHz, band.toHz, 'frequency');
+  return `${band.fromIsSweepEnd ? '≤ ' : ''}${from} to ${band.toIsSweepEnd ? '≥ ' : ''}${to}`;
+}
+
+/** "X = 0 with |Z| 1.12 Ω; |Z| max 1.34 Ω at 95.2 MHz": where X = 0, and the |Z| extremum beside it. */
+export function resonanceNote(r: Resonance): string {
+  const atZero = `|Z| ${formatEng(r.impedanceOhm, 'resistance')} where X = 0`;
+  const beside = extremumNote(r);
+  return beside ? `${atZero}; ${beside}` : atZero;
+}
+
+/** "|Z| max 1.34 Ω at 95.2 MHz" where the extremum differs visibly from the X = 0 point, else undefined. */
+export function extremumNote(r: Resonance): string | undefined {
+  const e = r.extremum;
+  if (Math.abs(e.frequencyHz / r.frequencyHz - 1) < 1e-3 && Math.abs(e.impedanceOhm / r.impedanceOhm - 1) < 1e-3) return undefined;
+  const what = r.type === 'series' ? 'min' : 'max';
+  return `|Z| ${what} ${formatEng(e.impedanceOhm, 'resistance')} at ${formatEng(e.frequencyHz, 'frequency')}${e.atSweepEnd ? ' (sweep end)' : ''}`;
 }
 
 function facts(part: Part): Row[] {
@@ -97,24 +114,25 @@ function figures(a: PartAnalysis): Row[] {
   if (srf) {
     const atSrf = part.behavesAs === 'capacitor' ? 'ESR at SRF' : '|Z| at SRF';
     rows.push({ label: 'Self-resonant frequency', value: formatEng(srf.frequencyHz, 'frequency'), note: `${srf.type} resonance` });
-    rows.push({ label: atSrf, value: formatEng(srf.impedanceOhm, 'resistance') });
+    const beside = extremumNote(srf);
+    rows.push({ label: atSrf, value: formatEng(srf.impedanceOhm, 'resistance'), ...(beside ? { note: beside } : {}) });
   } else {
     rows.push({ label: 'Self-resonant frequency', value: 'none in the sweep', note: `${formatEng(a.sweep.fromHz, 'frequency')} to ${formatEng(a.sweep.toHz, 'frequency')}` });
   }
   for (const r of a.resonances) {
     if (r === srf) continue;
-    rows.push({ label: `${r.type === 'series' ? 'Series' : 'Parallel'} resonance`, value: formatEng(r.frequencyHz, 'frequency'), note: `|Z| ${formatEng(r.impedanceOhm, 'resistance')}` });
+    rows.push({ label: `${r.type === 'series' ? 'Series' : 'Parallel'} resonance`, value: formatEng(r.frequencyHz, 'frequency'), note: resonanceNote(r) });
   }
   const rule = a.within !== undefined ? `value within ${formatPercent(a.within)} of nominal` : part.behavesAs === 'bead' ? 'resistive: R − Rdc ≥ |X|' : undefined;
   rows.push({ label: 'Usable band', value: a.bandRule ? bandText(a.usableBand) : 'not defined', note: rule ?? 'the network declares no behaves-as' });
-  const peakQ = peakQuality(a);
+  const peakQ = a.peakQuality;
   // A capacitor's Q only grows towards DC; the peak is an inductor's figure of merit.
   if (peakQ && part.behavesAs === 'inductor') {
     rows.push({ label: 'Peak Q', value: formatNumber(peakQ.q), note: `at ${formatEng(peakQ.frequencyHz, 'frequency')}` });
   }
   if (part.behavesAs === 'bead') {
-    const peak = peakImpedance(a);
-    rows.push({ label: 'Peak |Z|', value: formatEng(peak.ohm, 'resistance'), note: `at ${formatEng(peak.frequencyHz, 'frequency')}` });
+    const peak = a.peakImpedance;
+    rows.push({ label: 'Peak |Z|', value: formatEng(peak.impedanceOhm, 'resistance'), note: `${peak.atSweepEnd ? 'at the sweep end, ' : ''}at ${formatEng(peak.frequencyHz, 'frequency')}` });
     if (part.ratedAtHz !== undefined) {
       const [re, im] = impedanceAt(part.network, part.ratedAtHz);
       const modelOhm = Math.hypot(re, im);
@@ -128,28 +146,6 @@ function figures(a: PartAnalysis): Row[] {
 /** "+0.61%", "−1.83%": a model's deviation from a rating. */
 function signedPercent(ratio: number): string {
   return `${ratio < 0 ? '−' : '+'}${formatPercent(Math.abs(ratio))}`;
-}
-
-/** The greatest Q = |X|/R over the sweep points where the reactance has the nominal sign. */
-function peakQuality(a: PartAnalysis): { q: number; frequencyHz: number } | undefined {
-  const sign = a.part.behavesAs === 'capacitor' ? -1 : 1;
-  let best: { q: number; frequencyHz: number } | undefined;
-  for (let i = 0; i < a.frequencies.length; i++) {
-    const x = a.z.im[i];
-    if (Math.sign(x) !== sign || !(a.z.re[i] > 0)) continue;
-    const q = Math.abs(x) / a.z.re[i];
-    if (!best || q > best.q) best = { q, frequencyHz: a.frequencies[i] };
-  }
-  return best && Number.isFinite(best.q) ? best : undefined;
-}
-
-function peakImpedance(a: PartAnalysis): { ohm: number; frequencyHz: number } {
-  let best = { ohm: -1, frequencyHz: a.frequencies[0] };
-  for (let i = 0; i < a.frequencies.length; i++) {
-    const m = Math.hypot(a.z.re[i], a.z.im[i]);
-    if (m > best.ohm) best = { ohm: m, frequencyHz: a.frequencies[i] };
-  }
-  return best;
 }
 
 /** Each decade (1, 10, 100 ... Hz) inside the sweep. */

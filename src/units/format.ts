@@ -51,6 +51,18 @@ export function formatEng(value: number, unit: Dimension | string, options: Form
   return `${sign}${trimZeros(String(scaled))}${sep}${prefix}${symbol}`;
 }
 
+/**
+ * Two values of one range (a band's edges) with enough significant digits to show their difference to two
+ * digits, 3 at least and 9 at most: a narrow band reads "159.075 MHz to 159.235 MHz", not "159 MHz to 159 MHz".
+ */
+export function formatEngRange(from: number, to: number, unit: Dimension | string): [string, string] {
+  const width = Math.abs(to - from);
+  const size = Math.max(Math.abs(from), Math.abs(to));
+  const needed = width > 0 ? 2 + Math.ceil(Math.log10(size / width)) : 3;
+  const digits = Math.min(9, Math.max(3, Number.isFinite(needed) ? needed : 3));
+  return [formatEng(from, unit, { digits }), formatEng(to, unit, { digits })];
+}
+
 function trimZeros(text: string): string {
   return text.includes('.') ? text.replace(/\.?0+$/, '') : text;
 }

@@ -1,3 +1,4 @@
+import { resolvedSweep } from '../../src/analysis/resolved-sweep.js';
 import { describe, expect, it } from 'vitest';
 import { capacitor, inductor, parallel, resistor, series, type Element } from '../../src/circuit/element.js';
 import { impedanceSweep } from '../../src/circuit/impedance.js';
@@ -6,7 +7,7 @@ import { usableBand, type BandRule } from '../../src/analysis/band.js';
 
 const spec: SweepSpec = { fromHz: 100, toHz: 1e10, perDecade: 50 };
 const freqs = logSweep(spec);
-const band = (tree: Element, rule: BandRule, f = freqs) => usableBand(tree, rule, f, impedanceSweep(tree, f));
+const band = (tree: Element, rule: BandRule, f = freqs) => usableBand(tree, rule, resolvedSweep(tree, f));
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 
 describe('capacitor band', () => {
@@ -76,5 +77,22 @@ describe('bead band', () => {
     const b = band(tree, { behavesAs: 'bead', dcResistanceOhm: rdc })!;
     expect(rel(b.fromHz * 2 * Math.PI, w1)).toBeLessThan(1e-8);
     expect(rel(b.toHz * 2 * Math.PI, w2)).toBeLessThan(1e-8);
+  });
+});
+
+describe('a high-Q bead: the absorbing band narrower than a sweep step', () => {
+  // rdc + (r ‖ l ‖ c): R − Rdc ≥ |X| ⇔ G ≥ |B| for the core, so the edges solve ωc − 1/(ωl) = ±1/r, i.e.
+  // ω = (±1/r + √(1/r² + 4c/l))/(2c) (the half-power band of a parallel resonator; Alexander & Sadiku §14.6).
+  const [rdc, r, l, c] = [0.1, 1e6, 1e-6, 1e-12];
+  const tree = series(resistor(rdc), parallel(resistor(r), inductor(l), capacitor(c)));
+  const edge = (sign: 1 | -1) => (sign / r + Math.sqrt(1 / r ** 2 + (4 * c) / l)) / (2 * c) / (2 * Math.PI);
+
+  it('is found at 159.075–159.235 MHz, to 1e-9 relative, on a 50-point-per-decade sweep', () => {
+    const b = band(tree, { behavesAs: 'bead', dcResistanceOhm: rdc })!;
+    expect(b).not.toBeNull();
+    expect(rel(b.fromHz, edge(-1))).toBeLessThan(1e-9);
+    expect(rel(b.toHz, edge(1))).toBeLessThan(1e-9);
+    expect(b.fromHz / 1e6).toBeCloseTo(159.075, 3);
+    expect(b.toHz / 1e6).toBeCloseTo(159.235, 3);
   });
 });

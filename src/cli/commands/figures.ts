@@ -3,7 +3,7 @@
 import { analysePart } from '../../analysis/part-figures.js';
 import { partSummary, type PartSummary } from '../../analysis/summary.js';
 import { formatEng, formatPercent } from '../../units/format.js';
-import { bandText } from '../../folio/part-page.js';
+import { bandText, extremumNote } from '../../folio/part-page.js';
 import { LIBRARY_OPTION, SWEEP_OPTIONS, libraryRoot, parseCommandLine, sweepWithOverrides } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_OK, type CommandIO } from '../io.js';
 import { loadReported } from '../report.js';
@@ -47,7 +47,8 @@ export function describeFigures(s: PartSummary): string {
   const srf = s.selfResonanceHz !== null ? `SRF ${formatEng(s.selfResonanceHz, 'Hz')}` : `SRF none between ${formatEng(s.sweep.fromHz, 'Hz')} and ${formatEng(s.sweep.toHz, 'Hz')}`;
   lines.push(`  ${srf}`);
   for (const r of s.resonances) {
-    lines.push(`  resonance    ${formatEng(r.frequencyHz, 'Hz').padEnd(11)} ${r.type.padEnd(8)} |Z| ${formatEng(r.impedanceOhm, 'Ω')}`);
+    const beside = extremumNote(r);
+    lines.push(`  resonance    ${formatEng(r.frequencyHz, 'Hz').padEnd(11)} ${r.type.padEnd(8)} |Z| ${formatEng(r.impedanceOhm, 'Ω')}${beside ? ` (${beside})` : ''}`);
   }
   const rule = s.within !== null ? ` (value within ${formatPercent(s.within)} of nominal)` : s.behavesAs === 'bead' ? ' (resistive: R − Rdc ≥ |X|)' : '';
   if (s.behavesAs) lines.push(`  usable band  ${s.usableBand ? bandText(s.usableBand) + rule : 'none in the sweep'}`);

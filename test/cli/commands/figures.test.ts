@@ -8,8 +8,9 @@ interface Figures {
   id: string;
   kind: string;
   nominal: number | null;
-  resonances: { frequencyHz: number; type: 'series' | 'parallel'; impedanceOhm: number }[];
+  resonances: { frequencyHz: number; type: 'series' | 'parallel'; impedanceOhm: number; extremum: { frequencyHz: number; impedanceOhm: number; atSweepEnd: boolean } }[];
   usableBand: { fromHz: number; toHz: number } | null;
+  peakImpedance: { frequencyHz: number; impedanceOhm: number; atSweepEnd: boolean };
 }
 
 const TWO_PI = 2 * Math.PI;
@@ -28,7 +29,11 @@ describe('zfolio figures --json', () => {
     expect(all.map((f) => f.id)).toEqual(['BEAD-TEST-600R', 'CAP-TEST-100N', 'IND-TEST-10U', 'NET-TEST-BULK', 'RES-TEST-4K7']);
     for (const f of all) {
       expect(Object.keys(f)).toEqual(expect.arrayContaining(['id', 'kind', 'nominal', 'resonances', 'usableBand']));
-      for (const r of f.resonances) expect(Object.keys(r).sort()).toEqual(['frequencyHz', 'impedanceOhm', 'type']);
+      for (const r of f.resonances) {
+        expect(Object.keys(r).sort()).toEqual(['extremum', 'frequencyHz', 'impedanceOhm', 'type']);
+        expect(Object.keys(r.extremum).sort()).toEqual(['atSweepEnd', 'frequencyHz', 'impedanceOhm']);
+      }
+      expect(Object.keys(f.peakImpedance).sort()).toEqual(['atSweepEnd', 'frequencyHz', 'impedanceOhm']);
       if (f.usableBand) expect(Object.keys(f.usableBand)).toEqual(expect.arrayContaining(['fromHz', 'toHz']));
     }
   });
