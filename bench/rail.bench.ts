@@ -6,7 +6,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { analysePlan, railBranches, planTargetOhm } from '../src/analysis/plan-figures.js';
 import { suggestPlacements } from '../src/analysis/plan-suggest.js';
-import { evaluateRail } from '../src/analysis/rail.js';
+import { evaluateRail, railSlopeAt, railZeros } from '../src/analysis/rail.js';
+import { impedancePeaks } from '../src/analysis/peaks.js';
+import { sweepRange } from '../src/analysis/feature-grid.js';
+import { impedanceSweepInto } from '../src/circuit/impedance.js';
+import { mergedTree } from '../src/circuit/state-space.js';
 import { logSweep } from '../src/circuit/sweep.js';
 import { loadLibrary, type Library } from '../src/model/library.js';
 import { mulberry32 } from './generate.js';
@@ -92,6 +96,30 @@ export const railBench: BenchSection = {
     lines.push(`  + each branch's |Z| curve                ${ms(withCurves.secondsPerRun).padStart(8)}  (${ratio(withCurves.secondsPerRun)})`);
     lines.push(`  first call, compiling ${2 * branches.length} kernels        ${ms(cold).padStart(8)}  (${ratio(cold)})`);
     lines.push(`  analysePlan, all page data, ${planPoints} points ${ms(figures.secondsPerRun).padStart(8)}  (${ratio(figures.secondsPerRun)})`);
+    // The same search on the band's sweep alone (no ladders around the rail's zeros): what the feature
+    // ladders cost, and the eigenvalue work of finding the zeros, branch by branch, on fresh trees.
+    const plain = measure(() => {
+      const n = frequencies.length;
+      const g = new Float64Array(n);
+      const b = new Float64Array(n);
+      const re = new Float64Array(n);
+      const im = new Float64Array(n);
+      for (const branch of branches) {
+        impedanceSweepInto(branch.element, frequencies, re, im);
+        for (let i = 0; i < n; i++) {
+          const d = re[i] * re[i] + im[i] * im[i];
+          g[i] += (branch.count * re[i]) / d;
+          b[i] -= (branch.count * im[i]) / d;
+        }
+      }
+      const magnitude = Float64Array.from(g, (gi, i) => 1 / Math.hypot(gi, b[i]));
+      sink += impedancePeaks(frequencies, magnitude, (f) => railSlopeAt(branches, f)).length;
+    });
+    const zeros = measure(() => {
+      sink += railZeros(branches.map((branch) => ({ ...branch, element: mergedTree(branch.element) })), sweepRange(frequencies)).length;
+    }, 5);
+    lines.push(`  sweep points only, no ladders (the search before the feature ladders) ${ms(plain.secondsPerRun)}: the full search costs ${(curve.secondsPerRun / plain.secondsPerRun).toFixed(2)}×`);
+    lines.push(`  finding the rail's zeros on fresh trees (eigenvalues, ${branches.length} branches) ${ms(zeros.secondsPerRun)} = ${(zeros.secondsPerRun / curve.secondsPerRun).toFixed(2)}× one cached evaluation`);
     rmSync(evalRoot, { recursive: true, force: true });
 
     // 2. --suggest over 200 candidates: fewest placements (no costs), and lowest cost (every part costed).
