@@ -128,9 +128,9 @@ export const railBench: BenchSection = {
       const root = writeRailLibrary(200, withCost, '');
       const library = load(root);
       const railPlan = library.plans[0];
-      let result = suggestPlacements(railPlan, library.parts, { maxCount: 16, onlyTags: [], derating: library.settings.derating, perDecade: library.settings.sweep.perDecade });
+      let result = suggestPlacements(railPlan, library.parts, { maxCount: 16, only: [], derating: library.settings.derating, perDecade: library.settings.sweep.perDecade });
       const timing = measure(() => {
-        result = suggestPlacements(railPlan, library.parts, { maxCount: 16, onlyTags: [], derating: library.settings.derating, perDecade: library.settings.sweep.perDecade });
+        result = suggestPlacements(railPlan, library.parts, { maxCount: 16, only: [], derating: library.settings.derating, perDecade: library.settings.sweep.perDecade });
       }, 2, 0);
       const figuresOf = result.figures;
       const what = figuresOf ? `${figuresOf.totalPlacements} placements${figuresOf.totalCost !== null ? `, cost ${figuresOf.totalCost.toFixed(3)}` : ''}, margin ${figuresOf.worstMarginDb.toFixed(2)} dB` : 'no set';

@@ -1,7 +1,7 @@
 // What `zfolio plan` prints: the human form (engineering notation) and the JSON form (SI units).
 
 import { planFiguresWithoutCurves, type PlanFigures } from '../analysis/plan-figures.js';
-import type { Suggestion } from '../analysis/plan-suggest.js';
+import type { SkippedPart, Suggestion } from '../analysis/plan-suggest.js';
 import { formatDiagnostic } from '../model/diagnostics.js';
 import type { Plan } from '../model/plan.js';
 import { capacitorsYaml } from './plan-yaml.js';
@@ -55,7 +55,12 @@ export const planJson = planFiguresWithoutCurves;
 
 export interface SuggestRequest {
   maxCount: number;
-  onlyTags: readonly string[];
+  only: readonly string[];
+}
+
+/** "under the target", or "3 dB under the target" when a margin is required. */
+function underTarget(s: Suggestion): string {
+  return s.marginDb === 0 ? 'under the target' : `${formatDecibels(s.marginDb).replace(/^\+/, '')} under the target`;
 }
 
 function statusLine(s: Suggestion, request: SuggestRequest): string {
@@ -64,31 +69,67 @@ function statusLine(s: Suggestion, request: SuggestRequest): string {
     case 'optimal':
       return `optimal, proven by search (${s.nodes} nodes)`;
     case 'unmeetable':
-      return `cannot be met: no choice of ${of} keeps |Z| under the target across the band (proven, ${s.nodes} nodes)`;
+      return `cannot be met: no choice of ${of} keeps |Z| ${underTarget(s)} across the band (proven, ${s.nodes} nodes)`;
     case 'unproven':
       return s.placements.length > 0
         ? `best found in ${s.nodes} nodes; a better set has not been ruled out (--nodes raises the budget)`
-        : `no passing set found in ${s.nodes} nodes, and none ruled out (--nodes raises the budget)`;
+        : `no set keeping |Z| ${underTarget(s)} found in ${s.nodes} nodes, and none ruled out (--nodes raises the budget)`;
   }
+}
+
+function skippedText(k: SkippedPart): string {
+  switch (k.reason) {
+    case 'over-rating':
+      return 'rated below the rail';
+    case 'above-derating':
+      return 'above derating';
+    case 'safety-class':
+      return `safety class ${k.safetyClass}`;
+    case 'beyond-bias-table':
+      return `DC-bias table ends at ${formatEng(k.tableEndV ?? NaN, 'V')}`;
+  }
+}
+
+/** "2 × A + 4 × B", or "no capacitors". */
+function setText(f: PlanFigures): string {
+  return f.placements.length === 0 ? 'no capacitors' : f.placements.map((p) => `${p.count} × ${p.partId}`).join(' + ');
 }
 
 /** The human form of a suggestion. */
 export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRequest): string {
   const goal = s.objective === 'cost' ? 'lowest total cost' : 'fewest placements';
-  const lines = [`${plan.rail}: suggested capacitors (${goal}; ${s.candidateIds.length} candidates${request.onlyTags.length ? ` tagged ${request.onlyTags.join(' or ')}` : ''})`];
+  const margin = s.marginDb !== 0 ? `, ${formatDecibels(s.marginDb)} margin required` : '';
+  const lines = [`${plan.rail}: suggested capacitors (${goal}${margin}; ${s.candidateIds.length} candidates${request.only.length ? ` named ${request.only.join(' or ')}` : ''})`];
   lines.push(`  status     ${statusLine(s, request)}`);
-  if (s.skipped.length > 0) lines.push(`  left out   ${s.skipped.map((k) => `${k.partId} (${k.reason === 'over-rating' ? 'rated below the rail' : 'above derating'})`).join(', ')}`);
+  if (s.skipped.length > 0) {
+    lines.push(`  left out   ${s.skipped.map((k) => `${k.partId} (${skippedText(k)})`).join(', ')}`);
+    const flags = [
+      s.skipped.some((k) => k.reason === 'safety-class') ? '--allow-safety-class' : '',
+      s.skipped.some((k) => k.reason === 'beyond-bias-table') ? '--allow-bias-extrapolation' : '',
+    ].filter(Boolean);
+    if (flags.length > 0) lines.push(`             (to weigh these, name them with --only, or give ${flags.join(' or ')})`);
+  }
   if (s.unratedIds.length > 0) {
     const one = s.unratedIds.length === 1;
-    lines.push(`  unrated    ${s.unratedIds.join(', ')} ${one ? 'states' : 'state'} no voltage rating; check ${one ? 'it' : 'them'} against the rail by hand`);
+    lines.push(`  unrated    ${s.unratedIds.join(', ')} ${one ? 'states' : 'state'} no DC voltage rating; check ${one ? 'it' : 'them'} against the rail by hand`);
   }
+  const describeSet = (f: PlanFigures) => {
+    lines.push(`  placements ${f.totalPlacements}${f.totalCost !== null ? `, total cost ${Number(f.totalCost.toPrecision(6))}` : ''}`, ...branchLines(f));
+    lines.push(`  peaks`, ...peakLines(f));
+    if (f.warnings.length > 0) lines.push('  warnings', ...f.warnings.map((w) => `    ${formatDiagnostic(w)}`));
+  };
   if (s.figures) {
     const f = s.figures;
     lines.push(`  target     ${targetLine(f)}`);
     lines.push(`  result     ${resultLine(f)}`);
-    lines.push(`  placements ${f.totalPlacements}${f.totalCost !== null ? `, total cost ${Number(f.totalCost.toPrecision(6))}` : ''}`, ...branchLines(f));
-    lines.push(`  peaks`, ...peakLines(f));
+    describeSet(f);
     lines.push('  as plan YAML', ...capacitorsYaml(s.placements, '    '));
+  } else if (s.closest) {
+    const f = s.closest.figures;
+    lines.push(`  target     ${targetLine(f)}`);
+    lines.push(`  closest    worst margin ${formatDecibels(f.worstMarginDb)} at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')}) with ${setText(f)}`);
+    lines.push('             (the closest set a local search found, not proven the closest possible)');
+    describeSet(f);
   }
   return lines.join('\n') + '\n';
 }
@@ -110,5 +151,15 @@ export function suggestionJson(plan: Plan, s: Suggestion): Record<string, unknow
     /** The chosen capacitors as plan YAML, exactly as the human form prints them (without its indent). */
     yaml: s.figures ? capacitorsYaml(s.placements).join('\n') + '\n' : null,
     plan: s.figures ? planJson(s.figures) : null,
+    marginDb: s.marginDb,
+    /** When no set was found: the closest set found by local search (not proven closest), analysed in full. */
+    closest: s.closest
+      ? {
+          placements: s.closest.placements.map((p) => ({ partId: p.part.id, count: p.count, mountingH: p.mountingH, mountingFrom: p.mountingFrom })),
+          worstMarginDb: s.closest.figures.worstMarginDb,
+          worstFrequencyHz: s.closest.figures.worstFrequencyHz,
+          plan: planJson(s.closest.figures),
+        }
+      : null,
   };
 }

@@ -150,6 +150,101 @@ describe('zfolio plan --suggest', () => {
   });
 });
 
+describe('zfolio plan --suggest: margin, selection and the closest set', () => {
+  it('--margin DB holds |Z| that far under the target; the set costs at least the set without margin', async () => {
+    const plain = JSON.parse((await run(['plan', 'VDD_TEST', '--suggest', '--only', 'decoupling,bulk', '--json'])).out);
+    const { code, out } = await run(['plan', 'VDD_TEST', '--suggest', '--only', 'decoupling,bulk', '--margin', '3', '--json']);
+    expect(code).toBe(0);
+    const json = JSON.parse(out);
+    expect(json.marginDb).toBe(3);
+    expect(json.status).toBe('optimal');
+    expect(json.plan.worstMarginDb).toBeGreaterThanOrEqual(3 - 1e-9);
+    // A set 3 dB under the target is also under it, so the optimum without margin costs no more.
+    expect(plain.plan.totalCost).toBeLessThanOrEqual(json.plan.totalCost + 1e-12);
+    const text = (await run(['plan', 'VDD_TEST', '--suggest', '--only', 'decoupling,bulk', '--margin', '3dB'])).out;
+    expect(text).toContain('(lowest total cost, +3.00 dB margin required; 6 candidates named decoupling or bulk)');
+  });
+  it('--margin takes a negative value as --margin=-1, and refuses what is not a number', async () => {
+    // 1 dB over the target allowed: a set that meets that is found (exit 0), and may fail the target itself.
+    const over = await run(['plan', 'VDD_TEST', '--suggest', '--margin=-1', '--json']);
+    expect(over.code).toBe(0);
+    expect(JSON.parse(over.out).plan.worstMarginDb).toBeGreaterThanOrEqual(-1 - 1e-9);
+    const bad = await run(['plan', 'VDD_TEST', '--suggest', '--margin', 'lots']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toContain('--margin: expected a number of decibels such as 3 or 1.5dB, found "lots"');
+    expect((await run(['plan', 'VDD_TEST', '--margin', '3'])).code).toBe(2);
+  });
+  it('--only takes part ids as well as tags', async () => {
+    const json = JSON.parse((await run(['plan', 'VDD_TEST', '--suggest', '--only', 'RT-C-22U,hf', '--json'])).out);
+    expect(json.candidates).toEqual(['RT-C-10N', 'RT-C-22U']);
+  });
+  it('--only with a name no capacitor has is misuse (exit 2) that lists the tags there are', async () => {
+    const { code, err } = await run(['plan', 'VDD_TEST', '--suggest', '--only', 'decoupling,hff']);
+    expect(code).toBe(2);
+    // RT-L-1U is an inductor and has no tags; the capacitors carry bulk, decoupling, hf and spare.
+    expect(err).toContain('--only: no capacitor has the id or tag "hff"; the library\'s capacitors carry the tags bulk, decoupling, hf, spare, and any capacitor\'s id may be given');
+    expect((await run(['plan', 'VDD_TEST', '--suggest', '--only', 'RT-L-1U'])).code).toBe(2);
+  });
+  it('a part whose DC-bias table ends below the rail is left out unless named or allowed', async () => {
+    const dir = tempDir();
+    const file = join(dir, 'hot.yaml');
+    writeFileSync(file, 'rail: HOT\nvoltage: 3.3V\ntarget: 30m\nband: {from: 1M, to: 20M}\nmounting: 0.3nH\nregulator: {r: 3m, l: 5nH}\n');
+    const plain = JSON.parse((await run(['plan', file, '--suggest', '--json'])).out);
+    // RT-C-4U7's table ends at 2 V; RT-C-22U's at 6.3 V; RT-C-1U-LV is rated 1.2 V.
+    expect(plain.skipped).toEqual([
+      { partId: 'RT-C-1U-LV', reason: 'over-rating' },
+      { partId: 'RT-C-4U7', reason: 'beyond-bias-table', tableEndV: 2 },
+    ]);
+    expect(plain.candidates).not.toContain('RT-C-4U7');
+    const text = (await run(['plan', file, '--suggest'])).out;
+    expect(text).toContain('left out   RT-C-1U-LV (rated below the rail), RT-C-4U7 (DC-bias table ends at 2 V)\n             (to weigh these, name them with --only, or give --allow-bias-extrapolation)');
+    const allowed = JSON.parse((await run(['plan', file, '--suggest', '--allow-bias-extrapolation', '--json'])).out);
+    expect(allowed.candidates).toContain('RT-C-4U7');
+    const named = JSON.parse((await run(['plan', file, '--suggest', '--only', 'RT-C-4U7,RT-C-1U', '--json'])).out);
+    expect(named.candidates).toEqual(['RT-C-1U', 'RT-C-4U7']);
+    expect(named.skipped).toEqual([]);
+    // Placed, it brings its warning with it (at the part's id in its file).
+    const alone = JSON.parse((await run(['plan', file, '--suggest', '--only', 'RT-C-4U7', '--json'])).out);
+    expect(alone.plan.placements.map((p: { partId: string }) => p.partId)).toEqual(['RT-C-4U7']);
+    expect(alone.plan.placements[0]).toMatchObject({ biasExtrapolated: true, biasFraction: 0.8 });
+    expect(alone.plan.warnings).toEqual([expect.objectContaining({ file: 'parts/rt-c-4u7.yaml', severity: 'warning', message: expect.stringContaining('the DC-bias table of RT-C-4U7 ends at 2 V') })]);
+  });
+  it('a target that cannot be met: the closest set found, its worst margin and where, and it re-checks the same', async () => {
+    const { code, out } = await run(['plan', 'VDD_TEST', '--suggest', '--only', 'hf', '--max-count', '2', '--json']);
+    expect(code).toBe(3);
+    const json = JSON.parse(out);
+    expect(json.status).toBe('unmeetable');
+    expect(json.closest.worstMarginDb).toBeLessThan(0);
+    expect(json.closest.plan.pass).toBe(false);
+    expect(json.closest.worstFrequencyHz).toBe(json.closest.plan.worstFrequencyHz);
+    const text = (await run(['plan', 'VDD_TEST', '--suggest', '--only', 'hf', '--max-count', '2'])).out;
+    expect(text).toMatch(/closest {4}worst margin −\d+\.\d\d dB at [\d.]+ [kM]?Hz \(\|Z\| [\d.]+ [mµ]?Ω\) with (\d × RT-C-10N|no capacitors)\n {13}\(the closest set a local search found, not proven the closest possible\)/);
+    // Checking that set as a plan gives the same margin.
+    const dir = tempDir();
+    const file = join(dir, 'closest.yaml');
+    const entries = json.closest.placements.map((p: { partId: string; count: number; mountingH: number }) => `  - {part: ${p.partId}, count: ${p.count}, mounting: ${p.mountingH}}\n`).join('');
+    writeFileSync(file, `rail: CLOSE\nvoltage: 1.0V\nripple: 5%\nstep: 2A\nband: {from: 100k, to: 100M}\nmounting: 0.3nH\nregulator: {r: 3m, l: 5nH}\nplane: {c: 10nF, r: 3m}\ncapacitors:${entries ? '\n' + entries : ' []\n'}`);
+    const again = JSON.parse((await run(['plan', file, '--json'])).out);
+    expect(Math.abs(again.worstMarginDb - json.closest.worstMarginDb)).toBeLessThanOrEqual(1e-9);
+  });
+});
+
+describe('zfolio plan --suggest on the demo library: mains parts', () => {
+  const demo = fileURLToPath(new URL('../..', import.meta.url));
+  it('parts with a safety class are left out unless named by --only or allowed', async () => {
+    const plain = JSON.parse((await run(['plan', 'VDD_3V3', '--suggest', '--max-count', '2', '--json', '--library', demo])).out);
+    expect(plain.skipped).toEqual(expect.arrayContaining([
+      { partId: 'ORV-C-X2-100N-310V', reason: 'safety-class', safetyClass: 'X2' },
+      { partId: 'ORV-C-Y2-2N2-300V', reason: 'safety-class', safetyClass: 'Y2' },
+    ]));
+    expect(plain.candidates).not.toContain('ORV-C-X2-100N-310V');
+    const allowed = JSON.parse((await run(['plan', 'VDD_3V3', '--suggest', '--max-count', '2', '--allow-safety-class', '--json', '--library', demo])).out);
+    expect(allowed.candidates).toEqual(expect.arrayContaining(['ORV-C-X2-100N-310V', 'ORV-C-Y2-2N2-300V']));
+    const named = JSON.parse((await run(['plan', 'VDD_3V3', '--suggest', '--max-count', '2', '--only', 'ORV-C-X2-100N-310V,ORV-C-0402-100N-X7R', '--json', '--library', demo])).out);
+    expect(named.candidates).toEqual(['ORV-C-0402-100N-X7R', 'ORV-C-X2-100N-310V']);
+  });
+});
+
 describe('plan files, paths and misuse', () => {
   it('reads a plan file outside plans/ against the library, and reports its errors with file:line:col', async () => {
     const dir = tempDir();

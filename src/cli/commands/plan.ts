@@ -4,7 +4,7 @@ import { existsSync, readFileSync, statSync } from 'node:fs';
 import { relative, resolve, sep } from 'node:path';
 import type { PlanFigures } from '../../analysis/plan-figures.js';
 import { analysePlan } from '../../analysis/plan-figures.js';
-import { suggestPlacements } from '../../analysis/plan-suggest.js';
+import { suggestPlacements, unknownSelection } from '../../analysis/plan-suggest.js';
 import { DiagnosticList, formatDiagnostic } from '../../model/diagnostics.js';
 import type { Library } from '../../model/library.js';
 import { readPlan, type Plan } from '../../model/plan.js';
@@ -19,57 +19,83 @@ import { describePlan, describeSuggestion, planJson, suggestionJson } from '../p
 export const DEFAULT_MAX_COUNT = 16;
 
 export const planHelp = `Usage: zfolio plan [RAIL|FILE ...] [--json] [--library DIR]
-       zfolio plan RAIL|FILE --suggest [--max-count N] [--only TAGS] [--nodes N] [--json]
+       zfolio plan RAIL|FILE --suggest [--margin DB] [--max-count N] [--only LIST]
+                  [--allow-safety-class] [--allow-bias-extrapolation] [--nodes N] [--json]
 
 Checks a rail plan (plans/*.yaml) against its target impedance Z_t = V·ripple/ΔI
 (or its explicit target) across its band: |Z| of the regulator, plane and every
 placed capacitor in parallel, each capacitor at its capacitance under the rail's
 DC voltage and in series with its mounting inductance (the entry's "mounting",
 else the part file's, else the plan's "mounting-by-package", else the plan's
-"mounting"). Prints pass or fail, the
-worst margin and where, and every anti-resonance peak. With no RAIL or FILE,
-every plan in the library. A FILE outside plans/ is read as a plan too.
+"mounting"). Prints pass or fail, the worst margin and where, and every
+anti-resonance peak. With no RAIL or FILE, every plan in the library. A FILE
+outside plans/ is read as a plan too.
 
 With --suggest, chooses how many of each library capacitor to place (0 to N each)
 so that |Z| stays under the target across the band with the fewest placements,
 or the lowest total cost when every candidate part states a cost. The plan's
-regulator and plane are kept; its listed capacitors are replaced. Parts rated
-below the rail voltage, or above the derating limit (folio.yaml "derating"),
-are not candidates. Each candidate is weighed at the mounting it is printed
-with: a part the plan lists at that entry's mounting, any other at its default
-as above. The chosen set is printed as plan YAML with every entry's mounting.
+regulator and plane are kept; its listed capacitors are replaced. Each candidate
+is weighed at the mounting it is printed with: a part the plan lists at that
+entry's mounting, any other at its default as above. The chosen set is printed
+as plan YAML with every entry's mounting. When no set meets the target, the
+closest set found is shown: its worst margin, where, and the set.
+
+Which parts are candidates: every capacitor, or those --only names. Never a
+part rated below the rail voltage or above the derating limit (folio.yaml
+"derating"). Not, unless --only names it (by id or tag) or a flag allows it:
+a part with a safety class (X/Y, a mains part), or a part whose DC-bias table
+ends below the rail voltage (its capacitance there would be extrapolated).
 
 Options:
   --json              print JSON (SI units); one object for one plan, else an array
   --suggest           choose the capacitors instead of checking the listed ones
+  --margin DB         margin required under the target, in dB (default 0);
+                      a negative margin is written --margin=-1
   --max-count N       most placements of any one part (default ${DEFAULT_MAX_COUNT})
-  --only TAGS         candidates: only parts with one of these tags (comma-separated)
+  --only LIST         candidates: only the parts with these ids or tags
+                      (comma-separated); a name no capacitor has is an error
+  --allow-safety-class        parts with a safety class may be candidates
+  --allow-bias-extrapolation  parts whose DC-bias table ends below the rail
+                      voltage may be candidates (at the table's last fraction)
   --nodes N           search budget: nodes before the best set found so far is
                       reported without proof (default 8,000,000 / (candidates + 20))
   -l, --library DIR   the library folder (default: the current folder)
   -h, --help          show this help
 
-Exit status: 0 when every plan checked passes (or a suggestion meets the target),
-3 when a plan fails its target (or no set of candidates can meet it), 1 when the
-library or plan has errors, 2 on a wrong command line.
+Exit status: 0 when every plan checked passes (or --suggest finds a set that
+meets the target with the margin asked for), 3 when a plan fails its target
+(or no set of candidates meets it), 1 when the library or plan has errors,
+2 on a wrong command line.
 `;
 
 /** Evaluated, and a rail misses its target: distinct from bad input, so CI can tell them apart. */
 export const EXIT_TARGET_MISSED = 3;
 
 export function plan(args: string[], io: CommandIO): number {
-  const options = { ...LIBRARY_OPTION, json: { type: 'boolean' }, suggest: { type: 'boolean' }, 'max-count': { type: 'string' }, only: { type: 'string' }, nodes: { type: 'string' } } as const;
+  const options = {
+    ...LIBRARY_OPTION,
+    json: { type: 'boolean' },
+    suggest: { type: 'boolean' },
+    margin: { type: 'string' },
+    'max-count': { type: 'string' },
+    only: { type: 'string' },
+    'allow-safety-class': { type: 'boolean' },
+    'allow-bias-extrapolation': { type: 'boolean' },
+    nodes: { type: 'string' },
+  } as const;
   const { values, positionals } = parseCommandLine(args, options, true);
   if (values.help) {
     io.out(planHelp);
     return EXIT_OK;
   }
   if (!values.suggest) {
-    for (const name of ['max-count', 'only', 'nodes']) if (values[name] !== undefined) throw new UsageError(`--${name} goes with --suggest`);
+    for (const name of SUGGEST_ONLY) if (values[name] !== undefined) throw new UsageError(`--${name} goes with --suggest`);
   } else if (positionals.length !== 1) throw new UsageError(`--suggest takes exactly one plan (a rail name or file), found ${positionals.length}`);
   const maxCount = wholeNumber(values['max-count'], 'max-count', DEFAULT_MAX_COUNT);
   const nodeLimit = values.nodes === undefined ? undefined : wholeNumber(values.nodes, 'nodes', 0);
-  const onlyTags = typeof values.only === 'string' ? values.only.split(',').map((t) => t.trim()).filter(Boolean) : [];
+  const only = typeof values.only === 'string' ? values.only.split(',').map((t) => t.trim()).filter(Boolean) : [];
+  if (typeof values.only === 'string' && only.length === 0) throw new UsageError('--only: expected part ids or tags, comma-separated, found nothing');
+  const marginDb = decibels(values.margin);
 
   const library = loadReported(libraryRoot(values, io), io);
   if (!library) return EXIT_BAD_INPUT;
@@ -78,9 +104,24 @@ export function plan(args: string[], io: CommandIO): number {
   const perDecade = library.settings.sweep.perDecade;
 
   if (values.suggest) {
-    const suggestion = suggestPlacements(plans[0], library.parts, { maxCount, onlyTags, derating: library.settings.derating, perDecade, nodeLimit });
-    io.out(values.json ? JSON.stringify(suggestionJson(plans[0], suggestion), null, 2) + '\n' : describeSuggestion(plans[0], suggestion, { maxCount, onlyTags }));
-    return suggestion.figures?.pass ? EXIT_OK : EXIT_TARGET_MISSED;
+    const { unknown, tags } = unknownSelection(library.parts, only);
+    if (unknown.length > 0) {
+      const which = unknown.map((u) => JSON.stringify(u)).join(', ');
+      throw new UsageError(`--only: no capacitor has the id or tag ${which}; the library's capacitors carry the tags ${tags.join(', ') || '(none)'}, and any capacitor's id may be given`);
+    }
+    const suggestion = suggestPlacements(plans[0], library.parts, {
+      maxCount,
+      only,
+      marginDb,
+      allowSafetyClass: values['allow-safety-class'] === true,
+      allowBiasExtrapolation: values['allow-bias-extrapolation'] === true,
+      derating: library.settings.derating,
+      perDecade,
+      nodeLimit,
+    });
+    io.out(values.json ? JSON.stringify(suggestionJson(plans[0], suggestion), null, 2) + '\n' : describeSuggestion(plans[0], suggestion, { maxCount, only }));
+    // A set was found only if it holds the margin asked for (a negative margin allows that much over).
+    return suggestion.figures ? EXIT_OK : EXIT_TARGET_MISSED;
   }
   if (plans.length === 0) {
     io.out(values.json ? '[]\n' : 'no plans in the library (rail plans are YAML files under plans/)\n');
@@ -92,6 +133,16 @@ export function plan(args: string[], io: CommandIO): number {
     io.out(JSON.stringify(out, null, 2) + '\n');
   } else io.out(figures.map(describePlan).join('\n'));
   return figures.every((f) => f.pass) ? EXIT_OK : EXIT_TARGET_MISSED;
+}
+
+const SUGGEST_ONLY = ['margin', 'max-count', 'only', 'allow-safety-class', 'allow-bias-extrapolation', 'nodes'];
+
+/** --margin: a finite number of decibels, "3", "1.5dB" or "-1". */
+function decibels(text: unknown): number {
+  if (typeof text !== 'string') return 0;
+  const value = Number(text.trim().replace(/\s*dB$/i, ''));
+  if (text.trim() === '' || !Number.isFinite(value)) throw new UsageError(`--margin: expected a number of decibels such as 3 or 1.5dB, found ${JSON.stringify(text)}`);
+  return value;
 }
 
 function wholeNumber(text: unknown, name: string, fallback: number): number {
