@@ -5,6 +5,7 @@ import { cpSync } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
 import type { Diagnostic } from '../model/diagnostics.js';
 import { loadLibrary, type Library } from '../model/library.js';
+import { reviewWarnings } from '../analysis/review-checks.js';
 import type { PaperSize } from '../model/settings.js';
 import { assembleSite, type AssembleTimings } from './assemble.js';
 import { chromeHint, findChrome } from './browser.js';
@@ -123,6 +124,8 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, timings };
   if (!library) return result;
   result.library = library;
+  // Warnings that need the analysis: a review that accepts a rail failing its target.
+  diagnostics.push(...reviewWarnings(library));
 
   const cacheRoot = options.cache === false ? undefined : resolve(libraryRoot, options.cache ?? CACHE_DIR);
   // Part folders can be carried over only when charts come from the cache-keyed pool.

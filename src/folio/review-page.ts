@@ -7,6 +7,8 @@ import type { PlanPageData } from './plan-page.js';
 import { markdownBlock, markdownInline } from './markdown.js';
 import { GENERAL_CAUTION, RATINGS_CAUTION } from './cautions.js';
 import { comparisonKey } from '../model/comparison.js';
+import { acceptedFailureText, acceptedFailures, reviewStatements } from '../model/review-consistency.js';
+import { railVerdicts } from '../analysis/review-checks.js';
 
 export interface ReviewPageData {
   slug: string;
@@ -16,7 +18,12 @@ export interface ReviewPageData {
   sourceFile: string;
   reviewers: { name: string; role: string }[];
   summaryHtml: string;
-  decisions: string[];
+  /** Warnings about the summary, shown beside it (e.g. it accepts a rail that fails its target). */
+  summaryWarnings: string[];
+  /** Each decision as inline HTML, with the warnings shown beside it. */
+  decisions: { html: string; warnings: string[] }[];
+  /** Each covered rail's verdict, stated beside the decisions and on the pack's cover. */
+  railVerdicts: { rail: string; slug: string; pass: boolean; verdict: string }[];
   openPoints: { html: string; owner: string; due: string }[];
   coverText: string;
   parts: PartPageData[];
@@ -70,6 +77,11 @@ export function reviewPageData(
   for (const c of review.comparisons) add(c.source.path, c.source.hash);
   for (const p of review.plans) add(p.source.path, p.source.hash);
 
+  // Statements that accept a rail failing its target, shown beside the statement (and warned by check/build).
+  const statements = reviewStatements(review);
+  const failures = acceptedFailures(statements, railVerdicts(library), review.plans.map((p) => p.rail));
+  const warningsOf = (statement: number, what: string) => (statement < 0 ? [] : failures.filter((f) => f.statement === statement).map((f) => `${what} ${acceptedFailureText(f.verdict)}.`));
+
   const covered = [
     plans.length ? count(plans.length, 'rail plan', 'rail plans') : '',
     comparisons.length ? count(comparisons.length, 'comparison', 'comparisons') : '',
@@ -84,7 +96,9 @@ export function reviewPageData(
     sourceFile: review.source.path,
     reviewers: review.reviewers.map((r) => ({ name: r.name, role: r.role ?? '' })),
     summaryHtml: review.summary ? markdownBlock(review.summary) : '',
-    decisions: review.decisions.map(markdownInline),
+    summaryWarnings: warningsOf(statements.findIndex((st) => st.at === review.summaryAt), 'The summary'),
+    decisions: review.decisions.map((d, i) => ({ html: markdownInline(d), warnings: warningsOf(statements.findIndex((st) => st.at === review.decisionsAt[i]), 'This decision') })),
+    railVerdicts: plans.map((p) => ({ rail: p.rail, slug: p.slug, pass: p.pass, verdict: p.verdict })),
     openPoints: review.openPoints.map((o) => ({ html: markdownInline(o.text), owner: o.owner ?? '', due: o.due ?? '' })),
     coverText: covered.join(', '),
     parts,

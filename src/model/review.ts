@@ -9,7 +9,7 @@
 //   decisions: ["text (short markdown)", ...]
 //   open-points: [{text: ..., owner: ..., due: 2026-12-05}, ...]
 
-import type { Node } from 'yaml';
+import { isSeq, type Node, type YAMLSeq } from 'yaml';
 import { Fields, describeNode, scalarText, type ReadContext } from './fields.js';
 import type { Part } from './part.js';
 import { positionOf, type SourceFile } from './source.js';
@@ -46,8 +46,12 @@ export interface Review<C, P> {
   comparisons: C[];
   plans: P[];
   decisions: string[];
+  /** Where each decision is written, in the order of `decisions`. */
+  decisionsAt: SourcePosition[];
   openPoints: OpenPoint[];
   summary?: string;
+  /** Where the summary (shown on the pack's cover) is written. */
+  summaryAt?: SourcePosition;
   source: SourceFile;
   at: SourcePosition;
 }
@@ -97,6 +101,8 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
   }
 
   const decisions = root.textList('decisions');
+  const decisionNodes = root.has('decisions') ? (isSeq(root.valueNode('decisions')) ? (root.valueNode('decisions') as YAMLSeq<Node>).items : [root.valueNode('decisions')]) : [];
+  const decisionsAt = decisionNodes.map((node) => positionOf(ctx.source, node as Node));
   const openPoints = readEntries(ctx, root, 'open-points', ['text', 'owner', 'due'], (text, fields) => ({
     text,
     owner: fields?.text('owner'),
@@ -104,7 +110,8 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
   }));
 
   if (ctx.diagnostics.errorCount > before || !title || !date || !board) return undefined;
-  return { title, date, board, reviewers, parts, comparisons, plans, decisions, openPoints, summary, source: ctx.source, at: root.position() };
+  const summaryAt = summary !== undefined ? root.position('summary') : undefined;
+  return { title, date, board, reviewers, parts, comparisons, plans, decisions, decisionsAt, openPoints, summary, summaryAt, source: ctx.source, at: root.position() };
 }
 
 /**

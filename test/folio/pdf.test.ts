@@ -79,6 +79,15 @@ describe('the review pack', () => {
     for (const who of review.reviewers) expect(cover).toContain(who.name);
   });
 
+  it('states each covered rail\'s verdict on the cover, as the rail\'s plan page does', () => {
+    const cover = pdftotext(file(), 1);
+    for (const plan of review.plans) {
+      const page = read(site, `plans/${plan.rail.replace(/[^A-Za-z0-9._-]+/g, '-')}/index.html`);
+      const verdict = /\bverdict-(pass|fail)\b/.exec(page)![1].toUpperCase();
+      expect(cover).toMatch(new RegExp(`Rail ${plan.rail}: ${verdict}`));
+    }
+  });
+
   it('has a contents list whose page numbers are where each section starts, and pages that add up', () => {
     const contents = pdftotext(file(), 2);
     expect(contents).toContain('Contents');

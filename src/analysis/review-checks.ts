@@ -1,0 +1,30 @@
+// The checks a review needs the analysis for: each rail's verdict, as its plan page states it, and a
+// warning wherever a review accepts a rail that fails its target.
+
+import type { Diagnostic } from '../model/diagnostics.js';
+import type { Library } from '../model/library.js';
+import { acceptedFailures, reviewStatements, type RailVerdict } from '../model/review-consistency.js';
+import { analysePlan } from './plan-figures.js';
+
+// One analysis per loaded library: `check`, the build's warnings and the review pages share it.
+const verdictsByLibrary = new WeakMap<Library, ReadonlyMap<string, RailVerdict>>();
+
+/** Every plan's verdict, at the library's sweep density (the one its plan pages use). */
+export function railVerdicts(library: Library): ReadonlyMap<string, RailVerdict> {
+  const known = verdictsByLibrary.get(library);
+  if (known) return known;
+  const verdicts = new Map<string, RailVerdict>();
+  for (const plan of library.plans) {
+    const f = analysePlan(plan, library.settings.sweep.perDecade);
+    verdicts.set(plan.rail, { rail: plan.rail, pass: f.pass, worstMarginDb: f.worstMarginDb, worstFrequencyHz: f.worstFrequencyHz, file: plan.source.path });
+  }
+  verdictsByLibrary.set(library, verdicts);
+  return verdicts;
+}
+
+/** A warning at each decision or cover summary that accepts a failing rail, in review order. */
+export function reviewWarnings(library: Library): Diagnostic[] {
+  if (library.reviews.length === 0) return [];
+  const verdicts = railVerdicts(library);
+  return library.reviews.flatMap((review) => acceptedFailures(reviewStatements(review), verdicts, review.plans.map((p) => p.rail)).map((f) => f.warning));
+}
