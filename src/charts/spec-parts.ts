@@ -59,7 +59,7 @@ export function seriesEncoding(series: SeriesScale): Json {
   return {
     color: { field: 's', type: 'nominal', scale: { domain: series.keys, range: series.styles.map((s) => s.color) }, legend: null },
     strokeDash: { field: 's', type: 'nominal', scale: { domain: series.keys, range: series.styles.map((s) => s.dash) }, legend: null },
-    strokeWidth: { field: 's', type: 'ordinal', sort: series.keys, scale: { domain: series.keys, range: series.styles.map((s) => s.width) }, legend: null },
+    strokeWidth: { field: 's', type: 'ordinal', sort: series.keys, scale: { type: 'ordinal', domain: series.keys, range: series.styles.map((s) => s.width) }, legend: null },
   };
 }
 

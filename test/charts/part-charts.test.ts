@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { describePartChart } from '../../src/charts/describe.js';
+import { PART_SERIES } from '../../src/charts/palette.js';
 import { PART_CHART_KINDS, renderPartCharts } from '../../src/charts/part-charts.js';
 import { ALL_PARTS, analysed, beadPart, capacitorPart, inductorPart } from './fixtures.js';
 import { svgTexts } from './svg-text.js';
@@ -13,6 +14,18 @@ describe('a part’s four charts', () => {
         expect(charts[kind].title.startsWith(`${p.id}: `)).toBe(true);
         expect(charts[kind].svg).toContain(`>${charts[kind].title}</title>`);
       }
+    }
+  });
+
+  it('writes only finite numbers into SVG attributes; a one-series chart draws its curve at the palette width', async () => {
+    // A one-key ordinal scale for stroke width once mapped to NaN; every attribute must be a real number.
+    for (const p of ALL_PARTS) {
+      const charts = await renderPartCharts(analysed(p));
+      for (const kind of PART_CHART_KINDS) {
+        expect(charts[kind].svg, `${p.id} ${kind}`).not.toMatch(/="[^"]*(NaN|Infinity|undefined)[^"]*"/);
+      }
+      expect(charts.phase.svg).toContain(`stroke-width="${PART_SERIES.phase.width}"`);
+      expect(charts.plane.svg).toContain(`stroke-width="${PART_SERIES.path.width}"`);
     }
   });
 
