@@ -5,6 +5,8 @@ import { existsSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { SweepSpec } from '../circuit/sweep.js';
 import { parseQuantity } from '../units/parse.js';
+import { quote } from '../units/quote.js';
+import { inRange, rangeText } from '../units/ranges.js';
 import { formatEng } from '../units/format.js';
 import { UsageError, type CommandIO } from './io.js';
 import { MAX_POINTS_PER_DECADE } from '../model/settings.js';
@@ -61,7 +63,8 @@ export function sweepWithOverrides(base: SweepSpec, values: Parsed['values']): S
     const text = values[name];
     if (typeof text !== 'string') return undefined;
     const parsed = parseQuantity(text, name === 'per-decade' ? 'ratio' : 'frequency');
-    if (!parsed.ok || !(parsed.value > 0)) throw new UsageError(`--${name}: ${parsed.ok ? `expected a value above zero, found ${JSON.stringify(text)}` : parsed.message}`);
+    if (!parsed.ok || !(parsed.value > 0)) throw new UsageError(`--${name}: ${parsed.ok ? `expected a value above zero, found ${quote(text)}` : parsed.message}`);
+    if (name !== 'per-decade' && !inRange(parsed.value, 'frequency')) throw new UsageError(`--${name}: expected a frequency ${rangeText('frequency')}, found ${quote(text)}`);
     return parsed.value;
   };
   sweep.fromHz = read('from') ?? sweep.fromHz;

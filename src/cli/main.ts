@@ -51,7 +51,7 @@ export async function main(argv: string[], io: CommandIO): Promise<number> {
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     const topic = name === 'help' ? rest[0] : undefined;
-    const text = topic && COMMANDS[topic] ? COMMANDS[topic].help : mainHelp();
+    const text = topic && Object.hasOwn(COMMANDS, topic) ? COMMANDS[topic].help : mainHelp();
     // With no command at all the help is an answer to misuse: stderr and exit 2.
     if (name === undefined) io.err(text);
     else io.out(text);
@@ -61,7 +61,8 @@ export async function main(argv: string[], io: CommandIO): Promise<number> {
     io.out(`zfolio ${VERSION}\n`);
     return EXIT_OK;
   }
-  const command = COMMANDS[name];
+  // Own keys only: "constructor" or "__proto__" is not a command.
+  const command = Object.hasOwn(COMMANDS, name) ? COMMANDS[name] : undefined;
   if (!command) {
     io.err(`zfolio: unknown command ${JSON.stringify(name)}; expected one of ${Object.keys(COMMANDS).join(', ')}\n`);
     return EXIT_MISUSE;

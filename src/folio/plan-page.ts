@@ -2,6 +2,7 @@
 // anti-resonance peaks, the placements with their capacitance at the rail voltage, and the warnings.
 
 import type { PlacementFigures, PlanFigures } from '../analysis/plan-figures.js';
+import { pageName } from '../model/page-names.js';
 import { formatDiagnostic } from '../model/diagnostics.js';
 import { formatDecibels, formatEng, formatNumber, formatPercent } from '../units/format.js';
 import type { Row } from './part-page.js';
@@ -52,7 +53,7 @@ export function mountingSourceText(p: Pick<PlacementFigures, 'mountingFrom' | 'p
 }
 
 export function railSlug(rail: string): string {
-  return rail.replace(/[^A-Za-z0-9._-]+/g, '-');
+  return pageName(rail);
 }
 
 export function planPageData(f: PlanFigures, sourceHash: string, notes: string | undefined, chart: ChartOnPage | undefined): PlanPageData {

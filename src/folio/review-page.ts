@@ -1,6 +1,7 @@
 // What a review page and its pack show: the review's facts and decisions (short markdown, rendered inert),
 // the sheets of everything it covers, the cautions that apply to them, and every source file with its hash.
 
+import { fileStem, pageName } from '../model/page-names.js';
 import type { LibraryReview, Library } from '../model/library.js';
 import type { ComparisonPageData, PartPageData } from './site-data.js';
 import type { PlanPageData } from './plan-page.js';
@@ -38,7 +39,7 @@ export interface ReviewPageData {
 }
 
 export function reviewSlug(review: LibraryReview): string {
-  return review.source.path.replace(/^reviews\//, '').replace(/\.ya?ml$/i, '').replace(/[^A-Za-z0-9._-]+/g, '-');
+  return pageName(fileStem(review.source.path, 'reviews'));
 }
 
 function count(n: number, one: string, many: string): string {

@@ -1,5 +1,6 @@
 // The data every template reads, assembled once by the build: templates lay out, they never compute.
 
+import { pageName } from '../model/page-names.js';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { comparisonKey, type Comparison } from '../model/comparison.js';
 import type { Library } from '../model/library.js';
@@ -139,7 +140,7 @@ export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageDa
 
 /** URL-safe folder name for a comparison: from its file name, or "all-<kind>" for automatic ones. */
 export function comparisonSlug(c: Comparison): string {
-  return comparisonKey(c).replace(/[^A-Za-z0-9._-]+/g, '-');
+  return pageName(comparisonKey(c));
 }
 
 export function selectionText(c: Comparison): string {

@@ -9,7 +9,7 @@ import { Fields, describeNode, scalarText, type ReadContext } from './fields.js'
 import { PART_KINDS, type Part, type PartKind } from './part.js';
 import { positionOf, type SourceFile } from './source.js';
 import { closest } from './suggest.js';
-import type { SourcePosition } from './diagnostics.js';
+import { quote, type SourcePosition } from './diagnostics.js';
 
 export interface PartFilter {
   kind?: PartKind;
@@ -53,10 +53,10 @@ export function readComparison(ctx: ReadContext, partsById: ReadonlyMap<string, 
       const part = partsById.get(id);
       if (!part) {
         const guess = closest(id, partsById.keys());
-        ctx.diagnostics.error(at, `parts: no part with id "${id}" in the library${guess ? `; did you mean "${guess}"?` : ''}`);
+        ctx.diagnostics.error(at, `parts: no part with id ${quote(id)} in the library${guess ? `; did you mean "${guess}"?` : ''}`);
         continue;
       }
-      if (parts.includes(part)) ctx.diagnostics.error(at, `parts: "${id}" is listed twice`);
+      if (parts.includes(part)) ctx.diagnostics.error(at, `parts: ${quote(id)} is listed twice`);
       else parts.push(part);
     }
     if (list && list.items.length === 0) root.error('parts', 'expected at least one part id');

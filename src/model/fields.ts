@@ -3,7 +3,8 @@
 import { isMap, isScalar, isSeq, type Node, type Pair, type YAMLMap, type YAMLSeq } from 'yaml';
 import { parseQuantity, parseRatio, expectation } from '../units/parse.js';
 import { DIMENSIONS, type Dimension } from '../units/quantity.js';
-import type { DiagnosticList, SourcePosition } from './diagnostics.js';
+import { inRange, rangeText } from '../units/ranges.js';
+import { quote, type DiagnosticList, type SourcePosition } from './diagnostics.js';
 import { positionOf, type SourceFile } from './source.js';
 import { closest } from './suggest.js';
 
@@ -28,6 +29,8 @@ export interface TextOptions {
   oneOf?: readonly string[];
   /** What the field holds, for the "missing field" message: 'one of capacitor, inductor, ...'. */
   describe?: string;
+  /** Longest text accepted, in characters. */
+  maxLength?: number;
   /** Offer a "did you mean" from `oneOf` (default true; off where a wrong guess could mislead, e.g. safety classes). */
   suggest?: boolean;
 }
@@ -38,7 +41,7 @@ export function describeNode(node: Node | null | undefined): string {
   if (isScalar(node)) {
     // A quoted "" was written on purpose: show it; an empty plain value is nothing at all.
     const quoted = node.type === 'QUOTE_DOUBLE' || node.type === 'QUOTE_SINGLE';
-    return node.value === null || (node.value === '' && !quoted) ? 'nothing' : JSON.stringify(String(node.value));
+    return node.value === null || (node.value === '' && !quoted) ? 'nothing' : quote(String(node.value));
   }
   if (isMap(node)) return node.items.length === 0 ? 'an empty mapping' : 'a mapping';
   if (isSeq(node)) return node.items.length === 0 ? 'an empty list' : 'a list';
@@ -67,6 +70,13 @@ function isTransposition(a: string, b: string): boolean {
   let i = 0;
   while (a[i] === b[i]) i++;
   return a[i] === b[i + 1] && a[i + 1] === b[i] && a.slice(i + 2) === b.slice(i + 2);
+}
+
+/** Ratios below this are no tolerance or criterion a part is made to; they only feed rounding noise. */
+const MIN_RATIO = 1e-6;
+
+function formatNumberPercent(ratio: number): string {
+  return `${Number((ratio * 100).toPrecision(6))}%`;
 }
 
 /** "an inductance in H, e.g. 0.45n or 0.45 nH": the expectation without nested brackets, for "(...)". */
@@ -151,7 +161,7 @@ export class Fields {
       const guess = nearMiss(key, allowed);
       if (guess) guessed.add(guess);
       const hint = guess ? `; did you mean "${guess}"?` : `; expected one of ${allowed.join(', ')}`;
-      this.ctx.diagnostics.error(positionOf(this.ctx.source, pair.key), `unknown field "${this.label(key)}"${hint}`);
+      this.ctx.diagnostics.error(positionOf(this.ctx.source, pair.key), `unknown field ${quote(this.label(key))}${hint}`);
     }
     for (const name of required) {
       if (this.has(name) || guessed.has(name)) continue;
@@ -169,17 +179,30 @@ export class Fields {
     return readQuantity(this.ctx, this.valueNode(name), this.label(name), dim, options);
   }
 
-  /** A ratio greater than zero ("10%" or 0.1). */
+  /**
+   * A ratio greater than zero ("10%" or 0.1). A bare number above 1 is refused: "10" is ten times, 1000%,
+   * and is almost always meant as 10%.
+   */
   ratio(name: string): number | undefined {
     if (!this.has(name)) return undefined;
     const node = this.valueNode(name);
-    const parsed = parseRatio(scalarText(node));
+    const text = scalarText(node);
+    const parsed = parseRatio(text);
     if (!parsed.ok) {
       this.error(name, parsed.message);
       return undefined;
     }
     if (!(parsed.value > 0)) {
       this.error(name, `expected a ratio greater than zero, found ${describeNode(node)}`);
+      return undefined;
+    }
+    if (parsed.value > 1 && text !== undefined && !text.trim().endsWith('%')) {
+      const n = text.trim();
+      this.error(name, `expected a fraction such as 10% or 0.1, found ${quote(n)}: a bare number is the fraction itself, so ${quote(n, 20)} would mean ${formatNumberPercent(parsed.value)}; write ${n}% if ${n} percent is meant`);
+      return undefined;
+    }
+    if (parsed.value < MIN_RATIO) {
+      this.error(name, `expected a ratio of at least 1e-6 (0.0001%), found ${describeNode(node)}`);
       return undefined;
     }
     return parsed.value;
@@ -198,11 +221,15 @@ export class Fields {
     }
     if (options.oneOf && !options.oneOf.includes(value)) {
       const guess = options.suggest === false ? undefined : nearMiss(value, options.oneOf);
-      this.error(name, `expected one of ${options.oneOf.join(', ')}, found ${JSON.stringify(value)}${guess ? `; did you mean "${guess}"?` : ''}`);
+      this.error(name, `expected one of ${options.oneOf.join(', ')}, found ${quote(value)}${guess ? `; did you mean "${guess}"?` : ''}`);
+      return undefined;
+    }
+    if (options.maxLength !== undefined && [...value].length > options.maxLength) {
+      this.error(name, `expected at most ${options.maxLength} characters, found ${quote(value)}`);
       return undefined;
     }
     if (options.pattern && !options.pattern.test(value)) {
-      this.error(name, `expected ${options.patternHint ?? `text matching ${options.pattern}`}, found ${JSON.stringify(value)}`);
+      this.error(name, `expected ${options.patternHint ?? `text matching ${options.pattern}`}, found ${quote(value)}`);
       return undefined;
     }
     return value;
@@ -269,7 +296,11 @@ export function readQuantity(ctx: ReadContext, node: Node | null | undefined, la
   if ((value < 0 && !allowNegative) || (value === 0 && !allowZero)) {
     const noun = dim === 'ratio' ? 'a number' : DIMENSIONS[dim].noun;
     const want = allowZero ? 'of zero or more' : 'greater than zero';
-    ctx.diagnostics.error(at, `${label}: expected ${noun} ${want}, found ${JSON.stringify(text)}`);
+    ctx.diagnostics.error(at, `${label}: expected ${noun} ${want}, found ${quote(text)}`);
+    return undefined;
+  }
+  if (value !== 0 && !inRange(value, dim)) {
+    ctx.diagnostics.error(at, `${label}: expected ${DIMENSIONS[dim].noun} ${rangeText(dim)}, the range zfolio computes with, found ${quote(text)}`);
     return undefined;
   }
   return value;

@@ -1,14 +1,16 @@
 // A library folder: folio.yaml and every part file under parts/, read and checked as a whole.
 
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
-import { join, relative, sep } from 'node:path';
-import { DiagnosticList, type Diagnostic } from './diagnostics.js';
-import { readPart, type Part } from './part.js';
+import { isMap, type Node } from 'yaml';
+import { DiagnosticList, formatPosition, quote, type Diagnostic, type SourcePosition } from './diagnostics.js';
+import { scalarText } from './fields.js';
+import { entryExists, libraryFolder, readLibraryFile, yamlFilesUnder } from './library-files.js';
+import { MAX_ID_LENGTH, fileStem, pageName } from './page-names.js';
+import { ID_PATTERN, readPart, type Part } from './part.js';
 import { readPlan, uniqueRails, type Plan } from './plan.js';
 import { comparisonKey, readComparison, type Comparison } from './comparison.js';
 import { readReview, type Review } from './review.js';
 import { DEFAULT_SETTINGS, readSettings, type FolioSettings } from './settings.js';
-import { parseYamlSource, type SourceFile } from './source.js';
+import { parseYamlSource, positionOf, type SourceFile } from './source.js';
 
 export interface Library {
   /** Absolute path of the library folder. */
@@ -36,72 +38,59 @@ export interface LoadResult {
   diagnostics: Diagnostic[];
 }
 
-const YAML_FILE = /\.ya?ml$/i;
-
 /** YAML files under `dir` at any depth, as library-relative paths with forward slashes, sorted. */
-export function yamlFilesUnder(root: string, dir: string): string[] {
-  const absolute = join(root, dir);
-  if (!existsSync(absolute)) return [];
-  const out: string[] = [];
-  const walk = (folder: string) => {
-    for (const entry of readdirSync(folder, { withFileTypes: true })) {
-      if (entry.name.startsWith('.')) continue;
-      const path = join(folder, entry.name);
-      if (entry.isDirectory()) walk(path);
-      else if (entry.isFile() && YAML_FILE.test(entry.name)) out.push(relative(root, path).split(sep).join('/'));
-    }
-  };
-  walk(absolute);
-  return out.sort();
-}
+export { yamlFilesUnder } from './library-files.js';
 
 export function loadLibrary(root: string): LoadResult {
   const diagnostics = new DiagnosticList();
   const sources: SourceFile[] = [];
   const read = (path: string): SourceFile | undefined => {
-    const text = readFileSync(join(root, path), 'utf8');
-    const source = parseYamlSource(path, text, diagnostics);
+    const text = readLibraryFile(root, path, diagnostics);
+    const source = text === undefined ? undefined : parseYamlSource(path, text, diagnostics);
     if (source) sources.push(source);
     return source;
   };
+  const filesOf = (folder: string) => (libraryFolder(root, folder, diagnostics) === 'folder' ? yamlFilesUnder(root, folder, diagnostics) : []);
 
   let settings: FolioSettings | undefined = { ...DEFAULT_SETTINGS };
-  if (existsSync(join(root, 'folio.yaml'))) {
+  if (entryExists(root, 'folio.yaml')) {
     const source = read('folio.yaml');
     settings = source ? readSettings({ source, diagnostics }) : undefined;
   }
 
-  if (!existsSync(join(root, 'parts')) || !statSync(join(root, 'parts')).isDirectory()) {
+  const partsFolder = libraryFolder(root, 'parts', diagnostics);
+  if (partsFolder === 'absent') {
     diagnostics.error({ file: 'parts', line: 1, column: 1 }, 'no parts/ folder in the library; each part is a YAML file under parts/');
   }
   const parts: Part[] = [];
   const partsById = new Map<string, Part>();
-  const idsIgnoringCase = new Map<string, Part>();
-  for (const path of yamlFilesUnder(root, 'parts')) {
+  // Every id declared, also by files with other errors, so a duplicate is never hidden by them.
+  const declared = new Map<string, { id: string; at: SourcePosition }>();
+  for (const path of partsFolder === 'folder' ? yamlFilesUnder(root, 'parts', diagnostics) : []) {
     const source = read(path);
     if (!source) continue;
+    const own = declaredId(source);
+    const earlier = own && declared.get(own.id.toLowerCase());
+    if (own && earlier) {
+      const how = earlier.id === own.id ? `duplicate id ${quote(own.id)}` : `id ${quote(own.id)} differs from ${quote(earlier.id)} only in letter case, and their pages would collide on many file systems`;
+      diagnostics.error(own.at, `${how}: already defined at ${formatPosition(earlier.at)}`);
+    } else if (own) declared.set(own.id.toLowerCase(), own);
     const part = readPart({ source, diagnostics });
-    if (!part) continue;
-    const earlier = partsById.get(part.id) ?? idsIgnoringCase.get(part.id.toLowerCase());
-    if (earlier) {
-      const how = earlier.id === part.id ? `duplicate id "${part.id}"` : `id "${part.id}" differs from "${earlier.id}" only in letter case, and their pages would collide on many file systems`;
-      diagnostics.error(part.at, `${how}: already defined at ${earlier.at.file}:${earlier.at.line}:${earlier.at.column}`);
-      continue;
-    }
+    if (!part || (own && earlier)) continue;
     partsById.set(part.id, part);
-    idsIgnoringCase.set(part.id.toLowerCase(), part);
     parts.push(part);
   }
 
   const comparisons: Comparison[] = [];
-  for (const path of yamlFilesUnder(root, 'comparisons')) {
+  const comparisonFiles = filesOf('comparisons');
+  for (const path of comparisonFiles) {
     const source = read(path);
     const comparison = source && readComparison({ source, diagnostics }, partsById, parts);
     if (comparison) comparisons.push(comparison);
   }
 
   const planned: Plan[] = [];
-  for (const path of yamlFilesUnder(root, 'plans')) {
+  for (const path of filesOf('plans')) {
     const source = read(path);
     const plan = source && readPlan({ source, diagnostics }, partsById, (settings ?? DEFAULT_SETTINGS).derating);
     if (plan) planned.push(plan);
@@ -114,13 +103,43 @@ export function loadLibrary(root: string): LoadResult {
     comparisons: new Map(comparisons.map((c) => [comparisonKey(c), c])),
     plans: new Map(plans.map((p) => [p.rail, p])),
   };
-  for (const path of yamlFilesUnder(root, 'reviews')) {
+  const reviewFiles = filesOf('reviews');
+  for (const path of reviewFiles) {
     const source = read(path);
     const review = source && readReview({ source, diagnostics }, targets);
     if (review) reviews.push(review);
   }
+  // Two files whose pages would be one folder: "a b.yaml" and "a-b.yaml", "r.yaml" and "R.yml".
+  samePageNames(comparisonFiles, 'comparisons', 'comparison', diagnostics);
+  samePageNames(reviewFiles, 'reviews', 'review', diagnostics);
 
   const sorted = diagnostics.sorted();
   if (diagnostics.errorCount > 0 || !settings) return { diagnostics: sorted };
   return { library: { root, settings, parts, partsById, sources, comparisons, plans, reviews }, diagnostics: sorted };
+}
+
+/** The id a part file declares, when it is a well-formed id, whatever else is wrong with the file. */
+function declaredId(source: SourceFile): { id: string; at: SourcePosition } | undefined {
+  const contents = source.document.contents;
+  if (!isMap(contents)) return undefined;
+  const pair = contents.items.find((p) => scalarText(p.key as Node) === 'id');
+  const id = scalarText(pair?.value as Node | undefined);
+  if (id === undefined || !ID_PATTERN.test(id) || id.length > MAX_ID_LENGTH) return undefined;
+  return { id, at: positionOf(source, pair!.value as Node) };
+}
+
+function samePageNames(paths: readonly string[], folder: string, what: string, diagnostics: DiagnosticList): void {
+  const taken = new Map<string, string>();
+  for (const path of paths) {
+    const name = pageName(fileStem(path, folder));
+    const earlier = taken.get(name.toLowerCase());
+    if (earlier === undefined) {
+      taken.set(name.toLowerCase(), path);
+      continue;
+    }
+    diagnostics.error(
+      { file: path, line: 1, column: 1 },
+      `this ${what}'s page would be ${folder}/${name}/, the same folder as that of ${quote(earlier)} (file names that differ only in letter case, spaces, punctuation or .yaml/.yml make one page name); rename one of the files`,
+    );
+  }
 }

@@ -7,8 +7,10 @@ import { formatEng, formatPercent } from '../units/format.js';
 import { impedanceAt } from '../circuit/impedance.js';
 import { parseQuantity, parseRatio } from '../units/parse.js';
 import type { Dimension } from '../units/quantity.js';
-import type { SourcePosition } from './diagnostics.js';
+import { inRange } from '../units/ranges.js';
+import { quote, type SourcePosition } from './diagnostics.js';
 import { Fields, describeNode, expectationInBrackets, nearMiss, readQuantity, scalarText, type ReadContext } from './fields.js';
+import { MAX_ID_LENGTH } from './page-names.js';
 import { positionOf, type SourceFile } from './source.js';
 import { formatVoltageRating, readVoltageRatings, type VoltageRating } from './voltage-rating.js';
 
@@ -120,14 +122,14 @@ export function readPart(ctx: ReadContext): Part | undefined {
   }
   const root = new Fields(ctx, contents as YAMLMap<Node, Node | null>, '');
 
-  const id = root.text('id', { required: true, pattern: ID_PATTERN, patternHint: 'an id of letters, digits, ".", "_" and "-" only', describe: 'a unique id of letters, digits, ".", "_" and "-", e.g. CAP-0402-100N' });
+  const id = root.text('id', { required: true, maxLength: MAX_ID_LENGTH, pattern: ID_PATTERN, patternHint: 'an id of letters, digits, ".", "_" and "-" only', describe: 'a unique id of letters, digits, ".", "_" and "-", e.g. CAP-0402-100N' });
   const kindText = root.text('kind', { required: true, describe: `one of ${PART_KINDS.join(', ')}` });
   let kind: PartKind | undefined;
   if (kindText !== undefined) {
     if ((PART_KINDS as readonly string[]).includes(kindText)) kind = kindText as PartKind;
     else {
       const guess = nearMiss(kindText, PART_KINDS);
-      root.error('kind', `expected one of ${PART_KINDS.join(', ')}, found ${JSON.stringify(kindText)}${guess ? `; did you mean "${guess}"?` : ''}`);
+      root.error('kind', `expected one of ${PART_KINDS.join(', ')}, found ${quote(kindText)}${guess ? `; did you mean "${guess}"?` : ''}`);
     }
   }
   if (!kind) {
@@ -163,7 +165,7 @@ export function readPart(ctx: ReadContext): Part | undefined {
     package: root.text('package'),
     tags: root.textList('tags'),
     notes: root.text('notes'),
-    cost: root.quantity('cost', 'ratio', { allowZero: true }),
+    cost: readCost(root),
     dcBias: [],
     source,
     at: root.position('id'),
@@ -239,6 +241,14 @@ function checkBeadRating(root: Fields, network: Element, nominal: number, ratedA
   );
 }
 
+/** Unit cost: any number from 0 to 1e9, so that the planner's sums over thousands of placements stay exact enough and finite. */
+function readCost(root: Fields): number | undefined {
+  const cost = root.quantity('cost', 'ratio', { allowZero: true });
+  if (cost === undefined || cost <= 1e9) return cost;
+  root.error('cost', `expected a unit cost from 0 to 1e9, found ${quote(scalarText(root.valueNode('cost')) ?? '')}`);
+  return undefined;
+}
+
 function readMarking(root: Fields, kind: PartKind, nominal: number | undefined): string | undefined {
   const code = root.text('marking');
   if (code === undefined) return undefined;
@@ -253,7 +263,7 @@ function readMarking(root: Fields, kind: PartKind, nominal: number | undefined):
   }
   if (nominal !== undefined && Math.abs(parsed.value / nominal - 1) > 1e-9) {
     const unit = NOMINAL_DIMENSION[kind];
-    root.error('marking', `${JSON.stringify(code)} means ${formatEng(parsed.value, unit)}, but nominal is ${formatEng(nominal, unit)}`);
+    root.error('marking', `${quote(code)} means ${formatEng(parsed.value, unit)}, but nominal is ${formatEng(nominal, unit)}`);
   }
   return code;
 }
@@ -279,7 +289,7 @@ function checkDielectric(root: Fields, code: string): void {
   // Only three-character codes are held to EIA-198; longer words ("polymer", "film PP") are free text.
   if (code.length !== 3 || code === 'NP0') return;
   if (EIA_CLASS_2.test(code) || EIA_CLASS_1.test(code)) return;
-  root.error('dielectric', `expected an EIA dielectric code such as C0G, X7R or X5R, found ${JSON.stringify(code)}`);
+  root.error('dielectric', `expected an EIA dielectric code such as C0G, X7R or X5R, found ${quote(code)}`);
 }
 
 function readDcBias(root: Fields, ratingV: number | undefined): BiasPoint[] {
@@ -288,8 +298,8 @@ function readDcBias(root: Fields, ratingV: number | undefined): BiasPoint[] {
   const points: BiasPoint[] = [];
   for (const key of table.keys) {
     const volts = parseQuantity(key, 'voltage');
-    if (!volts.ok || volts.value < 0) {
-      table.ctx.diagnostics.error(table.keyPosition(key), `dc-bias: expected a voltage (e.g. 3.3V) as the key, found ${JSON.stringify(key)}`);
+    if (!volts.ok || volts.value < 0 || (volts.value > 0 && !inRange(volts.value, 'voltage'))) {
+      table.ctx.diagnostics.error(table.keyPosition(key), `dc-bias: expected a voltage (e.g. 3.3V) as the key, found ${quote(key)}`);
       continue;
     }
     const node = table.valueNode(key);
@@ -390,7 +400,8 @@ export function readNetworkNode(ctx: ReadContext, node: Node | null | undefined,
   }
   const pair = (node as YAMLMap<Node, Node | null>).items[0];
   const key = scalarText(pair.key) ?? '';
-  if (key in NETWORK_LEAVES) {
+  // Own keys only: "constructor" or "valueOf" is no element, whatever plain objects inherit.
+  if (Object.hasOwn(NETWORK_LEAVES, key)) {
     const value = readQuantity(ctx, pair.value, `${label}.${key}`, NETWORK_LEAVES[key]);
     if (value === undefined) return undefined;
     return key === 'r' ? resistor(value) : key === 'l' ? inductor(value) : capacitor(value);
@@ -411,6 +422,6 @@ export function readNetworkNode(ctx: ReadContext, node: Node | null | undefined,
     return key === 'series' ? series(...children) : parallel(...children);
   }
   const guess = nearMiss(key, NETWORK_KEYS);
-  ctx.diagnostics.error(positionOf(ctx.source, pair.key), `${label}: unknown element "${key}"; expected one of ${NETWORK_KEYS.join(', ')}${guess ? `; did you mean "${guess}"?` : ''}`);
+  ctx.diagnostics.error(positionOf(ctx.source, pair.key), `${label}: unknown element ${quote(key)}; expected one of ${NETWORK_KEYS.join(', ')}${guess ? `; did you mean "${guess}"?` : ''}`);
   return undefined;
 }

@@ -2,9 +2,10 @@
 
 import type { Node } from 'yaml';
 import { formatEng, formatPercent } from '../units/format.js';
-import type { Diagnostic, DiagnosticList, SourcePosition } from './diagnostics.js';
+import { formatPosition, quote, type Diagnostic, type DiagnosticList, type SourcePosition } from './diagnostics.js';
 import { Fields, readQuantity, scalarText, type ReadContext } from './fields.js';
 import { ID_PATTERN, type Part } from './part.js';
+import { MAX_ID_LENGTH } from './page-names.js';
 import type { SourceFile } from './source.js';
 import { closest } from './suggest.js';
 
@@ -99,7 +100,7 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
   if (!root) return undefined;
   root.expect(PLAN_FIELDS, ['rail', 'voltage', 'band', 'mounting']);
 
-  const rail = root.text('rail', { pattern: ID_PATTERN, patternHint: 'a rail name of letters, digits, ".", "_" and "-" only' });
+  const rail = root.text('rail', { maxLength: MAX_ID_LENGTH, pattern: ID_PATTERN, patternHint: 'a rail name of letters, digits, ".", "_" and "-" only' });
   const voltageV = root.quantity('voltage', 'voltage');
   const target = readTarget(root);
   const band = readBand(root);
@@ -194,7 +195,7 @@ function readTarget(root: Fields): PlanTarget | undefined {
   if (!root.has('ripple')) root.error(undefined, 'missing field "ripple" (the allowed ripple as a fraction of the voltage, e.g. 3%), needed with "step"');
   if (!root.has('step')) root.error(undefined, 'missing field "step" (the load\'s step current ΔI, e.g. 6A), needed with "ripple"');
   if (ripple !== undefined && ripple >= 1) {
-    root.error('ripple', `expected a fraction of the rail voltage below 100%, found ${JSON.stringify(scalarText(root.valueNode('ripple')))}`);
+    root.error('ripple', `expected a fraction of the rail voltage below 100%, found ${quote(scalarText(root.valueNode('ripple')) ?? '')}`);
     return undefined;
   }
   return ripple !== undefined && stepA !== undefined ? { kind: 'ripple', ripple, stepA } : undefined;
@@ -238,7 +239,7 @@ function readPlacedPart(entry: Fields, partsById: ReadonlyMap<string, Part>): Pa
   const part = partsById.get(id);
   if (!part) {
     const guess = closest(id, partsById.keys());
-    entry.error('part', `no part with id ${JSON.stringify(id)} in the library${guess ? `; did you mean "${guess}"?` : ''}`);
+    entry.error('part', `no part with id ${quote(id)} in the library${guess ? `; did you mean "${guess}"?` : ''}`);
     return undefined;
   }
   if (part.behavesAs !== 'capacitor' || part.nominal === undefined) {
@@ -250,28 +251,35 @@ function readPlacedPart(entry: Fields, partsById: ReadonlyMap<string, Part>): Pa
   return part;
 }
 
+/** Placements of one part on one rail; more is no board, and N in parallel divides Z by N. */
+export const MAX_COUNT = 10_000;
+
 function readCount(ctx: ReadContext, entry: Fields): number | undefined {
   if (!entry.has('count')) return undefined;
   const node = entry.valueNode('count');
   const value = readQuantity(ctx, node, entry.label('count'), 'ratio', { allowZero: true, allowNegative: true });
   if (value === undefined) return undefined;
-  if (!Number.isInteger(value) || value < 1) {
-    entry.error('count', `expected a whole number of placements, 1 or more, found ${JSON.stringify(scalarText(node))}`);
+  if (!Number.isInteger(value) || value < 1 || value > MAX_COUNT) {
+    entry.error('count', `expected a whole number of placements from 1 to ${MAX_COUNT}, found ${quote(scalarText(node) ?? '')}`);
     return undefined;
   }
   return value;
 }
 
-/** Plans with a rail name already taken are reported and dropped; the rest keep their order. */
+/**
+ * Plans with a rail name already taken are reported and dropped; the rest keep their order. Names that differ
+ * only in letter case (VDD_CORE, vdd_core) are one rail: their pages would be one folder on many file systems.
+ */
 export function uniqueRails(plans: readonly Plan[], diagnostics: DiagnosticList): Plan[] {
   const seen = new Map<string, Plan>();
   return plans.filter((plan) => {
-    const earlier = seen.get(plan.rail);
+    const earlier = seen.get(plan.rail.toLowerCase());
     if (earlier) {
-      diagnostics.error(plan.at, `duplicate rail "${plan.rail}": already planned at ${earlier.at.file}:${earlier.at.line}:${earlier.at.column}`);
+      const how = earlier.rail === plan.rail ? `duplicate rail ${quote(plan.rail)}` : `rail ${quote(plan.rail)} differs from ${quote(earlier.rail)} only in letter case`;
+      diagnostics.error(plan.at, `${how}: already planned at ${formatPosition(earlier.at)}`);
       return false;
     }
-    seen.set(plan.rail, plan);
+    seen.set(plan.rail.toLowerCase(), plan);
     return true;
   });
 }

@@ -14,7 +14,7 @@ import { Fields, describeNode, scalarText, type ReadContext } from './fields.js'
 import type { Part } from './part.js';
 import { positionOf, type SourceFile } from './source.js';
 import { closest } from './suggest.js';
-import type { SourcePosition } from './diagnostics.js';
+import { quote, type SourcePosition } from './diagnostics.js';
 
 export interface Reviewer {
   name: string;
@@ -64,7 +64,7 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
   if (!root) return undefined;
   root.expect(['title', 'date', 'board', 'reviewers', 'summary', 'covers', 'decisions', 'open-points'], ['title', 'date', 'board', 'covers']);
   const title = root.text('title');
-  const date = root.text('date', { pattern: ISO_DATE, patternHint: 'a date written YYYY-MM-DD' });
+  const date = readDate(root, 'date');
   const board = root.text('board');
   const summary = root.text('summary');
 
@@ -84,7 +84,7 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
       const target = map.get(key);
       if (target === undefined) {
         const guess = closest(key, map.keys());
-        ctx.diagnostics.error(at, `covers.${field}: no ${what} "${key}" in the library${guess ? `; did you mean "${guess}"?` : ''}`);
+        ctx.diagnostics.error(at, `covers.${field}: no ${what} ${quote(key)} in the library${guess ? `; did you mean "${guess}"?` : ''}`);
         continue;
       }
       out.push(target);
@@ -106,12 +106,29 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
   const openPoints = readEntries(ctx, root, 'open-points', ['text', 'owner', 'due'], (text, fields) => ({
     text,
     owner: fields?.text('owner'),
-    due: fields?.text('due', { pattern: ISO_DATE, patternHint: 'a date written YYYY-MM-DD' }),
+    due: fields && readDate(fields, 'due'),
   }));
 
   if (ctx.diagnostics.errorCount > before || !title || !date || !board) return undefined;
   const summaryAt = summary !== undefined ? root.position('summary') : undefined;
   return { title, date, board, reviewers, parts, comparisons, plans, decisions, decisionsAt, openPoints, summary, summaryAt, source: ctx.source, at: root.position() };
+}
+
+const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+
+/** A calendar date written YYYY-MM-DD (ISO 8601): the form, then that the day exists in that month and year. */
+function readDate(fields: Fields, name: string): string | undefined {
+  const text = fields.text(name, { pattern: ISO_DATE, patternHint: 'a date written YYYY-MM-DD' });
+  if (text === undefined) return undefined;
+  const [year, month, day] = text.split('-').map(Number);
+  // Gregorian calendar: a leap year is divisible by 4, except centuries not divisible by 400.
+  const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+  const days = [31, leap ? 29 : 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31][month - 1];
+  if (day > days) {
+    fields.error(name, `expected a real date, found ${quote(text)}: ${MONTHS[month - 1]} ${year} has ${days} days`);
+    return undefined;
+  }
+  return text;
 }
 
 /**

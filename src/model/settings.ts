@@ -1,5 +1,6 @@
 // folio.yaml: library-wide settings. Every field is optional; defaults are chosen for board-level passives.
 
+import { quote } from './diagnostics.js';
 import type { Node } from 'yaml';
 import type { SweepSpec } from '../circuit/sweep.js';
 import { formatEng } from '../units/format.js';
@@ -53,7 +54,7 @@ export function readSettings(ctx: ReadContext): FolioSettings | undefined {
     const perDecade = sweep.quantity('per-decade', 'ratio');
     if (perDecade !== undefined) {
       if (!Number.isInteger(perDecade) || perDecade > MAX_POINTS_PER_DECADE) {
-        sweep.error('per-decade', `expected a whole number of points from 1 to ${MAX_POINTS_PER_DECADE}, found ${JSON.stringify(scalarText(sweep.valueNode('per-decade')))}`);
+        sweep.error('per-decade', `expected a whole number of points from 1 to ${MAX_POINTS_PER_DECADE}, found ${quote(scalarText(sweep.valueNode('per-decade')) ?? '')}`);
       } else settings.sweep.perDecade = perDecade;
     }
     const { fromHz, toHz } = settings.sweep;
@@ -71,7 +72,7 @@ export function readSettings(ctx: ReadContext): FolioSettings | undefined {
   }
   const derating = root.ratio('derating');
   if (derating !== undefined) {
-    if (derating > 1) root.error('derating', `expected a fraction of the rating up to 100%, found ${JSON.stringify(scalarText(root.valueNode('derating')))}`);
+    if (derating > 1) root.error('derating', `expected a fraction of the rating up to 100%, found ${quote(scalarText(root.valueNode('derating')) ?? '')}`);
     else settings.derating = derating;
   }
   return ctx.diagnostics.errorCount > before ? undefined : settings;

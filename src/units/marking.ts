@@ -3,6 +3,7 @@
 // resistors; "R" in place of the decimal point for small values ("4R7"). Inductors use the same scheme in µH
 // by common practice (no IEC clause; stated from memory of general trade use).
 
+import { quote } from './quote.js';
 import type { Parsed } from './parse.js';
 
 export type MarkedKind = 'capacitor' | 'resistor' | 'inductor';
@@ -31,12 +32,12 @@ export function parseMarking(code: string, kind: MarkedKind): Parsed {
     const multiplierDigit = Number(trimmed.slice(-1));
     const power = multiplierDigit === 9 ? -1 : multiplierDigit;
     if (multiplierDigit === 8) {
-      return { ok: false, message: `marking ${JSON.stringify(code)}: multiplier digit 8 is not used; expected 0–7 or 9` };
+      return { ok: false, message: `marking ${quote(code)}: multiplier digit 8 is not used; expected 0–7 or 9` };
     }
     return { ok: true, value: Number(`${significant}e${power + exponent}`) };
   }
   return {
     ok: false,
-    message: `expected a marking code of 3 or 4 digits (last digit = power of ten, in ${text}) or with R as the decimal point, found ${JSON.stringify(code)}`,
+    message: `expected a marking code of 3 or 4 digits (last digit = power of ten, in ${text}) or with R as the decimal point, found ${quote(code)}`,
   };
 }

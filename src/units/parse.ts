@@ -4,6 +4,7 @@
 // "2M2", "4n7", "R47"), and for ratios a percentage ("10%").
 // Values are built as one decimal literal ("100e-9"), so "100n" is exactly the double nearest 1e-7.
 
+import { quote } from './quote.js';
 import { DIMENSIONS, SI_PREFIX_EXPONENTS, dimensionOfUnit, type Dimension } from './quantity.js';
 
 export type Parsed = { ok: true; value: number } | { ok: false; message: string };
@@ -37,7 +38,7 @@ export function expectation(dim: Dimension): string {
 }
 
 function describe(input: unknown): string {
-  return typeof input === 'string' ? JSON.stringify(input) : String(input);
+  return typeof input === 'string' ? quote(input) : String(input);
 }
 
 /** Parse a value of the given dimension. Sign is kept; callers decide whether negatives are allowed. */
@@ -54,6 +55,8 @@ export function parseQuantity(input: unknown, dim: Dimension): Parsed {
   const decimal = DECIMAL.exec(text);
   if (decimal) {
     const [, mantissa, exponent, suffix] = decimal;
+    const ambiguous = ambiguity(`${mantissa}${exponent !== undefined ? `e${exponent}` : ''}`, suffix, dim);
+    if (ambiguous) return fail(`expected ${expectation(dim)}, found ${describe(input)}: ${ambiguous}`);
     const scale = suffixScale(suffix, dim);
     if (typeof scale === 'number') return finite(Number(`${mantissa}e${Number(exponent ?? 0) + scale}`), input, dim);
     // "4R7", "2M2": the leading digits matched DECIMAL but the rest is an RKM tail.
@@ -62,6 +65,25 @@ export function parseQuantity(input: unknown, dim: Dimension): Parsed {
     return fail(`expected ${expectation(dim)}, found ${describe(input)}${scale.hint}`);
   }
   return parseRkm(text, dim) ?? fail(`expected ${expectation(dim)}, found ${describe(input)}`);
+}
+
+/**
+ * Units that read as one thing and are often meant as another: "100mhz" is 100 millihertz by the SI prefix
+ * but almost always meant as megahertz; "1MF" is a megafarad by the prefix, but older drawings wrote MF and
+ * MFD for microfarads. Refused with both readings rather than guessed.
+ */
+function ambiguity(number: string, suffix: string, dim: Dimension): string | undefined {
+  if (dim === 'frequency') {
+    if (suffix === 'mhz' || suffix === 'm') {
+      return `MHz or mHz? write ${number}M or ${number} MHz for megahertz, or ${number} mHz if millihertz is meant`;
+    }
+    if (suffix === 'khz') return `write ${number}k or ${number} kHz for kilohertz (the unit is Hz)`;
+    if (suffix === 'ghz') return `write ${number}G or ${number} GHz for gigahertz (the unit is Hz)`;
+  }
+  if (dim === 'capacitance' && /^(M|MF|MFD|MFd|Mfd|mfd)$/.test(suffix.trim())) {
+    return `µF or MF? older drawings wrote MF and MFD for microfarads; write ${number}u or ${number} µF (a megafarad is no component value)`;
+  }
+  return undefined;
 }
 
 function finite(value: number, input: unknown, dim: Dimension): Parsed {
@@ -77,7 +99,7 @@ function suffixScale(suffix: string, dim: Dimension): number | { hint: string } 
   if (isOwnUnit(suffix)) return 0;
   const first = [...suffix][0];
   const rest = suffix.slice(first.length).trim();
-  const exponent = EXPONENTS[first];
+  const exponent = Object.hasOwn(EXPONENTS, first) ? EXPONENTS[first] : undefined;
   if (exponent !== undefined && (rest === '' || isOwnUnit(rest))) return exponent;
 
   // Name the dimension that was written, so the message says "found an inductance".
@@ -91,6 +113,9 @@ function parseRkm(text: string, dim: Dimension): Parsed | undefined {
   if (!m) return undefined;
   const [, whole, letter, fraction, unit] = m;
   if (whole === '' && fraction === '') return undefined;
+  if (dim === 'capacitance' && letter === 'M' && fraction !== '') {
+    return fail(`expected ${expectation(dim)}, found ${describe(text)}: ${ambiguity(`${whole || '0'}.${fraction}`, 'M', dim)}`);
+  }
   if (unit !== '' && suffixScale(unit, dim) !== 0) return undefined;
   let exponent: number;
   if (letter === 'R') {
@@ -103,7 +128,7 @@ function parseRkm(text: string, dim: Dimension): Parsed | undefined {
   } else {
     // A trailing prefix letter ("47n") is ordinary SI notation, handled by the decimal rule.
     if (fraction === '') return undefined;
-    exponent = EXPONENTS[letter];
+    exponent = EXPONENTS[letter] ?? 0;
   }
   const value = Number(`${whole || '0'}.${fraction || '0'}e${exponent}`);
   return Number.isFinite(value) ? ok(value) : undefined;

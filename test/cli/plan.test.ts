@@ -259,7 +259,7 @@ describe('plan files, paths and misuse', () => {
     writeFileSync(bad, 'rail: DRAFT\nvoltage: 1V\ntarget: 20m\nband: {from: 1M, to: 10M}\nmounting: 0.3nH\ncapacitors:\n  - {part: RT-C-100N, count: 0}\n');
     const failed = await run(['plan', 'bad.yaml', '--library', fixture], dir);
     expect(failed.code).toBe(1);
-    expect(failed.err.split('\n')).toContain('bad.yaml:7:30: capacitors[0].count: expected a whole number of placements, 1 or more, found "0"');
+    expect(failed.err.split('\n')).toContain('bad.yaml:7:30: capacitors[0].count: expected a whole number of placements from 1 to 10000, found "0"');
   });
   it('an unknown rail is misuse (exit 2) with a suggestion', async () => {
     const { code, err } = await run(['plan', 'VDD_TSET']);

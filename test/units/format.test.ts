@@ -25,8 +25,8 @@ describe('engineering notation at the edges', () => {
 
   it('round-trips through the parser to the printed precision', () => {
     for (const v of [1.234e-12, 5.6e-9, 47e-6, 0.33, 8.2, 120, 3.3e3, 7.5e6, 2.2e9]) {
-      const text = formatEng(v, 'capacitance', { digits: 6 });
-      const back = parseQuantity(text, 'capacitance');
+      const text = formatEng(v, 'resistance', { digits: 6 });
+      const back = parseQuantity(text, 'resistance');
       expect(back.ok && back.value).toBeCloseTo(v, 15);
     }
   });
