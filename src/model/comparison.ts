@@ -5,10 +5,9 @@
 //   select: {kind: capacitor, tags: [decoupling], package: "0402"}   # ... or a filter (all fields optional)
 
 import type { Node } from 'yaml';
-import { Fields, describeNode, scalarText, type ReadContext } from './fields.js';
+import { Fields, describeNode, missingTarget, scalarText, type ReadContext } from './fields.js';
 import { PART_KINDS, type Part, type PartKind } from './part.js';
 import { positionOf, type SourceFile } from './source.js';
-import { closest } from './suggest.js';
 import { quote, type SourcePosition } from './diagnostics.js';
 
 export interface PartFilter {
@@ -52,8 +51,7 @@ export function readComparison(ctx: ReadContext, partsById: ReadonlyMap<string, 
       }
       const part = partsById.get(id);
       if (!part) {
-        const guess = closest(id, partsById.keys());
-        ctx.diagnostics.error(at, `parts: no part with id ${quote(id)} in the library${guess ? `; did you mean "${guess}"?` : ''}`);
+        ctx.diagnostics.error(at, `parts: ${missingTarget(ctx, 'parts', 'part with id', id, partsById.keys())}`);
         continue;
       }
       if (parts.includes(part)) ctx.diagnostics.error(at, `parts: ${quote(id)} is listed twice`);

@@ -11,6 +11,19 @@ import { closest } from './suggest.js';
 export interface ReadContext {
   source: SourceFile;
   diagnostics: DiagnosticList;
+  /**
+   * Names declared by files that have errors of their own, with the file: a reference to one of them is
+   * not "no such part" (with a misleading "did you mean") but a pointer to the file to fix.
+   */
+  unreadable?: Readonly<Partial<Record<'parts' | 'plans' | 'comparisons', ReadonlyMap<string, string>>>>;
+}
+
+/** What to say about a reference to `name` that names nothing the library could read. */
+export function missingTarget(ctx: ReadContext, kind: 'parts' | 'plans' | 'comparisons', noun: string, name: string, candidates: Iterable<string>): string {
+  const file = ctx.unreadable?.[kind]?.get(name);
+  if (file !== undefined) return `${noun} ${quote(name)} is defined in ${quote(file)}, which has errors (listed there); fix them first`;
+  const guess = closest(name, candidates);
+  return `no ${noun} ${quote(name)} in the library${guess ? `; did you mean "${guess}"?` : ''}`;
 }
 
 export interface QuantityOptions {

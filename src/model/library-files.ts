@@ -36,7 +36,14 @@ function resolveEntry(root: string, path: string): { stats: Stats; real: string 
   } catch {
     return undefined;
   }
-  if (!own.isSymbolicLink()) return { stats: own, real: absolute };
+  if (!own.isSymbolicLink()) {
+    if (!own.isDirectory()) return { stats: own, real: absolute };
+    try {
+      return { stats: own, real: realpathSync(absolute) };
+    } catch {
+      return { stats: own, real: absolute };
+    }
+  }
   let real: string;
   let realRoot: string;
   try {
@@ -87,7 +94,13 @@ export function entryExists(root: string, path: string): boolean {
  */
 export function yamlFilesUnder(root: string, dir: string, diagnostics?: DiagnosticList): string[] {
   const out: string[] = [];
+  // Real paths of the folders read, so a link back to one of them is not read twice (or for ever).
   const seen = new Set<string>();
+  try {
+    seen.add(realpathSync(join(root, dir)));
+  } catch {
+    return out;
+  }
   const folders = [dir];
   while (folders.length > 0) {
     const folder = folders.pop()!;
@@ -112,8 +125,8 @@ export function yamlFilesUnder(root: string, dir: string, diagnostics?: Diagnost
       const { stats, real } = entry;
       if (stats.isDirectory()) {
         if (yamlName) diagnostics?.error(atFile(path), `a folder named like a YAML file; expected a file here (rename the folder)`);
-        else if (!seen.has(real)) {
-          // A link back to a folder already walked would loop for ever.
+        else if (seen.has(real)) diagnostics?.warning(atFile(path), 'skipped: a symbolic link to a folder that is already read');
+        else {
           seen.add(real);
           folders.push(path);
         }

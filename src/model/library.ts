@@ -66,6 +66,7 @@ export function loadLibrary(root: string): LoadResult {
   const partsById = new Map<string, Part>();
   // Every id declared, also by files with other errors, so a duplicate is never hidden by them.
   const declared = new Map<string, { id: string; at: SourcePosition }>();
+  const unreadableParts = new Map<string, string>();
   for (const path of partsFolder === 'folder' ? yamlFilesUnder(root, 'parts', diagnostics) : []) {
     const source = read(path);
     if (!source) continue;
@@ -76,24 +77,31 @@ export function loadLibrary(root: string): LoadResult {
       diagnostics.error(own.at, `${how}: already defined at ${formatPosition(earlier.at)}`);
     } else if (own) declared.set(own.id.toLowerCase(), own);
     const part = readPart({ source, diagnostics });
+    if (!part && own && !earlier) unreadableParts.set(own.id, path);
     if (!part || (own && earlier)) continue;
     partsById.set(part.id, part);
     parts.push(part);
   }
 
+  const unreadable = { parts: unreadableParts, comparisons: new Map<string, string>(), plans: new Map<string, string>() };
   const comparisons: Comparison[] = [];
   const comparisonFiles = filesOf('comparisons');
   for (const path of comparisonFiles) {
     const source = read(path);
-    const comparison = source && readComparison({ source, diagnostics }, partsById, parts);
+    const comparison = source && readComparison({ source, diagnostics, unreadable }, partsById, parts);
     if (comparison) comparisons.push(comparison);
+    else unreadable.comparisons.set(fileStem(path, 'comparisons'), path);
   }
 
   const planned: Plan[] = [];
   for (const path of filesOf('plans')) {
     const source = read(path);
-    const plan = source && readPlan({ source, diagnostics }, partsById, (settings ?? DEFAULT_SETTINGS).derating);
+    const plan = source && readPlan({ source, diagnostics, unreadable }, partsById, (settings ?? DEFAULT_SETTINGS).derating);
     if (plan) planned.push(plan);
+    else {
+      const rail = source && declaredText(source, 'rail');
+      if (rail) unreadable.plans.set(rail, path);
+    }
   }
   const plans = uniqueRails(planned, diagnostics);
 
@@ -106,7 +114,7 @@ export function loadLibrary(root: string): LoadResult {
   const reviewFiles = filesOf('reviews');
   for (const path of reviewFiles) {
     const source = read(path);
-    const review = source && readReview({ source, diagnostics }, targets);
+    const review = source && readReview({ source, diagnostics, unreadable }, targets);
     if (review) reviews.push(review);
   }
   // Two files whose pages would be one folder: "a b.yaml" and "a-b.yaml", "r.yaml" and "R.yml".
@@ -123,9 +131,16 @@ function declaredId(source: SourceFile): { id: string; at: SourcePosition } | un
   const contents = source.document.contents;
   if (!isMap(contents)) return undefined;
   const pair = contents.items.find((p) => scalarText(p.key as Node) === 'id');
-  const id = scalarText(pair?.value as Node | undefined);
-  if (id === undefined || !ID_PATTERN.test(id) || id.length > MAX_ID_LENGTH) return undefined;
-  return { id, at: positionOf(source, pair!.value as Node) };
+  const id = declaredText(source, 'id');
+  return id === undefined ? undefined : { id, at: positionOf(source, pair!.value as Node) };
+}
+
+/** A top-level name field (id, rail) as written, when it is a well-formed name. */
+function declaredText(source: SourceFile, field: string): string | undefined {
+  const contents = source.document.contents;
+  if (!isMap(contents)) return undefined;
+  const text = scalarText(contents.items.find((p) => scalarText(p.key as Node) === field)?.value as Node | undefined);
+  return text !== undefined && ID_PATTERN.test(text) && text.length <= MAX_ID_LENGTH ? text : undefined;
 }
 
 function samePageNames(paths: readonly string[], folder: string, what: string, diagnostics: DiagnosticList): void {

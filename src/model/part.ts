@@ -7,7 +7,7 @@ import { formatEng, formatPercent } from '../units/format.js';
 import { impedanceAt } from '../circuit/impedance.js';
 import { parseQuantity, parseRatio } from '../units/parse.js';
 import type { Dimension } from '../units/quantity.js';
-import { inRange } from '../units/ranges.js';
+import { inRange, rangeText } from '../units/ranges.js';
 import { quote, type SourcePosition } from './diagnostics.js';
 import { Fields, describeNode, expectationInBrackets, nearMiss, readQuantity, scalarText, type ReadContext } from './fields.js';
 import { MAX_ID_LENGTH } from './page-names.js';
@@ -298,8 +298,12 @@ function readDcBias(root: Fields, ratingV: number | undefined): BiasPoint[] {
   const points: BiasPoint[] = [];
   for (const key of table.keys) {
     const volts = parseQuantity(key, 'voltage');
-    if (!volts.ok || volts.value < 0 || (volts.value > 0 && !inRange(volts.value, 'voltage'))) {
+    if (!volts.ok || volts.value < 0) {
       table.ctx.diagnostics.error(table.keyPosition(key), `dc-bias: expected a voltage (e.g. 3.3V) as the key, found ${quote(key)}`);
+      continue;
+    }
+    if (volts.value > 0 && !inRange(volts.value, 'voltage')) {
+      table.ctx.diagnostics.error(table.keyPosition(key), `dc-bias: expected a voltage of 0 V or ${rangeText('voltage')} as the key, found ${quote(key)}`);
       continue;
     }
     const node = table.valueNode(key);

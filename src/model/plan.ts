@@ -3,11 +3,10 @@
 import type { Node } from 'yaml';
 import { formatEng, formatPercent } from '../units/format.js';
 import { formatPosition, quote, type Diagnostic, type DiagnosticList, type SourcePosition } from './diagnostics.js';
-import { Fields, readQuantity, scalarText, type ReadContext } from './fields.js';
+import { Fields, missingTarget, readQuantity, scalarText, type ReadContext } from './fields.js';
 import { ID_PATTERN, type Part } from './part.js';
 import { MAX_ID_LENGTH } from './page-names.js';
 import type { SourceFile } from './source.js';
-import { closest } from './suggest.js';
 
 export type PlanTarget = { kind: 'explicit'; ohms: number } | { kind: 'ripple'; ripple: number; stepA: number };
 
@@ -238,8 +237,7 @@ function readPlacedPart(entry: Fields, partsById: ReadonlyMap<string, Part>): Pa
   if (id === undefined) return undefined;
   const part = partsById.get(id);
   if (!part) {
-    const guess = closest(id, partsById.keys());
-    entry.error('part', `no part with id ${quote(id)} in the library${guess ? `; did you mean "${guess}"?` : ''}`);
+    entry.error('part', missingTarget(entry.ctx, 'parts', 'part with id', id, partsById.keys()));
     return undefined;
   }
   if (part.behavesAs !== 'capacitor' || part.nominal === undefined) {

@@ -10,10 +10,9 @@
 //   open-points: [{text: ..., owner: ..., due: 2026-12-05}, ...]
 
 import { isSeq, type Node, type YAMLSeq } from 'yaml';
-import { Fields, describeNode, scalarText, type ReadContext } from './fields.js';
+import { Fields, describeNode, missingTarget, scalarText, type ReadContext } from './fields.js';
 import type { Part } from './part.js';
 import { positionOf, type SourceFile } from './source.js';
-import { closest } from './suggest.js';
 import { quote, type SourcePosition } from './diagnostics.js';
 
 export interface Reviewer {
@@ -71,7 +70,7 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
   const reviewers = readEntries(ctx, root, 'reviewers', ['name', 'role'], (name, fields) => ({ name, role: fields?.text('role') }));
 
   const covers = root.map('covers');
-  const pick = <T>(field: string, map: ReadonlyMap<string, T>, what: string): T[] => {
+  const pick = <T>(field: 'parts' | 'comparisons' | 'plans', map: ReadonlyMap<string, T>, what: string): T[] => {
     if (!covers?.has(field)) return [];
     const out: T[] = [];
     for (const item of covers.seq(field)?.items ?? []) {
@@ -83,8 +82,7 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
       }
       const target = map.get(key);
       if (target === undefined) {
-        const guess = closest(key, map.keys());
-        ctx.diagnostics.error(at, `covers.${field}: no ${what} ${quote(key)} in the library${guess ? `; did you mean "${guess}"?` : ''}`);
+        ctx.diagnostics.error(at, `covers.${field}: ${missingTarget(ctx, field, what, key, map.keys())}`);
         continue;
       }
       out.push(target);

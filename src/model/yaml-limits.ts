@@ -25,9 +25,13 @@ export const widthMessage = `a list or mapping with more than ${MAX_ITEMS} items
  * The first limit the text passes, found without parsing: nesting of block and flow collections (block
  * indentation and "- " / "? " indicators, flow brackets outside quotes and comments), items of one flow
  * collection, and the number of lines. Block collections' item counts are checked after parsing, where
- * they are cheap to count. The scan may count a level too many in odd corners, never hundreds.
+ * they are cheap to count.
  */
 export function firstLimitProblem(text: string): LimitProblem | undefined {
+  // The scan counts a "- " item's line as a level of its own, one more than the sequence really nests; with
+  // one level of slack it fires only where the file surely passes the limit. Depths up to it are checked
+  // exactly after parsing.
+  const limit = MAX_DEPTH + 1;
   const indents: number[] = [];
   // Items counted in each open flow collection.
   const flow: number[] = [];
@@ -73,9 +77,9 @@ export function firstLimitProblem(text: string): LimitProblem | undefined {
           column++;
         }
         indents.push(column);
-        if (indents.length > MAX_DEPTH) return { offset: j, message: depthMessage };
+        if (indents.length > limit) return { offset: j, message: depthMessage };
       }
-      if (indents.length > MAX_DEPTH) return { offset: i + indent, message: depthMessage };
+      if (indents.length > limit) return { offset: i + indent, message: depthMessage };
     }
     const blockDepth = flow.length === 0 && !quote ? indents.length : indentsAtFlowStart;
     // Scan the rest of the line for quotes, comments and flow brackets.
@@ -98,7 +102,7 @@ export function firstLimitProblem(text: string): LimitProblem | undefined {
           if (c === '[' || c === '{') {
             indentsAtFlowStart = blockDepth;
             flow.push(0);
-            if (blockDepth + flow.length > MAX_DEPTH) return { offset: j, message: depthMessage };
+            if (blockDepth + flow.length > limit) return { offset: j, message: depthMessage };
             continue;
           }
           if (c === '"' || c === "'") {
@@ -116,7 +120,7 @@ export function firstLimitProblem(text: string): LimitProblem | undefined {
       // Flow context.
       if (c === '[' || c === '{') {
         flow.push(0);
-        if (indentsAtFlowStart + flow.length > MAX_DEPTH) return { offset: j, message: depthMessage };
+        if (indentsAtFlowStart + flow.length > limit) return { offset: j, message: depthMessage };
       } else if (c === ']' || c === '}') {
         flow.pop();
         atValueStart = false;

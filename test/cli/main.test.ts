@@ -25,6 +25,17 @@ describe('zfolio', () => {
     expect(await run(['--version'])).toEqual({ code: 0, out: `zfolio ${version}\n`, err: '' });
   });
 
+  it('a command named like a property every object has is unknown, not a crash', async () => {
+    for (const name of ['constructor', '__proto__', 'toString', 'hasOwnProperty']) {
+      const r = await run([name]);
+      expect(r.code).toBe(2);
+      expect(r.err).toMatch(new RegExp(`^zfolio: unknown command "${name}"; expected one of check`));
+    }
+    const help = await run(['help', 'constructor']);
+    expect(help.code).toBe(0);
+    expect(help.out).toMatch(/^zfolio \S+: /);
+  });
+
   it('an unknown command exits 2 and names the commands there are', async () => {
     const r = await run(['chek']);
     expect(r.code).toBe(2);

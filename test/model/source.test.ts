@@ -1,0 +1,98 @@
+// Reading one YAML file: limits that keep the reader's time linear and its recursion shallow, and the
+// YAML features zfolio refuses rather than reads in a way the file does not show.
+
+import { describe, expect, it } from 'vitest';
+import { DiagnosticList, formatDiagnostic, PER_FILE_LIMIT, quote } from '../../src/model/diagnostics.js';
+import { readPart } from '../../src/model/part.js';
+import { parseYamlSource } from '../../src/model/source.js';
+import { MAX_DEPTH, MAX_ITEMS, MAX_LINES } from '../../src/model/yaml-limits.js';
+
+function read(text: string): { lines: string[]; ok: boolean; ms: number } {
+  const diagnostics = new DiagnosticList();
+  const started = performance.now();
+  const source = parseYamlSource('parts/x.yaml', text, diagnostics);
+  if (source) readPart({ source, diagnostics });
+  return { lines: diagnostics.sorted().map(formatDiagnostic), ok: source !== undefined, ms: performance.now() - started };
+}
+
+const DEPTH = `lists and mappings are nested more than ${MAX_DEPTH} levels deep here; a library file needs only a few levels`;
+const WIDTH = `a list or mapping with more than ${MAX_ITEMS} items; split it up`;
+
+describe('the reader stays linear and shallow', () => {
+  it('a network of 10,000 elements in one flow list reads in well under 2 s (positions cost O(log n) on a long line)', () => {
+    const flow = read(`id: N\nkind: network\nnetwork: {series: [${Array.from({ length: 10_000 }, () => '{r: 1m}').join(', ')}]}\n`);
+    expect(flow.lines).toEqual([]);
+    expect(flow.ms).toBeLessThan(2000);
+  });
+
+  it('columns count characters on a long line with astral characters before the mistake', () => {
+    // Each "😀" is one character (two UTF-16 units): the bad value starts at character 11 + 3·1000 + 1 of line 2.
+    const r = read(`id: N\ntitle: "${'x😀x'.repeat(1000)}"\nkind: capacitor\nnominal: 1q\n`);
+    expect(r.lines).toEqual(['parts/x.yaml:4:10: nominal: expected a capacitance in F (e.g. 100n or 100 nF), found "1q"']);
+    const astral = read(`id: N\nkind: capacitor\nnominal: 1n\ntags: [${'😀, '.repeat(500)}1q]\nvoltage: ${'😀'}\n`);
+    expect(astral.lines).toEqual(['parts/x.yaml:5:10: voltage: expected a voltage in V (e.g. 16V), found "😀"']);
+  });
+
+  it.each([
+    // The scan before parsing allows one level of slack for its count of "- " lines; it stops at the 66th level.
+    ['flow lists 100,000 deep', '['.repeat(100_000), `parts/x.yaml:1:${MAX_DEPTH + 1}: ${DEPTH}`],
+    ['"- " 10,000 times on a line (the YAML reader would run out of memory)', '- '.repeat(10_000) + 'x\n', `parts/x.yaml:1:${2 * MAX_DEPTH + 3}: ${DEPTH}`],
+    ['"? " 100,000 times on a line', '? '.repeat(100_000) + 'x\n', `parts/x.yaml:1:${2 * MAX_DEPTH + 3}: ${DEPTH}`],
+    ['a 5 MB flow list that is never closed', 'tags: [' + '1, '.repeat(1_700_000), `parts/x.yaml:1:${8 + 3 * (MAX_ITEMS - 1) + 1}: ${WIDTH}`],
+    ['more lines than a library file holds', '# c\n'.repeat(MAX_LINES + 1), `parts/x.yaml:${MAX_LINES + 1}:1: the file has more than ${MAX_LINES} lines; a library file is expected to be far smaller`],
+  ])('%s: refused with its own message, quickly', (_, text, message) => {
+    const r = read(text);
+    expect(r.lines).toEqual([message]);
+    expect(r.ms).toBeLessThan(2000);
+  });
+
+  it('a block list longer than the width limit is refused after reading', () => {
+    const r = read(`id: N\nkind: capacitor\nnominal: 1n\ntags:\n${'  - t\n'.repeat(MAX_ITEMS + 1)}`);
+    expect(r.lines).toEqual([`parts/x.yaml:5:3: ${WIDTH}`]);
+  });
+
+  it('nesting one level past the limit, too shallow for the scan, is refused after reading', () => {
+    // The part's mapping is level 1; each {series: [...]} adds two: the 32nd's list is level 65, located at its first item.
+    const r = read(`id: N\nkind: network\nnetwork: ${'{series: ['.repeat(32)}{r: 1m}${']}'.repeat(32)}\n`);
+    expect(r.lines).toEqual([`parts/x.yaml:3:${10 + 10 * 31 + 10}: ${DEPTH}`]);
+  });
+
+  it('nesting just within the limit is read', () => {
+    const deep = `id: N\nkind: network\nnetwork: ${'{series: ['.repeat(31)}{r: 1m}${']}'.repeat(31)}\n`;
+    expect(read(deep).lines).toEqual([]);
+  });
+});
+
+describe('YAML that would be read as something the file does not show', () => {
+  it('"%YAML 1.2" and a byte-order mark are fine', () => {
+    expect(read('%YAML 1.2\n---\nid: N\nkind: capacitor\nnominal: 1n\n').lines).toEqual([]);
+    expect(read('\ufeffid: N\nkind: capacitor\nnominal: 1n\n').lines).toEqual([]);
+  });
+
+  it('a bare CR anywhere is located at the first one', () => {
+    expect(read('id: N\r\nkind: capacitor\r\nnominal: 1n\rtitle: x\r\n').lines).toEqual([
+      'parts/x.yaml:3:12: a line ends with a bare carriage return (CR, as old Mac files do); save the file with LF or CRLF line ends',
+    ]);
+  });
+
+  it('a tab or a line break inside a value is text; a CR, NUL or ESC is not', () => {
+    expect(read('id: N\nkind: capacitor\nnominal: 1n\nnotes: "a\\tb\\nc"\n').lines).toEqual([]);
+    expect(read('id: N\nkind: capacitor\nnominal: 1n\nnotes: "a\\eb"\n').lines).toEqual([
+      'parts/x.yaml:4:8: this value holds a control character (U+001B, ESC); text takes printable characters, tabs and line breaks only',
+    ]);
+  });
+});
+
+describe('messages stay short', () => {
+  it('quote() cuts at 80 characters, says how long the value was, and escapes control characters', () => {
+    expect(quote('a\u0000b\u0085')).toBe('"a\\u0000b\\u0085"');
+    const long = quote('x'.repeat(50_000_000));
+    expect(long).toBe(`"${'x'.repeat(80)}…" (50000000 characters)`);
+  });
+
+  it(`at most ${PER_FILE_LIMIT} problems are listed for one file, then a count of the rest`, () => {
+    const r = read(`id: N\nkind: capacitor\nnominal: 1n\n${Array.from({ length: 150 }, (_, i) => `f${i}: 1`).join('\n')}\n`);
+    expect(r.lines).toHaveLength(PER_FILE_LIMIT + 1);
+    expect(r.lines[PER_FILE_LIMIT]).toBe(`parts/x.yaml:103:1: and 50 more errors in this file, not listed (at most ${PER_FILE_LIMIT} are listed per file)`);
+  });
+});
