@@ -7,6 +7,7 @@ import { Fields, missingTarget, readQuantity, scalarText, type ReadContext } fro
 import { ID_PATTERN, type Part } from './part.js';
 import { MAX_ID_LENGTH } from './page-names.js';
 import type { SourceFile } from './source.js';
+import { closest } from './suggest.js';
 
 export type PlanTarget = { kind: 'explicit'; ohms: number } | { kind: 'ripple'; ripple: number; stepA: number };
 
@@ -217,7 +218,8 @@ function readBand(root: Fields): Plan['band'] | undefined {
 /** `mounting-by-package: {"0402": 0.25nH, ...}`; a package no part in the library has is a warning. */
 function readMountingByPackage(root: Fields, partsById: ReadonlyMap<string, Part>, warn: (at: SourcePosition, message: string) => void): Record<string, number> {
   const table = root.map('mounting-by-package');
-  const out: Record<string, number> = {};
+  // No prototype: a package named "constructor" or "__proto__" is a key like any other.
+  const out: Record<string, number> = Object.create(null) as Record<string, number>;
   if (!table) return out;
   const packages = new Set([...partsById.values()].flatMap((p) => (p.package !== undefined ? [p.package] : [])));
   for (const name of table.keys) {
@@ -226,7 +228,7 @@ function readMountingByPackage(root: Fields, partsById: ReadonlyMap<string, Part
     out[name] = value;
     if (!packages.has(name)) {
       const guess = closest(name, packages);
-      warn(table.keyPosition(name), `mounting-by-package: no part in the library has package ${JSON.stringify(name)}${guess ? `; did you mean "${guess}"?` : ''}`);
+      warn(table.keyPosition(name), `mounting-by-package: no part in the library has package ${quote(name)}${guess ? `; did you mean "${guess}"?` : ''}`);
     }
   }
   return out;
