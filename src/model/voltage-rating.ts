@@ -6,6 +6,8 @@
 import { isSeq, type Node, type YAMLSeq } from 'yaml';
 import { formatEng } from '../units/format.js';
 import { parseQuantity } from '../units/parse.js';
+import { quote } from '../units/quote.js';
+import { inRange, rangeText } from '../units/ranges.js';
 import { describeNode, scalarText, type Fields } from './fields.js';
 import { positionOf } from './source.js';
 
@@ -34,17 +36,18 @@ export function parseVoltageRating(text: string): ParsedRating {
   const kind: VoltageKind = m ? (/^(AC|~)$/i.test(m[2]) ? 'AC' : 'DC') : 'DC';
   const value = m ? m[1] : trimmed;
   if (/r\.?m\.?s\.?$|peak$|pk$/i.test(value)) {
-    return { ok: false, message: `expected ${EXPECTED} (an AC rating is read as r.m.s.), found ${JSON.stringify(text)}` };
+    return { ok: false, message: `expected ${EXPECTED} (an AC rating is read as r.m.s.), found ${quote(text)}` };
   }
   const parsed = parseQuantity(value, 'voltage');
   if (!parsed.ok) {
     // Without a kind the value reads as any voltage does (and keeps its hint, e.g. "a current, in A").
     if (!m) return parsed;
-    const found = JSON.stringify(value);
+    const found = quote(value);
     const hint = parsed.message.includes(found) ? parsed.message.slice(parsed.message.indexOf(found) + found.length) : '';
-    return { ok: false, message: `expected ${EXPECTED}, found ${JSON.stringify(text)}${hint}` };
+    return { ok: false, message: `expected ${EXPECTED}, found ${quote(text)}${hint}` };
   }
-  if (!(parsed.value > 0)) return { ok: false, message: `expected a voltage rating greater than zero, found ${JSON.stringify(text)}` };
+  if (!(parsed.value > 0)) return { ok: false, message: `expected a voltage rating greater than zero, found ${quote(text)}` };
+  if (!inRange(parsed.value, 'voltage')) return { ok: false, message: `expected a voltage rating ${rangeText('voltage')}, the range zfolio computes with, found ${quote(text)}` };
   return { ok: true, rating: { volts: parsed.value, kind, stated: m !== null } };
 }
 
