@@ -18,6 +18,8 @@ interface CommandEntry {
   run: Command;
   help: string;
   summary: string;
+  /** The command handles SIGINT and SIGTERM itself (see process.ts). */
+  ownsSignals?: boolean;
 }
 
 export const COMMANDS: Record<string, CommandEntry> = {
@@ -26,7 +28,7 @@ export const COMMANDS: Record<string, CommandEntry> = {
   sweep: { run: sweep, help: sweepHelp, summary: "a part's impedance at every sweep point" },
   plan: { run: plan, help: planHelp, summary: 'check a rail plan against its target impedance, or --suggest its capacitors' },
   build: { run: build, help: buildHelp, summary: 'build the folio: static site, and PDFs with --pdf' },
-  serve: { run: serve, help: serveHelp, summary: 'build, serve on this machine, and rebuild on every change' },
+  serve: { run: serve, help: serveHelp, summary: 'build, serve on this machine, and rebuild on every change', ownsSignals: true },
   print: { run: print, help: printHelp, summary: 'PDFs of chosen parts and review packs' },
 };
 

@@ -96,8 +96,8 @@ export interface AssembleOptions {
   siteDir: string;
   charts: ChartMaker;
   progress: Progress;
-  /** Link each part and review to its PDF. */
-  withPdfs: boolean;
+  /** Which parts (by id) and reviews (by slug) link to their PDF. */
+  pdfLinks: PdfLinks;
   /**
    * Parts whose folders (page, downloads) were carried over whole from the last build: nothing is drawn or
    * written for them; their charts are read from the chart maker only where another page shows them. With
@@ -109,7 +109,12 @@ export interface AssembleOptions {
   timings?: AssembleTimings;
 }
 
-export async function assembleSite({ library, siteDir, charts, progress, withPdfs, carried = new Map(), timings }: AssembleOptions): Promise<FolioData> {
+export interface PdfLinks {
+  part(id: string): boolean;
+  review(slug: string): boolean;
+}
+
+export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), timings }: AssembleOptions): Promise<FolioData> {
   const analyse = (part: Part) => {
     const started = performance.now();
     const a = analysePart(part, library.settings.sweep, library.settings.within);
@@ -138,7 +143,7 @@ export async function assembleSite({ library, siteDir, charts, progress, withPdf
         page = partPageData(a, drawn.map((c) => placeChart(c, folder, timings)));
       }
       progress.tick();
-      if (withPdfs) page.pdfFile = partPdfPath(part.id);
+      if (pdfLinks.part(part.id)) page.pdfFile = partPdfPath(part.id);
       return page;
     }),
   );
@@ -148,7 +153,7 @@ export async function assembleSite({ library, siteDir, charts, progress, withPdf
   const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts, timings)));
   const reviews = library.reviews.map((r) => {
     const page = reviewPageData(r, library, { parts: partsById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
-    if (withPdfs) page.pdfFile = reviewPdfPath(page.slug);
+    if (pdfLinks.review(page.slug)) page.pdfFile = reviewPdfPath(page.slug);
     return page;
   });
   // Carried-over parts keep the page the last build wrote; only the others are rendered.

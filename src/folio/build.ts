@@ -7,8 +7,9 @@ import type { Diagnostic } from '../model/diagnostics.js';
 import { loadLibrary, type Library } from '../model/library.js';
 import { reviewWarnings } from '../analysis/review-checks.js';
 import type { PaperSize } from '../model/settings.js';
-import { assembleSite, type AssembleTimings } from './assemble.js';
-import { chromeHint, findChrome } from './browser.js';
+import { assembleSite, partPdfPath, reviewPdfPath, type AssembleTimings } from './assemble.js';
+import type { Browser } from 'puppeteer-core';
+import { ChromeStartError, chromeHint, findChrome, launchChrome } from './browser.js';
 import type { ChartMaker } from './chart-maker.js';
 import { ChartPool, type ChartPoolStats } from './chart-pool.js';
 import { renderPages, TEMPLATES_DIR } from './eleventy.js';
@@ -19,6 +20,7 @@ import { printJobs, type PrintedFile } from './print.js';
 import { buildDate, printJobsFor, type PrintSelection } from './print-jobs.js';
 import { silentProgress, type Progress } from './progress.js';
 import { dropRecord, linkPartFolders, partKey, readRecord, recordFile, reusableParts, siteKey, writeRecord } from './reuse.js';
+import { keptPdfs, linkPdfs, pdfKeys, pdfsIn, stampPdfs } from './pdf-reuse.js';
 
 export interface BuildOptions {
   libraryRoot: string;
@@ -73,6 +75,10 @@ export interface BuildResult {
   pdfProblem?: string;
   /** Parts whose folders were carried over unchanged from the last build. */
   reused: number;
+  /** Without printing: PDFs of the last build kept because their inputs are unchanged. */
+  keptPdfs: number;
+  /** Without printing: PDFs of the last build that were not kept (site-relative paths). */
+  removedPdfs: string[];
   /** The chart pool's counts (absent when charts came from a given chart maker). */
   charts?: ChartPoolStats;
   timings: BuildTimings;
@@ -116,25 +122,66 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   const outDir = resolve(libraryRoot, options.outDir ?? DEFAULT_OUT_DIR);
   const zero = { seconds: 0, cpuSeconds: 0 };
   const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
-  let clock = stageClock();
+  const clock = stageClock();
   // Before anything is read or written: a refused output leaves the disk exactly as it was.
   guardOutput(outDir, { libraryRoot, cwd: options.cwd ?? process.cwd(), home: options.home });
   checkWritable(outDir);
   const { library, diagnostics } = loadLibrary(libraryRoot);
-  const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, timings };
+  const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, keptPdfs: 0, removedPdfs: [], timings };
   if (!library) return result;
   result.library = library;
   // Warnings that need the analysis: a review that accepts a rail failing its target.
   diagnostics.push(...reviewWarnings(library));
 
-  const cacheRoot = options.cache === false ? undefined : resolve(libraryRoot, options.cache ?? CACHE_DIR);
+  // Chromium first: one that is missing or will not start is known before the build's time is spent, and the
+  // pages then link only the PDFs there are (kept ones, as a build without --pdf).
+  let browser: Browser | undefined;
+  if (options.pdf) {
+    const chrome = findChrome(options.pdf.chrome, options.pdf.env);
+    if ('problem' in chrome) result.pdfProblem = chromeHint(chrome.problem);
+    else {
+      try {
+        browser = await launchChrome(chrome.path);
+      } catch (error) {
+        if (!(error instanceof ChromeStartError)) throw error;
+        result.pdfProblem = error.message;
+      }
+    }
+  }
+  try {
+    return await buildWith(options, library, outDir, browser, result, { started, progress, clock });
+  } finally {
+    await browser?.close();
+  }
+}
+
+interface Running {
+  started: number;
+  progress: Progress;
+  clock: () => StageTime;
+}
+
+async function buildWith(options: BuildOptions, library: Library, outDir: string, browser: Browser | undefined, result: BuildResult, run: Running): Promise<BuildResult> {
+  const { progress } = run;
+  const { timings } = result;
+  let clock = run.clock;
+  const cacheRoot = options.cache === false ? undefined : resolve(library.root, options.cache ?? CACHE_DIR);
+  const site = siteKey(library);
   // Part folders can be carried over only when charts come from the cache-keyed pool.
-  const reuse = cacheRoot && !options.charts ? { file: recordFile(cacheRoot, outDir), site: siteKey(library, Boolean(options.pdf)) } : undefined;
-  const partKeys = new Map(reuse ? library.parts.map((p) => [p.id, partKey(reuse.site, p)]) : []);
+  const recordAt = cacheRoot && !options.charts ? recordFile(cacheRoot, outDir) : undefined;
+  const record = recordAt ? readRecord(recordAt, outDir) : undefined;
+  // PDFs: printed afresh with a browser; without one, the last site's are kept where their inputs are unchanged.
+  const keys = pdfKeys(library, site);
+  const earlier = browser ? [] : pdfsIn(outDir);
+  const kept = browser ? new Set<string>() : keptPdfs(record?.pdfs, keys, outDir);
+  const pdfLinks = {
+    part: (id: string) => Boolean(browser) || kept.has(partPdfPath(id)),
+    review: (slug: string) => Boolean(browser) || kept.has(reviewPdfPath(slug)),
+  };
+  const partKeys = new Map(recordAt ? library.parts.map((p) => [p.id, partKey(site, p, pdfLinks.part(p.id))]) : []);
   const staging = stageOutput(outDir, { onStep: options.onSwapStep });
   let pool: ChartPool | undefined;
   try {
-    const record = reuse ? readRecord(reuse.file, outDir) : undefined;
     const carried = reusableParts(record, partKeys, outDir);
     const fresh = library.parts.length - carried.size;
     pool = options.charts ? undefined : chartPoolFor(library, options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), cacheRoot ? join(cacheRoot, 'charts') : false);
@@ -142,7 +189,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
     timings.load = clock();
 
     clock = stageClock();
-    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, withPdfs: Boolean(options.pdf), carried, timings: timings.assemble });
+    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, timings: timings.assemble });
     await pool?.close();
     Object.assign(timings.assemble, clock());
 
@@ -151,36 +198,39 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
     const written = await renderPages(staging.dir, folio);
     progress.tick();
     cpSync(join(TEMPLATES_DIR, 'assets'), join(staging.dir, 'assets'), { recursive: true });
+    // Links into the last site come last, so that nothing is written through them into it.
     const linked = linkPartFolders(record, carried.keys(), outDir, staging.dir);
+    linkPdfs(kept, outDir, staging.dir);
     timings.pages = clock();
 
-    if (options.pdf) {
+    if (browser && options.pdf) {
       clock = stageClock();
-      const chrome = findChrome(options.pdf.chrome, options.pdf.env);
-      if ('problem' in chrome) result.pdfProblem = chromeHint(chrome.problem);
-      else {
-        const paper = options.pdf.paper ?? library.settings.paper;
-        const date = options.pdf.date ?? buildDate(options.pdf.env);
-        const printed = await printJobs(chrome.path, printJobsFor(library, folio, staging.dir, date, options.pdf.select), paper, date, progress);
-        result.pdfs = printed.map((p) => ({ ...p, pdfFile: relative(staging.dir, p.pdfFile).split(sep).join('/') }));
-      }
+      const paper = options.pdf.paper ?? library.settings.paper;
+      const date = options.pdf.date ?? buildDate(options.pdf.env);
+      const printed = await printJobs(browser, printJobsFor(library, folio, staging.dir, date, options.pdf.select), paper, date, progress);
+      result.pdfs = printed.map((p) => ({ ...p, pdfFile: relative(staging.dir, p.pdfFile).split(sep).join('/') }));
       timings.pdf = clock();
     }
 
     clock = stageClock();
     // The record is dropped before the swap and written after it, so it never describes a site not in place.
-    if (reuse) dropRecord(reuse.file);
+    if (recordAt) dropRecord(recordAt);
     staging.commit();
-    if (reuse) writeRecord(reuse.file, outDir, partKeys, new Map(folio.parts.map((p) => [p.id, p])), record, linked);
+    if (recordAt) {
+      const pdfs = stampPdfs(browser ? result.pdfs.map((p) => p.pdfFile) : kept, keys, outDir);
+      writeRecord(recordAt, outDir, partKeys, new Map(folio.parts.map((p) => [p.id, p])), record, linked, pdfs);
+    }
     timings.swap = clock();
     Object.assign(result, {
       ok: true,
       parts: folio.parts.length,
       pages: written + carried.size,
       reused: carried.size,
+      keptPdfs: kept.size,
+      removedPdfs: earlier.filter((p) => !kept.has(p)),
       charts: pool?.stats,
       folio,
-      seconds: (performance.now() - started) / 1000,
+      seconds: (performance.now() - run.started) / 1000,
     });
     return result;
   } catch (error) {

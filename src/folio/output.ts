@@ -15,6 +15,7 @@ import { randomBytes } from 'node:crypto';
 import { accessSync, constants, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { holdingName, isOwnLink, MARKER_TEXT, OutputRefused, SITE_MARKER } from './output-guard.js';
+import { untilDone } from './on-exit.js';
 
 /** Points in a swap, reported to `onStep` (tests stop a build at each to check the site path). */
 export type SwapStep = 'staged' | 'linked' | 'moved-aside' | 'swapped' | 'cleaned';
@@ -114,9 +115,16 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
   // Written first, so that whatever of this folder ends up at the site path, the next build recognises it.
   writeFileSync(join(dir, SITE_MARKER), MARKER_TEXT);
   let link: string | undefined;
+  const abandon = () => {
+    if (link) rmSync(link, { force: true });
+    rmSync(dir, { recursive: true, force: true });
+  };
+  // A process stopped before the swap removes its staging folder on the way out.
+  const done = untilDone(abandon);
   return {
     dir,
     commit() {
+      done();
       step('staged');
       link = join(holding, `link-${unique()}`);
       try {
@@ -126,21 +134,28 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
       }
       if (link) step('linked');
       const kind = entryKind(sitePath);
+      let aside: string | undefined;
       if (kind === 'folder' || (kind === 'link' && !link)) {
-        renameSync(sitePath, join(holding, `site-${unique()}`));
+        aside = join(holding, `site-${unique()}`);
+        renameSync(sitePath, aside);
         step('moved-aside');
       } else if (kind === 'other' || (kind === 'link' && !isOwnLink(sitePath, readlinkSync(sitePath)))) {
         throw new OutputRefused(`will not write the site to ${sitePath}: it changed during the build and is no longer a site zfolio wrote`);
       }
-      renameSync(link ?? dir, sitePath);
+      try {
+        renameSync(link ?? dir, sitePath);
+      } catch (error) {
+        if (aside) renameSync(aside, sitePath); // put the old site back
+        throw error;
+      }
       link = undefined;
       step('swapped');
       removeLeftovers(sitePath);
       step('cleaned');
     },
     abandon() {
-      if (link) rmSync(link, { force: true });
-      rmSync(dir, { recursive: true, force: true });
+      done();
+      abandon();
     },
   };
 }

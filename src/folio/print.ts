@@ -5,9 +5,8 @@
 import { writeFileSync, mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import type { Page } from 'puppeteer-core';
+import type { Browser, Page } from 'puppeteer-core';
 import type { PaperSize } from '../model/settings.js';
-import { launchChrome } from './browser.js';
 import { headingPages, loadForPrint, printLoadedPage, withMetadata, type PageFurniture, type PdfMetadata } from './pdf.js';
 import type { Progress } from './progress.js';
 
@@ -31,26 +30,22 @@ export interface PrintedFile {
 /** Tabs printing at once: one per core on the machines zfolio targets. */
 const CONCURRENCY = 2;
 
-export async function printJobs(chromePath: string, jobs: PrintJob[], paper: PaperSize, date: Date, progress: Progress): Promise<PrintedFile[]> {
-  const browser = await launchChrome(chromePath);
-  try {
-    progress.stage('pdf', jobs.length);
-    const results: PrintedFile[] = new Array(jobs.length);
-    let next = 0;
-    const lane = async () => {
-      const page = await browser.newPage();
-      while (next < jobs.length) {
-        const index = next++;
-        results[index] = await printOne(page, jobs[index], paper, date);
-        progress.tick();
-      }
-      await page.close();
-    };
-    await Promise.all(Array.from({ length: Math.min(CONCURRENCY, jobs.length) }, lane));
-    return results;
-  } finally {
-    await browser.close();
-  }
+/** Print every job with `browser` (started with launchChrome; the caller closes it). */
+export async function printJobs(browser: Browser, jobs: PrintJob[], paper: PaperSize, date: Date, progress: Progress): Promise<PrintedFile[]> {
+  progress.stage('pdf', jobs.length);
+  const results: PrintedFile[] = new Array(jobs.length);
+  let next = 0;
+  const lane = async () => {
+    const page = await browser.newPage();
+    while (next < jobs.length) {
+      const index = next++;
+      results[index] = await printOne(page, jobs[index], paper, date);
+      progress.tick();
+    }
+    await page.close();
+  };
+  await Promise.all(Array.from({ length: Math.min(CONCURRENCY, jobs.length) }, lane));
+  return results;
 }
 
 /** While set, a page paints only its h1 headings; visibility leaves every box where it was. */

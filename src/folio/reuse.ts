@@ -19,6 +19,7 @@ import type { Part } from '../model/part.js';
 import { PACKAGE_ROOT, VERSION } from '../version.js';
 import type { RecordedPage } from './assemble.js';
 import type { PartPageData } from './site-data.js';
+import type { PdfStamp } from './pdf-reuse.js';
 
 /** [file name, size, mtimeMs, inode] of a file in a part folder. */
 type FileStamp = [string, number, number, number];
@@ -34,6 +35,8 @@ export interface BuildRecord {
   format: 1;
   outDir: string;
   parts: Record<string, PartRecord>;
+  /** The PDFs in the site, by site-relative path (pdf-reuse.ts). */
+  pdfs?: Record<string, PdfStamp>;
 }
 
 const SOURCE_DIR = dirname(dirname(fileURLToPath(import.meta.url)));
@@ -92,17 +95,17 @@ export function codeKey(): string {
  * What every part folder of this build shares: the code, the library's settings, and what the page frame
  * shows from the rest of the library (title, owner, version, which sections the navigation links to).
  */
-export function siteKey(library: Library, withPdfs: boolean): string {
+export function siteKey(library: Library): string {
   return createHash('sha256')
     .update(codeKey())
     .update(JSON.stringify(library.settings))
-    .update(JSON.stringify({ plans: library.plans.length > 0, reviews: library.reviews.length > 0, withPdfs }))
+    .update(JSON.stringify({ plans: library.plans.length > 0, reviews: library.reviews.length > 0 }))
     .digest('hex');
 }
 
-/** The key of one part's folder: the shared key, the part file's path and content hash. */
-export function partKey(site: string, part: Part): string {
-  return createHash('sha256').update(`${site}\n${part.source.path}\n${part.source.hash}`).digest('hex').slice(0, 32);
+/** The key of one part's folder: the shared key, the part file's path and content hash, and whether its page links a PDF. */
+export function partKey(site: string, part: Part, linksPdf: boolean): string {
+  return createHash('sha256').update(`${site}\n${part.source.path}\n${part.source.hash}\n${linksPdf ? 'pdf' : 'no pdf'}`).digest('hex').slice(0, 32);
 }
 
 export function recordFile(cacheRoot: string, outDir: string): string {
@@ -146,6 +149,7 @@ export function writeRecord(
   pages: ReadonlyMap<string, PartPageData> = new Map(),
   last?: BuildRecord,
   unchanged: ReadonlySet<string> = new Set(),
+  pdfs: Record<string, PdfStamp> = {},
 ): void {
   const parts: Record<string, PartRecord> = {};
   for (const [id, key] of keys) {
@@ -160,7 +164,7 @@ export function writeRecord(
     }
     parts[id] = { key, files, page: recordedPage(pages.get(id)) };
   }
-  const record: BuildRecord = { format: 1, outDir, parts };
+  const record: BuildRecord = { format: 1, outDir, parts, pdfs };
   mkdirSync(dirname(file), { recursive: true });
   const temp = `${file}.${process.pid}.tmp`;
   writeFileSync(temp, JSON.stringify(record));

@@ -59,13 +59,21 @@ export function reportBuild(result: BuildResult, io: CommandIO): number {
     return EXIT_BAD_INPUT;
   }
   const pdfs = result.pdfs.length > 0 ? `, ${plural(result.pdfs.length, 'PDF')} (${result.pdfs.reduce((n, p) => n + p.pages, 0)} pages)` : '';
+  const kept = result.keptPdfs > 0 ? `, ${plural(result.keptPdfs, 'PDF')} of the last build kept` : '';
   const carried = result.reused > 0 ? ` (${result.reused} unchanged, carried over)` : '';
-  io.out(`built ${plural(result.parts, 'part')}${carried}, ${plural(result.pages, 'page')}${pdfs} in ${result.seconds.toFixed(1)} s: ${relative(io.cwd, result.outDir) || '.'}/index.html\n`);
+  io.out(`built ${plural(result.parts, 'part')}${carried}, ${plural(result.pages, 'page')}${pdfs}${kept} in ${result.seconds.toFixed(1)} s: ${relative(io.cwd, result.outDir) || '.'}/index.html\n`);
+  if (result.removedPdfs.length > 0) io.err(`zfolio build: ${removedPdfsText(result.removedPdfs)}\n`);
   if (result.pdfProblem) {
     io.err(`zfolio build: the site was written, but no PDFs. ${result.pdfProblem}\n`);
     return EXIT_BAD_INPUT;
   }
   return EXIT_OK;
+}
+
+/** One line on the PDFs of the last build that a build without printing did not keep. */
+export function removedPdfsText(paths: string[]): string {
+  const names = paths.slice(0, 2).join(', ') + (paths.length > 2 ? ` and ${paths.length - 2} more` : '');
+  return `removed ${plural(paths.length, 'PDF')} of the last build whose inputs changed (${names}); build --pdf prints them again`;
 }
 
 export async function build(args: string[], io: CommandIO): Promise<number> {

@@ -10,7 +10,7 @@ import { DEFAULT_HOST, DEFAULT_PORT } from '../../folio/static-server.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
 import { EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { plural } from '../report.js';
-import { BUILD_OPTIONS, reportBuild, workersOption } from './build.js';
+import { BUILD_OPTIONS, removedPdfsText, reportBuild, workersOption } from './build.js';
 
 export const serveHelp = `Usage: zfolio serve [--library DIR] [--out DIR] [--port N] [--host ADDRESS]
 
@@ -73,7 +73,8 @@ export function reportRebuild(report: BuildReport, io: CommandIO): void {
     io.err(`${clock(report.at)} rebuild failed ${after}: ${plural(errors, 'error')} in the library; still serving the previous site\n`);
     return;
   }
-  io.out(`${clock(report.at)} rebuilt ${plural(result.parts, 'part')}, ${plural(result.pages, 'page')} in ${result.seconds.toFixed(1)} s ${after}\n`);
+  const removed = result.removedPdfs.length > 0 ? `; ${removedPdfsText(result.removedPdfs)}` : '';
+  io.out(`${clock(report.at)} rebuilt ${plural(result.parts, 'part')}, ${plural(result.pages, 'page')} in ${result.seconds.toFixed(1)} s ${after}${removed}\n`);
 }
 
 /** Resolves when the process is asked to stop (Ctrl+C, or a service manager's TERM). */
