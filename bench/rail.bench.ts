@@ -1,11 +1,10 @@
-// Rail plans (issue: rail plans and the planner): evaluating a 50-placement plan over 1,000 frequencies, and
-// `plan --suggest` over 200 candidate capacitors. Every part and rail here is generated and invented.
+// Rail plans: evaluating a 50-placement plan over 1,000 frequencies (`plan --suggest` is in
+// suggest.bench.ts). Every part and rail here is generated and invented.
 
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { analysePlan, railBranches, planTargetOhm } from '../src/analysis/plan-figures.js';
-import { suggestPlacements } from '../src/analysis/plan-suggest.js';
 import { evaluateRail, railSlopeAt, railZeros } from '../src/analysis/rail.js';
 import { impedancePeaks } from '../src/analysis/peaks.js';
 import { sweepRange } from '../src/analysis/feature-grid.js';
@@ -27,7 +26,7 @@ const PACKAGES: [string, number][] = [
 ];
 
 /** An invented capacitor: value 1 nF–68 µF, package ESL, ESR falling with size, a rating, maybe a DC-bias table. */
-function capacitorYaml(i: number, random: () => number, withCost: boolean): string {
+export function capacitorYaml(i: number, random: () => number, withCost: boolean): string {
   const c = E6[Math.floor(random() * 6)] * 10 ** (-9 + Math.floor(random() * 5));
   const [pkg, esl] = PACKAGES[Math.floor(random() * PACKAGES.length)];
   const esr = 0.003 + 0.03 * random() * (1e-7 / c) ** 0.25;
@@ -38,7 +37,7 @@ function capacitorYaml(i: number, random: () => number, withCost: boolean): stri
 }
 
 /** A library of `count` generated capacitors and one invented rail plan with `placed` placements listed. */
-function writeRailLibrary(count: number, withCost: boolean, placed: string): string {
+export function writeRailLibrary(count: number, withCost: boolean, placed: string): string {
   const root = mkdtempSync(join(tmpdir(), 'zfolio-rail-'));
   const random = mulberry32(20240 + count);
   mkdirSync(join(root, 'parts'));
@@ -52,7 +51,7 @@ function writeRailLibrary(count: number, withCost: boolean, placed: string): str
   return root;
 }
 
-function load(root: string): Library {
+export function load(root: string): Library {
   const { library, diagnostics } = loadLibrary(root);
   if (!library) throw new Error(`generated library failed to load: ${diagnostics[0]?.message}`);
   return library;
@@ -122,23 +121,6 @@ export const railBench: BenchSection = {
     lines.push(`  finding the rail's zeros on fresh trees (eigenvalues, ${branches.length} branches) ${ms(zeros.secondsPerRun)} = ${(zeros.secondsPerRun / curve.secondsPerRun).toFixed(2)}× one cached evaluation`);
     rmSync(evalRoot, { recursive: true, force: true });
 
-    // 2. --suggest over 200 candidates: fewest placements (no costs), and lowest cost (every part costed).
-    lines.push('plan --suggest over 200 generated candidate capacitors, 0..16 each, band 100 kHz–100 MHz (goal < 2 s):');
-    for (const withCost of [false, true]) {
-      const root = writeRailLibrary(200, withCost, '');
-      const library = load(root);
-      const railPlan = library.plans[0];
-      let result = suggestPlacements(railPlan, library.parts, { maxCount: 16, only: [], derating: library.settings.derating, perDecade: library.settings.sweep.perDecade });
-      const timing = measure(() => {
-        result = suggestPlacements(railPlan, library.parts, { maxCount: 16, only: [], derating: library.settings.derating, perDecade: library.settings.sweep.perDecade });
-      }, 2, 0);
-      const figuresOf = result.figures;
-      const what = figuresOf ? `${figuresOf.totalPlacements} placements${figuresOf.totalCost !== null ? `, cost ${figuresOf.totalCost.toFixed(3)}` : ''}, margin ${figuresOf.worstMarginDb.toFixed(2)} dB` : 'no set';
-      lines.push(
-        `  ${result.objective === 'cost' ? 'lowest cost      ' : 'fewest placements'}  ${result.candidateIds.length} candidates  ${ms(timing.secondsPerRun).padStart(8)}  (${(timing.secondsPerRun / 2).toFixed(2)} of the goal)  ${result.status}, ${result.nodes} nodes, ${what}`,
-      );
-      rmSync(root, { recursive: true, force: true });
-    }
     if (sink === 42) lines.push('');
     return lines;
   },

@@ -6,9 +6,10 @@ import { engineBench } from './engine.bench.js';
 import { pdfBench } from './pdf.bench.js';
 import { railBench } from './rail.bench.js';
 import { siteBench } from './site.bench.js';
+import { suggestBench } from './suggest.bench.js';
 import type { BenchSection } from './measure.js';
 
-const SECTIONS: BenchSection[] = [engineBench, chartsBench, railBench, siteBench, pdfBench];
+const SECTIONS: BenchSection[] = [engineBench, chartsBench, railBench, suggestBench, siteBench, pdfBench];
 
 const wanted = process.argv.slice(2);
 for (const section of SECTIONS) {

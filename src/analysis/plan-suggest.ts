@@ -157,7 +157,7 @@ export function suggestPlacements(plan: Plan, parts: readonly Part[], options: S
   const analysed = (placements: Placement[]) => analysePlan(plan, options.perDecade, placements, placementWarnings(plan, placements));
   const placements = result.counts ? placementsOf(result.counts) : [];
   let closest: Suggestion['closest'] = null;
-  if (!result.counts && candidates.length > 0) {
+  if (!result.counts) {
     const near = placementsOf(closestSet(problem).counts);
     closest = { placements: near, figures: analysed(near) };
   }

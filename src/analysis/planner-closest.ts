@@ -1,6 +1,6 @@
 // When no set of counts meets the target: the set that comes closest, so a designer sees how far off the
-// rail is and with what. Found on the planner's grid by local moves (add one, remove one, swap one for
-// another) that raise the smallest |Y| over the band, from the empty set. Every set the search settles on
+// rail is and with what. Found on the planner's grid by local moves (set one candidate's count, or swap one
+// placement for another) that raise the smallest |Y| over the band, from the empty set. Every set the search settles on
 // is evaluated in full (refined peaks); a peak between sweep points that the grid missed joins the grid and
 // the search goes on, as in the planner. The answer is the best of those full evaluations (the empty set
 // included): the best set *found*, not one proven the best possible.
@@ -45,39 +45,47 @@ export function closestSet(problem: PlannerProblem): { counts: number[]; evaluat
   return best;
 }
 
-/** Local search on the grid from `start`: the best single move each pass while one raises the worst point. */
-function improveOnGrid(problem: PlannerProblem, grid: Grid, start: readonly number[], maxPasses = 256): number[] {
+/**
+ * Local search on the grid from `start`, accepting a move only when it raises the worst grid point (ties:
+ * lowers the total shortfall). A pass sets each candidate in turn to its best count 0..maxCount; a pass that
+ * changes nothing is followed by the best swap of one placement for one of another part.
+ */
+function improveOnGrid(problem: PlannerProblem, grid: Grid, start: readonly number[], maxPasses = 48): number[] {
   const m = problem.candidates.length;
+  const N = problem.maxCount;
   const F = grid.size;
   const yt = 1 / problem.targetOhm;
   const counts = [...start];
   const re = Float64Array.from(grid.aRe);
   const im = Float64Array.from(grid.aIm);
-  counts.forEach((n, i) => {
+  const shift = (i: number, by: number) => {
+    counts[i] += by;
+    const yr = grid.yRe[i];
+    const yi = grid.yIm[i];
     for (let k = 0; k < F; k++) {
-      re[k] += n * grid.yRe[i][k];
-      im[k] += n * grid.yIm[i][k];
+      re[k] += by * yr[k];
+      im[k] += by * yi[k];
     }
+  };
+  counts.forEach((n, i) => {
+    counts[i] = 0;
+    if (n > 0) shift(i, n);
   });
 
-  /** The score of the current set with `add` placed once more and `remove` once less (−1: none). */
-  const scoreWith = (add: number, remove: number): Score => {
+  /** The score with `a` changed by `da` and `b` by `db` (b = −1: none). */
+  const scoreWith = (a: number, da: number, b: number, db: number): Score => {
+    const ar = grid.yRe[a];
+    const ai = grid.yIm[a];
+    const br = b >= 0 ? grid.yRe[b] : null;
+    const bi = b >= 0 ? grid.yIm[b] : null;
     let worst = Infinity;
     let shortfall = 0;
-    const ar = add >= 0 ? grid.yRe[add] : null;
-    const ai = add >= 0 ? grid.yIm[add] : null;
-    const rr = remove >= 0 ? grid.yRe[remove] : null;
-    const ri = remove >= 0 ? grid.yIm[remove] : null;
     for (let k = 0; k < F; k++) {
-      let r = re[k];
-      let x = im[k];
-      if (ar && ai) {
-        r += ar[k];
-        x += ai[k];
-      }
-      if (rr && ri) {
-        r -= rr[k];
-        x -= ri[k];
+      let r = re[k] + da * ar[k];
+      let x = im[k] + da * ai[k];
+      if (br && bi) {
+        r += db * br[k];
+        x += db * bi[k];
       }
       const y2 = r * r + x * x;
       if (y2 < worst) worst = y2;
@@ -86,41 +94,57 @@ function improveOnGrid(problem: PlannerProblem, grid: Grid, start: readonly numb
     }
     return { worst, shortfall };
   };
-  const apply = (add: number, remove: number) => {
-    if (add >= 0) {
-      counts[add]++;
-      for (let k = 0; k < F; k++) {
-        re[k] += grid.yRe[add][k];
-        im[k] += grid.yIm[add][k];
-      }
+  const baseline = (): Score => {
+    let worst = Infinity;
+    let shortfall = 0;
+    for (let k = 0; k < F; k++) {
+      const y2 = re[k] * re[k] + im[k] * im[k];
+      if (y2 < worst) worst = y2;
+      const y = Math.sqrt(y2);
+      if (y < yt) shortfall += yt - y;
     }
-    if (remove >= 0) {
-      counts[remove]--;
-      for (let k = 0; k < F; k++) {
-        re[k] -= grid.yRe[remove][k];
-        im[k] -= grid.yIm[remove][k];
-      }
-    }
+    return { worst, shortfall };
   };
 
-  let current = scoreWith(-1, -1);
-  // Each pass takes the best single move: add one, remove one, or swap one placement for another.
+  let current = baseline();
   for (let pass = 0; pass < maxPasses; pass++) {
-    let bestMove: [number, number] | null = null;
-    let bestScore = current;
-    for (let add = -1; add < m; add++) {
-      if (add >= 0 && counts[add] >= problem.maxCount) continue;
-      for (let remove = -1; remove < m; remove++) {
-        if (remove === add || (remove >= 0 && counts[remove] === 0) || (add < 0 && remove < 0)) continue;
-        const score = scoreWith(add, remove);
+    // Candidate by candidate, each set to its best count while the others stay (coordinate ascent).
+    let moved = false;
+    for (let i = 0; i < m; i++) {
+      let bestV = counts[i];
+      let bestScore = current;
+      for (let v = 0; v <= N; v++) {
+        if (v === counts[i]) continue;
+        const score = scoreWith(i, v - counts[i], -1, 0);
         if (better(score, bestScore)) {
           bestScore = score;
-          bestMove = [add, remove];
+          bestV = v;
+        }
+      }
+      if (bestV !== counts[i]) {
+        shift(i, bestV - counts[i]);
+        current = bestScore;
+        moved = true;
+      }
+    }
+    if (moved) continue;
+    // No single count helps: the best swap of one placement for one of another part, if any.
+    let swap: [number, number] | null = null;
+    let bestScore = current;
+    for (let a = 0; a < m; a++) {
+      if (counts[a] === 0) continue;
+      for (let b = 0; b < m; b++) {
+        if (b === a || counts[b] >= N) continue;
+        const score = scoreWith(a, -1, b, 1);
+        if (better(score, bestScore)) {
+          bestScore = score;
+          swap = [a, b];
         }
       }
     }
-    if (!bestMove) break;
-    apply(bestMove[0], bestMove[1]);
+    if (!swap) break;
+    shift(swap[0], -1);
+    shift(swap[1], 1);
     current = bestScore;
   }
   return counts;

@@ -101,10 +101,13 @@ function prune(grid: Grid, counts: number[], options: StartOptions): number[] {
  * Local improvement of a feasible set: replace two placements by one, or one by a lighter one, while the
  * grid holds and the weight falls. Stops when no such move is left (or after `maxMoves`).
  */
-export function improveSet(grid: Grid, start: readonly number[], options: StartOptions, maxMoves = 64): number[] {
+export function improveSet(grid: Grid, start: readonly number[], options: StartOptions, maxMoves = 64, maxPointChecks = 2e7): number[] {
   const { weights, maxCount, t2 } = options;
   const m = weights.length;
   const counts = [...start];
+  // Moves are tried pair by pair; on a set of many distinct parts that is placed² × candidates trials, so
+  // the grid points checked are budgeted (deterministically, unlike a time limit): the start only has to be good.
+  let checks = 0;
   // The current set's admittance; a move is judged by adding and removing columns on the fly, and
   // rejected at the first grid point that fails.
   const re = new Float64Array(grid.size);
@@ -113,6 +116,7 @@ export function improveSet(grid: Grid, start: readonly number[], options: StartO
   const holds = (a: number, b: number, add: number): boolean => {
     const { yRe, yIm } = grid;
     for (let k = 0; k < grid.size; k++) {
+      checks++;
       let r = re[k] - yRe[a][k] + yRe[add][k];
       let x = im[k] - yIm[a][k] + yIm[add][k];
       if (b >= 0) {
@@ -136,6 +140,7 @@ export function improveSet(grid: Grid, start: readonly number[], options: StartO
       for (let b = a; b < placed.length; b++) {
         const ib = placed[b];
         if (a === b && counts[ia] < 2) continue;
+        if (checks > maxPointChecks) break outer;
         for (let add = 0; add < m; add++) {
           if (!(weights[add] < weights[ia] + weights[ib]) || counts[add] >= maxCount + (add === ia ? 1 : 0) + (add === ib ? 1 : 0)) continue;
           if (holds(ia, ib, add)) {

@@ -123,8 +123,9 @@ export function planDecoupling(problem: PlannerProblem): PlannerResult {
     let outcome: 'done' | 'restart' | 'limit' = 'done';
     let capacity = m * N;
 
-    // A first incumbent from the greedy start, so the search prunes from its first node.
-    const start = greedySet(grid, { weights, maxCount: N, t2 });
+    // A first incumbent from the greedy start, so the search prunes from its first node. A search that
+    // restarts with a cut keeps its incumbent and needs no new start.
+    const start = best ? null : greedySet(grid, { weights, maxCount: N, t2 });
     if (start) {
       counts.splice(0, m, ...improveSet(grid, start, { weights, maxCount: N, t2 }));
       const objective = counts.reduce((sum, n, i) => sum + n * weights[i], 0);
