@@ -45,3 +45,22 @@ export function dcResistance(element: Element): number {
     }
   }
 }
+
+/**
+ * The same tree with its impedance multiplied by `factor` at every frequency: R·k, L·k, C/k. With
+ * k = 1/N it is N identical copies in parallel (a rail branch of N placements) as one tree.
+ */
+export function scaledImpedance(element: Element, factor: number): Element {
+  if (factor === 1) return element;
+  switch (element.type) {
+    case 'R':
+      return { ...element, ohms: element.ohms * factor };
+    case 'L':
+      return { ...element, henries: element.henries * factor };
+    case 'C':
+      return { ...element, farads: element.farads / factor };
+    case 'series':
+    case 'parallel':
+      return { type: element.type, parts: element.parts.map((p) => scaledImpedance(p, factor)) };
+  }
+}
