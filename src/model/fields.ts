@@ -89,7 +89,8 @@ function isTransposition(a: string, b: string): boolean {
 const MIN_RATIO = 1e-6;
 
 function formatNumberPercent(ratio: number): string {
-  return `${Number((ratio * 100).toPrecision(6))}%`;
+  const percent = ratio * 100;
+  return percent <= 1e9 ? `${Number(percent.toPrecision(6))}%` : 'far more than 100%';
 }
 
 /** "an inductance in H, e.g. 0.45n or 0.45 nH": the expectation without nested brackets, for "(...)". */
