@@ -157,9 +157,18 @@ export function readLibraryFile(root: string, path: string, diagnostics: Diagnos
     diagnostics.error(atFile(path), `${path} is ${kindOf(entry.stats)}; expected a YAML file`);
     return undefined;
   }
+  return readTextFile(entry.real, path, diagnostics);
+}
+
+/**
+ * The text of a file named outside the library (a plan file given on the command line): the same checks of
+ * kind, size and encoding, with `shown` as the path messages print.
+ */
+export function readTextFile(absolute: string, shown: string, diagnostics: DiagnosticList): string | undefined {
+  const path = shown;
   let bytes: Buffer;
   try {
-    bytes = readRegularFile(entry.real, path);
+    bytes = readRegularFile(absolute, path);
   } catch (error) {
     diagnostics.error(atFile(path), error instanceof FileProblem ? error.message : `the file cannot be read (${codeOf(error)})`);
     return undefined;

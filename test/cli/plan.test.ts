@@ -261,6 +261,17 @@ describe('plan files, paths and misuse', () => {
     expect(failed.code).toBe(1);
     expect(failed.err.split('\n')).toContain('bad.yaml:7:30: capacitors[0].count: expected a whole number of placements from 1 to 10000, found "0"');
   });
+  it('a plan file outside plans/ is read with the checks of a library file: size and encoding', async () => {
+    const dir = tempDir();
+    writeFileSync(join(dir, 'huge.yaml'), Buffer.alloc(5 * 1024 * 1024 + 1, 0x20));
+    writeFileSync(join(dir, 'latin1.yaml'), Buffer.from([0x72, 0x61, 0x69, 0x6c, 0x3a, 0x20, 0xe9, 0x0a]));
+    const huge = await run(['plan', 'huge.yaml', '--library', fixture], dir);
+    expect(huge.code).toBe(1);
+    expect(huge.err).toBe('huge.yaml:1:1: the file is 5.0 MB; a library file may be at most 5 MB\n');
+    const latin1 = await run(['plan', 'latin1.yaml', '--library', fixture], dir);
+    expect(latin1.code).toBe(1);
+    expect(latin1.err).toBe('latin1.yaml:1:7: the file is not UTF-8 text (an invalid byte here); save it as UTF-8\n');
+  });
   it('an unknown rail is misuse (exit 2) with a suggestion', async () => {
     const { code, err } = await run(['plan', 'VDD_TSET']);
     expect(code).toBe(2);

@@ -1,6 +1,6 @@
 // zfolio plan: a rail plan checked against its target impedance, or the capacitors to meet it (--suggest).
 
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { relative, resolve, sep } from 'node:path';
 import type { PlanFigures } from '../../analysis/plan-figures.js';
 import { analysePlan } from '../../analysis/plan-figures.js';
@@ -8,6 +8,7 @@ import { suggestPlacements, unknownSelection } from '../../analysis/plan-suggest
 import { DiagnosticList, formatDiagnostic } from '../../model/diagnostics.js';
 import type { Library } from '../../model/library.js';
 import { readPlan, type Plan } from '../../model/plan.js';
+import { readTextFile } from '../../model/library-files.js';
 import { parseYamlSource } from '../../model/source.js';
 import { closest } from '../../model/suggest.js';
 import { parseQuantity } from '../../units/parse.js';
@@ -172,7 +173,7 @@ function selectPlans(library: Library, names: string[], io: CommandIO): Plan[] |
     if (existsSync(absolute) && statSync(absolute).isFile()) {
       // Messages name a file outside the library as the user can find it: relative to the current folder.
       const shown = relative(io.cwd, absolute).split(sep).join('/');
-      const loose = readLoosePlan(library, shown, readFileSync(absolute, 'utf8'), io);
+      const loose = readLoosePlan(library, absolute, shown, io);
       if (!loose) return undefined;
       out.push(loose);
       continue;
@@ -184,9 +185,11 @@ function selectPlans(library: Library, names: string[], io: CommandIO): Plan[] |
 }
 
 /** A plan file outside plans/, read against the library's parts; its problems are reported like the library's. */
-function readLoosePlan(library: Library, path: string, text: string, io: CommandIO): Plan | undefined {
+function readLoosePlan(library: Library, absolute: string, path: string, io: CommandIO): Plan | undefined {
   const diagnostics = new DiagnosticList();
-  const source = parseYamlSource(path, text, diagnostics);
+  // Checked like a library file: kind, size and encoding, so a pipe or a huge file is a message, not a hang.
+  const text = readTextFile(absolute, path, diagnostics);
+  const source = text === undefined ? undefined : parseYamlSource(path, text, diagnostics);
   const read = source && readPlan({ source, diagnostics }, library.partsById, library.settings.derating);
   for (const d of diagnostics.sorted()) io.err(formatDiagnostic(d) + '\n');
   return diagnostics.errorCount > 0 ? undefined : read;
