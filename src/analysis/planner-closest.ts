@@ -9,6 +9,7 @@ import { buildGrid, type Grid, type PlannerProblem } from './planner-grid.js';
 import { evaluateRail, type RailBranch, type RailEvaluation } from './rail.js';
 
 const MAX_ROUNDS = 16;
+const SWAP_PASSES = 4;
 
 /** The full evaluation of `counts` on the problem's rail. */
 export function evaluateCounts(problem: PlannerProblem, counts: readonly number[]): RailEvaluation {
@@ -34,11 +35,16 @@ export function closestSet(problem: PlannerProblem): { counts: number[]; evaluat
   let counts = new Array<number>(m).fill(0);
   let best = { counts: [...counts], evaluation: evaluateCounts(problem, counts) };
   const cuts: number[] = [];
-  for (let round = 0; round < MAX_ROUNDS; round++) {
-    counts = improveOnGrid(problem, buildGrid(problem, cuts), counts);
+  const consider = (next: number[]) => {
+    counts = next;
     const evaluation = evaluateCounts(problem, counts);
     if (evaluation.worst.impedanceOhm < best.evaluation.worst.impedanceOhm) best = { counts: [...counts], evaluation };
-    const f = evaluation.worst.frequencyHz;
+    return evaluation;
+  };
+  // A search over the grid, until the grid holds every peak the full evaluation finds. Swaps cost placed ×
+  // candidates trials a pass, so each round tries a few.
+  for (let round = 0; round < MAX_ROUNDS; round++) {
+    const f = consider(improveOnGrid(problem, buildGrid(problem, cuts), counts, SWAP_PASSES)).worst.frequencyHz;
     if (problem.frequencies.includes(f) || cuts.includes(f)) break;
     cuts.push(f);
   }
@@ -50,7 +56,7 @@ export function closestSet(problem: PlannerProblem): { counts: number[]; evaluat
  * lowers the total shortfall). A pass sets each candidate in turn to its best count 0..maxCount; a pass that
  * changes nothing is followed by the best swap of one placement for one of another part.
  */
-function improveOnGrid(problem: PlannerProblem, grid: Grid, start: readonly number[], maxPasses = 48): number[] {
+function improveOnGrid(problem: PlannerProblem, grid: Grid, start: readonly number[], swapPasses: number, maxPasses = 48): number[] {
   const m = problem.candidates.length;
   const N = problem.maxCount;
   const F = grid.size;
@@ -128,6 +134,7 @@ function improveOnGrid(problem: PlannerProblem, grid: Grid, start: readonly numb
       }
     }
     if (moved) continue;
+    if (swapPasses-- <= 0) break;
     // No single count helps: the best swap of one placement for one of another part, if any.
     let swap: [number, number] | null = null;
     let bestScore = current;
