@@ -11,6 +11,11 @@ export const MAX_LINES = 100_000;
 export const MAX_DEPTH = 64;
 /** Items in one list or mapping. */
 export const MAX_ITEMS = 10_000;
+/**
+ * Items of all flow lists and mappings ("[a, b]", "{a: 1}") in one file. The YAML reader takes about 15 µs
+ * an item in flow style, so this keeps a file within a couple of seconds however its items are split up.
+ */
+export const MAX_FLOW_ITEMS = 100_000;
 
 export interface LimitProblem {
   /** Character offset (UTF-16) where the limit is passed. */
@@ -20,6 +25,7 @@ export interface LimitProblem {
 
 export const depthMessage = `lists and mappings are nested more than ${MAX_DEPTH} levels deep here; a library file needs only a few levels`;
 export const widthMessage = `a list or mapping with more than ${MAX_ITEMS} items; split it up`;
+export const flowItemsMessage = `more than ${MAX_FLOW_ITEMS} items in "[...]" and "{...}" lists and mappings in one file; a library file is expected to be far smaller`;
 
 /**
  * The first limit the text passes, found without parsing: nesting of block and flow collections (block
@@ -43,6 +49,7 @@ export function firstLimitProblem(text: string): LimitProblem | undefined {
   let blockScalarIndent = -1;
   // Block nesting where the outermost open flow collection started.
   let indentsAtFlowStart = 0;
+  let flowItems = 0;
 
   while (i < n) {
     // Start of a line.
@@ -126,6 +133,7 @@ export function firstLimitProblem(text: string): LimitProblem | undefined {
         atValueStart = false;
       } else if (c === ',') {
         if (++flow[flow.length - 1] >= MAX_ITEMS) return { offset: j, message: widthMessage };
+        if (++flowItems >= MAX_FLOW_ITEMS) return { offset: j, message: flowItemsMessage };
       } else if ((c === '"' || c === "'") && isFlowValueStart(text, j)) {
         quote = c;
       }
