@@ -36,6 +36,15 @@ describe('zfolio', () => {
     expect(help.out).toMatch(/^zfolio \S+: /);
   });
 
+  it('--from and --to outside the frequencies zfolio computes with, or ambiguous, are misuse (2)', async () => {
+    const low = await run(['figures', '--from', '1e-300']);
+    expect(low.code).toBe(2);
+    expect(low.err.split('\n')[0]).toBe('zfolio figures: --from: expected a frequency from 1 mHz to 1 THz, found "1e-300"');
+    const mhz = await run(['figures', '--to', '100mhz']);
+    expect(mhz.code).toBe(2);
+    expect(mhz.err.split('\n')[0]).toBe('zfolio figures: --to: expected a frequency in Hz (e.g. 10M or 10 MHz), found "100mhz": MHz or mHz? write 100M or 100 MHz for megahertz, or 100 mHz if millihertz is meant');
+  });
+
   it('an unknown command exits 2 and names the commands there are', async () => {
     const r = await run(['chek']);
     expect(r.code).toBe(2);
