@@ -104,9 +104,12 @@ export function kernelSource(element: Element): string {
       }
       case 'parallel': {
         // Accumulate Y = G + jB; leaves add their admittance directly (G = 1/R, B = −1/(ωL), B = ωC).
+        // A branch whose impedance is exactly 0 (a series resonance hit exactly, without loss) shorts the
+        // group: Z = 0. A total admittance of exactly 0 (a lossless parallel resonance) is an open: Z = ∞.
         const g = fresh('g');
         const b = fresh('b');
-        lines.push(`let ${g} = 0, ${b} = 0;`);
+        const shorted = fresh('s');
+        lines.push(`let ${g} = 0, ${b} = 0, ${shorted} = false;`);
         for (const part of e.parts) {
           if (part.type === 'R') lines.push(`${g} += 1 / ${num(part.ohms)};`);
           else if (part.type === 'L') lines.push(`${b} -= 1 / (w * ${num(part.henries)});`);
@@ -114,13 +117,17 @@ export function kernelSource(element: Element): string {
           else {
             const [pr, pi] = emit(part);
             const d = fresh('d');
-            lines.push(`const ${d} = ${pr} * ${pr} + ${pi} * ${pi};`, `${g} += ${pr} / ${d};`, `${b} -= ${pi} / ${d};`);
+            lines.push(`const ${d} = ${pr} * ${pr} + ${pi} * ${pi};`, `if (${d} === 0) ${shorted} = true;`, `else { ${g} += ${pr} / ${d}; ${b} -= ${pi} / ${d}; }`);
           }
         }
         const d = fresh('d');
         const re = fresh('r');
         const im = fresh('x');
-        lines.push(`const ${d} = ${g} * ${g} + ${b} * ${b};`, `const ${re} = ${g} / ${d};`, `const ${im} = -${b} / ${d};`);
+        lines.push(
+          `const ${d} = ${g} * ${g} + ${b} * ${b};`,
+          `const ${re} = ${shorted} ? 0 : ${d} === 0 ? Infinity : ${g} / ${d};`,
+          `const ${im} = ${shorted} || ${d} === 0 ? 0 : -${b} / ${d};`,
+        );
         return [re, im];
       }
     }

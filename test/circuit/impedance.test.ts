@@ -147,3 +147,26 @@ describe('log sweep', () => {
     expect(() => logSweep({ fromHz: 10, toHz: 10, perDecade: 10 })).toThrow(RangeError);
   });
 });
+
+describe('exact shorts and opens inside a tree', () => {
+  // A lossless series LC at its resonance is a short (Z = 0), and a lossless parallel LC an open (Y = 0):
+  // the parallel law 1/Z must not turn them into 0/0.
+  it('a shorted branch makes its parallel group 0 Ω, never NaN (L = C = 1 at ω = 1 rad/s)', () => {
+    const tree = parallel(series(inductor(1), capacitor(1)), resistor(1));
+    const near = Array.from({ length: 4001 }, (_, i) => (1 / (2 * Math.PI)) * (1 + (i - 2000) * 1e-16));
+    for (const f of near) {
+      const [re, im] = impedanceAt(tree, f);
+      expect(Number.isNaN(re) || Number.isNaN(im)).toBe(false);
+    }
+    const shorted = near.map((f) => impedanceAt(tree, f)).filter(([re, im]) => re === 0 && im === 0);
+    expect(shorted.length).toBeGreaterThan(0);
+  });
+  it('a lossless parallel LC is an open at its resonance: |Z| = ∞, never NaN', () => {
+    const tree = series(resistor(1), parallel(series(inductor(1), resistor(0)), capacitor(1)));
+    const near = Array.from({ length: 4001 }, (_, i) => (1 / (2 * Math.PI)) * (1 + (i - 2000) * 1e-16));
+    for (const f of near) {
+      const [re, im] = impedanceAt(tree, f);
+      expect(Number.isNaN(re) || Number.isNaN(im)).toBe(false);
+    }
+  });
+});
