@@ -8,6 +8,7 @@ import type { Diagnostic } from '../model/diagnostics.js';
 import type { Part } from '../model/part.js';
 import type { MountingSource, Placement, Plan, PlanTarget } from '../model/plan.js';
 import { biasFraction, scaleCapacitance, type BiasedCapacitance } from './dc-bias.js';
+import { analyseLoadStep, type LoadStepFigures } from './load-step.js';
 import { evaluateRail, placementElement, planeElement, regulatorElement, targetImpedance, type BranchKind, type RailBranch } from './rail.js';
 
 export interface PlacedModel {
@@ -129,6 +130,8 @@ export interface PlanFigures {
   frequenciesHz: number[];
   impedanceOhm: number[];
   branches: BranchFigures[];
+  /** The load step against the ripple budget (load-step.ts); null when the plan gives no step or no branch. */
+  transient: LoadStepFigures | null;
   warnings: Diagnostic[];
 }
 
@@ -208,6 +211,7 @@ export function analysePlan(plan: Plan, perDecade: number, placements: readonly 
       count: b.count,
       impedanceOhm: Array.from(result.branchMagnitude[i]),
     })),
+    transient: analyseLoadStep(plan, branches),
     warnings: [...warnings],
   };
 }
@@ -218,5 +222,10 @@ export function planFiguresWithoutCurves(f: PlanFigures): Record<string, unknown
   delete out.frequenciesHz;
   delete out.impedanceOhm;
   out.branches = f.branches.map((b) => ({ kind: b.kind, label: b.label, partId: b.partId, count: b.count }));
+  if (f.transient) {
+    const transient: Record<string, unknown> = { ...f.transient };
+    delete transient.curves;
+    out.transient = transient;
+  }
   return out;
 }

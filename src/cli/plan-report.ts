@@ -7,6 +7,7 @@ import type { Plan } from '../model/plan.js';
 import { capacitorsYaml } from './plan-yaml.js';
 import { formatDecibels, formatEng, formatPercent } from '../units/format.js';
 import { mountingSourceText, planTargetText as targetLine } from '../folio/plan-page.js';
+import { loadStepLines } from '../folio/load-step-text.js';
 
 function resultLine(f: PlanFigures): string {
   if (f.branches.length === 0) return 'FAIL  nothing is on the rail yet';
@@ -43,6 +44,8 @@ export function describePlan(f: PlanFigures): string {
   lines.push(`  target     ${targetLine(f)}`);
   lines.push(`  band       ${formatEng(f.band.fromHz, 'Hz')} to ${formatEng(f.band.toHz, 'Hz')}, ${f.perDecade} points per decade, peaks refined`);
   lines.push(`  result     ${resultLine(f)}`);
+  const [first, ...more] = loadStepLines(f);
+  lines.push(`  load step  ${first}`, ...more.map((l) => `             ${l}`));
   lines.push(`  branches`, ...branchLines(f));
   lines.push(`  peaks`, ...peakLines(f));
   if (f.biasDerated.length > 0) lines.push(`  DC bias    capacitance at ${formatEng(f.voltageV, 'V')} from the DC-bias table of ${f.biasDerated.join(', ')}`);

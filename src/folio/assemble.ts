@@ -167,6 +167,7 @@ async function planPage(plan: Plan, library: Library, siteDir: string, charts: C
   const page = planPageData(figures, plan.source.hash, plan.notes, undefined);
   const folder = join(siteDir, 'plans', page.slug);
   page.chart = placeChart(await charts.railChart(figures, inputs), folder, timings);
+  if (page.loadStep) page.loadStep.charts = (await charts.loadStepCharts(figures, inputs)).map((c) => placeChart(c, folder, timings));
   timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(planFiguresWithoutCurves(figures)));
   return page;
 }

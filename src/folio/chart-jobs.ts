@@ -4,13 +4,15 @@ import type { PartAnalysis } from '../analysis/part-figures.js';
 import { describeComparison, renderComparisonChart } from '../charts/comparison-chart.js';
 import { PART_CHART_KINDS, renderPartCharts, type PartChartInput } from '../charts/part-charts.js';
 import { renderRailChart, type RailChartData } from '../charts/rail-chart.js';
+import { renderLoadStepCharts, type LoadStepChartData } from '../charts/load-step-chart.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact } from './chart-maker.js';
 
 export type ChartJob =
   | { type: 'part'; input: PartChartInput }
   | { type: 'comparison'; inputs: PartChartInput[]; title: string }
-  | { type: 'rail'; data: RailChartData };
+  | { type: 'rail'; data: RailChartData }
+  | { type: 'load-step'; data: LoadStepChartData };
 
 /** The part of an analysis the charts read: typed arrays and plain objects only (no YAML nodes). */
 export function chartInput(a: PartAnalysis): PartChartInput {
@@ -33,6 +35,13 @@ export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {
     return PART_CHART_KINDS.map((key) => ({ key, ...charts[key] }));
   }
   if (job.type === 'rail') return [{ key: 'rail', ...(await renderRailChart(job.data)) }];
+  if (job.type === 'load-step') {
+    const charts = await renderLoadStepCharts(job.data);
+    return [
+      { key: 'load-step', ...charts.voltage },
+      { key: 'load-share', ...charts.share },
+    ];
+  }
   const chart = await renderComparisonChart(job.inputs, describeComparison(job.inputs, job.title));
   return [{ key: 'overlay', ...chart }];
 }
@@ -47,5 +56,23 @@ export function railChartData(f: PlanFigures): RailChartData {
     branches: f.branches.map((b) => ({ label: b.label, ohm: b.impedanceOhm })),
     peaks: f.peaks.map((p) => ({ frequencyHz: p.frequencyHz, impedanceOhm: p.impedanceOhm })),
     band: { ...f.band },
+  };
+}
+
+/** What the load-step charts draw of an analysed plan; null when it has no load step. */
+export function loadStepChartData(f: PlanFigures): LoadStepChartData | null {
+  const t = f.transient;
+  if (!t) return null;
+  return {
+    rail: f.rail,
+    timesS: t.curves.timesS,
+    voltageV: t.curves.voltageV,
+    budgetV: t.budgetV,
+    finalV: t.finalV,
+    riseS: t.riseS,
+    stepA: t.stepA,
+    droop: { atS: t.atS, droopV: t.droopV },
+    settleS: t.settleS,
+    branches: f.branches.map((b, i) => ({ label: b.label, share: t.curves.shares[i] })),
   };
 }

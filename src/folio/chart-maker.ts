@@ -20,4 +20,6 @@ export interface ChartMaker {
   comparisonChart(analyses: PartAnalysis[], title: string): Promise<ChartArtifact>;
   /** `inputsKey` names everything the plan's figures came from (file hashes), for caching. */
   railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact>;
+  /** The load-step charts of a plan (voltage, then branch currents); none when it has no load step. */
+  loadStepCharts(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact[]>;
 }

@@ -13,7 +13,7 @@ import { Worker } from 'node:worker_threads';
 import { gunzipSync, gzipSync } from 'node:zlib';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { codeKey } from './reuse.js';
-import { chartInput, railChartData, renderChartJob, type ChartJob } from './chart-jobs.js';
+import { chartInput, loadStepChartData, railChartData, renderChartJob, type ChartJob } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 
@@ -94,6 +94,12 @@ export class ChartPool implements ChartMaker {
     const key = this.key('rail', inputsKey);
     const [chart] = await this.cached(key, () => this.run({ type: 'rail', data: railChartData(figures) }));
     return chart;
+  }
+
+  async loadStepCharts(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact[]> {
+    const data = loadStepChartData(figures);
+    if (!data) return [];
+    return this.cached(this.key('load-step', inputsKey), () => this.run({ type: 'load-step', data }));
   }
 
   /** Stop the workers and drop cache entries this build did not use, so the cache never grows stale. */

@@ -7,6 +7,7 @@ import { formatDiagnostic } from '../model/diagnostics.js';
 import { formatDecibels, formatEng, formatNumber, formatPercent } from '../units/format.js';
 import type { Row } from './part-page.js';
 import type { ChartOnPage } from './site-data.js';
+import { LOAD_STEP_CAUTION, NO_LOAD_STEP, loadStepFacts, loadStepMethod, loadStepVerdict } from './load-step-text.js';
 
 export interface PlanPageData {
   slug: string;
@@ -23,6 +24,20 @@ export interface PlanPageData {
   warnings: string[];
   biasNote: string;
   chart?: ChartOnPage;
+  /** The load step against the ripple budget, beside the impedance verdict; null without a step. */
+  loadStep: LoadStepPageData | null;
+  /** Why there is no load step, when there is none. */
+  loadStepNote: string;
+}
+
+export interface LoadStepPageData {
+  pass: boolean;
+  verdict: string;
+  facts: Row[];
+  method: string;
+  caution: string;
+  /** v(t) with the budget, then each branch's share of the load current. */
+  charts: ChartOnPage[];
 }
 
 /** "4.5 mΩ = 0.9 V × 3% / 6 A" (Smith et al., 1999), or "4.5 mΩ as given". */
@@ -107,5 +122,7 @@ export function planPageData(f: PlanFigures, sourceHash: string, notes: string |
         ? `Capacitances at ${formatEng(f.voltageV, 'V')} come from the DC-bias tables of ${f.biasDerated.join(', ')} (linear between points, from 100% at 0 V unless the table gives 0 V${f.placements.some((p) => p.biasExtrapolated) ? '; above a table\'s last point its last fraction is held, which is likely optimistic' : ''}); other parts count at nominal.`
         : 'No placed part has a DC-bias table: every capacitance counts at nominal.',
     chart,
+    loadStep: f.transient ? { pass: f.transient.pass, verdict: loadStepVerdict(f), facts: loadStepFacts(f), method: loadStepMethod(f), caution: LOAD_STEP_CAUTION, charts: [] } : null,
+    loadStepNote: f.transient ? '' : `${NO_LOAD_STEP[0].toUpperCase()}${NO_LOAD_STEP.slice(1)} ("step" beside "target" adds one).`,
   };
 }

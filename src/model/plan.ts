@@ -9,7 +9,8 @@ import { MAX_ID_LENGTH } from './page-names.js';
 import type { SourceFile } from './source.js';
 import { closest } from './suggest.js';
 
-export type PlanTarget = { kind: 'explicit'; ohms: number } | { kind: 'ripple'; ripple: number; stepA: number };
+/** The target impedance, given or from ripple and step. An explicit target may come with a step for the load-step check. */
+export type PlanTarget = { kind: 'explicit'; ohms: number; stepA?: number } | { kind: 'ripple'; ripple: number; stepA: number };
 
 /**
  * Where a placement's mounting inductance comes from, most specific first: the plan entry's own
@@ -44,6 +45,10 @@ export interface Plan {
   mountingByPackage: Readonly<Record<string, number>>;
   regulator?: { rOhm?: number; lH?: number };
   plane?: { cF: number; rOhm?: number };
+  /** The load step's edge time, s (`rise`); absent: 0.35/band.to. */
+  riseS?: number;
+  /** How long the load-step response is followed, s (`duration`); absent: from the rail's slowest pole. */
+  durationS?: number;
   placements: Placement[];
   /** Warnings about this plan (also among the library's diagnostics), for its page. */
   warnings: Diagnostic[];
@@ -52,7 +57,7 @@ export interface Plan {
   at: SourcePosition;
 }
 
-const PLAN_FIELDS = ['rail', 'title', 'notes', 'voltage', 'ripple', 'step', 'target', 'band', 'mounting', 'mounting-by-package', 'regulator', 'plane', 'capacitors'];
+const PLAN_FIELDS = ['rail', 'title', 'notes', 'voltage', 'ripple', 'step', 'target', 'band', 'mounting', 'mounting-by-package', 'regulator', 'plane', 'capacitors', 'rise', 'duration'];
 const ENTRY_FIELDS = ['part', 'count', 'mounting'];
 
 export type VoltageStress = 'ok' | 'unrated' | 'above-derating' | 'over-rating';
@@ -122,6 +127,14 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
     if (cF !== undefined) plane = { cF, rOhm: pl.quantity('r', 'resistance') };
   }
 
+  const riseS = root.quantity('rise', 'time');
+  const durationS = root.quantity('duration', 'time');
+  if (target && target.stepA === undefined) {
+    for (const name of ['rise', 'duration']) {
+      if (root.has(name)) root.error(name, `a load step needs its current: give "step" (ΔI, e.g. step: 2A) with the target`);
+    }
+  }
+
   const placements: Placement[] = [];
   const list = root.seq('capacitors');
   list?.items.forEach((item, i) => {
@@ -167,6 +180,8 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
     mountingByPackage,
     regulator,
     plane,
+    riseS,
+    durationS,
     placements,
     warnings,
     source: ctx.source,
@@ -174,17 +189,22 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
   };
 }
 
-/** Either an explicit target impedance, or ripple and step current for Z_t = V·ripple/ΔI; not both, not neither. */
+/**
+ * Either an explicit target impedance, or ripple and step current for Z_t = V·ripple/ΔI; not both, not
+ * neither. An explicit target may come with a step (for the load-step check, whose budget is then target × step).
+ */
 function readTarget(root: Fields): PlanTarget | undefined {
   const explicit = root.has('target');
   const fromRipple = root.has('ripple') || root.has('step');
-  if (explicit && fromRipple) {
+  if (explicit && root.has('ripple')) {
     root.error('target', `give either "target" or "ripple" and "step" (Z_t = V·ripple/ΔI), not both`);
     return undefined;
   }
   if (explicit) {
     const ohms = root.quantity('target', 'resistance');
-    return ohms === undefined ? undefined : { kind: 'explicit', ohms };
+    const stepA = root.has('step') ? root.quantity('step', 'current') : undefined;
+    if (ohms === undefined || (root.has('step') && stepA === undefined)) return undefined;
+    return stepA === undefined ? { kind: 'explicit', ohms } : { kind: 'explicit', ohms, stepA };
   }
   if (!fromRipple) {
     root.error(undefined, 'missing the target impedance: give "ripple" and "step" (Z_t = V·ripple/ΔI, e.g. ripple: 3% and step: 6A) or "target" (e.g. target: 4.5m)');

@@ -27,6 +27,7 @@ const EXAMPLES: Readonly<Record<Dimension, string>> = {
   voltage: '16V',
   current: '2A or 500 mA',
   power: '0.25W or 250 mW',
+  time: '10n or 10 ns',
   ratio: '10% or 0.1',
 };
 

@@ -8,6 +8,7 @@ export type Dimension =
   | 'voltage'
   | 'current'
   | 'power'
+  | 'time'
   | 'ratio';
 
 export interface DimensionInfo {
@@ -28,6 +29,7 @@ export const DIMENSIONS: Readonly<Record<Dimension, DimensionInfo>> = {
   voltage: { symbol: 'V', aliases: [], noun: 'a voltage' },
   current: { symbol: 'A', aliases: [], noun: 'a current' },
   power: { symbol: 'W', aliases: [], noun: 'a power' },
+  time: { symbol: 's', aliases: [], noun: 'a time' },
   ratio: { symbol: '', aliases: [], noun: 'a ratio' },
 };
 

@@ -25,6 +25,7 @@ export const VALUE_RANGES: Readonly<Partial<Record<Dimension, ValueRange>>> = {
   voltage: { min: 1e-6, max: 1e6 }, // 1 µV … 1 MV
   current: { min: 1e-9, max: 1e6 }, // 1 nA … 1 MA
   power: { min: 1e-9, max: 1e9 }, // 1 nW … 1 GW
+  time: { min: 1e-15, max: 1e3 }, // 1 fs … 1000 s (a load step's edge and how long it is followed)
 };
 
 /** "from 1 aF to 10 kF" for messages and the README. */

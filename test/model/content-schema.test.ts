@@ -141,7 +141,9 @@ const WRONG: WrongFile[] = [
   { kind: 'plan', what: 'a bad rail name', text: PLAN.replace('rail: VDD_T', 'rail: VDD T'), keyword: 'pattern', where: '/rail' },
   { kind: 'plan', what: 'a voltage in amperes', text: PLAN.replace('voltage: 1.0V', 'voltage: 1.0A'), keyword: 'pattern', where: '/voltage' },
   { kind: 'plan', what: 'a ripple of 100% or more', text: PLAN.replace('ripple: 3%', 'ripple: 120%'), keyword: 'pattern', where: '/ripple' },
-  { kind: 'plan', what: 'a step without a ripple', text: PLAN.replace('ripple: 3%\n', ''), keyword: 'dependencies', param: ['missingProperty', 'ripple'] },
+  { kind: 'plan', what: 'a step without a ripple or a target', text: PLAN.replace('ripple: 3%\n', ''), keyword: 'required', param: ['missingProperty', 'ripple'] },
+  { kind: 'plan', what: 'a rise time in volts', text: PLAN + 'rise: 5V\n', keyword: 'pattern', where: '/rise' },
+  { kind: 'plan', what: 'a rise time without a step', text: PLAN.replace('ripple: 3%\nstep: 2A\n', 'target: 15m\nrise: 5n\n'), keyword: 'dependencies', param: ['missingProperty', 'step'] },
   { kind: 'plan', what: 'an explicit target as well as ripple and step', text: PLAN + 'target: 10m\n', keyword: 'false schema', where: '/ripple' },
   { kind: 'plan', what: 'no target at all', text: PLAN.replace('ripple: 3%\nstep: 2A\n', ''), keyword: 'anyOf', where: '' },
   { kind: 'plan', what: 'a band without its upper end', text: PLAN.replace('band: {from: 100k, to: 40M}', 'band: {from: 100k}'), keyword: 'required', param: ['missingProperty', 'to'] },
@@ -174,6 +176,7 @@ const WRONG: WrongFile[] = [
 describe('wrong comparison, plan and review files are rejected by the schema and by zfolio alike', () => {
   it.each([
     ['plan', PLAN],
+    ['plan', PLAN.replace('ripple: 3%\n', 'target: 15m\n') + 'rise: 5ns\nduration: 20u\n'],
     ['comparison', COMPARISON_BY_ID],
     ['comparison', COMPARISON_BY_FILTER],
     ['review', REVIEW],

@@ -59,6 +59,13 @@ describe('a good plan', () => {
     expect(messages).toEqual([]);
     expect(plan!.target).toEqual({ kind: 'explicit', ohms: 4.5e-3 });
   });
+  it('reads the load step: rise and duration in seconds, and a step beside an explicit target', () => {
+    const { plan, messages } = read(planText({ ripple: '', target: '4.5m', rise: '2.5ns', duration: '40u' }));
+    expect(messages).toEqual([]);
+    expect(plan).toMatchObject({ target: { kind: 'explicit', ohms: 4.5e-3, stepA: 2 }, riseS: 2.5e-9, durationS: 40e-6 });
+    const plain = read(planText()).plan!;
+    expect([plain.riseS, plain.durationS]).toEqual([undefined, undefined]);
+  });
   it('accepts a network that behaves as a capacitor', () => {
     const { plan, messages } = read(planText({ capacitors: '\n  - {part: RT-N-10U, count: 1}' }));
     expect(messages).toEqual([]);
@@ -84,6 +91,9 @@ describe('bad plan files, each with its exact message', () => {
     ['a misspelt field', { mounting: '', mountng: '0.3nH' }, 'plans/bad.yaml:8:1: unknown field "mountng"; did you mean "mounting"?'],
     ['a regulator with neither r nor l', { regulator: '{}' }, 'plans/bad.yaml:9:12: regulator: expected its output resistance "r", inductance "l" or both, found neither'],
     ['a missing band', { band: '' }, 'plans/bad.yaml:1:1: missing field "band"'],
+    ['a rise time in volts', { rise: '5V' }, 'plans/bad.yaml:9:7: rise: expected a time in s (e.g. 10n or 10 ns), found "5V" (a voltage, in V)'],
+    ['a negative duration', { duration: '-1u' }, 'plans/bad.yaml:9:11: duration: expected a time greater than zero, found "-1u"'],
+    ['a rise time with a target and no step', { ripple: '', step: '', target: '4m', rise: '5n' }, 'plans/bad.yaml:8:7: rise: a load step needs its current: give "step" (ΔI, e.g. step: 2A) with the target'],
   ];
   it.each(cases)('%s', (_, over, expected) => {
     const { plan, messages } = read(planText(over));

@@ -29,7 +29,10 @@ placed capacitor in parallel, each capacitor at its capacitance under the rail's
 DC voltage and in series with its mounting inductance (the entry's "mounting",
 else the part file's, else the plan's "mounting-by-package", else the plan's
 "mounting"). Prints pass or fail, the worst margin and where, and every
-anti-resonance peak. With no RAIL or FILE, every plan in the library. A FILE
+anti-resonance peak. Then the load step: the load current ramping by "step" over
+"rise" (default 0.35 / band top), the rail's deepest dip and when, its final
+offset and settling time, and pass or fail against the ripple budget (V × ripple,
+or target × step), beside the impedance verdict. With no RAIL or FILE, every plan in the library. A FILE
 outside plans/ is read as a plan too.
 
 With --suggest, chooses how many of each library capacitor to place (0 to N each)
@@ -63,9 +66,10 @@ Options:
   -l, --library DIR   the library folder (default: the current folder)
   -h, --help          show this help
 
-Exit status: 0 when every plan checked passes (or --suggest finds a set that
-meets the target with the margin asked for), 3 when a plan fails its target
-(or no set of candidates meets it), 1 when the library or plan has errors,
+Exit status: 0 when every plan checked meets its target impedance (or --suggest
+finds a set that meets the target with the margin asked for), 3 when a plan
+fails its target (or no set of candidates meets it); the load-step verdict is
+printed beside the impedance verdict and does not change the status, 1 when the library or plan has errors,
 2 on a wrong command line.
 `;
 
@@ -133,6 +137,7 @@ export function plan(args: string[], io: CommandIO): number {
     const out = positionals.length === 1 ? planJson(figures[0]) : figures.map(planJson);
     io.out(JSON.stringify(out, null, 2) + '\n');
   } else io.out(figures.map(describePlan).join('\n'));
+  // The exit status follows the target impedance, as --suggest does; the load-step verdict is printed beside it.
   return figures.every((f) => f.pass) ? EXIT_OK : EXIT_TARGET_MISSED;
 }
 
