@@ -43,6 +43,12 @@ export interface LoadStepFigures {
   pass: boolean;
   /** Largest relative error of the partial-fraction fit of Z(jω) (a check on the method). */
   fitError: number;
+  /**
+   * The response was computed to the method's accuracy (fit within 1e-6, no growing pole). When false —
+   * element values so far apart that the rail's poles cannot be found accurately — there is no verdict
+   * (pass is false) and no curves.
+   */
+  resolved: boolean;
   curves: LoadStepCurves;
 }
 
@@ -66,7 +72,7 @@ export function analyseLoadStep(plan: LoadStepPlan, branches: readonly RailBranc
   const t = railTransient(branches, { stepA, riseS, durationS: plan.durationS, range: plan.band, collapseV: plan.voltageV });
   const marked = [t.droopAtS, t.overshootAtS, t.settleS, riseS].filter((x): x is number => x !== null && x > 0);
   const timesS = curveTimes(riseS / 10, t.durationS, marked);
-  const { voltage, shares } = transientCurves(t, timesS);
+  const { voltage, shares } = t.resolved ? transientCurves(t, timesS) : { voltage: new Float64Array(0), shares: [] };
   return {
     stepA,
     riseS,
@@ -82,9 +88,10 @@ export function analyseLoadStep(plan: LoadStepPlan, branches: readonly RailBranc
     dcPath: t.dcPath,
     budgetV: budget.budgetV,
     budgetFrom: budget.from,
-    pass: t.dcPath && Math.max(t.droopV, t.overshootV) <= budget.budgetV,
+    pass: t.resolved && t.dcPath && Math.max(t.droopV, t.overshootV) <= budget.budgetV,
     fitError: t.fitError,
-    curves: { timesS, voltageV: Array.from(voltage), shares: shares.map((s) => Array.from(s)) },
+    resolved: t.resolved,
+    curves: t.resolved ? { timesS, voltageV: Array.from(voltage), shares: shares.map((s) => Array.from(s)) } : { timesS: [], voltageV: [], shares: [] },
   };
 }
 

@@ -61,10 +61,19 @@ export interface RailTransient {
   fitError: number;
   /** Largest error of a fitted branch share H_b(jω), per ampere. */
   shareFitError: number;
+  /**
+   * The partial fractions reproduce Z(jω) and every share to FIT_TOLERANCE, no pole lies in the right
+   * half-plane (a passive network has none; one found is a failure of the eigenvalue solver on extreme
+   * values) and every figure is finite. When false, the figures above are not to be trusted.
+   */
+  resolved: boolean;
   impedance: PartialFractions;
   /** Each branch's share of the load current, H_b = Y_b·Z, in branch order. */
   shares: PartialFractions[];
 }
+
+/** The largest fit error (relative for Z, per ampere for the shares) a resolved response may have. */
+export const FIT_TOLERANCE = 1e-6;
 
 /** The part of the deviation that counts as settled: within 10% of the largest (common practice). */
 export const SETTLE_FRACTION = 0.1;
@@ -118,6 +127,8 @@ export function railTransient(branches: readonly TransientBranch[], request: Loa
   const droop = refinedExtremum(times, v, -1, voltageAt, slopeAt);
   const peak = refinedExtremum(times, v, 1, voltageAt, slopeAt);
   const finalV = dcPath ? -dcOhm * stepA : null;
+  const growing = impedance.poles.some((p) => p.re > 1e-9 * Math.hypot(p.re, p.im));
+  const resolved = impedanceError <= FIT_TOLERANCE && shareError <= FIT_TOLERANCE && !growing && [droop.value, peak.value, droop.t].every(Number.isFinite);
   return {
     stepA,
     riseS,
@@ -132,6 +143,7 @@ export function railTransient(branches: readonly TransientBranch[], request: Loa
     settleS: finalV === null ? null : settleTime(times, v, finalV, voltageAt),
     fitError: impedanceError,
     shareFitError: shareError,
+    resolved,
     impedance,
     shares,
   };

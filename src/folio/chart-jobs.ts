@@ -62,7 +62,7 @@ export function railChartData(f: PlanFigures): RailChartData {
 /** What the load-step charts draw of an analysed plan; null when it has no load step. */
 export function loadStepChartData(f: PlanFigures): LoadStepChartData | null {
   const t = f.transient;
-  if (!t) return null;
+  if (!t || !t.resolved) return null;
   return {
     rail: f.rail,
     timesS: t.curves.timesS,

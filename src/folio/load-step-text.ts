@@ -8,9 +8,11 @@ import type { Row } from './part-page.js';
 
 type Figures = Pick<PlanFigures, 'transient' | 'target' | 'voltageV' | 'targetOhm'>;
 
-/** "PASS", "FAIL", or null when there is no load step to judge. */
-export function loadStepStatus(f: Figures): 'PASS' | 'FAIL' | null {
-  return f.transient ? (f.transient.pass ? 'PASS' : 'FAIL') : null;
+/** "PASS", "FAIL", "NO VERDICT" (not computed to its accuracy), or null when there is no load step. */
+export function loadStepStatus(f: Figures): 'PASS' | 'FAIL' | 'NO VERDICT' | null {
+  const t = f.transient;
+  if (!t) return null;
+  return !t.resolved ? 'NO VERDICT' : t.pass ? 'PASS' : 'FAIL';
 }
 
 /** Why there is no load step: a plan with an explicit target and no step. */
@@ -20,6 +22,7 @@ export const NO_LOAD_STEP = 'no load step: the plan gives its target without a s
 export function loadStepVerdict(f: Figures): string {
   const t = f.transient;
   if (!t) return NO_LOAD_STEP;
+  if (!t.resolved) return `not computed: the rail's element values lie too far apart for its poles to be found to the method's accuracy (the impedance fit misses by ${t.fitError.toExponential(1)}); check the plan's values`;
   const dip = `dips ${formatEng(t.droopV, 'V')} at ${formatEng(t.atS, 's')} (budget ${formatEng(t.budgetV, 'V')})`;
   if (!t.dcPath) return `${dip} and keeps falling: no DC path holds the rail (no regulator, or its offset exceeds the rail voltage)`;
   const over = t.overshootV > t.budgetV ? `, rises ${formatEng(t.overshootV, 'V')} above it at ${formatEng(t.overshootAtS ?? NaN, 's')}` : '';
@@ -41,7 +44,7 @@ export function budgetText(f: Figures): string {
 /** The rows of the plan page's load-step table. */
 export function loadStepFacts(f: Figures): Row[] {
   const t = f.transient;
-  if (!t) return [];
+  if (!t || !t.resolved) return [];
   const rows: Row[] = [
     { label: 'Load step', value: `${formatEng(t.stepA, 'A')}, ramped over ${formatEng(t.riseS, 's')}`, note: t.riseFrom === 'band' ? 'rise time 0.35 / band top (common practice)' : 'rise time from the plan' },
     { label: 'Ripple budget', value: budgetText(f), note: 'either way from the DC value' },
@@ -64,6 +67,7 @@ export function loadStepLines(f: Figures): string[] {
   const status = loadStepStatus(f);
   if (!t || !status) return [NO_LOAD_STEP];
   const lines = [`${status}  ${loadStepVerdict(f)}`];
+  if (!t.resolved) return lines;
   lines.push(`step ${formatEng(t.stepA, 'A')} over ${formatEng(t.riseS, 's')}${t.riseFrom === 'band' ? ' (0.35 / band top)' : ''}, budget ${budgetText(f)}`);
   const rise = t.overshootAtS === null ? 'no rise above the DC value' : `highest rise ${formatEng(t.overshootV, 'V')} at ${formatEng(t.overshootAtS, 's')}`;
   const final = t.dcPath ? `final offset ${formatEng(t.finalV ?? NaN, 'V')}` : 'no final value';
@@ -74,7 +78,7 @@ export function loadStepLines(f: Figures): string[] {
 /** How the response was found, for the page: the method and its checked accuracy. */
 export function loadStepMethod(f: Figures): string {
   const t = f.transient;
-  if (!t) return '';
+  if (!t || !t.resolved) return '';
   return (
     'Computed exactly for the same linear rail model as the impedance: its impedance Z(s) written in partial fractions on its ' +
     'natural frequencies, and each term\'s response to the ramp in closed form, so nanosecond ringing and microsecond settling ' +

@@ -7,7 +7,7 @@ import { formatDiagnostic } from '../model/diagnostics.js';
 import { formatDecibels, formatEng, formatNumber, formatPercent } from '../units/format.js';
 import type { Row } from './part-page.js';
 import type { ChartOnPage } from './site-data.js';
-import { LOAD_STEP_CAUTION, NO_LOAD_STEP, loadStepFacts, loadStepMethod, loadStepVerdict } from './load-step-text.js';
+import { LOAD_STEP_CAUTION, NO_LOAD_STEP, loadStepFacts, loadStepMethod, loadStepStatus, loadStepVerdict } from './load-step-text.js';
 
 export interface PlanPageData {
   slug: string;
@@ -32,6 +32,8 @@ export interface PlanPageData {
 
 export interface LoadStepPageData {
   pass: boolean;
+  /** PASS, FAIL or NO VERDICT. */
+  status: string;
   verdict: string;
   facts: Row[];
   method: string;
@@ -122,7 +124,7 @@ export function planPageData(f: PlanFigures, sourceHash: string, notes: string |
         ? `Capacitances at ${formatEng(f.voltageV, 'V')} come from the DC-bias tables of ${f.biasDerated.join(', ')} (linear between points, from 100% at 0 V unless the table gives 0 V${f.placements.some((p) => p.biasExtrapolated) ? '; above a table\'s last point its last fraction is held, which is likely optimistic' : ''}); other parts count at nominal.`
         : 'No placed part has a DC-bias table: every capacitance counts at nominal.',
     chart,
-    loadStep: f.transient ? { pass: f.transient.pass, verdict: loadStepVerdict(f), facts: loadStepFacts(f), method: loadStepMethod(f), caution: LOAD_STEP_CAUTION, charts: [] } : null,
+    loadStep: f.transient ? { pass: f.transient.pass, status: loadStepStatus(f) ?? '', verdict: loadStepVerdict(f), facts: loadStepFacts(f), method: loadStepMethod(f), caution: LOAD_STEP_CAUTION, charts: [] } : null,
     loadStepNote: f.transient ? '' : `${NO_LOAD_STEP[0].toUpperCase()}${NO_LOAD_STEP.slice(1)} ("step" beside "target" adds one).`,
   };
 }

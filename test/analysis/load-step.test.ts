@@ -95,3 +95,16 @@ describe('from a plan file', () => {
     expect(t).toMatchObject({ budgetV: 0.02, budgetFrom: 'target', riseS: 5e-9, durationS: 50e-6, durationFrom: 'plan' });
   });
 });
+
+describe('an unresolved response', () => {
+  it('gives no verdict and no curves', () => {
+    const t = analyseLoadStep({ voltageV: 1, target: { kind: 'ripple', ripple: 0.05, stepA: 2 }, band: { fromHz: 1e3, toHz: 1e8 }, riseS: undefined, durationS: undefined }, [
+      { kind: 'regulator', label: 'regulator', element: series(resistor(1e-9), inductor(1e6)), count: 1 },
+      { kind: 'capacitor', label: '7 × C', element: series(resistor(1), inductor(1e-3), capacitor(1)), count: 7 },
+      { kind: 'plane', label: 'plane', element: series(capacitor(1e-12), resistor(1)), count: 1 },
+    ])!;
+    expect(t.resolved).toBe(false);
+    expect(t.pass).toBe(false);
+    expect(t.curves.timesS).toEqual([]);
+  });
+});

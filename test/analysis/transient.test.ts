@@ -211,3 +211,44 @@ function goldenMinimum(f: (t: number) => number, a: number, b: number): { t: num
   const t = (lo + hi) / 2;
   return { t, value: f(t) };
 }
+
+describe('rails of realistic values (seeded, invented)', () => {
+  it('are resolved: the partial fractions reproduce Z(jω) of complex.js at random frequencies to 1e-8', async () => {
+    const { mulberry32 } = await import('../../bench/generate.js');
+    const { partialFractionsAt } = await import('../../src/analysis/partial-fractions.js');
+    const { referenceRailZ } = await import('../reference/impedance.js');
+    const random = mulberry32(2026);
+    const within = (a: number, b: number) => 10 ** (Math.log10(a) + random() * Math.log10(b / a));
+    for (let n = 0; n < 25; n++) {
+      // Regulator 0.1–10 mΩ and 1–100 nH, a plane of 1–100 nF, 1–12 capacitor branches of 1 nF–1 mF with
+      // ESR 1–100 mΩ, ESL + mounting 0.1–3 nH, leakage 1 MΩ–10 GΩ, 1–32 placements (common practice ranges).
+      const branches: TransientBranch[] = [{ element: series(resistor(within(1e-4, 1e-2)), inductor(within(1e-9, 1e-7))), count: 1 }];
+      if (random() < 0.8) branches.push({ element: series(capacitor(within(1e-9, 1e-7)), resistor(within(5e-4, 5e-3))), count: 1 });
+      const k = 1 + Math.floor(random() * 12);
+      for (let j = 0; j < k; j++) {
+        branches.push({ element: series(resistor(within(1e-3, 0.1)), inductor(within(1e-10, 3e-9)), parallel(capacitor(within(1e-9, 1e-3)), resistor(within(1e6, 1e10)))), count: 1 + Math.floor(random() * 32) });
+      }
+      const result = railTransient(branches, { stepA: 2, riseS: within(1e-9, 1e-7), range: { fromHz: 1e4, toHz: 1e8 } });
+      expect(result.resolved).toBe(true);
+      for (let m = 0; m < 20; m++) {
+        const f = within(1, 1e10);
+        const exact = referenceRailZ(branches, f);
+        const [re, im] = partialFractionsAt(result.impedance, 2 * Math.PI * f);
+        expect(Math.hypot(re - exact.re, im - exact.im) / exact.abs()).toBeLessThan(1e-8);
+      }
+    }
+  });
+
+  it('values too far apart for the poles to be found are not resolved, and say so', () => {
+    // A 1 MH regulator beside a 1 F capacitor with 1 PΩ leakage and a 1 pF plane: far outside any rail.
+    const result = railTransient(
+      [
+        { element: series(resistor(1e-9), inductor(1e6)), count: 1 },
+        { element: series(resistor(1), inductor(1e-3), parallel(capacitor(1), resistor(1e15))), count: 7 },
+        { element: series(capacitor(1e-12), resistor(1)), count: 1 },
+      ],
+      { stepA: 2, riseS: 3.5e-9, range: { fromHz: 1e3, toHz: 1e8 } },
+    );
+    expect(result.resolved).toBe(false);
+  });
+});

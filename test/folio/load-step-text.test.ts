@@ -44,3 +44,22 @@ describe('load-step text', () => {
     expect(page.loadStepNote).toBe('No load step: the plan gives its target without a step current ("step" beside "target" adds one).');
   });
 });
+
+describe('a response not computed to its accuracy', () => {
+  it('is NO VERDICT, with the reason, and no facts', async () => {
+    const { analyseLoadStep } = await import('../../src/analysis/load-step.js');
+    const { capacitor, inductor, resistor, series } = await import('../../src/circuit/element.js');
+    const { loadStepStatus, loadStepLines } = await import('../../src/folio/load-step-text.js');
+    const target = { kind: 'ripple' as const, ripple: 0.05, stepA: 2 };
+    const transient = analyseLoadStep({ voltageV: 1, target, band: { fromHz: 1e3, toHz: 1e8 }, riseS: undefined, durationS: undefined }, [
+      { kind: 'regulator', label: 'regulator', element: series(resistor(1e-9), inductor(1e6)), count: 1 },
+      { kind: 'capacitor', label: '7 × C', element: series(resistor(1), inductor(1e-3), capacitor(1)), count: 7 },
+      { kind: 'plane', label: 'plane', element: series(capacitor(1e-12), resistor(1)), count: 1 },
+    ]);
+    const f = { transient, target, voltageV: 1, targetOhm: 0.025 };
+    expect(loadStepStatus(f)).toBe('NO VERDICT');
+    expect(loadStepVerdict(f)).toMatch(/^not computed: the rail's element values lie too far apart/);
+    expect(loadStepFacts(f)).toEqual([]);
+    expect(loadStepLines(f)).toHaveLength(1);
+  });
+});
