@@ -162,11 +162,22 @@ export function railBranches(plan: Plan, placements: readonly Placement[]): { br
   return { branches, figures };
 }
 
+export interface AnalyseOptions {
+  /** Compute the load step (default true); callers that read only the impedance verdict skip it. */
+  loadStep?: boolean;
+}
+
 /**
  * Analyse a plan (or the plan with other `placements`) over its band at `perDecade` points per decade.
  * `warnings` are the plan's own unless other placements bring theirs.
  */
-export function analysePlan(plan: Plan, perDecade: number, placements: readonly Placement[] = plan.placements, warnings: readonly Diagnostic[] = plan.warnings): PlanFigures {
+export function analysePlan(
+  plan: Plan,
+  perDecade: number,
+  placements: readonly Placement[] = plan.placements,
+  warnings: readonly Diagnostic[] = plan.warnings,
+  options: AnalyseOptions = {},
+): PlanFigures {
   const targetOhm = planTargetOhm(plan.voltageV, plan.target);
   const frequencies = planSweep(plan, perDecade);
   const { branches, figures } = railBranches(plan, placements);
@@ -211,7 +222,7 @@ export function analysePlan(plan: Plan, perDecade: number, placements: readonly 
       count: b.count,
       impedanceOhm: Array.from(result.branchMagnitude[i]),
     })),
-    transient: analyseLoadStep(plan, branches),
+    transient: options.loadStep === false ? null : analyseLoadStep(plan, branches),
     warnings: [...warnings],
   };
 }

@@ -15,7 +15,8 @@ export function railVerdicts(library: Library): ReadonlyMap<string, RailVerdict>
   if (known) return known;
   const verdicts = new Map<string, RailVerdict>();
   for (const plan of library.plans) {
-    const f = analysePlan(plan, library.settings.sweep.perDecade);
+    // The impedance verdict only: the load step is not read here.
+    const f = analysePlan(plan, library.settings.sweep.perDecade, plan.placements, plan.warnings, { loadStep: false });
     verdicts.set(plan.rail, { rail: plan.rail, pass: f.pass, worstMarginDb: f.worstMarginDb, worstFrequencyHz: f.worstFrequencyHz, file: plan.source.path });
   }
   verdictsByLibrary.set(library, verdicts);
