@@ -1,9 +1,9 @@
-// The checks a review needs the analysis for: each rail's verdict, as its plan page states it, and a
-// warning wherever a review accepts a rail that fails its target.
+// What a review's checks need from the analysis: each rail's verdict, as its plan page states it. The
+// warnings themselves (a review accepting a rail that fails its target) are the model's:
+// reviewWarnings(library.reviews, () => railVerdicts(library)) in src/model/review-consistency.ts.
 
-import type { Diagnostic } from '../model/diagnostics.js';
 import type { Library } from '../model/library.js';
-import { acceptedFailures, reviewStatements, type RailVerdict } from '../model/review-consistency.js';
+import type { RailVerdict } from '../model/review-consistency.js';
 import { analysePlan } from './plan-figures.js';
 
 // One analysis per loaded library: `check`, the build's warnings and the review pages share it.
@@ -21,11 +21,4 @@ export function railVerdicts(library: Library): ReadonlyMap<string, RailVerdict>
   }
   verdictsByLibrary.set(library, verdicts);
   return verdicts;
-}
-
-/** A warning at each decision or cover summary that accepts a failing rail, in review order. */
-export function reviewWarnings(library: Library): Diagnostic[] {
-  if (library.reviews.length === 0) return [];
-  const verdicts = railVerdicts(library);
-  return library.reviews.flatMap((review) => acceptedFailures(reviewStatements(review), verdicts, review.plans.map((p) => p.rail)).map((f) => f.warning));
 }

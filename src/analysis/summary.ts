@@ -4,8 +4,7 @@
 import type { PartAnalysis } from './part-figures.js';
 import type { Resonance } from './resonance.js';
 import type { UsableBand } from './band.js';
-import { NOMINAL_DIMENSION } from '../model/part.js';
-import { DIMENSIONS } from '../units/quantity.js';
+import { DIMENSIONS, NOMINAL_DIMENSION } from '../units/quantity.js';
 
 export interface PartSummary {
   id: string;

@@ -1,7 +1,8 @@
 // What `zfolio plan` prints: the human form (engineering notation) and the JSON form (SI units).
 
 import { planFiguresWithoutCurves, type PlanFigures } from '../analysis/plan-figures.js';
-import type { SkippedPart, Suggestion } from '../analysis/plan-suggest.js';
+import type { Suggestion } from '../analysis/plan-suggest.js';
+import type { SkippedPart } from '../model/plan-candidates.js';
 import { formatDiagnostic } from '../model/diagnostics.js';
 import type { Plan } from '../model/plan.js';
 import { capacitorsYaml } from './plan-yaml.js';

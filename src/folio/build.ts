@@ -5,7 +5,8 @@ import { cpSync } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
 import type { Diagnostic } from '../model/diagnostics.js';
 import { loadLibrary, type Library } from '../model/library.js';
-import { reviewWarnings } from '../analysis/review-checks.js';
+import { railVerdicts } from '../analysis/review-checks.js';
+import { reviewWarnings } from '../model/review-consistency.js';
 import type { PaperSize } from '../model/settings.js';
 import { assembleSite, partPdfPath, reviewPdfPath, type AssembleTimings } from './assemble.js';
 import type { Browser } from 'puppeteer-core';
@@ -131,7 +132,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   if (!library) return result;
   result.library = library;
   // Warnings that need the analysis: a review that accepts a rail failing its target.
-  diagnostics.push(...reviewWarnings(library));
+  diagnostics.push(...reviewWarnings(library.reviews, () => railVerdicts(library)));
 
   // Chromium first: one that is missing or will not start is known before the build's time is spent, and the
   // pages then link only the PDFs there are (kept ones, as a build without --pdf).

@@ -6,7 +6,7 @@ import { parseMarking } from '../units/marking.js';
 import { formatEng, formatPercent } from '../units/format.js';
 import { impedanceAt } from '../circuit/impedance.js';
 import { parseQuantity, parseRatio } from '../units/parse.js';
-import type { Dimension } from '../units/quantity.js';
+import { NOMINAL_DIMENSION as NOMINAL_BY_BEHAVIOUR, type Dimension } from '../units/quantity.js';
 import { inRange, rangeText } from '../units/ranges.js';
 import { quote, type SourcePosition } from './diagnostics.js';
 import { Fields, describeNode, expectationInBrackets, nearMiss, readQuantity, scalarText, type ReadContext } from './fields.js';
@@ -20,12 +20,7 @@ export const BEHAVIOURS = ['capacitor', 'inductor', 'resistor', 'bead'] as const
 export type Behaviour = (typeof BEHAVIOURS)[number];
 
 /** The dimension of a nominal value, by the kind the part behaves as. */
-export const NOMINAL_DIMENSION: Readonly<Record<Behaviour, Dimension>> = {
-  capacitor: 'capacitance',
-  inductor: 'inductance',
-  resistor: 'resistance',
-  bead: 'resistance',
-};
+export const NOMINAL_DIMENSION: Readonly<Record<Behaviour, Dimension>> = NOMINAL_BY_BEHAVIOUR;
 
 // At least one letter or digit: an id names a folder of the site, so "." and ".." must not be ids.
 export const ID_PATTERN = /^(?=.*[A-Za-z0-9])[A-Za-z0-9._-]+$/;

@@ -112,3 +112,16 @@ export function reviewStatements(review: { summary?: string; summaryAt?: SourceP
   });
   return out;
 }
+
+/**
+ * A warning at each decision or cover summary that accepts a failing rail, in review order. `verdicts` is
+ * asked for (the plans analysed, src/analysis/review-checks.ts) only when there is a review to check.
+ */
+export function reviewWarnings(
+  reviews: readonly { summary?: string; summaryAt?: SourcePosition; decisions: readonly string[]; decisionsAt: readonly SourcePosition[]; plans: readonly { rail: string }[] }[],
+  verdicts: () => ReadonlyMap<string, RailVerdict>,
+): Diagnostic[] {
+  if (reviews.length === 0) return [];
+  const known = verdicts();
+  return reviews.flatMap((review) => acceptedFailures(reviewStatements(review), known, review.plans.map((p) => p.rail)).map((f) => f.warning));
+}

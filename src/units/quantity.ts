@@ -33,6 +33,14 @@ export const DIMENSIONS: Readonly<Record<Dimension, DimensionInfo>> = {
   ratio: { symbol: '', aliases: [], noun: 'a ratio' },
 };
 
+/** The dimension of a part's nominal value, by the kind the part behaves as (a bead's is its rated |Z|). */
+export const NOMINAL_DIMENSION = {
+  capacitor: 'capacitance',
+  inductor: 'inductance',
+  resistor: 'resistance',
+  bead: 'resistance',
+} as const satisfies Readonly<Record<string, Dimension>>;
+
 /** Which dimension a unit spelling denotes, or undefined when it is not a unit zfolio knows. */
 export function dimensionOfUnit(unit: string): Dimension | undefined {
   for (const [dim, info] of Object.entries(DIMENSIONS) as [Dimension, DimensionInfo][]) {

@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { suggestPlacements } from '../../src/analysis/plan-suggest.js';
+import { selectCandidates } from '../../src/model/plan-candidates.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { mulberry32 } from '../../bench/generate.js';
 import { branchAdmittance, denseSweep, worstOverBand, type RefBranch } from './rail-reference.js';
@@ -249,14 +250,9 @@ describe('plan --suggest against exhaustive enumeration with an independent eval
       tally.ties++;
       return;
     }
-    const s = suggestPlacements(library!.plans[0], library!.parts, {
-      maxCount: c.maxCount,
-      only: [],
-      marginDb: c.marginDb,
-      allowBiasExtrapolation: c.allowBiasExtrapolation,
-      derating: library!.settings.derating,
-      perDecade: c.perDecade,
-    });
+    const plan = library!.plans[0];
+    const selection = selectCandidates(plan, library!.parts, { only: [], allowBiasExtrapolation: c.allowBiasExtrapolation, derating: library!.settings.derating });
+    const s = suggestPlacements(plan, selection, { maxCount: c.maxCount, marginDb: c.marginDb, perDecade: c.perDecade });
     // The candidates, each at the mounting this test resolved for it.
     const sort = (xs: [string, number][]) => xs.sort((a, b) => a[0].localeCompare(b[0]) || a[1] - b[1]);
     const theirs = sort(s.candidates.map((k) => [k.part.id, k.mountingH]));

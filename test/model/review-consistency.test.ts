@@ -4,7 +4,7 @@
 // The verdicts here are given by the test, so each case checks only the reading and the message.
 
 import { describe, expect, it } from 'vitest';
-import { acceptedFailures, railsAccepted, reviewStatements, type RailVerdict } from '../../src/model/review-consistency.js';
+import { acceptedFailures, railsAccepted, reviewStatements, reviewWarnings, type RailVerdict } from '../../src/model/review-consistency.js';
 
 const RAILS = ['VCC_5V', 'VDD_CORE', 'VDD_3V3'];
 
@@ -72,5 +72,19 @@ describe('warnings where a review accepts a failing rail', () => {
   it('says nothing when every accepted rail passes', () => {
     const passing = new Map([...verdicts].map(([k, v]) => [k, { ...v, pass: true }]));
     expect(acceptedFailures(reviewStatements(review), passing)).toEqual([]);
+  });
+
+  it('reviewWarnings gives the same warnings for a list of reviews, and asks for the verdicts only when there is a review', () => {
+    let asked = 0;
+    const ask = () => {
+      asked++;
+      return verdicts;
+    };
+    expect(reviewWarnings([], ask)).toEqual([]);
+    expect(asked).toBe(0);
+    const found = reviewWarnings([{ ...review, plans: [{ rail: 'VCC_5V' }, { rail: 'VDD_CORE' }] }], ask);
+    expect(asked).toBe(1);
+    expect(found).toEqual(acceptedFailures(reviewStatements(review), verdicts, ['VCC_5V', 'VDD_CORE']).map((f) => f.warning));
+    expect(found).toHaveLength(2);
   });
 });

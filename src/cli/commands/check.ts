@@ -3,7 +3,8 @@
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_OK, type CommandIO } from '../io.js';
 import { loadReported, plural } from '../report.js';
-import { reviewWarnings } from '../../analysis/review-checks.js';
+import { railVerdicts } from '../../analysis/review-checks.js';
+import { reviewWarnings } from '../../model/review-consistency.js';
 import { formatDiagnostic } from '../../model/diagnostics.js';
 
 export const checkHelp = `Usage: zfolio check [--library DIR]
@@ -26,7 +27,7 @@ export function check(args: string[], io: CommandIO): number {
   const library = loadReported(libraryRoot(values, io), io, { warnings: true });
   if (!library) return EXIT_BAD_INPUT;
   // Warnings that need the analysis: a review that accepts a rail failing its target.
-  for (const d of reviewWarnings(library)) io.err(formatDiagnostic(d) + '\n');
+  for (const d of reviewWarnings(library.reviews, () => railVerdicts(library))) io.err(formatDiagnostic(d) + '\n');
   // Parts always; comparisons, plans and reviews when the library holds any.
   const held = [
     plural(library.parts.length, 'part'),

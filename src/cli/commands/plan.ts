@@ -4,9 +4,10 @@ import { existsSync, statSync } from 'node:fs';
 import { relative, resolve, sep } from 'node:path';
 import type { PlanFigures } from '../../analysis/plan-figures.js';
 import { analysePlan } from '../../analysis/plan-figures.js';
-import { suggestPlacements, unknownSelection } from '../../analysis/plan-suggest.js';
+import { suggestPlacements } from '../../analysis/plan-suggest.js';
 import { DiagnosticList, formatDiagnostic } from '../../model/diagnostics.js';
 import type { Library } from '../../model/library.js';
+import { selectCandidates, unknownSelection } from '../../model/plan-candidates.js';
 import { readPlan, type Plan } from '../../model/plan.js';
 import { readTextFile } from '../../model/library-files.js';
 import { parseYamlSource } from '../../model/source.js';
@@ -114,16 +115,13 @@ export function plan(args: string[], io: CommandIO): number {
       const which = unknown.map((u) => JSON.stringify(u)).join(', ');
       throw new UsageError(`--only: no capacitor has the id or tag ${which}; the library's capacitors carry the tags ${tags.join(', ') || '(none)'}, and any capacitor's id may be given`);
     }
-    const suggestion = suggestPlacements(plans[0], library.parts, {
-      maxCount,
+    const candidates = selectCandidates(plans[0], library.parts, {
       only,
-      marginDb,
       allowSafetyClass: values['allow-safety-class'] === true,
       allowBiasExtrapolation: values['allow-bias-extrapolation'] === true,
       derating: library.settings.derating,
-      perDecade,
-      nodeLimit,
     });
+    const suggestion = suggestPlacements(plans[0], candidates, { maxCount, marginDb, perDecade, nodeLimit });
     io.out(values.json ? JSON.stringify(suggestionJson(plans[0], suggestion), null, 2) + '\n' : describeSuggestion(plans[0], suggestion, { maxCount, only }));
     // A set was found only if it holds the margin asked for (a negative margin allows that much over).
     return suggestion.figures ? EXIT_OK : EXIT_TARGET_MISSED;
