@@ -37,6 +37,15 @@ export class RampBasis {
   private readonly e: ComplexPair = [0, 0];
   private readonly p1: ComplexPair = [0, 0];
   private readonly p2: ComplexPair = [0, 0];
+  /** 1/p per pole (0 for p = 0). */
+  private readonly inverse: Float64Array;
+  // Evenly spaced times after the ramp: e^{p·u} advanced by one multiplication by e^{p·Δ} a step, and
+  // computed afresh every SYNC steps (so rounding cannot build up) or whenever the step changes.
+  private lastU = NaN;
+  private lastStep = NaN;
+  private stepsSinceSync = 0;
+  private readonly current: Float64Array;
+  private readonly stepFactor: Float64Array;
 
   constructor(poles: readonly ComplexFrequency[], riseS: number) {
     if (!(riseS > 0)) throw new RangeError(`rise time ${riseS} s: expected a positive time`);
@@ -49,18 +58,29 @@ export class RampBasis {
     this.slopeIm = new Float64Array(n);
     this.endPhi2 = new Float64Array(2 * n);
     this.endPhi1 = new Float64Array(2 * n);
+    this.inverse = new Float64Array(2 * n);
+    this.current = new Float64Array(2 * n);
+    this.stepFactor = new Float64Array(2 * n);
     poles.forEach((p, k) => {
       phiFunctions(p.re * riseS, p.im * riseS, this.e, this.p1, this.p2);
       this.endPhi2[2 * k] = riseS * this.p2[0];
       this.endPhi2[2 * k + 1] = riseS * this.p2[1];
       this.endPhi1[2 * k] = riseS * this.p1[0];
       this.endPhi1[2 * k + 1] = riseS * this.p1[1];
+      const d = p.re * p.re + p.im * p.im;
+      this.inverse[2 * k] = d > 0 ? p.re / d : 0;
+      this.inverse[2 * k + 1] = d > 0 ? -p.im / d : 0;
     });
   }
 
   /** Fill re/im (and slopeRe/slopeIm) with g_k(t) and g_k′(t). */
   evaluate(t: number): void {
     const tr = this.riseS;
+    if (t > tr) {
+      this.after(t - tr);
+      return;
+    }
+    this.lastU = NaN;
     const { e, p1, p2 } = this;
     for (let k = 0; k < this.poles.length; k++) {
       const p = this.poles[k];
@@ -89,7 +109,75 @@ export class RampBasis {
       }
     }
   }
+
+  /** g_k and g_k′ at u = t − t_r > 0: t_r·[(e^{pu} − 1)/p + e^{pu}·t_r·φ2(p t_r)] and e^{pu}·t_r·φ1(p t_r). */
+  private after(u: number): void {
+    const step = u - this.lastU;
+    const sameStep = step > 0 && Math.abs(step - this.lastStep) <= 1e-13 * step;
+    const advance = sameStep && this.stepsSinceSync < SYNC;
+    if (advance) this.stepsSinceSync++;
+    else {
+      this.stepsSinceSync = 0;
+      if (!sameStep) {
+        // A new step: its factors e^{p·Δ}, for the steps that follow (or none, going backwards).
+        this.lastStep = step > 0 ? step : NaN;
+        if (step > 0) {
+          for (let k = 0; k < this.poles.length; k++) {
+            const p = this.poles[k];
+            const m = Math.exp(p.re * step);
+            this.stepFactor[2 * k] = p.im === 0 ? m : m * Math.cos(p.im * step);
+            this.stepFactor[2 * k + 1] = p.im === 0 ? 0 : m * Math.sin(p.im * step);
+          }
+        }
+      }
+    }
+    this.lastU = u;
+    const tr = this.riseS;
+    const { e, p1, p2, current, stepFactor, inverse } = this;
+    for (let k = 0; k < this.poles.length; k++) {
+      const p = this.poles[k];
+      let er: number;
+      let ei: number;
+      const zr = p.re * u;
+      const zi = p.im * u;
+      if (advance) {
+        const cr = current[2 * k];
+        const ci = current[2 * k + 1];
+        er = cr * stepFactor[2 * k] - ci * stepFactor[2 * k + 1];
+        ei = cr * stepFactor[2 * k + 1] + ci * stepFactor[2 * k];
+      } else {
+        const m = Math.exp(zr);
+        er = zi === 0 ? m : m * Math.cos(zi);
+        ei = zi === 0 ? 0 : m * Math.sin(zi);
+      }
+      current[2 * k] = er;
+      current[2 * k + 1] = ei;
+      // u·φ1(pu) = (e^{pu} − 1)/p, by the series near 0 where that difference cancels.
+      let qr: number;
+      let qi: number;
+      if (zr * zr + zi * zi < 0.25) {
+        phiFunctions(zr, zi, e, p1, p2);
+        qr = u * p1[0];
+        qi = u * p1[1];
+      } else {
+        const ar = er - 1;
+        qr = ar * inverse[2 * k] - ei * inverse[2 * k + 1];
+        qi = ar * inverse[2 * k + 1] + ei * inverse[2 * k];
+      }
+      const ar = this.endPhi2[2 * k];
+      const ai = this.endPhi2[2 * k + 1];
+      this.re[k] = tr * (qr + (er * ar - ei * ai));
+      this.im[k] = tr * (qi + (er * ai + ei * ar));
+      const br = this.endPhi1[2 * k];
+      const bi = this.endPhi1[2 * k + 1];
+      this.slopeRe[k] = er * br - ei * bi;
+      this.slopeIm[k] = er * bi + ei * br;
+    }
+  }
 }
+
+/** Steps advanced by multiplication before e^{p·u} is computed afresh. */
+const SYNC = 64;
 
 /** An expansion's residues as flat arrays, a conjugate pair's doubled: Σ Re(c_k·g_k) is the pole part. */
 export class RampCombination {
