@@ -7,6 +7,7 @@ import { plan, planHelp } from './commands/plan.js';
 import { build, buildHelp } from './commands/build.js';
 import { print, printHelp } from './commands/print.js';
 import { serve, serveHelp } from './commands/serve.js';
+import { diff, diffHelp } from './commands/diff.js';
 import { DEBUG_ENV, EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
 import { failureDetails, failureLine } from './failure.js';
 import { OutputRefused } from '../folio/output-guard.js';
@@ -30,6 +31,7 @@ export const COMMANDS: Record<string, CommandEntry> = {
   build: { run: build, help: buildHelp, summary: 'build the folio: static site, and PDFs with --pdf' },
   serve: { run: serve, help: serveHelp, summary: 'build, serve on this machine, and rebuild on every change', ownsSignals: true },
   print: { run: print, help: printHelp, summary: 'PDFs of chosen parts and review packs' },
+  diff: { run: diff, help: diffHelp, summary: 'what changed since a git revision, and which verdicts it moved' },
 };
 
 export function mainHelp(): string {

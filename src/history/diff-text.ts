@@ -1,0 +1,109 @@
+// The words of a diff: one line a change, moved verdicts first, in engineering notation. The command line
+// prints these lines; the changes page and the review section show the same ones.
+
+import { formatDecibels, formatEng } from '../units/format.js';
+import { valueText, type FieldChange } from './field-changes.js';
+import type { LibraryDiff, PartChange, PlanChange, RailCause, RailVerdict } from './library-diff.js';
+import type { FigureChange, FigureName } from './part-figure-changes.js';
+
+export type ChangeKind = 'verdict' | 'rail' | 'settings' | 'part' | 'comparison' | 'review';
+
+export interface ChangeLine {
+  kind: ChangeKind;
+  /** The part id, rail, comparison or review the line is about (null for settings). */
+  subject: string | null;
+  text: string;
+}
+
+/** "a 0.45n → 0.75n": one field, as written before and after. */
+export function fieldText(f: FieldChange): string {
+  if (f.before === null) return `${f.path} added: ${valueText(f.after)}`;
+  if (f.after === null) return `${f.path} removed (was ${valueText(f.before)})`;
+  return `${f.path} ${valueText(f.before)} → ${valueText(f.after)}`;
+}
+
+const fieldsText = (fields: readonly FieldChange[]) => fields.map(fieldText).join('; ');
+
+/** A signed percentage with the typographic minus: "+25.3%", "−8.02%". */
+export function percentText(percent: number): string {
+  const abs = Math.abs(percent);
+  // Small moves keep two significant digits, so a figure that moved never reads "+0.00%".
+  const text = abs >= 100 ? abs.toFixed(0) : abs >= 10 ? abs.toFixed(1) : abs >= 0.01 ? abs.toFixed(2) : String(Number(abs.toPrecision(2)));
+  return `${percent < 0 ? '−' : '+'}${text}%`;
+}
+
+export function figureLabel(name: FigureName, part: { behavesAs?: string | null; effectiveUnit?: string | null } = {}): string {
+  switch (name) {
+    case 'srfHz':
+      return 'SRF';
+    case 'bandFromHz':
+      return 'band bottom';
+    case 'bandToHz':
+      return 'band top';
+    case 'esrAtSrfOhm':
+      return part.behavesAs === 'capacitor' ? 'ESR at SRF' : 'R at SRF';
+    case 'effectiveAtBandMiddle':
+      return part.effectiveUnit === 'F' ? 'C at band middle' : part.effectiveUnit === 'H' ? 'L at band middle' : 'value at band middle';
+  }
+}
+
+function figureUnit(name: FigureName, effectiveUnit: string | null): string {
+  if (name === 'esrAtSrfOhm') return 'Ω';
+  if (name === 'effectiveAtBandMiddle') return effectiveUnit ?? '';
+  return 'Hz';
+}
+
+/** "SRF 23.7 MHz → 18.3 MHz (−22.8%)": enough digits that the two values differ in print. */
+export function figureText(label: string, unit: string, change: FigureChange): string {
+  const show = (value: number | null, digits: number) => (value === null ? 'none' : formatEng(value, unit, { digits }));
+  let digits = 3;
+  while (digits < 7 && change.before !== null && change.after !== null && show(change.before, digits) === show(change.after, digits)) digits++;
+  const percent = change.changePercent === null ? '' : ` (${percentText(change.changePercent)})`;
+  return `${label} ${show(change.before, digits)} → ${show(change.after, digits)}${percent}`;
+}
+
+export function partFiguresText(change: PartChange): string[] {
+  return Object.entries(change.figures).map(([name, c]) => figureText(figureLabel(name as FigureName, change), figureUnit(name as FigureName, change.effectiveUnit), c));
+}
+
+export function verdictText(v: RailVerdict): string {
+  return `${v.pass ? 'PASS' : 'FAIL'}, worst margin ${formatDecibels(v.worstMarginDb)} at ${formatEng(v.worstFrequencyHz, 'Hz')}`;
+}
+
+export function causeText(c: RailCause, sole = true): string {
+  const what = c.kind === 'plan' ? 'the plan' : c.kind === 'part' ? `part ${c.id}` : 'folio.yaml';
+  const alone = c.alone && !sole ? `; alone ${c.alone.pass ? 'PASS' : 'FAIL'} ${formatDecibels(c.alone.worstMarginDb)}` : '';
+  return c.fields.length > 0 || alone ? `${what} (${fieldsText(c.fields)}${alone})` : what;
+}
+
+export function railText(p: PlanChange): string {
+  if (p.status === 'added') return `rail ${p.rail} added: ${p.after ? verdictText(p.after) : ''}`;
+  if (p.status === 'removed') return `rail ${p.rail} removed (was ${p.before ? verdictText(p.before) : ''})`;
+  const [a, b] = [p.before!, p.after!];
+  const verdict = a.pass === b.pass ? (b.pass ? 'PASS' : 'FAIL') : `${a.pass ? 'PASS' : 'FAIL'} → ${b.pass ? 'PASS' : 'FAIL'}`;
+  const margin = `worst margin ${formatDecibels(a.worstMarginDb)} → ${formatDecibels(b.worstMarginDb)}`;
+  const moved = p.causes.length > 0 ? `; moved by ${p.causes.map((c) => causeText(c, p.causes.length === 1)).join(', ')}` : '';
+  return `rail ${p.rail}: ${verdict}, ${margin}${moved}`;
+}
+
+/** Every change as one line: rails whose verdict moved first, then the other rails, settings, parts, comparisons, reviews. */
+export function changeLines(diff: LibraryDiff): ChangeLine[] {
+  const lines: ChangeLine[] = [];
+  for (const p of diff.plans) lines.push({ kind: p.verdictMoved ? 'verdict' : 'rail', subject: p.rail, text: railText(p) });
+  if (diff.settings.length > 0) lines.push({ kind: 'settings', subject: null, text: `folio.yaml changed: ${fieldsText(diff.settings)}` });
+  const { parts } = diff;
+  for (const id of parts.added) lines.push({ kind: 'part', subject: id, text: `part ${id} added` });
+  for (const id of parts.removed) lines.push({ kind: 'part', subject: id, text: `part ${id} removed` });
+  for (const r of parts.renamed) lines.push({ kind: 'part', subject: r.to, text: `part ${r.from} renamed ${r.to}` });
+  for (const c of parts.changed) {
+    const figures = partFiguresText(c);
+    const what = [fieldsText(c.fields), figures.length > 0 ? figures.join(', ') : c.fields.length > 0 ? 'no figure moved' : ''].filter(Boolean);
+    lines.push({ kind: 'part', subject: c.id, text: `part ${c.id} changed: ${what.join('; ')}` });
+  }
+  for (const [kind, changes] of [['comparison', diff.comparisons], ['review', diff.reviews]] as const) {
+    for (const name of changes.added) lines.push({ kind, subject: name, text: `${kind} ${name} added` });
+    for (const name of changes.removed) lines.push({ kind, subject: name, text: `${kind} ${name} removed` });
+    for (const c of changes.changed) lines.push({ kind, subject: c.name, text: `${kind} ${c.name} changed: ${fieldsText(c.fields)}` });
+  }
+  return lines;
+}
