@@ -14,7 +14,7 @@ import { REPO } from './folio/site-helpers.js';
 const SRC = join(REPO, 'src');
 
 /** Lowest first: a module may import values from its own layer and the layers before it. */
-export const LAYERS = ['units', 'circuit', 'model', 'analysis', 'measure', 'present', 'charts', 'folio', 'serve', 'cli'] as const;
+export const LAYERS = ['units', 'circuit', 'model', 'analysis', 'measure', 'history', 'present', 'charts', 'folio', 'serve', 'cli'] as const;
 type Layer = (typeof LAYERS)[number];
 
 /** Files directly under src/ and the layer they belong to. */

@@ -8,7 +8,6 @@ import { execFileSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { untilDone } from '../folio/on-exit.js';
 
 /** Why a revision cannot be read: the command line asked for something that is not there (exit 2), or git failed. */
 export class RevisionError extends Error {
@@ -91,11 +90,19 @@ export function resolveRevision(root: string, name: string): Revision {
 }
 
 /**
- * Write the library's files at revision `name` into a new temporary folder. The caller removes it (also on
- * an early exit: it is registered with on-exit until removed). A library folder the revision does not hold
- * is a RevisionError (misuse).
+ * Registers work to undo should the process end early (the command line's on-exit tasks); returns the
+ * function that unregisters it.
  */
-export function checkoutRevision(root: string, name: string): RevisionCheckout {
+export type ExitGuard = (task: () => void) => () => void;
+
+const noGuard: ExitGuard = () => () => {};
+
+/**
+ * Write the library's files at revision `name` into a new temporary folder. The caller removes it; until
+ * then its removal is registered with `guard`, so an early exit removes it too. A library folder the
+ * revision does not hold is a RevisionError (misuse).
+ */
+export function checkoutRevision(root: string, name: string, guard: ExitGuard = noGuard): RevisionCheckout {
   const { top, prefix } = workTreeOf(root);
   const revision = resolveRevision(root, name);
   const folderName = prefix.replace(/\/$/, '');
@@ -105,7 +112,7 @@ export function checkoutRevision(root: string, name: string): RevisionCheckout {
     throw new RevisionError(`revision ${JSON.stringify(name)} holds no folder ${folderName}: the library folder was not in git at that commit`, true);
   }
   const folder = mkdtempSync(join(tmpdir(), 'zfolio-revision-'));
-  const done = untilDone(() => rmSync(folder, { recursive: true, force: true }));
+  const done = guard(() => rmSync(folder, { recursive: true, force: true }));
   const remove = () => {
     rmSync(folder, { recursive: true, force: true });
     done();

@@ -186,8 +186,8 @@ function planChanges(before: Library, after: Library, history: PartHistory, sett
       if (railSettings.length > 0) causes.push({ kind: 'settings', id: null, fields: railSettings, alone: null });
       if (causes.length === 0) continue;
     }
-    const figuresBefore = a ? analysePlan(a, before.settings.sweep.perDecade) : null;
-    const figuresAfter = b ? analysePlan(b, after.settings.sweep.perDecade) : null;
+    const figuresBefore = a ? analysePlan(a, before.settings.sweep.perDecade, a.placements, a.warnings, { loadStep: false }) : null;
+    const figuresAfter = b ? analysePlan(b, after.settings.sweep.perDecade, b.placements, b.warnings, { loadStep: false }) : null;
     analyses.plans.set(rail, { before: figuresBefore, after: figuresAfter });
     const verdictBefore = figuresBefore && verdictOf(figuresBefore);
     const verdictAfter = figuresAfter && verdictOf(figuresAfter);

@@ -4,7 +4,7 @@
 
 import type { Diagnostic } from '../model/diagnostics.js';
 import { loadLibrary, type Library } from '../model/library.js';
-import { checkoutRevision, type Revision } from './git-revision.js';
+import { checkoutRevision, type ExitGuard, type Revision } from './git-revision.js';
 
 export interface RevisionLoad {
   revision: Revision;
@@ -14,9 +14,12 @@ export interface RevisionLoad {
   diagnostics: Diagnostic[];
 }
 
-/** The library in `root` as it was at revision `name`; throws RevisionError when git cannot give it. */
-export function loadLibraryAt(root: string, name: string): RevisionLoad {
-  const checkout = checkoutRevision(root, name);
+/**
+ * The library in `root` as it was at revision `name`; throws RevisionError when git cannot give it. `guard`
+ * registers the temporary folder's removal for an early exit (see checkoutRevision).
+ */
+export function loadLibraryAt(root: string, name: string, guard?: ExitGuard): RevisionLoad {
+  const checkout = checkoutRevision(root, name, guard);
   try {
     const { library, diagnostics } = loadLibrary(checkout.folder);
     return {

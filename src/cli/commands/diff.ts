@@ -4,6 +4,7 @@ import { formatDiagnostic, type Diagnostic } from '../../model/diagnostics.js';
 import { loadLibrary, type Library } from '../../model/library.js';
 import { RevisionError, type Revision } from '../../history/git-revision.js';
 import { loadLibraryAt } from '../../history/revision-library.js';
+import { untilDone } from '../../folio/on-exit.js';
 import { diffLibraries, type LibraryDiff } from '../../history/library-diff.js';
 import { changeLines } from '../../history/diff-text.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
@@ -63,8 +64,8 @@ export function diff(args: string[], io: CommandIO): number {
   const [fromName, toName] = positionals;
   let loads: { label: string; library?: Library; diagnostics: Diagnostic[]; revision?: Revision }[];
   try {
-    const from = loadLibraryAt(root, fromName);
-    const to = toName === undefined ? { ...loadLibrary(root), revision: undefined } : loadLibraryAt(root, toName);
+    const from = loadLibraryAt(root, fromName, untilDone);
+    const to = toName === undefined ? { ...loadLibrary(root), revision: undefined } : loadLibraryAt(root, toName, untilDone);
     loads = [
       { label: `revision ${fromName}`, ...from },
       { label: toName === undefined ? 'the work tree' : `revision ${toName}`, ...to },
