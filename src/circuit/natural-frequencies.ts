@@ -14,6 +14,7 @@
 
 import { EigenvalueDecomposition, LuDecomposition, Matrix } from 'ml-matrix';
 import type { Element } from './element.js';
+import { laplaceImpedance } from './laplace.js';
 import { nodalPencil, withoutUnknown, type NodalPencil } from './state-space.js';
 
 /** A complex frequency s = re + j·im, rad/s. */
@@ -63,12 +64,60 @@ export function naturalFrequencies(element: Element, range: FrequencyRange): Nat
     const limit = 2 * Math.PI * range.toHz * ABOVE_RANGE;
     const inRange = (roots: ComplexFrequency[]) => roots.filter((r) => Math.hypot(r.re, r.im) <= limit);
     found = {
-      poles: inRange(pencilRoots(pencil, shift)),
-      zeros: pencil.size > 1 ? inRange(pencilRoots(withoutUnknown(pencil, 0), shift)) : [],
+      poles: polished(element, inRange(pencilRoots(pencil, shift)), 'pole', range),
+      zeros: pencil.size > 1 ? polished(element, inRange(pencilRoots(withoutUnknown(pencil, 0), shift)), 'zero', range) : [],
     };
     byRange.set(key, found);
   }
   return found;
+}
+
+/**
+ * Each root refined by Newton's method on the tree itself, evaluated at the complex frequency (laplace.ts):
+ * on Y = 1/Z for a pole (s ← s + Z/Z'), on Z for a zero (s ← s − Z/Z'). One shift cannot give every
+ * eigenvalue of a pencil whose elements span many decades to full relative accuracy — a lightly damped root
+ * far from the shift can even come out on the wrong side of the jω axis — while Newton's method on the
+ * network's own impedance converges quadratically to the root it starts near. A root from which Newton's
+ * method does not converge, or would move more than half-way to its nearest neighbour, is not a root of the
+ * impedance and is dropped: the pencil's infinite eigenvalues, which rounding turns into finite ones (for a
+ * defective block of size k, about ε^(1/k) of the largest), and poles and zeros that cancel exactly. Roots
+ * below the range (where Z' may not exist, as at s = 0) are kept as found.
+ */
+function polished(element: Element, roots: ComplexFrequency[], kind: 'pole' | 'zero', range: FrequencyRange): ComplexFrequency[] {
+  const sign = kind === 'pole' ? 1 : -1;
+  const below = 2 * Math.PI * range.fromHz;
+  const out: ComplexFrequency[] = [];
+  roots.forEach((root, i) => {
+    if (Math.hypot(root.re, root.im) < below) {
+      out.push(root);
+      return;
+    }
+    let nearest = Infinity;
+    roots.forEach((other, j) => {
+      if (j !== i) nearest = Math.min(nearest, Math.hypot(other.re - root.re, other.im - root.im), Math.hypot(other.re - root.re, other.im + root.im));
+    });
+    // A root on the real axis stays there (Z is real for real s), so only complex roots can cross over.
+    if (root.im !== 0) nearest = Math.min(nearest, 2 * root.im);
+    let re = root.re;
+    let im = root.im;
+    let step = Infinity;
+    for (let k = 0; k < 30; k++) {
+      const [zr, zi, dr, di] = laplaceImpedance(element, re, im);
+      const d = dr * dr + di * di;
+      // Z/Z'
+      const qr = (zr * dr + zi * di) / d;
+      const qi = (zi * dr - zr * di) / d;
+      if (!Number.isFinite(qr) || !Number.isFinite(qi)) break;
+      re += sign * qr;
+      im += sign * qi;
+      step = Math.hypot(qr, qi);
+      if (Math.hypot(re - root.re, im - root.im) > nearest / 2) return;
+      if (step <= 4 * Number.EPSILON * Math.hypot(re, im)) break;
+    }
+    // Rounding can keep the last steps from shrinking below a few ulps; a step of 1e-9 is converged enough.
+    if (step <= 1e-9 * Math.hypot(re, im)) out.push({ re, im: Math.abs(im) });
+  });
+  return out;
 }
 
 /** Finite roots of det(G + sC), one of each conjugate pair; `shiftRadPerS` > 0 inside the range of interest. */
