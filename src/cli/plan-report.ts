@@ -39,14 +39,18 @@ function peakLines(f: PlanFigures): string[] {
   });
 }
 
+/** "  load step  PASS dips …" and its continuation lines. */
+function loadStepBlock(f: PlanFigures): string[] {
+  const [first, ...more] = loadStepLines(f);
+  return [`  load step  ${first}`, ...more.map((l) => `             ${l}`)];
+}
+
 /** The human form of one analysed plan. */
 export function describePlan(f: PlanFigures): string {
   const lines = [`${f.rail}${f.title !== f.rail ? `  ·  ${f.title}` : ''}  (${f.file})`];
   lines.push(`  target     ${targetLine(f)}`);
   lines.push(`  band       ${formatEng(f.band.fromHz, 'Hz')} to ${formatEng(f.band.toHz, 'Hz')}, ${f.perDecade} points per decade, peaks refined`);
-  lines.push(`  result     ${resultLine(f)}`);
-  const [first, ...more] = loadStepLines(f);
-  lines.push(`  load step  ${first}`, ...more.map((l) => `             ${l}`));
+  lines.push(`  result     ${resultLine(f)}`, ...loadStepBlock(f));
   lines.push(`  branches`, ...branchLines(f));
   lines.push(`  peaks`, ...peakLines(f));
   if (f.biasDerated.length > 0) lines.push(`  DC bias    capacitance at ${formatEng(f.voltageV, 'V')} from the DC-bias table of ${f.biasDerated.join(', ')}`);
@@ -125,7 +129,8 @@ export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRe
   if (s.figures) {
     const f = s.figures;
     lines.push(`  target     ${targetLine(f)}`);
-    lines.push(`  result     ${resultLine(f)}`);
+    // The search weighs the impedance only; the chosen set's load step is shown for what it is.
+    lines.push(`  result     ${resultLine(f)}`, ...loadStepBlock(f));
     describeSet(f);
     lines.push('  as plan YAML', ...capacitorsYaml(s.placements, '    '));
   } else if (s.closest) {
