@@ -7,10 +7,11 @@ import { pdfBench } from './pdf.bench.js';
 import { railBench } from './rail.bench.js';
 import { siteBench } from './site.bench.js';
 import { suggestBench } from './suggest.bench.js';
+import { touchstoneBench } from './touchstone.bench.js';
 import { transientBench } from './transient.bench.js';
 import type { BenchSection } from './measure.js';
 
-const SECTIONS: BenchSection[] = [engineBench, chartsBench, railBench, suggestBench, transientBench, siteBench, pdfBench];
+const SECTIONS: BenchSection[] = [engineBench, chartsBench, railBench, suggestBench, transientBench, touchstoneBench, siteBench, pdfBench];
 
 const wanted = process.argv.slice(2);
 for (const section of SECTIONS) {

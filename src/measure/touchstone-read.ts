@@ -8,9 +8,15 @@ import { quote } from '../units/quote.js';
 import { GrowableFloat64 } from './growable.js';
 import { FREQUENCY_SCALE, type NetworkData } from './network-data.js';
 import { MAX_PORTS, addReferences, applyKeyword, keywordKey, type Header, type KeywordEffect } from './touchstone-keywords.js';
-import { pairValue, recordLayout, type RecordLayout } from './touchstone-layout.js';
+import { pairValue as importedPairValue, recordLayout, type RecordLayout } from './touchstone-layout.js';
 import { DEFAULT_OPTIONS, readOptionLine, type OptionLine } from './touchstone-options.js';
-import { isBlank, readNumber, tokensOf, type Token } from './touchstone-tokens.js';
+import { isBlank as importedIsBlank, readNumber as importedReadNumber, tokensOf, type Token } from './touchstone-tokens.js';
+
+// The functions of the per-value loops, bound once: under a module loader that turns each imported name
+// into a property read (as tsx does for the benchmarks), a call through the import costs more than the work.
+const isBlank = importedIsBlank;
+const readNumber = importedReadNumber;
+const pairValue = importedPairValue;
 
 export type TouchstoneResult = { ok: true; data: NetworkData } | { ok: false; errors: Diagnostic[] };
 
@@ -74,11 +80,11 @@ class Reader {
   ) {}
 
   read(): TouchstoneResult {
-    const bareCr = /\r(?!\n)/.exec(this.text);
-    if (bareCr) {
-      const before = this.text.slice(0, bareCr.index);
+    const bareCr = bareCarriageReturn(this.text);
+    if (bareCr >= 0) {
+      const before = this.text.slice(0, bareCr);
       const line = before.split('\n').length;
-      this.error({ line, column: bareCr.index - before.lastIndexOf('\n') }, 'a line ends with a bare carriage return (CR, as old Mac files do); save the file with LF or CRLF line ends');
+      this.error({ line, column: bareCr - before.lastIndexOf('\n') }, 'a line ends with a bare carriage return (CR, as old Mac files do); save the file with LF or CRLF line ends');
       return this.result();
     }
     const text = this.text;
@@ -450,8 +456,15 @@ class Reader {
     const base = this.re.extend(n2);
     this.im.extend(n2);
     const scale = this.normalise;
+    const pending = this.pending;
     for (let p = 0; p < slots.length; p++) {
-      const [re, im] = pairValue(format, this.pending[2 * p], this.pending[2 * p + 1]);
+      const a = pending[2 * p];
+      const b = pending[2 * p + 1];
+      let re = a;
+      let im = b;
+      if (format !== 'RI') {
+        [re, im] = pairValue(format, a, b);
+      }
       this.re.set(base + slots[p], re * scale);
       this.im.set(base + slots[p], im * scale);
       if (mirrors[p] >= 0) {
@@ -500,4 +513,10 @@ class Reader {
   }
 }
 
-
+/** Index of the first CR not followed by LF, or −1. */
+function bareCarriageReturn(text: string): number {
+  for (let i = text.indexOf('\r'); i >= 0; i = text.indexOf('\r', i + 1)) {
+    if (text.charCodeAt(i + 1) !== 10) return i;
+  }
+  return -1;
+}

@@ -1,0 +1,79 @@
+// A part's model as files for other tools: a one-port Touchstone file (S11 re 50 Ω, real–imaginary, over a
+// sweep) and a SPICE subcircuit of its element tree, each opening with comments that name the part, its
+// model and where it came from.
+
+import type { Element } from '../circuit/element.js';
+import { impedanceSweep } from '../circuit/impedance.js';
+import { formatEng } from '../units/format.js';
+import { reflectionOf } from './fixtures.js';
+import { ascii, writeSubcircuit } from './spice-write.js';
+import { writeTouchstone } from './touchstone-write.js';
+
+/** What an export needs of a part (the library's Part has all of it). */
+export interface ExportablePart {
+  id: string;
+  kind: string;
+  title: string;
+  network: Element;
+  source: { path: string; hash: string };
+}
+
+/** The reference impedance of exported S-parameters, Ω (the usual analyser port). */
+export const EXPORT_REFERENCE_OHM = 50;
+
+/** The first comment of every Touchstone file zfolio writes, by which it knows a file as its own. */
+export const TOUCHSTONE_MARK = 'zfolio export';
+
+/** The model as a formula of its leaves: "ESR + ESL + (C || EPR)"; unnamed leaves by value. */
+export function treeFormula(e: Element, inside?: 'series' | 'parallel'): string {
+  switch (e.type) {
+    case 'R':
+      return e.name ?? formatEng(e.ohms, 'resistance');
+    case 'L':
+      return e.name ?? formatEng(e.henries, 'inductance');
+    case 'C':
+      return e.name ?? formatEng(e.farads, 'capacitance');
+    case 'series':
+    case 'parallel': {
+      const text = e.parts.map((p) => treeFormula(p, e.type)).join(e.type === 'series' ? ' + ' : ' || ');
+      return inside && inside !== e.type ? `(${text})` : text;
+    }
+  }
+}
+
+/** "C = 100 nF, ESR = 18 mΩ, …" for the named leaves of a tree, in tree order. */
+export function namedValues(e: Element): string {
+  const out: string[] = [];
+  const walk = (x: Element) => {
+    if (x.type === 'series' || x.type === 'parallel') x.parts.forEach(walk);
+    else if (x.name) out.push(`${x.name} = ${formatEng(x.type === 'R' ? x.ohms : x.type === 'L' ? x.henries : x.farads, x.type === 'R' ? 'resistance' : x.type === 'L' ? 'inductance' : 'capacitance', { digits: 4 })}`);
+  };
+  walk(e);
+  return out.join(', ');
+}
+
+function header(part: ExportablePart, what: string): string[] {
+  const values = namedValues(part.network);
+  return [
+    `${part.id}: ${part.title} (${part.kind})`,
+    `model: ${treeFormula(part.network)}${values ? `; ${values}` : ''}`,
+    what,
+    `source: ${part.source.path} (sha256 ${part.source.hash})`,
+    'a small-signal, linear model at room temperature; voltage, current and power ratings are not in it',
+  ].map(ascii);
+}
+
+/** A version 1 one-port file: the model's S11 re 50 Ω, RI, at each frequency of `frequencies` (Hz). */
+export function partTouchstone(part: ExportablePart, frequencies: Float64Array, sweepText: string): string {
+  const z = impedanceSweep(part.network, frequencies);
+  const re = new Float64Array(frequencies.length);
+  const im = new Float64Array(frequencies.length);
+  for (let k = 0; k < frequencies.length; k++) [re[k], im[k]] = reflectionOf(z.re[k], z.im[k], EXPORT_REFERENCE_OHM);
+  const comments = [TOUCHSTONE_MARK, ...header(part, `one-port S-parameters of the model, reference ${EXPORT_REFERENCE_OHM} ohm, ${ascii(sweepText)}`)];
+  return writeTouchstone({ version: 1, ports: 1, parameter: 'S', format: 'RI', unit: 'Hz', reference: EXPORT_REFERENCE_OHM, frequencies, re, im, comments });
+}
+
+/** A SPICE subcircuit of the part's element tree, pins 1 and 2. */
+export function partSubcircuit(part: ExportablePart): string {
+  return writeSubcircuit({ name: part.id, element: part.network, comments: header(part, 'SPICE subcircuit of the model between pins 1 and 2') });
+}

@@ -1,0 +1,56 @@
+// A part's exports: the .s1p file read back and turned into Z must equal the model (complex.js,
+// test/reference/impedance.ts) to 1e-9 at every point; its header names the part and its model; the
+// .subckt opens with the same header. Γ = (Z − Z0)/(Z + Z0) (Pozar, Microwave Engineering, 4th ed., §2.3).
+
+import { Complex } from 'complex.js';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { capacitor, inductor, parallel, resistor, series } from '../../src/circuit/element.js';
+import { logSweep } from '../../src/circuit/sweep.js';
+import { impedanceFromNetwork } from '../../src/measure/fixtures.js';
+import { partSubcircuit, partTouchstone, treeFormula } from '../../src/measure/part-export.js';
+import { readTouchstone } from '../../src/measure/touchstone-read.js';
+import { loadLibrary } from '../../src/model/library.js';
+import { referenceZAt } from '../reference/impedance.js';
+
+const DEMO = fileURLToPath(new URL('../../', import.meta.url));
+const { library } = loadLibrary(DEMO);
+const frequencies = logSweep({ fromHz: 100, toHz: 1e10, perDecade: 10 });
+
+describe('partTouchstone', () => {
+  it.each(library!.parts.map((p) => [p.id, p] as const))('%s: S11 re 50 Ω reads back to the model', (_, part) => {
+    const text = partTouchstone(part, frequencies, '100 Hz to 10 GHz, 10 points per decade');
+    expect(text.startsWith(`! zfolio export\n! ${part.id}: `)).toBe(true);
+    expect(text).toMatch(/^# Hz S RI R 50$/m);
+    expect(/[^\x00-\x7f]/.test(text)).toBe(false);
+    const read = readTouchstone(text, `${part.id}.s1p`);
+    expect(read.ok).toBe(true);
+    if (!read.ok) return;
+    const z = impedanceFromNetwork(read.data, 'reflection');
+    expect(z.ok).toBe(true);
+    if (!z.ok) return;
+    frequencies.forEach((f, k) => {
+      const reference = referenceZAt(part.network, f);
+      // Γ near 1 (|Z| ≫ 50 Ω, up to 2e7 Ω at 100 Hz for 100 pF) loses digits in 1 − Γ: about |Z|/Z0·ε.
+      expect(new Complex(z.impedance.re[k], z.impedance.im[k]).sub(reference).abs() / reference.abs()).toBeLessThan(1e-9 + (reference.abs() / 50) * 1e-15);
+    });
+  });
+});
+
+describe('headers', () => {
+  it('the model as a formula of its named leaves, and unnamed ones by value', () => {
+    expect(treeFormula(series(resistor(0.018, 'ESR'), inductor(4.5e-10, 'ESL'), parallel(capacitor(1e-7, 'C'), resistor(1e9, 'EPR'))))).toBe('ESR + ESL + (C || EPR)');
+    expect(treeFormula(parallel(series(resistor(0.003), capacitor(2.2e-5)), resistor(50)))).toBe('(3 mΩ + 22 µF) || 50 Ω');
+  });
+
+  it('the subcircuit names the part, its model and its source', () => {
+    const part = library!.partsById.get('ORV-C-0402-100N-X7R')!;
+    const text = partSubcircuit(part);
+    const lines = text.split('\n');
+    expect(lines[0]).toBe('* zfolio export');
+    expect(lines[1]).toBe(`* ORV-C-0402-100N-X7R: ${part.title} (capacitor)`);
+    expect(lines[2]).toBe('* model: ESR + ESL + C; ESR = 25 mohm, ESL = 450 pH, C = 100 nF');
+    expect(lines.some((l) => l.startsWith(`* source: ${part.source.path} (sha256 `))).toBe(true);
+    expect(text).toContain('.SUBCKT ORV-C-0402-100N-X7R 1 2\n');
+  });
+});
