@@ -8,6 +8,8 @@ import { build, buildHelp } from './commands/build.js';
 import { print, printHelp } from './commands/print.js';
 import { serve, serveHelp } from './commands/serve.js';
 import { diff, diffHelp } from './commands/diff.js';
+import { fit, fitHelp } from './commands/fit.js';
+import { exportCommand, exportHelp } from './commands/export.js';
 import { DEBUG_ENV, EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
 import { failureDetails, failureLine } from './failure.js';
 import { OutputRefused } from '../folio/output-guard.js';
@@ -32,6 +34,8 @@ export const COMMANDS: Record<string, CommandEntry> = {
   serve: { run: serve, help: serveHelp, summary: 'build, serve on this machine, and rebuild on every change', ownsSignals: true },
   print: { run: print, help: printHelp, summary: 'PDFs of chosen parts and review packs' },
   diff: { run: diff, help: diffHelp, summary: 'what changed since a git revision, and which verdicts it moved' },
+  fit: { run: fit, help: fitHelp, summary: "fit a kind's model to a measured Touchstone file" },
+  export: { run: exportCommand, help: exportHelp, summary: "parts' models as Touchstone (.s1p) or SPICE (.subckt) files" },
 };
 
 export function mainHelp(): string {
@@ -44,7 +48,8 @@ Usage: zfolio COMMAND [options]
 Commands:
 ${lines.join('\n')}
 
-Every command takes --library DIR (default: the current folder) and --help.
+Every command takes --help, and every one but fit takes --library DIR
+(default: the current folder).
 Exit status: 0 success; 1 problems in the library, or a failure said in one
 line; 2 wrong command line, or an output folder zfolio will not replace;
 3 a rail plan misses its target (plan).

@@ -15,10 +15,13 @@ export interface FitWindow {
   toHz?: number;
 }
 
-/** Why a parameter was left out: it changes Z too little anywhere, or the scatter leaves it too uncertain. */
+/**
+ * Why a parameter was left out: it changes Z too little anywhere; the scatter leaves it too uncertain; or
+ * the fit without it is as good as the noise allows (a nested-model χ² test).
+ */
 export interface LeftOut {
   name: string;
-  why: 'no-effect' | 'uncertain';
+  why: 'no-effect' | 'uncertain' | 'not-needed';
   /** Where its effect is largest: at the low or high end of the range (a wider sweep would show it), or inside. */
   strongest: 'low-end' | 'high-end' | 'inside';
   /** max over the range of |∂ln Z/∂ln p| at the value the fit reached. */
@@ -57,6 +60,13 @@ export type FitOutcome = { ok: true; fit: FitResult } | { ok: false; message: st
 export const NO_EFFECT = 1e-3;
 /** A parameter known only within a factor of two (standard error of ln p above ln 2) is not determined. */
 export const TOO_UNCERTAIN = Math.LN2;
+/**
+ * A parameter is needed when leaving it out raises ‖r‖² by more than this many times the noise variance
+ * σ² = ‖r‖²/(m − n): the 0.1% point of χ² with one degree of freedom (the F-test of nested least-squares
+ * models, e.g. Press et al., Numerical Recipes, 3rd ed., 2007, §14.2 and §15.6). Below it, the gain is
+ * what fitting the noise would give.
+ */
+export const NEEDED_CHI2 = 10.83;
 
 const DB_PER_NEPER = 20 / Math.LN10;
 const DEGREES = 180 / Math.PI;
@@ -84,13 +94,15 @@ export function fitImpedance(kind: FitKind, measured: Sweep, window: FitWindow =
   let iterations = 0;
   // A long sweep is first fitted on an evenly thinned subset (every start, every parameter that shows no
   // effect left out), then the whole sweep refines that answer: the same minimum for a fraction of the work.
+  let screen: ModelFit | undefined;
   if (sweep.frequencies.length > 2 * COARSE_POINTS) {
-    const coarse = settle(new ModelFit(kind, thinned(sweep, COARSE_POINTS)), on, starts, leftOut, false);
+    screen = new ModelFit(kind, thinned(sweep, COARSE_POINTS));
+    const coarse = settle(screen, on, starts, leftOut, false);
     starts = [coarse.values];
     iterations += coarse.iterations;
   }
   const fit = new ModelFit(kind, sweep);
-  const best = settle(fit, on, starts, leftOut, true);
+  const best = settle(fit, on, starts, leftOut, true, screen);
   iterations += best.iterations;
   const stats = parameterStatistics(best.solution, fit.points, activeIndices(on).length);
   const parameters: Record<string, number> = {};
@@ -115,6 +127,9 @@ export function fitImpedance(kind: FitKind, measured: Sweep, window: FitWindow =
   };
 }
 
+/** Steps allowed a trial fit without one parameter, when judging whether it is needed. */
+const TRIAL_ITERATIONS = 40;
+
 /** Points of the thinned sweep for the first, rough fit of a long sweep. */
 const COARSE_POINTS = 400;
 
@@ -123,22 +138,45 @@ const COARSE_POINTS = 400;
  * from where the fit stood, until every parameter left is determined. `on` and `leftOut` are updated.
  * The uncertainty test is made only on the whole sweep (`judgeScatter`): a subset's scatter says less.
  */
-function settle(fit: ModelFit, on: boolean[], starts: readonly Float64Array[], leftOut: LeftOut[], judgeScatter: boolean): Solved {
+function settle(fit: ModelFit, on: boolean[], starts: readonly Float64Array[], leftOut: LeftOut[], judgeScatter: boolean, screen?: ModelFit): Solved {
   const specs = FIT_PARAMETERS[fit.kind];
   let best = fit.solveFromStarts(on, starts);
   let iterations = best.iterations;
   for (let round = 0; round < specs.length; round++) {
-    const stats = parameterStatistics(best.solution, fit.points, activeIndices(on).length);
-    const candidates = activeIndices(on)
+    const active = activeIndices(on);
+    const stats = parameterStatistics(best.solution, fit.points, active.length);
+    const candidates = active
       .map((index, column) => ({ index, influence: stats.influence[column], error: stats.standardError[column], strongest: stats.strongest[column] }))
       .filter((c) => specs[c.index].absence !== 'required');
     const noEffect = candidates.filter((c) => c.influence * Math.LN2 < NO_EFFECT).sort((a, b) => a.influence - b.influence)[0];
     const uncertain = judgeScatter ? candidates.filter((c) => c.error > TOO_UNCERTAIN).sort((a, b) => b.error - a.error)[0] : undefined;
-    const drop = noEffect ?? uncertain;
+    let drop: ((typeof candidates)[number] & { why: LeftOut['why'] }) | undefined = noEffect ? { ...noEffect, why: 'no-effect' } : uncertain ? { ...uncertain, why: 'uncertain' } : undefined;
+    let without: Solved | undefined;
+    if (!drop && judgeScatter) {
+      // Each optional parameter left out in turn: the one whose absence costs least, if that is within the noise.
+      const variance = (2 * best.solution.cost) / (2 * fit.points - active.length);
+      let least: { c: (typeof candidates)[number]; solved: Solved; chi2: number } | undefined;
+      for (const c of candidates) {
+        const trial = on.slice();
+        trial[c.index] = false;
+        // A misfit's χ² grows with the number of points: a parameter the thinned sweep already needs, the
+        // whole sweep needs too, so the costly trial on the whole sweep is made only for the others.
+        if (screen && screen.neededOn(on, trial, best.values)) continue;
+        // A needed parameter's absence shows within a few dozen steps; the cost only falls with more.
+        const solved = fit.solveFromStarts(trial, [best.values], TRIAL_ITERATIONS);
+        iterations += solved.iterations;
+        const chi2 = (2 * (solved.solution.cost - best.solution.cost)) / variance;
+        if (!least || chi2 < least.chi2) least = { c, solved, chi2 };
+      }
+      if (least && least.chi2 < NEEDED_CHI2) {
+        drop = { ...least.c, why: 'not-needed' };
+        without = fit.solveFromStarts(on.map((o, i) => o && i !== least.c.index), [least.solved.values]);
+      }
+    }
     if (!drop) break;
-    leftOut.push({ name: specs[drop.index].name, why: noEffect ? 'no-effect' : 'uncertain', strongest: drop.strongest, influence: drop.influence, standardError: drop.error });
+    leftOut.push({ name: specs[drop.index].name, why: drop.why, strongest: drop.strongest, influence: drop.influence, standardError: drop.error });
     on[drop.index] = false;
-    best = fit.solveFromStarts(on, [best.values]);
+    best = without ?? fit.solveFromStarts(on, [best.values]);
     iterations += best.iterations;
   }
   return { ...best, iterations };
@@ -199,17 +237,25 @@ class ModelFit {
     }
   }
 
+  /** Whether this sweep's fit with `on` is significantly better than with `without` (the χ² test above). */
+  neededOn(on: readonly boolean[], without: readonly boolean[], values: Float64Array): boolean {
+    const full = this.solveFromStarts(on, [values]);
+    const reduced = this.solveFromStarts(without, [values], TRIAL_ITERATIONS);
+    const variance = (2 * full.solution.cost) / (2 * this.points - activeIndices(on).length);
+    return (2 * (reduced.solution.cost - full.solution.cost)) / variance >= NEEDED_CHI2;
+  }
+
   /** The best of the fits from each start (lowest cost), with `on` choosing the parameters that take part. */
-  solveFromStarts(on: readonly boolean[], starts: readonly Float64Array[]): Solved {
+  solveFromStarts(on: readonly boolean[], starts: readonly Float64Array[], maxIterations?: number): Solved {
     let best: Solved | undefined;
     for (const start of starts) {
-      const solved = this.solve(on, start);
+      const solved = this.solve(on, start, maxIterations);
       if (!best || solved.solution.cost < best.solution.cost) best = solved;
     }
     return best!;
   }
 
-  private solve(on: readonly boolean[], start: Float64Array): Solved {
+  private solve(on: readonly boolean[], start: Float64Array, maxIterations?: number): Solved {
     const specs = FIT_PARAMETERS[this.kind];
     const active = activeIndices(on);
     const values = Float64Array.from(start);
@@ -249,6 +295,7 @@ class ModelFit {
         },
       },
       Float64Array.from(active, (i) => Math.log(start[i])),
+      { maxIterations },
     );
     active.forEach((index, j) => (values[index] = Math.exp(solution.x[j])));
     return { values, solution, iterations: solution.iterations };

@@ -109,6 +109,35 @@ function divide(ar: number, ai: number, br: number, bi: number): [number, number
   return [(ar * br + ai * bi) / d, (ai * br - ar * bi) / d];
 }
 
+/**
+ * Where each fixture measures well, as |Z| bounds (common practice): a shunt-thru up to ten times Z0/2,
+ * a series-thru down to a tenth of Z0/2; beyond, S21 is so near 1 that its error swamps the part. A
+ * reflection is best near Z0 and loses accuracy as Γ nears ±1: below Z0/50 or above 50·Z0.
+ */
+export function accurateRange(fixture: Fixture, z0: number): { lowOhm: number; highOhm: number } {
+  switch (fixture) {
+    case 'shunt-thru':
+      return { lowOhm: 0, highOhm: 5 * z0 };
+    case 'series-thru':
+      return { lowOhm: z0 / 20, highOhm: Infinity };
+    case 'reflection':
+      return { lowOhm: z0 / 50, highOhm: 50 * z0 };
+  }
+}
+
+/** How many of the points between `fromHz` and `toHz` lie outside the fixture's accurate range. */
+export function pointsOutside(z: MeasuredImpedance, fromHz: number, toHz: number): { count: number; lowOhm: number; highOhm: number } {
+  const range = accurateRange(z.fixture, z.referenceOhm);
+  let count = 0;
+  for (let k = 0; k < z.frequencies.length; k++) {
+    const f = z.frequencies[k];
+    if (f < fromHz || f > toHz) continue;
+    const size = Math.hypot(z.re[k], z.im[k]);
+    if (size < range.lowOhm || size > range.highOhm) count++;
+  }
+  return { count, ...range };
+}
+
 /** Γ = (Z − Z0)/(Z + Z0) of an impedance, for one-port files written from a model. */
 export function reflectionOf(zr: number, zi: number, z0: number): [number, number] {
   return divide(zr - z0, zi, zr + z0, zi);

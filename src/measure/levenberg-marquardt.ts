@@ -87,6 +87,8 @@ export function levenbergMarquardt(problem: LeastSquaresProblem, start: Float64A
       after += (factor.qtr[i] + rh) ** 2;
     }
     const gain = (before - after) / 2;
+    // No step can lower the cost by more than rounding: the minimum is reached.
+    if (!(gain > 1e-15 * cost)) break;
     problem.evaluate(trialX, trialR, trialJ);
     const trialCost = halfSquare(trialR);
     const rho = Number.isFinite(trialCost) && gain > 0 ? (cost - trialCost) / gain : -1;

@@ -58,7 +58,7 @@ function header(part: ExportablePart, what: string): string[] {
     `${part.id}: ${part.title} (${part.kind})`,
     `model: ${treeFormula(part.network)}${values ? `; ${values}` : ''}`,
     what,
-    `source: ${part.source.path} (sha256 ${part.source.hash})`,
+    `source: ${part.source.path} (sha256:${part.source.hash})`,
     'a small-signal, linear model at room temperature; voltage, current and power ratings are not in it',
   ].map(ascii);
 }

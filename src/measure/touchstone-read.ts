@@ -177,7 +177,7 @@ class Reader {
       ends.push(i);
     }
     if (starts.length === 0) return;
-    this.lastField = { line: this.line, column: this.column(ends[ends.length - 1]) + 1 };
+    this.lastField = { line: this.line, column: this.column(ends[ends.length - 1]) };
     const first = text.charCodeAt(starts[0]);
     if (first === 91) this.keywordLine(starts[0], end);
     else if (first === 35) this.optionLineAt(starts[0], end);

@@ -50,7 +50,7 @@ describe('headers', () => {
     expect(lines[0]).toBe('* zfolio export');
     expect(lines[1]).toBe(`* ORV-C-0402-100N-X7R: ${part.title} (capacitor)`);
     expect(lines[2]).toBe('* model: ESR + ESL + C; ESR = 25 mohm, ESL = 450 pH, C = 100 nF');
-    expect(lines.some((l) => l.startsWith(`* source: ${part.source.path} (sha256 `))).toBe(true);
+    expect(lines.some((l) => l.startsWith(`* source: ${part.source.path} (sha256:`))).toBe(true);
     expect(text).toContain('.SUBCKT ORV-C-0402-100N-X7R 1 2\n');
   });
 });

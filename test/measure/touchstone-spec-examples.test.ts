@@ -50,7 +50,7 @@ describe('Touchstone 2.0 specification examples', () => {
   it('example 1 (header only, no data) is a located error, not a crash', () => {
     const r = read('ex_1.ts');
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.errors.map((e) => `${e.line}:${e.column}: ${e.message}`)).toEqual(['5:21: no network data: the file ends before any frequency and its values']);
+    if (!r.ok) expect(r.errors.map((e) => `${e.line}:${e.column}: ${e.message}`)).toEqual(['5:20: no network data: the file ends before any frequency and its values']);
   });
 
   it('example 2: 1-port Z, MA, MHz, reference 50 by default: Z11 = (10 + k)∠10k° Ω at k MHz', () => {
