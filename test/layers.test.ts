@@ -21,7 +21,7 @@ type Layer = (typeof LAYERS)[number];
 const ROOT_FILES: Readonly<Record<string, Layer>> = { 'version.ts': 'folio' };
 
 /** Layers that take numbers (or figures) and return numbers (or words): no file system, no rendering. */
-const PURE: readonly Layer[] = ['units', 'circuit', 'analysis', 'present'];
+const PURE: readonly Layer[] = ['units', 'circuit', 'analysis', 'measure', 'present'];
 /** Packages a pure layer may load, by layer. */
 const PURE_PACKAGES: Readonly<Partial<Record<Layer, readonly string[]>>> = { circuit: ['ml-matrix'] };
 
