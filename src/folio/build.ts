@@ -22,6 +22,8 @@ import { buildDate, printJobsFor, type PrintSelection } from './print-jobs.js';
 import { silentProgress, type Progress } from './progress.js';
 import { dropRecord, linkPartFolders, partKey, readRecord, recordFile, reusableParts, siteKey, writeRecord } from './reuse.js';
 import { keptPdfs, linkPdfs, pdfKeys, pdfsIn, stampPdfs } from './pdf-reuse.js';
+import { buildHistory, type BuildHistory } from './build-history.js';
+import { addChanges } from './changes-page.js';
 
 export interface BuildOptions {
   libraryRoot: string;
@@ -44,6 +46,8 @@ export interface BuildOptions {
    * nothing). Default: .zfolio-cache under the library.
    */
   cache?: string | false;
+  /** A git revision: the site gets a "Changes since REV" page. */
+  since?: string;
   /** Called at each step of putting the new site in place (tests stop the process there). */
   onSwapStep?(step: SwapStep): void;
 }
@@ -133,6 +137,10 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   result.library = library;
   // Warnings that need the analysis: a review that accepts a rail failing its target.
   diagnostics.push(...reviewWarnings(library.reviews, () => railVerdicts(library)));
+  // The revisions compared with: read from git before anything is written (see build-history.ts).
+  const history = buildHistory(library, options.since);
+  diagnostics.push(...history.diagnostics);
+  if (history.diagnostics.some((d) => d.severity === 'error')) return result;
 
   // Chromium first: one that is missing or will not start is known before the build's time is spent, and the
   // pages then link only the PDFs there are (kept ones, as a build without --pdf).
@@ -150,13 +158,14 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
     }
   }
   try {
-    return await buildWith(options, library, outDir, browser, result, { started, progress, clock });
+    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history });
   } finally {
     await browser?.close();
   }
 }
 
 interface Running {
+  history: BuildHistory;
   started: number;
   progress: Progress;
   clock: () => StageTime;
@@ -172,7 +181,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
   const recordAt = cacheRoot && !options.charts ? recordFile(cacheRoot, outDir) : undefined;
   const record = recordAt ? readRecord(recordAt, outDir) : undefined;
   // PDFs: printed afresh with a browser; without one, the last site's are kept where their inputs are unchanged.
-  const keys = pdfKeys(library, site);
+  const keys = pdfKeys(library, site, (slug) => run.history.reviews.get(slug)?.revision.commit ?? '');
   const earlier = browser ? [] : pdfsIn(outDir);
   const kept = browser ? new Set<string>() : keptPdfs(record?.pdfs, keys, outDir);
   const pdfLinks = {
@@ -191,6 +200,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
 
     clock = stageClock();
     const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, timings: timings.assemble });
+    await addChanges(folio, run.history, options.charts ?? pool!, staging.dir);
     await pool?.close();
     Object.assign(timings.assemble, clock());
 

@@ -5,6 +5,7 @@ import { describeComparison, renderComparisonChart } from '../charts/comparison-
 import { PART_CHART_KINDS, renderPartCharts, type PartChartInput } from '../charts/part-charts.js';
 import { renderRailChart, type RailChartData } from '../charts/rail-chart.js';
 import { renderLoadStepCharts, type LoadStepChartData } from '../charts/load-step-chart.js';
+import { renderChangeChart, type ChangeChartData } from '../charts/change-chart.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact } from './chart-maker.js';
 
@@ -12,7 +13,8 @@ export type ChartJob =
   | { type: 'part'; input: PartChartInput }
   | { type: 'comparison'; inputs: PartChartInput[]; title: string }
   | { type: 'rail'; data: RailChartData }
-  | { type: 'load-step'; data: LoadStepChartData };
+  | { type: 'load-step'; data: LoadStepChartData }
+  | { type: 'change'; data: ChangeChartData };
 
 /** The part of an analysis the charts read: typed arrays and plain objects only (no YAML nodes). */
 export function chartInput(a: PartAnalysis): PartChartInput {
@@ -35,6 +37,7 @@ export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {
     return PART_CHART_KINDS.map((key) => ({ key, ...charts[key] }));
   }
   if (job.type === 'rail') return [{ key: 'rail', ...(await renderRailChart(job.data)) }];
+  if (job.type === 'change') return [{ key: 'change', ...(await renderChangeChart(job.data)) }];
   if (job.type === 'load-step') {
     const charts = await renderLoadStepCharts(job.data);
     return [

@@ -3,6 +3,7 @@
 
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
+import type { ChangeChartData } from '../charts/change-chart.js';
 
 export interface ChartArtifact {
   /** File-name-safe key: "impedance", "phase", "plane", "admittance", "overlay". */
@@ -22,4 +23,6 @@ export interface ChartMaker {
   railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact>;
   /** The load-step charts of a plan (voltage, then branch currents); none when it has no load step. */
   loadStepCharts(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact[]>;
+  /** A part's or a rail's |Z| at an earlier revision and now, on one chart. */
+  changeChart(data: ChangeChartData): Promise<ChartArtifact>;
 }

@@ -16,6 +16,7 @@ import { codeKey } from './reuse.js';
 import { chartInput, loadStepChartData, railChartData, renderChartJob, type ChartJob } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
+import type { ChangeChartData } from '../charts/change-chart.js';
 
 export interface ChartPoolOptions {
   /** Folder for cached charts; none: no cache. */
@@ -100,6 +101,14 @@ export class ChartPool implements ChartMaker {
     const data = loadStepChartData(figures);
     if (!data) return [];
     return this.cached(this.key('load-step', inputsKey), () => this.run({ type: 'load-step', data }));
+  }
+
+  async changeChart(data: ChangeChartData): Promise<ChartArtifact> {
+    // The data holds both revisions' curves, which come from files of two revisions and two settings: the
+    // key is the data itself.
+    const key = this.key('change', createHash('sha256').update(JSON.stringify(data)).digest('hex'));
+    const [chart] = await this.cached(key, () => this.run({ type: 'change', data }));
+    return chart;
   }
 
   /** Stop the workers and drop cache entries this build did not use, so the cache never grows stale. */

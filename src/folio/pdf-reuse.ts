@@ -21,13 +21,16 @@ export interface PdfStamp {
   ino: number;
 }
 
-/** The key of every PDF the library can have, by site-relative path. `site` is reuse.ts's siteKey. */
-export function pdfKeys(library: Library, site: string): Map<string, string> {
+/**
+ * The key of every PDF the library can have, by site-relative path. `site` is reuse.ts's siteKey;
+ * `reviewInputs` names what else a review's pack is made from (the commit its `since:` names).
+ */
+export function pdfKeys(library: Library, site: string, reviewInputs: (slug: string) => string = () => ''): Map<string, string> {
   const hash = (...parts: string[]) => createHash('sha256').update(['pdf', site, ...parts].join('\n')).digest('hex').slice(0, 32);
   const everything = library.sources.map((s) => `${s.path} ${s.hash}`).join('\n');
   return new Map([
     ...library.parts.map((p): [string, string] => [partPdfPath(p.id), hash('part', p.source.path, p.source.hash)]),
-    ...library.reviews.map((r): [string, string] => [reviewPdfPath(reviewSlug(r)), hash('review', reviewSlug(r), everything)]),
+    ...library.reviews.map((r): [string, string] => [reviewPdfPath(reviewSlug(r)), hash('review', reviewSlug(r), everything, ...[reviewInputs(reviewSlug(r))].filter(Boolean))]),
   ]);
 }
 

@@ -5,6 +5,7 @@ import { fileStem, pageName } from '../model/page-names.js';
 import type { LibraryReview, Library } from '../model/library.js';
 import type { ComparisonPageData, PartPageData } from './site-data.js';
 import type { PlanPageData } from './plan-page.js';
+import type { ChangesData } from './changes-page.js';
 import { markdownBlock, markdownInline } from './markdown.js';
 import { GENERAL_CAUTION, RATINGS_CAUTION } from './cautions.js';
 import { comparisonKey } from '../model/comparison.js';
@@ -36,6 +37,8 @@ export interface ReviewPageData {
   sources: { file: string; hash: string }[];
   /** Site-relative path of the pack PDF, when PDFs are built. */
   pdfFile?: string;
+  /** What changed since the revision the review names in `since:` (set by the build). */
+  changes?: ChangesData;
 }
 
 export function reviewSlug(review: LibraryReview): string {

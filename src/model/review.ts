@@ -8,6 +8,8 @@
 //   covers: {parts: [ID, ...], comparisons: [file-stem, ...], plans: [RAIL, ...]}
 //   decisions: ["text (short markdown)", ...]
 //   open-points: [{text: ..., owner: ..., due: 2026-12-05}, ...]
+//   since: v1.2          # optional: the git revision signed at the previous review; the page and pack
+//                        # then say what changed since it
 
 import { isSeq, type Node, type YAMLSeq } from 'yaml';
 import { Fields, describeNode, missingTarget, scalarText, type ReadContext } from './fields.js';
@@ -51,9 +53,14 @@ export interface Review<C, P> {
   summary?: string;
   /** Where the summary (shown on the pack's cover) is written. */
   summaryAt?: SourcePosition;
+  /** The git revision of the previous review (a tag, a branch, a hash), as written; resolved by the build. */
+  since?: string;
+  sinceAt?: SourcePosition;
   source: SourceFile;
   at: SourcePosition;
 }
+
+const SINCE_PATTERN = /^(?!-)[^\s\u0000-\u001f\u007f]{1,200}$/;
 
 const ISO_DATE = /^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/;
 
@@ -61,11 +68,13 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
   const before = ctx.diagnostics.errorCount;
   const root = Fields.of(ctx, ctx.source.document.contents as Node | null, '');
   if (!root) return undefined;
-  root.expect(['title', 'date', 'board', 'reviewers', 'summary', 'covers', 'decisions', 'open-points'], ['title', 'date', 'board', 'covers']);
+  root.expect(['title', 'date', 'board', 'reviewers', 'summary', 'covers', 'decisions', 'open-points', 'since'], ['title', 'date', 'board', 'covers']);
   const title = root.text('title');
   const date = readDate(root, 'date');
   const board = root.text('board');
   const summary = root.text('summary');
+  // A revision name as git takes it: no spaces, no control characters, not an option.
+  const since = root.text('since', { pattern: SINCE_PATTERN, patternHint: 'a git revision such as v1.2, a branch, HEAD~3 or a commit hash' });
 
   const reviewers = readEntries(ctx, root, 'reviewers', ['name', 'role'], (name, fields) => ({ name, role: fields?.text('role') }));
 
@@ -109,7 +118,8 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
 
   if (ctx.diagnostics.errorCount > before || !title || !date || !board) return undefined;
   const summaryAt = summary !== undefined ? root.position('summary') : undefined;
-  return { title, date, board, reviewers, parts, comparisons, plans, decisions, decisionsAt, openPoints, summary, summaryAt, source: ctx.source, at: root.position() };
+  const sinceAt = since !== undefined ? root.position('since') : undefined;
+  return { title, date, board, reviewers, parts, comparisons, plans, decisions, decisionsAt, openPoints, summary, summaryAt, since, sinceAt, source: ctx.source, at: root.position() };
 }
 
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];

@@ -57,6 +57,16 @@ describe('a review file', () => {
     expect(lines.some((l) => l.startsWith('reviews/r.yaml:7:17: covers.comparisons: no comparison file "big-caps"'))).toBe(true);
   });
 
+  it('may name the revision of the previous review, and says where; a name that cannot be a revision is refused at its place', () => {
+    const { library } = libraryWithReview(`${GOOD}since: review-2026-03\n`);
+    const [review] = library!.reviews;
+    expect(review.since).toBe('review-2026-03');
+    expect(review.sinceAt).toEqual({ file: 'reviews/r.yaml', line: 13, column: 8 });
+    expect(libraryWithReview(GOOD).library!.reviews[0].since).toBeUndefined();
+    const { diagnostics } = libraryWithReview(`${GOOD}since: --all\n`);
+    expect(diagnostics.map(formatDiagnostic)).toContain('reviews/r.yaml:13:8: since: expected a git revision such as v1.2, a branch, HEAD~3 or a commit hash, found "--all"');
+  });
+
   it('wants an ISO date and something to cover', () => {
     const { diagnostics } = libraryWithReview('title: T\ndate: 24.11.2026\nboard: B\ncovers: {}\n');
     const lines = diagnostics.map(formatDiagnostic);

@@ -5,11 +5,12 @@ import { formatDiagnostic } from '../../model/diagnostics.js';
 import { buildFolio, DEFAULT_OUT_DIR, type BuildResult } from '../../folio/build.js';
 import { terminalProgress } from '../../folio/progress.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
-import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
+import { EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from '../io.js';
+import { RevisionError } from '../../history/git-revision.js';
 import { plural } from '../report.js';
 import { PAPER_SIZES, type PaperSize } from '../../model/settings.js';
 
-export const buildHelp = `Usage: zfolio build [--library DIR] [--out DIR] [--pdf] [--chrome PATH] [--paper A4|Letter]
+export const buildHelp = `Usage: zfolio build [--library DIR] [--out DIR] [--pdf] [--chrome PATH] [--paper A4|Letter] [--since REV]
 
 Builds the folio: a datasheet page per part, comparison pages, rail plans and
 reviews, and an index, as a static site that works offline and from the file
@@ -23,6 +24,8 @@ Options:
   --chrome PATH       the Chromium to print with (default: $ZFOLIO_CHROME, then the usual paths)
   --paper SIZE        A4 or Letter (default: folio.yaml, else A4)
   --workers N         threads drawing charts (default: one per core)
+  --since REV         add a "Changes since REV" page: what changed in the library
+                      since git revision REV, with |Z| before and after
   -l, --library DIR   the library folder (default: the current folder)
   -h, --help          show this help
 `;
@@ -34,6 +37,7 @@ export const BUILD_OPTIONS = {
   chrome: { type: 'string' },
   paper: { type: 'string' },
   workers: { type: 'string' },
+  since: { type: 'string' },
 } as const;
 
 export function workersOption(value: unknown): number | undefined {
@@ -84,14 +88,23 @@ export async function build(args: string[], io: CommandIO): Promise<number> {
   }
   if (positionals.length > 0) throw new UsageError(`build takes no arguments, found ${positionals.join(' ')}`);
   const root = libraryRoot(values, io);
-  const result = await buildFolio({
-    libraryRoot: root,
-    outDir: typeof values.out === 'string' ? resolve(io.cwd, values.out) : undefined,
-    cwd: io.cwd,
-    home: io.env.HOME,
-    workers: workersOption(values.workers),
-    progress: terminalProgress((text) => io.err(text), io.isTTY),
-    pdf: values.pdf ? { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper: paperOption(values.paper) } : undefined,
-  });
+  let result: BuildResult;
+  try {
+    result = await buildFolio({
+      libraryRoot: root,
+      outDir: typeof values.out === 'string' ? resolve(io.cwd, values.out) : undefined,
+      cwd: io.cwd,
+      home: io.env.HOME,
+      workers: workersOption(values.workers),
+      progress: terminalProgress((text) => io.err(text), io.isTTY),
+      pdf: values.pdf ? { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper: paperOption(values.paper) } : undefined,
+      since: typeof values.since === 'string' ? values.since : undefined,
+    });
+  } catch (error) {
+    // --since names a revision git cannot give: said in one line before anything is written.
+    if (!(error instanceof RevisionError)) throw error;
+    io.err(`zfolio build: --since: ${error.message}\n`);
+    return error.misuse ? EXIT_MISUSE : EXIT_BAD_INPUT;
+  }
   return reportBuild(result, io);
 }

@@ -6,6 +6,7 @@ import { loadReported, plural } from '../report.js';
 import { railVerdicts } from '../../analysis/review-checks.js';
 import { reviewWarnings } from '../../model/review-consistency.js';
 import { formatDiagnostic } from '../../model/diagnostics.js';
+import { buildHistory } from '../../folio/build-history.js';
 
 export const checkHelp = `Usage: zfolio check [--library DIR]
 
@@ -28,6 +29,14 @@ export function check(args: string[], io: CommandIO): number {
   if (!library) return EXIT_BAD_INPUT;
   // Warnings that need the analysis: a review that accepts a rail failing its target.
   for (const d of reviewWarnings(library.reviews, () => railVerdicts(library))) io.err(formatDiagnostic(d) + '\n');
+  // A review's `since:` must name a revision git can give, whose files load.
+  const history = library.reviews.some((r) => r.since !== undefined) ? buildHistory(library, undefined).diagnostics : [];
+  for (const d of history) io.err(formatDiagnostic(d) + '\n');
+  const errors = history.filter((d) => d.severity === 'error').length;
+  if (errors > 0) {
+    io.err(`${plural(errors, 'error')} in the library's reviews\n`);
+    return EXIT_BAD_INPUT;
+  }
   // Parts always; comparisons, plans and reviews when the library holds any.
   const held = [
     plural(library.parts.length, 'part'),
