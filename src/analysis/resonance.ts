@@ -42,6 +42,14 @@ export function reactanceSign(re: number, im: number): number {
   return Math.sign(im);
 }
 
+/**
+ * Is `r` the self-resonance? Compared by value, not identity: an analysis copied between threads or read
+ * back from JSON holds equal, not identical, objects.
+ */
+export function isSelfResonance(r: Resonance, self: Resonance | undefined): boolean {
+  return self !== undefined && r.frequencyHz === self.frequencyHz && r.type === self.type;
+}
+
 /** Y and dY/dω of a tree at a frequency (Hz), for extremum searches. */
 export function treeAdmittanceSlope(element: Element): AdmittanceSlopeAt {
   return (f) => admittanceSlope(impedanceSlopeAt(element, 2 * Math.PI * f));

@@ -3,6 +3,8 @@
 // (inductive); the line breaks where B passes through zero. G = R/(R² + X²) and B = −X/(R² + X²) (any
 // circuit text, e.g. Alexander & Sadiku, ch. 9).
 
+import { isSelfResonance } from '../analysis/resonance.js';
+import { resonanceLabel } from '../present/resonance-words.js';
 import { frameForKey, layoutKey } from './key.js';
 import { ABOVE_FIRST, BELOW_FIRST, placeLabels, type LabelRequest } from './labels.js';
 import { FONT_SIZE, PART_SERIES, PLOT_WIDTH, RESONANCE_MARK, frame } from './palette.js';
@@ -10,8 +12,6 @@ import {
   bandData,
   curveRows,
   mergeCurve,
-  isSelfResonance,
-  resonanceLabel,
   resonancesByImportance,
   sweepAxis,
   toPlot,

@@ -1,7 +1,7 @@
 // Chart: several parts' |Z| overlaid on common log-log axes, one colour and dash pattern per part (overlay.ts),
 // each part's self-resonance marked in its colour, the key listing the part ids in the order given.
 
-import { formatEng } from '../units/format.js';
+import { describeComparison } from '../present/chart-descriptions.js';
 import { frameForKey, layoutKey, type KeyItem } from './key.js';
 import { overlayColor, overlayEncoding, overlayStyle } from './overlay.js';
 import { FONT_SIZE, PLOT_WIDTH, frame } from './palette.js';
@@ -73,19 +73,6 @@ export const comparisonChart: ChartDefinition<ComparisonInput> = {
     };
   },
 };
-
-/** Title and text alternative of a comparison; `title` is the comparison's own title when it has one. */
-export function describeComparison(parts: ComparisonInput, title?: string): ChartText {
-  const from = Math.min(...parts.map((p) => p.frequencies[0]));
-  const to = Math.max(...parts.map((p) => p.frequencies[p.frequencies.length - 1]));
-  const each = parts.map((p) => `${p.part.id} (${p.selfResonance ? `SRF ${formatEng(p.selfResonance.frequencyHz, 'Hz')}, |Z| ${formatEng(p.selfResonance.impedanceOhm, 'Ω')} there` : 'no SRF in the sweep'})`);
-  return {
-    title: title ?? `Impedance |Z| of ${parts.length} parts compared`,
-    description:
-      `Log-log chart of the impedance magnitude |Z| of ${parts.length} parts on common axes, ${formatEng(from, 'Hz')} to ${formatEng(to, 'Hz')}; ` +
-      `each part has its own colour and dash pattern, its self-resonance marked by a dot. Parts: ${each.join('; ')}.`,
-  };
-}
 
 /** Render a comparison of parts (in the order given: the key lists them so). */
 export function renderComparisonChart(parts: ComparisonInput, text?: ChartText): Promise<ChartOutput> {

@@ -1,5 +1,7 @@
 // Chart: |Z| and R against frequency on log-log axes, resonances marked and labelled, usable band shaded.
 
+import { isSelfResonance } from '../analysis/resonance.js';
+import { resonanceLabel } from '../present/resonance-words.js';
 import { frameForKey, layoutKey } from './key.js';
 import { ABOVE_FIRST, BELOW_FIRST, placeLabels, type LabelRequest } from './labels.js';
 import { FONT_SIZE, PART_SERIES, PLOT_WIDTH, RATED_MARK, RESONANCE_MARK, frame } from './palette.js';
@@ -8,8 +10,6 @@ import {
   curveRows,
   sweepAxis,
   mergeCurve,
-  isSelfResonance,
-  resonanceLabel,
   resonancesByImportance,
   toPlot,
   Y_TICK_SPACING,

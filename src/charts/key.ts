@@ -4,7 +4,7 @@
 
 import { FONT_SIZE, type Frame } from './palette.js';
 import type { Row } from './render.js';
-import { cleanText } from './svg-finish.js';
+import { cleanText } from '../present/escape.js';
 import { textWidth } from './text-width.js';
 
 export type KeyItem =

@@ -5,6 +5,7 @@
 // capacitors carry the step and when the regulator takes over.
 
 import { formatEng } from '../units/format.js';
+import { describeLoadStep } from '../present/plan-chart-descriptions.js';
 import { frameForKey, layoutKey, type KeyItem } from './key.js';
 import { BELOW_FIRST, placeLabels, type LabelRequest } from './labels.js';
 import { overlayEncoding, overlayStyle } from './overlay.js';
@@ -207,32 +208,6 @@ export const loadShareChart: ChartDefinition<LoadStepChartData> = {
     };
   },
 };
-
-/** Titles and text alternatives of the two charts. */
-export function describeLoadStep(data: LoadStepChartData): { voltage: ChartText; share: ChartText } {
-  const name = data.rail ?? 'the rail';
-  const t = data.timesS;
-  const span = `from ${formatEng(t[0], 's')} to ${formatEng(t[t.length - 1], 's')} after the step begins (log time axis)`;
-  const final = data.finalV === null ? 'It has no DC path and keeps falling.' : `It settles at ${formatEng(data.finalV, 'V')}${data.settleS !== null ? `, within 10% by ${formatEng(data.settleS, 's')}` : ''}.`;
-  return {
-    voltage: {
-      title: `${name}: voltage after a ${formatEng(data.stepA, 'A')} load step`,
-      description:
-        `The deviation of ${name} from its DC voltage ${span}, for a load current ramping by ${formatEng(data.stepA, 'A')} over ${formatEng(data.riseS, 's')}, ` +
-        `against a budget of ±${formatEng(data.budgetV, 'V')}. The deepest dip is ${formatEng(data.droop.droopV, 'V')} at ${formatEng(data.droop.atS, 's')}. ${final}`,
-    },
-    share: {
-      title: `${name}: who carries the load step`,
-      description: `Each branch's share of the ${formatEng(data.stepA, 'A')} load current ${span}: ${data.branches.map((b) => `${b.label} ends at ${formatPercent(b.share[b.share.length - 1])}`).join('; ')}.`,
-    },
-  };
-}
-
-/** A share as a percentage to one decimal: "100%", "−0.1%", "0%". */
-function formatPercent(x: number): string {
-  const text = String(Number((x * 100).toFixed(1)));
-  return `${text === '-0' ? '0' : text.replace('-', '−')}%`;
-}
 
 /** Render both charts. */
 export async function renderLoadStepCharts(data: LoadStepChartData): Promise<{ voltage: ChartOutput; share: ChartOutput }> {

@@ -1,17 +1,22 @@
 // The four charts of a part's datasheet page, rendered together from one analysis.
 
 import { admittanceChart } from './admittance-chart.js';
-import { describePartChart, type PartChartKind } from './describe.js';
+import { describePartChart, type PartChartKind } from '../present/chart-descriptions.js';
 import { impedanceChart } from './impedance-chart.js';
 import type { PartChartInput } from './part-data.js';
 import { phaseChart } from './phase-chart.js';
-import { planeChart } from './plane-chart.js';
+import { partPlaneConstant, planeChart } from './plane-chart.js';
 import { renderChart, type ChartDefinition, type ChartOutput, type ChartText } from './render.js';
 
 export type { PartChartInput } from './part-data.js';
-export type { PartChartKind } from './describe.js';
+export type { PartChartKind } from '../present/chart-descriptions.js';
 
 export type PartCharts = Record<PartChartKind, ChartOutput>;
+
+/** A chart's title and description, written from the analysis (the complex plane's with its scale). */
+function describe(kind: PartChartKind, input: PartChartInput): ChartText {
+  return describePartChart(kind, input, kind === 'plane' ? partPlaneConstant(input) : undefined);
+}
 
 export const PART_CHARTS: Readonly<Record<PartChartKind, ChartDefinition<PartChartInput>>> = {
   impedance: impedanceChart,
@@ -28,12 +33,12 @@ export const PART_CHART_KINDS: readonly PartChartKind[] = ['impedance', 'phase',
  */
 export async function renderPartCharts(input: PartChartInput, text: Partial<Record<PartChartKind, ChartText>> = {}): Promise<PartCharts> {
   const outputs = await Promise.all(
-    PART_CHART_KINDS.map((kind) => renderChart(PART_CHARTS[kind], input, text[kind] ?? describePartChart(kind, input))),
+    PART_CHART_KINDS.map((kind) => renderChart(PART_CHARTS[kind], input, text[kind] ?? describe(kind, input))),
   );
   return Object.fromEntries(PART_CHART_KINDS.map((kind, i) => [kind, outputs[i]])) as PartCharts;
 }
 
 /** One of a part's charts. */
 export function renderPartChart(kind: PartChartKind, input: PartChartInput, text?: ChartText): Promise<ChartOutput> {
-  return renderChart(PART_CHARTS[kind], input, text ?? describePartChart(kind, input));
+  return renderChart(PART_CHARTS[kind], input, text ?? describe(kind, input));
 }

@@ -5,8 +5,8 @@
 import type { ImpedanceArrays } from '../circuit/impedance.js';
 import type { Element } from '../circuit/element.js';
 import type { UsableBand } from '../analysis/band.js';
-import type { Resonance } from '../analysis/resonance.js';
-import { formatEng, formatEngRange, formatPercent } from '../units/format.js';
+import { isSelfResonance, type Resonance } from '../analysis/resonance.js';
+import { bandCaption, bandRange } from '../present/band-words.js';
 import type { KeyItem } from './key.js';
 import type { Row } from './render.js';
 import { logAxis, logTicks, type AxisMap } from './scales.js';
@@ -47,43 +47,11 @@ export function sweepAxis(frequencies: Float64Array, plotWidth: number): Frequen
   return frequencyAxis(frequencies[0], frequencies[frequencies.length - 1], plotWidth);
 }
 
-/**
- * Is `r` the self-resonance? Compared by value, not identity: an input copied between threads or read back
- * from JSON holds equal, not identical, objects.
- */
-export function isSelfResonance(r: Resonance, self: Resonance | undefined): boolean {
-  return self !== undefined && r.frequencyHz === self.frequencyHz && r.type === self.type;
-}
-
-/** "SRF 23.7 MHz" for the self-resonance, "series 1.2 GHz" / "parallel 45 MHz" for the others. */
-export function resonanceLabel(r: Resonance, self: Resonance | undefined): string {
-  const name = isSelfResonance(r, self) ? 'SRF' : r.type;
-  return `${name} ${formatEng(r.frequencyHz, 'Hz')}`;
-}
-
 /** Resonances ordered for labelling: the self-resonance first, then by frequency. */
 export function resonancesByImportance(input: PartChartInput): Resonance[] {
   const self = input.resonances.filter((r) => isSelfResonance(r, input.selfResonance));
   const rest = input.resonances.filter((r) => !isSelfResonance(r, input.selfResonance));
   return [...self, ...rest];
-}
-
-/** What the band is, in a few words, for the key and the description. */
-export function bandCaption(input: PartChartInput): string {
-  const b = input.part.behavesAs;
-  if (b === 'bead') return 'absorbing band (R − R_DC ≥ |X|)';
-  if (b === 'resistor' && input.within !== undefined) return `usable band (|Z − R|/R ≤ ${formatPercent(input.within)})`;
-  if (input.within !== undefined) return `usable band (±${formatPercent(input.within)})`;
-  return 'usable band';
-}
-
-/** "1.2 kHz – 7.11 MHz", "to 7.11 MHz" (from the sweep start), "from 1.2 kHz", "whole sweep". */
-export function bandRange(band: UsableBand): string {
-  const [from, to] = formatEngRange(band.fromHz, band.toHz, 'Hz');
-  if (band.fromIsSweepEnd && band.toIsSweepEnd) return 'whole sweep';
-  if (band.fromIsSweepEnd) return `up to ${to}`;
-  if (band.toIsSweepEnd) return `from ${from}`;
-  return `${from} – ${to}`;
 }
 
 export interface BandData {
@@ -98,7 +66,7 @@ export function bandData(input: PartChartInput): BandData {
   const edges: Row[] = [];
   if (!b.fromIsSweepEnd) edges.push({ f: b.fromHz });
   if (!b.toIsSweepEnd) edges.push({ f: b.toHz });
-  return { band: [{ f: b.fromHz, f2: b.toHz }], bandEdges: edges, key: { kind: 'band', text: `${bandCaption(input)}: ${bandRange(b)}` } };
+  return { band: [{ f: b.fromHz, f2: b.toHz }], bandEdges: edges, key: { kind: 'band', text: `${bandCaption(input.part.behavesAs, input.within)}: ${bandRange(b)}` } };
 }
 
 /** A curve over frequency with some exact points inserted; `keep` marks points down-sampling must keep. */

@@ -1,10 +1,20 @@
 // Chart: the phase of Z against frequency (log f, −90° … +90°), with the zero line, resonances (where the
 // phase crosses 0°) marked, and the usable band shaded.
 
+import { isSelfResonance } from '../analysis/resonance.js';
+import { resonanceLabel } from '../present/resonance-words.js';
 import { frameForKey, layoutKey } from './key.js';
 import { placeLabels, type LabelRequest, type Placement } from './labels.js';
 import { FONT_SIZE, INK_SOFT, PART_SERIES, PLOT_WIDTH, RESONANCE_MARK, ZERO_LINE, frame } from './palette.js';
-import { bandData, curveRows, isSelfResonance, mergeCurve, resonanceLabel, resonancesByImportance, sweepAxis, toPlot, type PartChartInput } from './part-data.js';
+import {
+  bandData,
+  curveRows,
+  mergeCurve,
+  resonancesByImportance,
+  sweepAxis,
+  toPlot,
+  type PartChartInput,
+} from './part-data.js';
 import type { ChartDefinition, Row } from './render.js';
 import { linearAxis, linearTicks } from './scales.js';
 import {

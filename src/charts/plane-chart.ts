@@ -5,12 +5,14 @@
 // labelled on the path, and arrowheads between the marks show the direction of increasing frequency:
 // from capacitive (X < 0, below the zero line) to inductive (X > 0, above it) for a capacitor.
 
+import { isSelfResonance } from '../analysis/resonance.js';
+import { resonanceLabel } from '../present/resonance-words.js';
 import { impedanceAt } from '../circuit/impedance.js';
 import { formatEng } from '../units/format.js';
 import { frameForKey, layoutKey } from './key.js';
 import { placeLabels, type LabelRequest, type Placement } from './labels.js';
 import { FONT_SIZE, INK, INK_SOFT, PART_SERIES, PLOT_WIDTH, RESONANCE_MARK, ZERO_LINE, frame } from './palette.js';
-import { isSelfResonance, mergeCurve, resonanceLabel, resonancesByImportance, type PartChartInput } from './part-data.js';
+import { mergeCurve, resonancesByImportance, type PartChartInput } from './part-data.js';
 import type { ChartDefinition, Row } from './render.js';
 import { decadeOf, linearAxis, signedLog, signedLogTicks } from './scales.js';
 import { simplifyPolyline } from './simplify.js';
@@ -60,6 +62,12 @@ function planeDomain(lo: number, hi: number, c: number): [number, number] {
   return [Math.min(0, edge(lo)) - margin, Math.max(edge(10 * c), edge(hi)) + margin];
 }
 
+/** The signed-log constant of a part's path: planeConstant of its |Z| over the sweep. */
+export function partPlaneConstant(input: Pick<PartChartInput, 'frequencies' | 'z'>): number {
+  const { re, im } = input.z;
+  return planeConstant(Float64Array.from(input.frequencies, (_, i) => Math.hypot(re[i], im[i])));
+}
+
 export const planeChart: ChartDefinition<PartChartInput> = {
   name: 'plane',
   frame: FRAME,
@@ -90,8 +98,7 @@ export const planeChart: ChartDefinition<PartChartInput> = {
   bind(input) {
     const { frequencies } = input;
     const { re, im } = input.z;
-    const mags = Float64Array.from(frequencies, (_, i) => Math.hypot(re[i], im[i]));
-    const c = planeConstant(mags);
+    const c = partPlaneConstant(input);
     const s = (v: number) => signedLog(v, c);
 
     const rCurve = mergeCurve(frequencies, (i) => re[i], input.resonances.map((r) => ({ f: r.frequencyHz, v: r.impedanceOhm })), false);

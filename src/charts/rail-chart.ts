@@ -4,6 +4,7 @@
 // Input is plain data, so the rail engine and the charts only share this interface.
 
 import { formatEng } from '../units/format.js';
+import { describeRail } from '../present/plan-chart-descriptions.js';
 import { frameForKey, layoutKey, type KeyItem } from './key.js';
 import { ABOVE_FIRST, placeLabels, type LabelRequest } from './labels.js';
 import { overlayEncoding, overlayStyle } from './overlay.js';
@@ -167,23 +168,6 @@ function lowerIndex(f: Float64Array, hz: number): number {
     else hi = mid - 1;
   }
   return lo;
-}
-
-/** Title and text alternative of a rail chart. */
-export function describeRail(data: RailChartData): ChartText {
-  const n = data.frequencies.length;
-  const name = data.rail ?? 'the rail';
-  const target = typeof data.target === 'number' ? `the target ${formatEng(data.target, 'Ω')}` : 'its target (varying with frequency)';
-  const peaks = [...data.peaks].sort((a, b) => a.frequencyHz - b.frequencyHz).map((p) => `${formatEng(p.impedanceOhm, 'Ω')} at ${formatEng(p.frequencyHz, 'Hz')}`);
-  const band = data.band ? `The band ${formatEng(data.band.fromHz, 'Hz')} to ${formatEng(data.band.toHz, 'Hz')} is shaded. ` : '';
-  return {
-    title: `${name}: impedance against target`,
-    description:
-      `Log-log chart of the impedance |Z| of ${name} from ${formatEng(data.frequencies[0], 'Hz')} to ${formatEng(data.frequencies[n - 1], 'Hz')} against ${target}, ` +
-      `with ${data.branches.length} branch curve${data.branches.length === 1 ? '' : 's'} (${data.branches.map((b) => b.label).join(', ')}). ` +
-      band +
-      (peaks.length > 0 ? `Peaks: ${peaks.join('; ')}.` : 'No peaks.'),
-  };
 }
 
 /** Render a rail chart. */

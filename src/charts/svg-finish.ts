@@ -8,31 +8,10 @@
 //    check that nothing can fetch or run (no script, foreignObject, href or url() outside the chart's ids).
 
 import { createHash } from 'node:crypto';
+import type { ChartText } from '../present/chart-descriptions.js';
+import { escapeXml } from '../present/escape.js';
 
-export interface ChartText {
-  title: string;
-  description: string;
-}
-
-// XML 1.0 forbids most C0 controls; a YAML string can still carry them.
-// eslint-disable-next-line no-control-regex
-const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g;
-
-/** Text from a library file made safe for SVG/HTML text and attribute values. */
-export function escapeXml(text: string): string {
-  return text
-    .replace(CONTROL, '')
-    .replace(/&/g, '&amp;')
-    .replace(/</g, '&lt;')
-    .replace(/>/g, '&gt;')
-    .replace(/"/g, '&quot;')
-    .replace(/'/g, '&#39;');
-}
-
-/** Control characters removed, for text handed to vega (which escapes markup but keeps controls). */
-export function cleanText(text: string): string {
-  return text.replace(CONTROL, '');
-}
+export type { ChartText } from '../present/chart-descriptions.js';
 
 const ROOT = /^<svg\b[^>]*>/;
 const TAG = /<[^>]+>/g;

@@ -11,17 +11,17 @@ import type { Library } from '../model/library.js';
 import type { Part } from '../model/part.js';
 import type { Plan } from '../model/plan.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
-import { escapeJsonMarkup } from './escape.js';
+import { escapeJsonMarkup } from '../present/escape.js';
+import { selectionText } from '../present/part-words.js';
+import { comparisonSlug } from '../present/slugs.js';
 import { writeFileDeep } from './output.js';
 import { planPageData, type PlanPageData } from './plan-page.js';
 import type { Progress } from './progress.js';
 import { reviewPageData, type ReviewPageData } from './review-page.js';
 import {
   automaticComparisons,
-  comparisonSlug,
   folioHeader,
   partPageData,
-  selectionText,
   type ChartOnPage,
   type ComparisonPageData,
   type FolioData,

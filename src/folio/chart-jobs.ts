@@ -1,7 +1,8 @@
 // Chart work as plain, cloneable jobs, so the same job can run in this thread or a worker thread.
 
 import type { PartAnalysis } from '../analysis/part-figures.js';
-import { describeComparison, renderComparisonChart } from '../charts/comparison-chart.js';
+import { renderComparisonChart } from '../charts/comparison-chart.js';
+import { describeComparison } from '../present/chart-descriptions.js';
 import { PART_CHART_KINDS, renderPartCharts, type PartChartInput } from '../charts/part-charts.js';
 import { renderRailChart, type RailChartData } from '../charts/rail-chart.js';
 import { renderLoadStepCharts, type LoadStepChartData } from '../charts/load-step-chart.js';

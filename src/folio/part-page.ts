@@ -3,20 +3,18 @@
 
 import { impedanceAt } from '../circuit/impedance.js';
 import type { PartAnalysis } from '../analysis/part-figures.js';
-import type { UsableBand } from '../analysis/band.js';
-import type { Resonance } from '../analysis/resonance.js';
-import { NOMINAL_DIMENSION, type Part } from '../model/part.js';
-import { formatDegrees, formatEng, formatEngRange, formatNumber, formatPercent } from '../units/format.js';
-import { cautionsFor, storedEnergyText } from './cautions.js';
-import { mainsBanner, type MainsBanner } from './mains.js';
+import type { Part } from '../model/part.js';
+import { formatDegrees, formatEng, formatNumber, formatPercent } from '../units/format.js';
+import { bandRuleText, bandText } from '../present/band-words.js';
+import { cautionsFor, storedEnergyText } from '../present/cautions.js';
+import { kindLabel } from '../present/kinds.js';
+import { mainsBanner, type MainsBanner } from '../present/mains.js';
+import { parameterMeaning } from '../present/model-words.js';
+import { nominalText, signedPercent } from '../present/part-words.js';
+import { extremumNote, resonanceNote } from '../present/resonance-words.js';
+import type { Row } from '../present/row.js';
 import { formatVoltageRating } from '../model/voltage-rating.js';
 import type { Element } from '../circuit/element.js';
-
-export interface Row {
-  label: string;
-  value: string;
-  note?: string;
-}
 
 export interface ImpedanceRow {
   frequency: string;
@@ -42,48 +40,6 @@ export interface PartPageText {
   mainsBanner?: MainsBanner;
   srfText: string;
   bandText: string;
-}
-
-const KIND_LABEL: Readonly<Record<string, string>> = {
-  capacitor: 'Capacitor',
-  inductor: 'Inductor',
-  resistor: 'Resistor',
-  bead: 'Ferrite bead',
-  network: 'Network',
-};
-
-export function kindLabel(part: Part): string {
-  if (part.kind === 'network') return part.behavesAs ? `Network (behaves as ${part.behavesAs})` : 'Network';
-  return KIND_LABEL[part.kind];
-}
-
-export function nominalText(part: Part): string {
-  if (part.nominal === undefined || !part.behavesAs) return '—';
-  const value = formatEng(part.nominal, NOMINAL_DIMENSION[part.behavesAs]);
-  if (part.behavesAs === 'bead' && part.ratedAtHz !== undefined) return `${value} at ${formatEng(part.ratedAtHz, 'frequency')}`;
-  return part.tolerance !== undefined ? `${value} ±${formatPercent(part.tolerance)}` : value;
-}
-
-/** "≤ 100 Hz to 7.15 MHz": the ≤/≥ say the band runs on past the sweep's end. */
-export function bandText(band: UsableBand | null): string {
-  if (!band) return 'none in the sweep';
-  const [from, to] = formatEngRange(band.fromHz, band.toHz, 'frequency');
-  return `${band.fromIsSweepEnd ? '≤ ' : ''}${from} to ${band.toIsSweepEnd ? '≥ ' : ''}${to}`;
-}
-
-/** "X = 0 with |Z| 1.12 Ω; |Z| max 1.34 Ω at 95.2 MHz": where X = 0, and the |Z| extremum beside it. */
-export function resonanceNote(r: Resonance): string {
-  const atZero = `|Z| ${formatEng(r.impedanceOhm, 'resistance')} where X = 0`;
-  const beside = extremumNote(r);
-  return beside ? `${atZero}; ${beside}` : atZero;
-}
-
-/** "|Z| max 1.34 Ω at 95.2 MHz" where the extremum differs visibly from the X = 0 point, else undefined. */
-export function extremumNote(r: Resonance): string | undefined {
-  const e = r.extremum;
-  if (Math.abs(e.frequencyHz / r.frequencyHz - 1) < 1e-3 && Math.abs(e.impedanceOhm / r.impedanceOhm - 1) < 1e-3) return undefined;
-  const what = r.type === 'series' ? 'min' : 'max';
-  return `|Z| ${what} ${formatEng(e.impedanceOhm, 'resistance')} at ${formatEng(e.frequencyHz, 'frequency')}${e.atSweepEnd ? ' (sweep end)' : ''}`;
 }
 
 function facts(part: Part): Row[] {
@@ -123,7 +79,7 @@ function figures(a: PartAnalysis): Row[] {
     if (r === srf) continue;
     rows.push({ label: `${r.type === 'series' ? 'Series' : 'Parallel'} resonance`, value: formatEng(r.frequencyHz, 'frequency'), note: resonanceNote(r) });
   }
-  const rule = a.within !== undefined ? `value within ${formatPercent(a.within)} of nominal` : part.behavesAs === 'bead' ? 'resistive: R − Rdc ≥ |X|' : undefined;
+  const rule = bandRuleText(part.behavesAs, a.within);
   rows.push({ label: 'Usable band', value: a.bandRule ? bandText(a.usableBand) : 'not defined', note: rule ?? 'the network declares no behaves-as' });
   const peakQ = a.peakQuality;
   // A capacitor's Q only grows towards DC; the peak is an inductor's figure of merit.
@@ -141,11 +97,6 @@ function figures(a: PartAnalysis): Row[] {
     }
   }
   return rows;
-}
-
-/** "+0.61%", "−1.83%": a model's deviation from a rating. */
-function signedPercent(ratio: number): string {
-  return `${ratio < 0 ? '−' : '+'}${formatPercent(Math.abs(ratio))}`;
 }
 
 /** Each decade (1, 10, 100 ... Hz) inside the sweep. */
@@ -178,20 +129,6 @@ function impedanceTable(a: PartAnalysis): { heading: string; rows: ImpedanceRow[
   return { heading, rows };
 }
 
-const PARAMETER_MEANING: Readonly<Record<string, string>> = {
-  ESR: 'equivalent series resistance',
-  ESL: 'equivalent series inductance',
-  EPR: 'equivalent parallel (leakage) resistance',
-  C: 'capacitance',
-  L: 'inductance',
-  R: 'resistance',
-  DCR: 'winding (DC) resistance',
-  Cp: 'parallel (winding) capacitance',
-  Rp: 'parallel (core loss) resistance',
-  Ls: 'series (lead and body) inductance',
-  Rdc: 'DC resistance',
-};
-
 /** Every leaf of the model with its role and value, in drawing order. */
 function parameters(network: Element, kind: string): Row[] {
   const rows: Row[] = [];
@@ -204,9 +141,7 @@ function parameters(network: Element, kind: string): Row[] {
     counters[e.type] = (counters[e.type] ?? 0) + 1;
     const name = e.name ?? `${e.type}${counters[e.type]}`;
     const value = e.type === 'R' ? formatEng(e.ohms, 'resistance') : e.type === 'L' ? formatEng(e.henries, 'inductance') : formatEng(e.farads, 'capacitance');
-    let meaning = PARAMETER_MEANING[name] ?? '';
-    if (kind === 'bead' && (name === 'R' || name === 'L' || name === 'C')) meaning = `core ${meaning}`;
-    rows.push({ label: name, value, note: meaning });
+    rows.push({ label: name, value, note: parameterMeaning(name, kind) });
   };
   walk(network);
   return rows;

@@ -11,7 +11,7 @@ import { constants, copyFileSync, linkSync, mkdirSync, readdirSync, statSync } f
 import { dirname, join } from 'node:path';
 import type { Library } from '../model/library.js';
 import { partPdfPath, reviewPdfPath } from './assemble.js';
-import { reviewSlug } from './review-page.js';
+import { reviewSlug } from '../present/slugs.js';
 
 /** A printed PDF as the build record keeps it: its key, and the file's size, mtime and inode. */
 export interface PdfStamp {

@@ -5,7 +5,7 @@ import type { Page } from 'puppeteer-core';
 import { ParseSpeeds, PDFArray, PDFDict, PDFDocument, PDFName, PDFRef } from 'pdf-lib';
 import type { PaperSize } from '../model/settings.js';
 import { VERSION } from '../version.js';
-import { escapeXml } from './escape.js';
+import { escapeXml } from '../present/escape.js';
 
 export interface PdfMetadata {
   title: string;

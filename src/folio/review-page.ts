@@ -1,13 +1,13 @@
 // What a review page and its pack show: the review's facts and decisions (short markdown, rendered inert),
 // the sheets of everything it covers, the cautions that apply to them, and every source file with its hash.
 
-import { fileStem, pageName } from '../model/page-names.js';
+import { reviewSlug } from '../present/slugs.js';
 import type { LibraryReview, Library } from '../model/library.js';
 import type { ComparisonPageData, PartPageData } from './site-data.js';
 import type { PlanPageData } from './plan-page.js';
 import type { ChangesData } from './changes-page.js';
 import { markdownBlock, markdownInline } from './markdown.js';
-import { GENERAL_CAUTION, RATINGS_CAUTION } from './cautions.js';
+import { GENERAL_CAUTION, RATINGS_CAUTION } from '../present/cautions.js';
 import { comparisonKey } from '../model/comparison.js';
 import { acceptedFailureText, acceptedFailures, reviewStatements } from '../model/review-consistency.js';
 import { railVerdicts } from '../analysis/review-checks.js';
@@ -39,10 +39,6 @@ export interface ReviewPageData {
   pdfFile?: string;
   /** What changed since the revision the review names in `since:` (set by the build). */
   changes?: ChangesData;
-}
-
-export function reviewSlug(review: LibraryReview): string {
-  return pageName(fileStem(review.source.path, 'reviews'));
 }
 
 function count(n: number, one: string, many: string): string {

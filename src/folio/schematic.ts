@@ -3,7 +3,7 @@
 
 import type { Element } from '../circuit/element.js';
 import { formatEng } from '../units/format.js';
-import { escapeXml } from './escape.js';
+import { escapeXml } from '../present/escape.js';
 
 interface Drawing {
   /** Wires and symbols (stroked). */

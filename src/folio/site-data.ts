@@ -1,15 +1,15 @@
 // The data every template reads, assembled once by the build: templates lay out, they never compute.
 
-import { pageName } from '../model/page-names.js';
 import type { PartAnalysis } from '../analysis/part-figures.js';
-import { comparisonKey, type Comparison } from '../model/comparison.js';
 import type { Library } from '../model/library.js';
 import type { Part, PartKind } from '../model/part.js';
 import { formatEng, formatPercent } from '../units/format.js';
-import { formatVoltageRating } from '../model/voltage-rating.js';
+import { kindPlural } from '../present/kinds.js';
+import { modelCaption } from '../present/model-words.js';
+import { ratingText, sweepText } from '../present/part-words.js';
 import { VERSION } from '../version.js';
-import { MAINS_LEGEND, mainsMark, type MainsMark } from './mains.js';
-import { kindLabel, partPageText, type PartPageText } from './part-page.js';
+import { MAINS_LEGEND, mainsMark, type MainsMark } from '../present/mains.js';
+import { partPageText, type PartPageText } from './part-page.js';
 import { schematicSvg } from './schematic.js';
 import type { PlanPageData } from './plan-page.js';
 import type { ReviewPageData } from './review-page.js';
@@ -79,34 +79,6 @@ export interface FolioData {
   reviews: ReviewPageData[];
 }
 
-const MODEL_CAPTION: Readonly<Record<PartKind, string>> = {
-  capacitor: 'Capacitor model: ESR + ESL + (C ‖ EPR).',
-  inductor: 'Inductor model: (DCR + L) ‖ Cp ‖ Rp.',
-  resistor: 'Resistor model: (R + Ls) ‖ Cp.',
-  bead: 'Bead model: Rdc + (R ‖ L ‖ C).',
-  network: 'Network as written in the part file.',
-};
-
-const KIND_PLURAL: Readonly<Record<PartKind, string>> = {
-  capacitor: 'capacitors',
-  inductor: 'inductors',
-  resistor: 'resistors',
-  bead: 'ferrite beads',
-  network: 'networks',
-};
-
-export function sweepText(a: { fromHz: number; toHz: number; perDecade: number }): string {
-  return `${formatEng(a.fromHz, 'frequency')} to ${formatEng(a.toHz, 'frequency')}, ${a.perDecade} points per decade`;
-}
-
-export function ratingText(part: Part): string {
-  const parts: string[] = [];
-  parts.push(...part.voltageRatings.map(formatVoltageRating));
-  if (part.currentA !== undefined) parts.push(formatEng(part.currentA, 'current'));
-  if (part.powerW !== undefined) parts.push(formatEng(part.powerW, 'power'));
-  return parts.join(', ');
-}
-
 export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageData {
   const { part } = a;
   const text = partPageText(a);
@@ -130,7 +102,7 @@ export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageDa
     },
     srfImpedanceText: a.selfResonance ? formatEng(a.selfResonance.impedanceOhm, 'resistance') : '—',
     schematic: schematicSvg(part.network, `Model of ${part.id}`),
-    modelCaption: MODEL_CAPTION[part.kind],
+    modelCaption: modelCaption(part.kind),
     charts,
     sourceFile: part.source.path,
     sourceHash: part.source.hash,
@@ -138,28 +110,16 @@ export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageDa
   };
 }
 
-/** URL-safe folder name for a comparison: from its file name, or "all-<kind>" for automatic ones. */
-export function comparisonSlug(c: Comparison): string {
-  return pageName(comparisonKey(c));
-}
-
-export function selectionText(c: Comparison): string {
-  if (!c.filter) return `${c.parts.length} parts named in the file`;
-  const f = c.filter;
-  const words = [f.kind ? `kind ${f.kind}` : 'any kind', ...(f.tags.length ? [`tags ${f.tags.join(' + ')}`] : []), ...(f.package ? [`package ${f.package}`] : [])];
-  return `every part with ${words.join(', ')}`;
-}
-
 /** One automatic comparison per kind present in the library. */
 export function automaticComparisons(library: Library): { kind: PartKind; title: string; parts: Part[] }[] {
   const kinds = [...new Set(library.parts.map((p) => p.kind))].sort();
-  return kinds.map((kind) => ({ kind, title: `All ${KIND_PLURAL[kind]}`, parts: library.parts.filter((p) => p.kind === kind) }));
+  return kinds.map((kind) => ({ kind, title: `All ${kindPlural(kind)}`, parts: library.parts.filter((p) => p.kind === kind) }));
 }
 
 export function kindCounts(library: Library): FolioData['kindCounts'] {
   const order: PartKind[] = ['capacitor', 'inductor', 'resistor', 'bead', 'network'];
   return order
-    .map((kind) => ({ kind, label: KIND_PLURAL[kind], count: library.parts.filter((p) => p.kind === kind).length }))
+    .map((kind) => ({ kind, label: kindPlural(kind), count: library.parts.filter((p) => p.kind === kind).length }))
     .filter((k) => k.count > 0);
 }
 
@@ -176,5 +136,3 @@ export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partPa
     mainsLegend: library.parts.some((p) => p.safetyClass) ? MAINS_LEGEND : undefined,
   };
 }
-
-export { kindLabel };

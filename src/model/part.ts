@@ -10,6 +10,7 @@ import { NOMINAL_DIMENSION as NOMINAL_BY_BEHAVIOUR, type Dimension } from '../un
 import { inRange, rangeText } from '../units/ranges.js';
 import { quote, type SourcePosition } from './diagnostics.js';
 import { Fields, describeNode, expectationInBrackets, nearMiss, readQuantity, scalarText, type ReadContext } from './fields.js';
+import { isAcceptedDielectric } from './dielectric.js';
 import { MAX_ID_LENGTH } from './page-names.js';
 import { positionOf, type SourceFile } from './source.js';
 import { formatVoltageRating, readVoltageRatings, type VoltageRating } from './voltage-rating.js';
@@ -99,11 +100,6 @@ const REQUIRED_HINT: Readonly<Record<PartKind, string>> = {
   bead: 'its model, e.g. model: {rdc: 50m, r: 600, l: 1.2u, c: 1.5p}',
   network: 'its element tree, e.g. network: {series: [{r: 5m}, {l: 1n}, {c: 10u}]}',
 };
-
-// EIA-198 ceramic dielectric codes: class 2/3 "X7R" (low temp, high temp, change) and class 1 "C0G" (from
-// memory of the EIA-198 tables: significant figure, multiplier, tolerance letters).
-const EIA_CLASS_2 = /^[XYZ][4-9][PRSTUV]$/;
-const EIA_CLASS_1 = /^[CBLAMPRSTUV][0-9][FGHJKLMN]$/;
 
 /** Read one part file. Returns undefined when the file has errors (all of them reported). */
 export function readPart(ctx: ReadContext): Part | undefined {
@@ -281,9 +277,7 @@ function checkSafetyRating(root: Fields, safetyClass: string, ratings: readonly 
 }
 
 function checkDielectric(root: Fields, code: string): void {
-  // Only three-character codes are held to EIA-198; longer words ("polymer", "film PP") are free text.
-  if (code.length !== 3 || code === 'NP0') return;
-  if (EIA_CLASS_2.test(code) || EIA_CLASS_1.test(code)) return;
+  if (isAcceptedDielectric(code)) return;
   root.error('dielectric', `expected an EIA dielectric code such as C0G, X7R or X5R, found ${quote(code)}`);
 }
 

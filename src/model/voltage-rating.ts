@@ -57,11 +57,6 @@ export function formatVoltageRating(r: VoltageRating): string {
   return r.stated || r.kind === 'AC' ? `${value} ${r.kind}` : value;
 }
 
-/** The highest instantaneous voltage a rating allows: V for DC, √2·V_rms for a sinusoidal AC rating. */
-export function peakVolts(r: VoltageRating): number {
-  return r.kind === 'AC' ? Math.SQRT2 * r.volts : r.volts;
-}
-
 /** Read `voltage` from a part's fields: one rating, or a list of at most one of each kind. */
 export function readVoltageRatings(root: Fields): VoltageRating[] {
   if (!root.has('voltage')) return [];

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { comparisonChart, describeComparison, renderComparisonChart } from '../../src/charts/comparison-chart.js';
+import { comparisonChart, renderComparisonChart } from '../../src/charts/comparison-chart.js';
+import { describeComparison } from '../../src/present/chart-descriptions.js';
 import { overlayStyle } from '../../src/charts/overlay.js';
 import { lastSceneBounds } from '../../src/charts/render.js';
 import { formatEng } from '../../src/units/format.js';

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { analyseLoadStep } from '../../src/analysis/load-step.js';
 import { capacitor, inductor, resistor, series } from '../../src/circuit/element.js';
-import { describeLoadStep, loadShareChart, loadStepChart, niceStep, renderLoadStepCharts, type LoadStepChartData } from '../../src/charts/load-step-chart.js';
+import { describeLoadStep } from '../../src/present/plan-chart-descriptions.js';
+import { loadShareChart, loadStepChart, niceStep, renderLoadStepCharts, type LoadStepChartData } from '../../src/charts/load-step-chart.js';
 import { formatEng } from '../../src/units/format.js';
 import { svgTexts } from './svg-text.js';
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { describePartChart } from '../../src/charts/describe.js';
+import { describePartChart } from '../../src/present/chart-descriptions.js';
 import { PART_SERIES } from '../../src/charts/palette.js';
 import { PART_CHART_KINDS, renderPartCharts } from '../../src/charts/part-charts.js';
 import { ALL_PARTS, analysed, beadPart, capacitorPart, inductorPart } from './fixtures.js';

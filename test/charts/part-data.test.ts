@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { bandCaption, bandData, bandRange, curveRows, mergeCurve, resonanceLabel, resonancesByImportance, sweepAxis } from '../../src/charts/part-data.js';
+import { bandData, curveRows, mergeCurve, resonancesByImportance, sweepAxis } from '../../src/charts/part-data.js';
+import { resonanceLabel } from '../../src/present/resonance-words.js';
 import { logAxis } from '../../src/charts/scales.js';
 import { analysed, beadPart, capacitorPart, networkPart, resistorPart } from './fixtures.js';
 
@@ -29,17 +30,11 @@ describe('what the part charts share', () => {
     expect(resonancesByImportance(copy).map((r) => resonanceLabel(r, copy.selfResonance))[0]).toBe('SRF 1.52 MHz');
   });
 
-  it('describes the band by its rule and its edges, saying where an edge is the sweep end', () => {
+  it('shades the band with its caption and range in the key, and an edge line only where the band ends inside the sweep', () => {
     const c = analysed(capacitorPart);
-    expect(bandCaption(c)).toBe('usable band (±10%)');
     // Capacitor band edge SRF·√(1 − 1/1.1) (see src/analysis/band.ts); SRF = 1/(2π√(LC)) = 23.72 MHz.
-    expect(bandRange(c.usableBand!)).toBe('up to 7.15 MHz');
+    expect(bandData(c).key).toEqual({ kind: 'band', text: 'usable band (±10%): up to 7.15 MHz' });
     expect(bandData(c).bandEdges).toHaveLength(1);
-    expect(bandCaption(analysed(beadPart))).toBe('absorbing band (R − R_DC ≥ |X|)');
-    expect(bandCaption(analysed(resistorPart))).toBe('usable band (|Z − R|/R ≤ 10%)');
-    expect(bandRange({ fromHz: 1e3, toHz: 1e6, fromIsSweepEnd: false, toIsSweepEnd: true })).toBe('from 1 kHz');
-    expect(bandRange({ fromHz: 1e3, toHz: 1e6, fromIsSweepEnd: false, toIsSweepEnd: false })).toBe('1 kHz – 1 MHz');
-    expect(bandRange({ fromHz: 1e3, toHz: 1e6, fromIsSweepEnd: true, toIsSweepEnd: true })).toBe('whole sweep');
   });
 
   it('merges exact points into a sweep in frequency order and marks them kept', () => {

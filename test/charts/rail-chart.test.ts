@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { TARGET_LINE } from '../../src/charts/palette.js';
-import { describeRail, railChart, renderRailChart } from '../../src/charts/rail-chart.js';
+import { railChart, renderRailChart } from '../../src/charts/rail-chart.js';
+import { describeRail } from '../../src/present/plan-chart-descriptions.js';
 import { formatEng } from '../../src/units/format.js';
 import { demoRail } from './fixtures.js';
 import { svgTexts } from './svg-text.js';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { assertInert, escapeXml, finishSvg } from '../../src/charts/svg-finish.js';
+import { assertInert, finishSvg } from '../../src/charts/svg-finish.js';
 
 const raw = (clip: string, label: string) =>
   `<svg xmlns="http://www.w3.org/2000/svg" xmlns:xlink="http://www.w3.org/1999/xlink" version="1.1" class="marks" width="640" height="320" viewBox="0 0 640 320">` +
@@ -9,11 +9,6 @@ const raw = (clip: string, label: string) =>
 const text = { title: 'T', description: 'D' };
 
 describe('finishing vega’s SVG', () => {
-  it('escapes text for SVG and HTML, quotes included, and drops XML-forbidden controls', () => {
-    expect(escapeXml(`<script>"&'`)).toBe('&lt;script&gt;&quot;&amp;&#39;');
-    expect(escapeXml('a\u0000b\u001Fc\td')).toBe('abc\td');
-  });
-
   it('makes an accessible image: role, title and desc named by aria-labelledby, a viewBox', () => {
     const svg = finishSvg(raw('clip1', 'x'), { title: `<b>"A&B"</b>`, description: `it's <i>` }, { width: 640, height: 320 });
     const root = /^<svg [^>]*>/.exec(svg)![0];

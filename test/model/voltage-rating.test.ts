@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { DiagnosticList, formatDiagnostic } from '../../src/model/diagnostics.js';
 import { readPart, type Part } from '../../src/model/part.js';
 import { parseYamlSource } from '../../src/model/source.js';
-import { formatVoltageRating, parseVoltageRating, peakVolts } from '../../src/model/voltage-rating.js';
+import { formatVoltageRating, parseVoltageRating } from '../../src/model/voltage-rating.js';
 
 function read(yaml: string): { part?: Part; messages: string[] } {
   const diagnostics = new DiagnosticList();
@@ -36,14 +36,6 @@ describe('parseVoltageRating', () => {
 
   it.each(['310V rms', '310 Vpk', '310A AC', 'AC', 'high', '0V AC', '-5V DC'])('refuses %j', (text) => {
     expect(parseVoltageRating(text).ok).toBe(false);
-  });
-
-  it('a sinusoidal AC rating peaks at √2 × r.m.s.: 310 V AC → 438.4 V (closed form)', () => {
-    const r = parseVoltageRating('310V AC');
-    expect(r.ok && peakVolts(r.rating)).toBeCloseTo(310 * Math.sqrt(2), 9);
-    expect(r.ok && peakVolts(r.rating)).toBeCloseTo(438.406, 3);
-    const d = parseVoltageRating('400V DC');
-    expect(d.ok && peakVolts(d.rating)).toBe(400);
   });
 
   it('prints the kind where it was stated or is AC, and a bare DC rating as written', () => {

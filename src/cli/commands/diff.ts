@@ -6,7 +6,7 @@ import { RevisionError, type Revision } from '../../history/git-revision.js';
 import { loadLibraryAt } from '../../history/revision-library.js';
 import { untilDone } from '../../folio/on-exit.js';
 import { diffLibraries, type LibraryDiff } from '../../history/library-diff.js';
-import { changeLines } from '../../history/diff-text.js';
+import { changeLines } from '../../present/diff-text.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { plural } from '../report.js';

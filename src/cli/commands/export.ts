@@ -3,7 +3,7 @@
 import { relative, resolve } from 'node:path';
 import { logSweep } from '../../circuit/sweep.js';
 import { partSubcircuit, partTouchstone } from '../../measure/part-export.js';
-import { sweepText } from '../../folio/site-data.js';
+import { sweepText } from '../../present/part-words.js';
 import { quote } from '../../units/quote.js';
 import { LIBRARY_OPTION, SWEEP_OPTIONS, libraryRoot, parseCommandLine, sweepWithOverrides } from '../args.js';
 import { guardExportFolder, writeExport } from '../export-files.js';

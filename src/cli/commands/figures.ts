@@ -2,8 +2,7 @@
 
 import { analysePart } from '../../analysis/part-figures.js';
 import { partSummary, type PartSummary } from '../../analysis/summary.js';
-import { formatEng, formatPercent } from '../../units/format.js';
-import { bandText, extremumNote } from '../../folio/part-page.js';
+import { describeFigures } from '../../present/part-report.js';
 import { LIBRARY_OPTION, SWEEP_OPTIONS, libraryRoot, parseCommandLine, sweepWithOverrides } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_OK, type CommandIO } from '../io.js';
 import { loadReported } from '../report.js';
@@ -37,21 +36,4 @@ export function figures(args: string[], io: CommandIO): number {
   if (values.json) io.out(JSON.stringify(summaries, null, 2) + '\n');
   else io.out(summaries.map(describeFigures).join('\n'));
   return EXIT_OK;
-}
-
-/** The human form: engineering notation with units. */
-export function describeFigures(s: PartSummary): string {
-  const lines: string[] = [];
-  const nominal = s.nominal !== null && s.unit !== null ? formatEng(s.nominal, s.unit) : '';
-  lines.push([s.id, s.kind, nominal, s.title !== s.id ? s.title : ''].filter(Boolean).join('  ·  '));
-  const srf = s.selfResonanceHz !== null ? `SRF ${formatEng(s.selfResonanceHz, 'Hz')}` : `SRF none between ${formatEng(s.sweep.fromHz, 'Hz')} and ${formatEng(s.sweep.toHz, 'Hz')}`;
-  lines.push(`  ${srf}`);
-  for (const r of s.resonances) {
-    const beside = extremumNote(r);
-    lines.push(`  resonance    ${formatEng(r.frequencyHz, 'Hz').padEnd(11)} ${r.type.padEnd(8)} |Z| ${formatEng(r.impedanceOhm, 'Ω')}${beside ? ` (${beside})` : ''}`);
-  }
-  const rule = s.within !== null ? ` (value within ${formatPercent(s.within)} of nominal)` : s.behavesAs === 'bead' ? ' (resistive: R − Rdc ≥ |X|)' : '';
-  if (s.behavesAs) lines.push(`  usable band  ${s.usableBand ? bandText(s.usableBand) + rule : 'none in the sweep'}`);
-  else lines.push('  usable band  not defined (the network declares no behaves-as)');
-  return lines.join('\n') + '\n';
 }

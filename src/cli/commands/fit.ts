@@ -10,7 +10,7 @@ import { parseQuantity } from '../../units/parse.js';
 import { quote } from '../../units/quote.js';
 import { inRange, rangeText } from '../../units/ranges.js';
 import { parseCommandLine } from '../args.js';
-import { fitJson, fitText } from '../fit-report.js';
+import { fitJson, fitText } from '../../present/fit-report.js';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { readMeasurementFile } from '../measurement-file.js';
 

@@ -16,7 +16,9 @@ import { parseQuantity } from '../../units/parse.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { loadReported } from '../report.js';
-import { describePlan, describeSuggestion, planJson, suggestionJson } from '../plan-report.js';
+import { describePlan } from '../../present/plan-report.js';
+import { describeSuggestion } from '../../present/suggestion-report.js';
+import { planJson, suggestionJson } from '../plan-json.js';
 
 export const DEFAULT_MAX_COUNT = 16;
 

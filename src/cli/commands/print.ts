@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { basename, join, relative, resolve, sep } from 'node:path';
 import { buildFolio } from '../../folio/build.js';
 import { terminalProgress } from '../../folio/progress.js';
-import { reviewSlug } from '../../folio/review-page.js';
+import { reviewSlug } from '../../present/slugs.js';
 import { OutputRefused } from '../../folio/output-guard.js';
 import { madeByZfolio } from '../../folio/pdf.js';
 import { alive } from '../../folio/output.js';

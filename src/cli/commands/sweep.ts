@@ -2,7 +2,7 @@
 
 import { analysePart } from '../../analysis/part-figures.js';
 import { sweepColumns, sweepCsv, sweepJson } from '../../analysis/sweep-table.js';
-import { formatDegrees, formatEng } from '../../units/format.js';
+import { sweepTableText } from '../../present/part-report.js';
 import { LIBRARY_OPTION, SWEEP_OPTIONS, libraryRoot, parseCommandLine, sweepWithOverrides } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { loadReported } from '../report.js';
@@ -39,13 +39,7 @@ export function sweep(args: string[], io: CommandIO): number {
   if (values.csv) io.out(sweepCsv(analysis));
   else if (values.json) io.out(JSON.stringify(sweepJson(analysis)) + '\n');
   else {
-    const c = sweepColumns(analysis);
-    const rows = [['f', 'R', 'X', '|Z|', 'phase']];
-    for (let i = 0; i < analysis.frequencies.length; i++) {
-      rows.push([formatEng(c.frequencyHz[i], 'Hz'), formatEng(c.resistanceOhm[i], 'Ω'), formatEng(c.reactanceOhm[i], 'Ω'), formatEng(c.magnitudeOhm[i], 'Ω'), formatDegrees(c.phaseDeg[i])]);
-    }
-    io.out(`${part.id}: ${analysis.frequencies.length} points, ${spec.perDecade} per decade\n`);
-    io.out(rows.map((r) => r.map((cell) => cell.padStart(12)).join('')).join('\n') + '\n');
+    io.out(sweepTableText(part.id, spec.perDecade, sweepColumns(analysis)));
   }
   return EXIT_OK;
 }

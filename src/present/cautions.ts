@@ -1,9 +1,11 @@
 // The cautions each page carries. Models are approximations and ratings are the maker's and the codes'
 // business; pages say so where a reader could get hurt (common practice for engineering datasheets).
 
+import { isClass2Dielectric } from '../model/dielectric.js';
 import type { Part } from '../model/part.js';
 import { formatEng } from '../units/format.js';
-import { formatVoltageRating, peakVolts, type VoltageRating } from '../model/voltage-rating.js';
+import { formatVoltageRating } from '../model/voltage-rating.js';
+import { ratedPeak, storedEnergyJ } from '../analysis/rating-figures.js';
 import { MAINS_PRACTICE_CAUTION, safetyClassCaution, safetyFamily } from './mains.js';
 
 export const GENERAL_CAUTION =
@@ -18,26 +20,9 @@ export const RATINGS_CAUTION =
 const HAZARDOUS_ENERGY_J = 0.25;
 const HAZARDOUS_VOLTAGE_V = 50;
 
-const CLASS_2 = /^[XYZ][4-9][PRSTUV]$/;
-
-/** The highest peak voltage the part's ratings allow, with the rating it comes from. */
-export function ratedPeak(part: Part): { volts: number; rating: VoltageRating } | undefined {
-  let best: { volts: number; rating: VoltageRating } | undefined;
-  for (const rating of part.voltageRatings) {
-    const volts = peakVolts(rating);
-    if (!best || volts > best.volts) best = { volts, rating };
-  }
-  return best;
-}
-
-/** Energy a capacitance holds at a voltage: E = ½·C·V² (closed form, any physics text). */
-export function storedEnergyJ(capacitanceF: number, volts: number): number {
-  return 0.5 * capacitanceF * volts * volts;
-}
-
 /** "At the 438 V peak of its 310 V AC rating (√2 × r.m.s.) it holds 9.61 mJ (½·C·V²).", or undefined. */
 export function storedEnergyText(part: Part): string | undefined {
-  const peak = ratedPeak(part);
+  const peak = ratedPeak(part.voltageRatings);
   if (part.behavesAs !== 'capacitor' || part.nominal === undefined || !peak) return undefined;
   const energy = formatEng(storedEnergyJ(part.nominal, peak.volts), 'J');
   if (peak.rating.kind === 'AC') {
@@ -52,7 +37,7 @@ export function cautionsFor(part: Part): string[] {
   const behaves = part.behavesAs;
   const classCaution = safetyClassCaution(part);
   if (classCaution) out.push(classCaution, MAINS_PRACTICE_CAUTION);
-  const peak = ratedPeak(part);
+  const peak = ratedPeak(part.voltageRatings);
   if (behaves === 'capacitor' && part.nominal !== undefined && peak) {
     const energy = storedEnergyJ(part.nominal, peak.volts);
     if (energy >= HAZARDOUS_ENERGY_J || peak.volts > HAZARDOUS_VOLTAGE_V) {
@@ -74,7 +59,7 @@ export function cautionsFor(part: Part): string[] {
           : 'an AC rating is not a DC rating, and rail plans, which check DC ratings only, cannot check this part on a DC rail';
       out.push(`Do not exceed ${limits.join(', nor ')}; ${plans}.`);
     }
-    if (part.dielectric && CLASS_2.test(part.dielectric)) {
+    if (part.dielectric && isClass2Dielectric(part.dielectric)) {
       out.push(`${part.dielectric} is a class 2 ceramic: its capacitance falls with DC bias, temperature and age. The curves show the zero-bias model${part.dcBias.length > 0 ? '; rail plans use the DC-bias table' : ''}.`);
     }
     if (part.dielectric && /electrolytic|tantalum|polymer/i.test(part.dielectric)) {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { exactQuantityText } from '../../src/cli/plan-yaml.js';
+import { exactQuantityText } from '../../src/present/plan-yaml.js';
 import { parseQuantity } from '../../src/units/parse.js';
 
 // Printed values must read back to the same double (IEEE 754 equality), so a printed plan re-checks to the

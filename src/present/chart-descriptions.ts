@@ -2,26 +2,44 @@
 // would take from the picture (end values, extremes, resonances, the band). Screen readers read these; they
 // are also the charts' captions in text-only views.
 
-import { formatDegrees, formatEng } from '../units/format.js';
-import { bandCaption, bandRange, resonanceLabel, type PartChartInput } from './part-data.js';
-import { planeConstant } from './plane-chart.js';
-import type { ChartText } from './svg-finish.js';
+import type { UsableBand } from '../analysis/band.js';
+import type { Resonance } from '../analysis/resonance.js';
+import { formatDegrees, formatEng, formatPercent } from '../units/format.js';
+import { bandCaption, bandRange } from './band-words.js';
+import { resonanceLabel } from './resonance-words.js';
 
 export type PartChartKind = 'impedance' | 'phase' | 'plane' | 'admittance';
 
-function sweepText(input: PartChartInput): string {
+/** A chart's title and its text alternative (the finished SVG's <title> and <desc>). */
+export interface ChartText {
+  title: string;
+  description: string;
+}
+
+/** What a part's chart descriptions read: a PartAnalysis fits. */
+export interface DescribedPart {
+  part: { id: string; behavesAs?: string };
+  frequencies: Float64Array;
+  z: { re: Float64Array; im: Float64Array };
+  resonances: readonly Resonance[];
+  selfResonance?: Resonance;
+  usableBand: UsableBand | null;
+  within?: number;
+}
+
+function sweepText(input: DescribedPart): string {
   const f = input.frequencies;
   return `${formatEng(f[0], 'Hz')} to ${formatEng(f[f.length - 1], 'Hz')}`;
 }
 
-function resonanceText(input: PartChartInput): string {
+function resonanceText(input: DescribedPart): string {
   if (input.resonances.length === 0) return 'No resonance in the sweep.';
   const list = input.resonances.map((r) => `${resonanceLabel(r, input.selfResonance)} (${r.type}, |Z| = ${formatEng(r.impedanceOhm, 'Ω')})`);
   return `Resonances: ${list.join('; ')}.`;
 }
 
-function bandText(input: PartChartInput): string {
-  return input.usableBand ? `Shaded: ${bandCaption(input)}, ${bandRange(input.usableBand)}.` : 'No usable band in the sweep.';
+function bandText(input: DescribedPart): string {
+  return input.usableBand ? `Shaded: ${bandCaption(input.part.behavesAs, input.within)}, ${bandRange(input.usableBand)}.` : 'No usable band in the sweep.';
 }
 
 /** Index and value of the least and greatest of `n` values. */
@@ -38,7 +56,8 @@ function extremes(n: number, value: (i: number) => number): { min: number; minAt
   return { min, minAt, max, maxAt };
 }
 
-export function describePartChart(kind: PartChartKind, input: PartChartInput): ChartText {
+/** Title and text alternative of one of a part's charts; `planeConstant` is the complex-plane chart's c. */
+export function describePartChart(kind: PartChartKind, input: DescribedPart, planeConstant?: number): ChartText {
   const id = input.part.id;
   const f = input.frequencies;
   const n = f.length;
@@ -69,7 +88,8 @@ export function describePartChart(kind: PartChartKind, input: PartChartInput): C
       };
     }
     case 'plane': {
-      const c = planeConstant(Float64Array.from(f, (_, i) => Math.hypot(re[i], im[i])));
+      if (planeConstant === undefined) throw new RangeError('the complex-plane chart is described with its signed-log constant');
+      const c = planeConstant;
       const side = (x: number) => (x < 0 ? 'capacitive' : x > 0 ? 'inductive' : 'resistive');
       return {
         title: `${id}: path of Z = R + jX in the complex plane`,
@@ -94,4 +114,17 @@ export function describePartChart(kind: PartChartKind, input: PartChartInput): C
       };
     }
   }
+}
+
+/** Title and text alternative of a comparison; `title` is the comparison's own title when it has one. */
+export function describeComparison(parts: readonly Pick<DescribedPart, 'part' | 'frequencies' | 'selfResonance'>[], title?: string): ChartText {
+  const from = Math.min(...parts.map((p) => p.frequencies[0]));
+  const to = Math.max(...parts.map((p) => p.frequencies[p.frequencies.length - 1]));
+  const each = parts.map((p) => `${p.part.id} (${p.selfResonance ? `SRF ${formatEng(p.selfResonance.frequencyHz, 'Hz')}, |Z| ${formatEng(p.selfResonance.impedanceOhm, 'Ω')} there` : 'no SRF in the sweep'})`);
+  return {
+    title: title ?? `Impedance |Z| of ${parts.length} parts compared`,
+    description:
+      `Log-log chart of the impedance magnitude |Z| of ${parts.length} parts on common axes, ${formatEng(from, 'Hz')} to ${formatEng(to, 'Hz')}; ` +
+      `each part has its own colour and dash pattern, its self-resonance marked by a dot. Parts: ${each.join('; ')}.`,
+  };
 }

@@ -2,9 +2,9 @@
 // prints these lines; the changes page and the review section show the same ones.
 
 import { formatDecibels, formatEng } from '../units/format.js';
-import { valueText, type FieldChange } from './field-changes.js';
-import type { LibraryDiff, PartChange, PlanChange, RailCause, RailVerdict } from './library-diff.js';
-import type { FigureChange, FigureName } from './part-figure-changes.js';
+import { valueText, type FieldChange } from '../history/field-changes.js';
+import type { LibraryDiff, PartChange, PlanChange, RailCause, RailVerdict } from '../history/library-diff.js';
+import type { FigureChange, FigureName } from '../history/part-figure-changes.js';
 
 export type ChangeKind = 'verdict' | 'rail' | 'settings' | 'part' | 'comparison' | 'review';
 

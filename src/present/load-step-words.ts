@@ -4,7 +4,7 @@
 import type { LoadStepFigures } from '../analysis/load-step.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import { formatEng, formatPercent } from '../units/format.js';
-import type { Row } from './part-page.js';
+import type { Row } from './row.js';
 
 type Figures = Pick<PlanFigures, 'transient' | 'target' | 'voltageV' | 'targetOhm'>;
 

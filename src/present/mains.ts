@@ -7,6 +7,7 @@
 import type { Part } from '../model/part.js';
 import { formatEng } from '../units/format.js';
 import { formatVoltageRating } from '../model/voltage-rating.js';
+import { leakageCurrentA } from '../analysis/rating-figures.js';
 
 /** The mains frequency a leakage figure is given at: the higher of the two in common use (common practice). */
 export const LEAKAGE_FREQUENCY_HZ = 60;
@@ -30,11 +31,6 @@ export function safetyFamily(part: Part): SafetyFamily | undefined {
 /** Where the class is used, in a few words. */
 function position(family: SafetyFamily): string {
   return family === 'X' ? 'across the line (line to line or line to neutral)' : 'across the insulation barrier (line to protective earth, or across basic or reinforced insulation to parts a person can touch)';
-}
-
-/** Touch (leakage) current of a capacitance C at V r.m.s. and f: I = 2π·f·C·V (impedance of an ideal capacitor). */
-export function leakageCurrentA(capacitanceF: number, volts: number, frequencyHz: number): number {
-  return 2 * Math.PI * frequencyHz * capacitanceF * volts;
 }
 
 /** The caution of the part's safety class, or none for an ordinary part. */

@@ -1,7 +1,7 @@
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { analysePlan } from '../../src/analysis/plan-figures.js';
-import { loadStepFacts, loadStepVerdict } from '../../src/folio/load-step-text.js';
+import { loadStepFacts, loadStepVerdict } from '../../src/present/load-step-words.js';
 import { planPageData } from '../../src/folio/plan-page.js';
 import { DiagnosticList } from '../../src/model/diagnostics.js';
 import { loadLibrary } from '../../src/model/library.js';
@@ -49,7 +49,7 @@ describe('a response not computed to its accuracy', () => {
   it('is NO VERDICT, with the reason, and no facts', async () => {
     const { analyseLoadStep } = await import('../../src/analysis/load-step.js');
     const { capacitor, inductor, resistor, series } = await import('../../src/circuit/element.js');
-    const { loadStepStatus, loadStepLines } = await import('../../src/folio/load-step-text.js');
+    const { loadStepStatus, loadStepLines } = await import('../../src/present/load-step-words.js');
     const target = { kind: 'ripple' as const, ripple: 0.05, stepA: 2 };
     const transient = analyseLoadStep({ voltageV: 1, target, band: { fromHz: 1e3, toHz: 1e8 }, riseS: undefined, durationS: undefined }, [
       { kind: 'regulator', label: 'regulator', element: series(resistor(1e-9), inductor(1e6)), count: 1 },

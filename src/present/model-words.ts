@@ -1,0 +1,37 @@
+// A part's model in words: the caption under its schematic, and what each named element of it stands for.
+
+import type { PartKind } from '../model/part.js';
+
+const MODEL_CAPTION: Readonly<Record<PartKind, string>> = {
+  capacitor: 'Capacitor model: ESR + ESL + (C ‖ EPR).',
+  inductor: 'Inductor model: (DCR + L) ‖ Cp ‖ Rp.',
+  resistor: 'Resistor model: (R + Ls) ‖ Cp.',
+  bead: 'Bead model: Rdc + (R ‖ L ‖ C).',
+  network: 'Network as written in the part file.',
+};
+
+const PARAMETER_MEANING: Readonly<Record<string, string>> = {
+  ESR: 'equivalent series resistance',
+  ESL: 'equivalent series inductance',
+  EPR: 'equivalent parallel (leakage) resistance',
+  C: 'capacitance',
+  L: 'inductance',
+  R: 'resistance',
+  DCR: 'winding (DC) resistance',
+  Cp: 'parallel (winding) capacitance',
+  Rp: 'parallel (core loss) resistance',
+  Ls: 'series (lead and body) inductance',
+  Rdc: 'DC resistance',
+};
+
+/** The caption under a part's schematic: which model the kind uses. */
+export function modelCaption(kind: PartKind): string {
+  return MODEL_CAPTION[kind];
+}
+
+/** What a model element named `name` stands for ("equivalent series resistance"); '' for an unnamed one. */
+export function parameterMeaning(name: string, kind: string): string {
+  const meaning = Object.hasOwn(PARAMETER_MEANING, name) ? PARAMETER_MEANING[name] : '';
+  // A bead's R, L and C are its core's.
+  return kind === 'bead' && (name === 'R' || name === 'L' || name === 'C') ? `core ${meaning}` : meaning;
+}

@@ -1,0 +1,72 @@
+// Titles and text alternatives of a rail plan's charts: the rail's impedance against its target, and the load
+// step (the voltage, and each branch's share of the current). Screen readers read these; they are also the
+// charts' captions in text-only views.
+
+import { formatEng } from '../units/format.js';
+import type { ChartText } from './chart-descriptions.js';
+
+/** What the rail chart's description reads (the rail chart's data fits). */
+export interface DescribedRail {
+  rail?: string;
+  frequencies: ArrayLike<number>;
+  target: number | ArrayLike<number>;
+  branches: readonly { label: string }[];
+  peaks: readonly { frequencyHz: number; impedanceOhm: number }[];
+  band: { fromHz: number; toHz: number } | null;
+}
+
+/** What the load-step charts' descriptions read (their data fits). */
+export interface DescribedLoadStep {
+  rail?: string;
+  timesS: ArrayLike<number>;
+  budgetV: number;
+  finalV: number | null;
+  riseS: number;
+  stepA: number;
+  droop: { atS: number; droopV: number };
+  settleS: number | null;
+  branches: readonly { label: string; share: ArrayLike<number> }[];
+}
+
+/** Title and text alternative of a rail chart. */
+export function describeRail(data: DescribedRail): ChartText {
+  const n = data.frequencies.length;
+  const name = data.rail ?? 'the rail';
+  const target = typeof data.target === 'number' ? `the target ${formatEng(data.target, 'Ω')}` : 'its target (varying with frequency)';
+  const peaks = [...data.peaks].sort((a, b) => a.frequencyHz - b.frequencyHz).map((p) => `${formatEng(p.impedanceOhm, 'Ω')} at ${formatEng(p.frequencyHz, 'Hz')}`);
+  const band = data.band ? `The band ${formatEng(data.band.fromHz, 'Hz')} to ${formatEng(data.band.toHz, 'Hz')} is shaded. ` : '';
+  return {
+    title: `${name}: impedance against target`,
+    description:
+      `Log-log chart of the impedance |Z| of ${name} from ${formatEng(data.frequencies[0], 'Hz')} to ${formatEng(data.frequencies[n - 1], 'Hz')} against ${target}, ` +
+      `with ${data.branches.length} branch curve${data.branches.length === 1 ? '' : 's'} (${data.branches.map((b) => b.label).join(', ')}). ` +
+      band +
+      (peaks.length > 0 ? `Peaks: ${peaks.join('; ')}.` : 'No peaks.'),
+  };
+}
+
+/** Titles and text alternatives of the two charts. */
+export function describeLoadStep(data: DescribedLoadStep): { voltage: ChartText; share: ChartText } {
+  const name = data.rail ?? 'the rail';
+  const t = data.timesS;
+  const span = `from ${formatEng(t[0], 's')} to ${formatEng(t[t.length - 1], 's')} after the step begins (log time axis)`;
+  const final = data.finalV === null ? 'It has no DC path and keeps falling.' : `It settles at ${formatEng(data.finalV, 'V')}${data.settleS !== null ? `, within 10% by ${formatEng(data.settleS, 's')}` : ''}.`;
+  return {
+    voltage: {
+      title: `${name}: voltage after a ${formatEng(data.stepA, 'A')} load step`,
+      description:
+        `The deviation of ${name} from its DC voltage ${span}, for a load current ramping by ${formatEng(data.stepA, 'A')} over ${formatEng(data.riseS, 's')}, ` +
+        `against a budget of ±${formatEng(data.budgetV, 'V')}. The deepest dip is ${formatEng(data.droop.droopV, 'V')} at ${formatEng(data.droop.atS, 's')}. ${final}`,
+    },
+    share: {
+      title: `${name}: who carries the load step`,
+      description: `Each branch's share of the ${formatEng(data.stepA, 'A')} load current ${span}: ${data.branches.map((b) => `${b.label} ends at ${shareText(b.share[b.share.length - 1])}`).join('; ')}.`,
+    },
+  };
+}
+
+/** A share as a percentage to one decimal: "100%", "−0.1%", "0%". */
+function shareText(x: number): string {
+  const text = String(Number((x * 100).toFixed(1)));
+  return `${text === '-0' ? '0' : text.replace('-', '−')}%`;
+}

@@ -1,0 +1,94 @@
+// What `zfolio plan --suggest` prints for a person: the candidates and what was left out, the search's status,
+// and the set found (or the closest set) with its verdict, branches, peaks and plan YAML.
+
+import type { PlanFigures } from '../analysis/plan-figures.js';
+import type { Suggestion } from '../analysis/plan-suggest.js';
+import { formatDiagnostic } from '../model/diagnostics.js';
+import type { SkippedPart } from '../model/plan-candidates.js';
+import type { Plan } from '../model/plan.js';
+import { formatDecibels, formatEng } from '../units/format.js';
+import { branchLines, loadStepBlock, peakLines } from './plan-report.js';
+import { planResultLine, planTargetText as targetLine } from './plan-words.js';
+import { capacitorsYaml } from './plan-yaml.js';
+
+export interface SuggestRequest {
+  maxCount: number;
+  only: readonly string[];
+}
+
+/** "under the target", or "3 dB under the target" when a margin is required. */
+function underTarget(s: Suggestion): string {
+  return s.marginDb === 0 ? 'under the target' : `${formatDecibels(s.marginDb).replace(/^\+/, '')} under the target`;
+}
+
+function statusLine(s: Suggestion, request: SuggestRequest): string {
+  const of = `0 to ${request.maxCount} of each of ${s.candidateIds.length} candidate${s.candidateIds.length === 1 ? '' : 's'}`;
+  switch (s.status) {
+    case 'optimal':
+      return `optimal, proven by search (${s.nodes} nodes)`;
+    case 'unmeetable':
+      return `cannot be met: no choice of ${of} keeps |Z| ${underTarget(s)} across the band (proven, ${s.nodes} nodes)`;
+    case 'unproven':
+      return s.placements.length > 0
+        ? `best found in ${s.nodes} nodes; a better set has not been ruled out (--nodes raises the budget)`
+        : `no set keeping |Z| ${underTarget(s)} found in ${s.nodes} nodes, and none ruled out (--nodes raises the budget)`;
+  }
+}
+
+function skippedText(k: SkippedPart): string {
+  switch (k.reason) {
+    case 'over-rating':
+      return 'rated below the rail';
+    case 'above-derating':
+      return 'above derating';
+    case 'safety-class':
+      return `safety class ${k.safetyClass}`;
+    case 'beyond-bias-table':
+      return `DC-bias table ends at ${formatEng(k.tableEndV ?? NaN, 'V')}`;
+  }
+}
+
+/** "2 × A + 4 × B", or "no capacitors". */
+function setText(f: PlanFigures): string {
+  return f.placements.length === 0 ? 'no capacitors' : f.placements.map((p) => `${p.count} × ${p.partId}`).join(' + ');
+}
+
+/** The human form of a suggestion. */
+export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRequest): string {
+  const goal = s.objective === 'cost' ? 'lowest total cost' : 'fewest placements';
+  const margin = s.marginDb !== 0 ? `, ${formatDecibels(s.marginDb)} margin required` : '';
+  const lines = [`${plan.rail}: suggested capacitors (${goal}${margin}; ${s.candidateIds.length} candidates${request.only.length ? ` named ${request.only.join(' or ')}` : ''})`];
+  lines.push(`  status     ${statusLine(s, request)}`);
+  if (s.skipped.length > 0) {
+    lines.push(`  left out   ${s.skipped.map((k) => `${k.partId} (${skippedText(k)})`).join(', ')}`);
+    const flags = [
+      s.skipped.some((k) => k.reason === 'safety-class') ? '--allow-safety-class' : '',
+      s.skipped.some((k) => k.reason === 'beyond-bias-table') ? '--allow-bias-extrapolation' : '',
+    ].filter(Boolean);
+    if (flags.length > 0) lines.push(`             (to weigh these, name them with --only, or give ${flags.join(' or ')})`);
+  }
+  if (s.unratedIds.length > 0) {
+    const one = s.unratedIds.length === 1;
+    lines.push(`  unrated    ${s.unratedIds.join(', ')} ${one ? 'states' : 'state'} no DC voltage rating; check ${one ? 'it' : 'them'} against the rail by hand`);
+  }
+  const describeSet = (f: PlanFigures) => {
+    lines.push(`  placements ${f.totalPlacements}${f.totalCost !== null ? `, total cost ${Number(f.totalCost.toPrecision(6))}` : ''}`, ...branchLines(f));
+    lines.push(`  peaks`, ...peakLines(f));
+    if (f.warnings.length > 0) lines.push('  warnings', ...f.warnings.map((w) => `    ${formatDiagnostic(w)}`));
+  };
+  if (s.figures) {
+    const f = s.figures;
+    lines.push(`  target     ${targetLine(f)}`);
+    // The search weighs the impedance only; the chosen set's load step is shown for what it is.
+    lines.push(`  result     ${planResultLine(f)}`, ...loadStepBlock(f));
+    describeSet(f);
+    lines.push('  as plan YAML', ...capacitorsYaml(s.placements, '    '));
+  } else if (s.closest) {
+    const f = s.closest.figures;
+    lines.push(`  target     ${targetLine(f)}`);
+    lines.push(`  closest    worst margin ${formatDecibels(f.worstMarginDb)} at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')}) with ${setText(f)}`);
+    lines.push('             (the closest set a local search found, not proven the closest possible)');
+    describeSet(f);
+  }
+  return lines.join('\n') + '\n';
+}
