@@ -6,7 +6,7 @@ import type { Library, LibraryReview } from '../model/library.js';
 import { compareWithRevision, type RevisionComparison } from '../history/compare.js';
 import { RevisionError } from '../history/git-revision.js';
 import { untilDone } from './on-exit.js';
-import { reviewSlug } from './review-page.js';
+import { reviewSlug } from '../present/slugs.js';
 
 export interface BuildHistory {
   /** The comparison `--since` asked for. */

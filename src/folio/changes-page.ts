@@ -7,11 +7,11 @@ import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChangeChartData, ChangeCurve } from '../charts/change-chart.js';
 import type { RevisionComparison } from '../history/compare.js';
-import { changeLines, railText, type ChangeKind } from '../history/diff-text.js';
+import { changeLines, railText, type ChangeKind } from '../present/diff-text.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 import { writeFileDeep } from './output.js';
 import type { ChartOnPage } from './site-data.js';
-import { escapeJsonMarkup } from './escape.js';
+import { escapeJsonMarkup } from '../present/escape.js';
 import type { BuildHistory } from './build-history.js';
 import type { FolioData } from './site-data.js';
 
