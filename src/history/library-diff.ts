@@ -37,7 +37,12 @@ export interface RailVerdict {
   pass: boolean;
   worstMarginDb: number;
   worstFrequencyHz: number;
+  /** The load step's verdict, deepest dip and budget, V; null when the plan gives no step. */
+  loadStep: { status: LoadStepStatus; droopV: number; budgetV: number } | null;
 }
+
+/** A load step's verdict: NO VERDICT when its response could not be computed to the method's accuracy. */
+export type LoadStepStatus = 'PASS' | 'FAIL' | 'NO VERDICT';
 
 /** A change that can move a rail's verdict. */
 export interface RailCause {
@@ -55,7 +60,7 @@ export interface PlanChange {
   status: 'added' | 'removed' | 'changed';
   before: RailVerdict | null;
   after: RailVerdict | null;
-  /** Pass turned to fail or back (false for a rail added or removed). */
+  /** The impedance verdict or the load step's turned (false for a rail added or removed). */
   verdictMoved: boolean;
   causes: RailCause[];
 }
@@ -93,7 +98,14 @@ function partSettingsChanged(before: Library, after: Library): boolean {
 }
 
 function verdictOf(f: PlanFigures): RailVerdict {
-  return { pass: f.pass, worstMarginDb: f.worstMarginDb, worstFrequencyHz: f.worstFrequencyHz };
+  const t = f.transient;
+  const loadStep = t ? { status: (!t.resolved ? 'NO VERDICT' : t.pass ? 'PASS' : 'FAIL') as LoadStepStatus, droopV: t.droopV, budgetV: t.budgetV } : null;
+  return { pass: f.pass, worstMarginDb: f.worstMarginDb, worstFrequencyHz: f.worstFrequencyHz, loadStep };
+}
+
+/** The impedance verdict turned, or the load step's (both revisions having one). */
+function verdictMoved(a: RailVerdict, b: RailVerdict): boolean {
+  return a.pass !== b.pass || (a.loadStep !== null && b.loadStep !== null && a.loadStep.status !== b.loadStep.status);
 }
 
 export function diffLibraries(before: Library, after: Library): { diff: LibraryDiff; analyses: DiffAnalyses } {
@@ -186,8 +198,8 @@ function planChanges(before: Library, after: Library, history: PartHistory, sett
       if (railSettings.length > 0) causes.push({ kind: 'settings', id: null, fields: railSettings, alone: null });
       if (causes.length === 0) continue;
     }
-    const figuresBefore = a ? analysePlan(a, before.settings.sweep.perDecade, a.placements, a.warnings, { loadStep: false }) : null;
-    const figuresAfter = b ? analysePlan(b, after.settings.sweep.perDecade, b.placements, b.warnings, { loadStep: false }) : null;
+    const figuresBefore = a ? analysePlan(a, before.settings.sweep.perDecade) : null;
+    const figuresAfter = b ? analysePlan(b, after.settings.sweep.perDecade) : null;
     analyses.plans.set(rail, { before: figuresBefore, after: figuresAfter });
     const verdictBefore = figuresBefore && verdictOf(figuresBefore);
     const verdictAfter = figuresAfter && verdictOf(figuresAfter);
@@ -209,7 +221,7 @@ function planChanges(before: Library, after: Library, history: PartHistory, sett
       status: a && b ? 'changed' : a ? 'removed' : 'added',
       before: verdictBefore,
       after: verdictAfter,
-      verdictMoved: verdictBefore !== null && verdictAfter !== null && verdictBefore.pass !== verdictAfter.pass,
+      verdictMoved: verdictBefore !== null && verdictAfter !== null && verdictMoved(verdictBefore, verdictAfter),
       causes,
     });
   }

@@ -67,7 +67,19 @@ export function partFiguresText(change: PartChange): string[] {
 }
 
 export function verdictText(v: RailVerdict): string {
-  return `${v.pass ? 'PASS' : 'FAIL'}, worst margin ${formatDecibels(v.worstMarginDb)} at ${formatEng(v.worstFrequencyHz, 'Hz')}`;
+  const step = v.loadStep ? `; load step ${v.loadStep.status}, dip ${formatEng(v.loadStep.droopV, 'V')} (budget ${formatEng(v.loadStep.budgetV, 'V')})` : '';
+  return `${v.pass ? 'PASS' : 'FAIL'}, worst margin ${formatDecibels(v.worstMarginDb)} at ${formatEng(v.worstFrequencyHz, 'Hz')}${step}`;
+}
+
+/** "; load step PASS → FAIL, dip 14.2 mV → 31 mV (budget 27 mV)", or nothing when neither revision has a step. */
+function loadStepChange(a: RailVerdict, b: RailVerdict): string {
+  const [x, y] = [a.loadStep, b.loadStep];
+  if (!x && !y) return '';
+  if (!x || !y) return `; load step ${x ? `${x.status} → none` : `none → ${y!.status}`}`;
+  const status = x.status === y.status ? x.status : `${x.status} → ${y.status}`;
+  const dip = x.droopV === y.droopV ? formatEng(y.droopV, 'V') : `${formatEng(x.droopV, 'V')} → ${formatEng(y.droopV, 'V')}`;
+  const budget = x.budgetV === y.budgetV ? formatEng(y.budgetV, 'V') : `${formatEng(x.budgetV, 'V')} → ${formatEng(y.budgetV, 'V')}`;
+  return `; load step ${status}, dip ${dip} (budget ${budget})`;
 }
 
 export function causeText(c: RailCause, sole = true): string {
@@ -83,7 +95,7 @@ export function railText(p: PlanChange): string {
   const verdict = a.pass === b.pass ? (b.pass ? 'PASS' : 'FAIL') : `${a.pass ? 'PASS' : 'FAIL'} → ${b.pass ? 'PASS' : 'FAIL'}`;
   const margin = `worst margin ${formatDecibels(a.worstMarginDb)} → ${formatDecibels(b.worstMarginDb)}`;
   const moved = p.causes.length > 0 ? `; moved by ${p.causes.map((c) => causeText(c, p.causes.length === 1)).join(', ')}` : '';
-  return `rail ${p.rail}: ${verdict}, ${margin}${moved}`;
+  return `rail ${p.rail}: ${verdict}, ${margin}${loadStepChange(a, b)}${moved}`;
 }
 
 /** Every change as one line: rails whose verdict moved first, then the other rails, settings, parts, comparisons, reviews. */

@@ -8,6 +8,8 @@ import { loadLibrary, type Library } from '../../src/model/library.js';
 import { diffLibraries } from '../../src/history/library-diff.js';
 import { freshFolder, removeTestRepos } from './git-repo.js';
 import { FOLIO, capacitor } from './scenario.js';
+import { rampResponse } from './ramp-reference.js';
+import { railText } from '../../src/history/diff-text.js';
 
 afterAll(removeTestRepos);
 
@@ -75,5 +77,47 @@ describe('diffLibraries', () => {
       ['TB', [], ['bandFromHz', 'effectiveAtBandMiddle']],
     ]);
     expect(diff.parts.changed[0].figures.bandFromHz).toEqual({ before: 1000, after: 10000, changePercent: 900 });
+  });
+});
+
+describe('diffLibraries on a rail with a load step', () => {
+  const rail = (count: number) => `rail: VDD_L
+voltage: 1.0V
+ripple: 3%
+step: 2A
+rise: 1us
+band: {from: 10k, to: 20M}
+mounting: 0.5nH
+regulator: {r: 2m, l: 50nH}
+capacitors:
+  - {part: TL-47U, count: ${count}}
+`;
+  const files = (count: number) => ({
+    'folio.yaml': FOLIO,
+    'parts/c47.yaml': capacitor('TL-47U', '47u', '4m', '1n'),
+    'plans/rail.yaml': rail(count),
+  });
+  /** The reference's dip, and its verdict: the largest excursion either way within V·ripple = 30 mV. */
+  const reference = (count: number) => {
+    const r = rampResponse({ v0: 1, regulator: { r: 2e-3, l: 50e-9 }, branches: [{ r: 4e-3, l: 1e-9 + 0.5e-9, c: 47e-6, count }], stepA: 2, riseS: 1e-6, untilS: 60e-6, dtS: 2e-10 });
+    return { ...r, pass: Math.max(r.droopV, r.overshootV) <= 0.03 };
+  };
+
+  it('counts a load-step verdict that turned as a moved verdict, judged by a Runge–Kutta reference', () => {
+    const { diff } = diffLibraries(library(files(3)), library(files(8)));
+    const [p] = diff.plans;
+    const [then, now] = [p.before!, p.after!];
+    const [before, after] = [reference(3), reference(8)];
+    expect(before.pass).toBe(false);
+    expect(after.pass).toBe(true);
+    expect(then.loadStep).toEqual({ status: 'FAIL', droopV: expect.any(Number), budgetV: expect.closeTo(0.03, 12) });
+    expect(now.loadStep?.status).toBe('PASS');
+    // RK4 at 0.2 ns steps against the closed-form ramp response: they agree to better than 0.05%.
+    expect(then.loadStep!.droopV / before.droopV).toBeCloseTo(1, 3);
+    expect(now.loadStep!.droopV / after.droopV).toBeCloseTo(1, 3);
+    // The impedance verdict fails in both (the 15 mΩ target is not met); only the load step turned.
+    expect([then.pass, now.pass]).toEqual([false, false]);
+    expect(p.verdictMoved).toBe(true);
+    expect(railText(p)).toMatch(/^rail VDD_L: FAIL, worst margin −\d+\.\d\d dB → −\d+\.\d\d dB; load step FAIL → PASS, dip [\d.]+ mV → [\d.]+ mV \(budget 30 mV\); moved by the plan \(capacitors\[TL-47U\]\.count 3 → 8\)$/);
   });
 });
