@@ -8,6 +8,7 @@ import { frameForKey, layoutKey, type KeyItem } from './key.js';
 import { FONT_SIZE, PLOT_WIDTH, TARGET_LINE, frame, type SeriesStyle } from './palette.js';
 import { curveRows, frequencyAxis, mergeCurve, Y_TICK_SPACING } from './part-data.js';
 import { renderChart, type ChartDefinition, type ChartOutput, type ChartText, type Row } from './render.js';
+import { describeChange } from '../present/change-chart-descriptions.js';
 import { logAxis, logTicks, paddedLogDomain, positiveExtent } from './scales.js';
 import { axisBinding, axisParams, bandLayers, curveLayer, frameLayer, gridLayers, keyLayers, position, seriesEncoding, type SeriesScale } from './spec-parts.js';
 import { textWidth } from './text-width.js';
@@ -125,20 +126,6 @@ export const changeChart: ChartDefinition<ChangeChartData> = {
     };
   },
 };
-
-/** Title and text alternative of a before-and-after chart. */
-export function describeChange(data: ChangeChartData): ChartText {
-  const markText = (c: ChangeCurve | null) => (c && c.marks.length > 0 ? c.marks.map((m) => `${formatEng(m.impedanceOhm, 'Ω')} at ${formatEng(m.frequencyHz, 'Hz')}`).join(', ') : 'none');
-  const what = data.kind === 'part' ? `part ${data.subject}` : `rail ${data.subject}`;
-  const then = data.before ? `at ${data.since} (grey, dashed; ${data.markName}: ${markText(data.before)})` : `absent at ${data.since}`;
-  const now = data.after ? `now (solid; ${data.markName}: ${markText(data.after)})` : 'absent now';
-  const t = data.target;
-  const target = t ? ` Target: ${t.before !== null ? `${formatEng(t.before, 'Ω')} at ${data.since}` : 'none'}, ${t.after !== null ? `${formatEng(t.after, 'Ω')} now` : 'none now'}.` : '';
-  return {
-    title: `${data.kind === 'part' ? data.subject : `Rail ${data.subject}`}: |Z| at ${data.since} and now`,
-    description: `Log-log chart of the impedance magnitude |Z| of ${what}, ${then} and ${now}.${target}`,
-  };
-}
 
 export function renderChangeChart(data: ChangeChartData, text?: ChartText): Promise<ChartOutput> {
   if (!data.before && !data.after) return Promise.reject(new Error('a change chart needs a curve before or after'));

@@ -2,7 +2,7 @@
 // targets, and the text alternative.
 
 import { describe, expect, it } from 'vitest';
-import { changeChart, describeChange, renderChangeChart, type ChangeChartData, type ChangeCurve } from '../../src/charts/change-chart.js';
+import { changeChart, renderChangeChart, type ChangeChartData, type ChangeCurve } from '../../src/charts/change-chart.js';
 import { svgTexts } from './svg-text.js';
 
 type Rows = Record<string, Record<string, unknown>[]>;
@@ -50,8 +50,8 @@ describe('change chart', () => {
     const added = { ...part, before: null };
     const out = await renderChangeChart(added);
     expect((out.spec as { datasets: Rows }).datasets.curves.every((r) => r.s === 'now')).toBe(true);
-    expect(describeChange(added).description).toContain('absent at v1');
-    expect(describeChange(part).title).toBe('TC-100N: |Z| at v1 and now');
+    expect(out.description).toContain('absent at v1');
+    expect((await renderChangeChart(part)).title).toBe('TC-100N: |Z| at v1 and now');
     await expect(renderChangeChart({ ...part, before: null, after: null })).rejects.toThrow(/needs a curve/);
   });
 });

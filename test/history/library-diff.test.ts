@@ -9,7 +9,7 @@ import { diffLibraries } from '../../src/history/library-diff.js';
 import { freshFolder, removeTestRepos } from './git-repo.js';
 import { FOLIO, capacitor } from './scenario.js';
 import { rampResponse } from './ramp-reference.js';
-import { railText } from '../../src/history/diff-text.js';
+import { railText } from '../../src/present/diff-text.js';
 
 afterAll(removeTestRepos);
 
