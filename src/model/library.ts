@@ -11,6 +11,7 @@ import { comparisonKey, readComparison, type Comparison } from './comparison.js'
 import { readReview, type Review } from './review.js';
 import { DEFAULT_SETTINGS, readSettings, type FolioSettings } from './settings.js';
 import { parseYamlSource, positionOf, type SourceFile } from './source.js';
+import { coverageGap, type TemperatureRange } from './spread.js';
 
 export interface Library {
   /** Absolute path of the library folder. */
@@ -83,6 +84,8 @@ export function loadLibrary(root: string): LoadResult {
     parts.push(part);
   }
 
+  if (settings) temperatureCoverage(parts, settings.temperature, diagnostics);
+
   const unreadable = { parts: unreadableParts, comparisons: new Map<string, string>(), plans: new Map<string, string>() };
   const comparisons: Comparison[] = [];
   const comparisonFiles = filesOf('comparisons');
@@ -96,7 +99,7 @@ export function loadLibrary(root: string): LoadResult {
   const planned: Plan[] = [];
   for (const path of filesOf('plans')) {
     const source = read(path);
-    const plan = source && readPlan({ source, diagnostics, unreadable }, partsById, (settings ?? DEFAULT_SETTINGS).derating);
+    const plan = source && readPlan({ source, diagnostics, unreadable }, partsById, (settings ?? DEFAULT_SETTINGS).derating, settings?.temperature);
     if (plan) planned.push(plan);
     else {
       const rail = source && declaredText(source, 'rail');
@@ -124,6 +127,14 @@ export function loadLibrary(root: string): LoadResult {
   const sorted = diagnostics.sorted();
   if (diagnostics.errorCount > 0 || !settings) return { diagnostics: sorted };
   return { library: { root, settings, parts, partsById, sources, comparisons, plans, reviews }, diagnostics: sorted };
+}
+
+/** A warning at each part whose temperature characteristic is not specified over the library's whole range. */
+function temperatureCoverage(parts: readonly Part[], operating: TemperatureRange, diagnostics: DiagnosticList): void {
+  for (const part of parts) {
+    const gap = part.spread.temperature && coverageGap(part.spread.temperature, operating, 'the library\'s operating temperatures (folio.yaml "temperature")');
+    if (gap) diagnostics.warning(part.spread.temperature!.at, `${part.spread.temperature!.from}: ${gap}`);
+  }
 }
 
 /** The id a part file declares, when it is a well-formed id, whatever else is wrong with the file. */

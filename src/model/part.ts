@@ -10,10 +10,10 @@ import { NOMINAL_DIMENSION as NOMINAL_BY_BEHAVIOUR, type Dimension } from '../un
 import { inRange, rangeText } from '../units/ranges.js';
 import { quote, type SourcePosition } from './diagnostics.js';
 import { Fields, describeNode, expectationInBrackets, nearMiss, readQuantity, scalarText, type ReadContext } from './fields.js';
-import { isAcceptedDielectric } from './dielectric.js';
 import { MAX_ID_LENGTH } from './page-names.js';
 import { positionOf, type SourceFile } from './source.js';
 import { formatVoltageRating, readVoltageRatings, type VoltageRating } from './voltage-rating.js';
+import { readCoefficient, readDielectricCharacteristic, readSpreadQuantity, readTemperatureBlock, readTolerance, type Bounds, type PartSpread } from './spread.js';
 
 export const PART_KINDS = ['capacitor', 'inductor', 'resistor', 'bead', 'network'] as const;
 export type PartKind = (typeof PART_KINDS)[number];
@@ -54,7 +54,10 @@ export interface Part {
   nominal?: number;
   ratedAtHz?: number;
   marking?: string;
+  /** The tolerance of the nominal value; for an asymmetric one ("+80%/-20%") its larger side. */
   tolerance?: number;
+  /** Where the part's spread comes from: tolerance as written, temperature characteristic, parasitic spreads. */
+  spread: PartSpread;
   /** The voltage ratings as written (at most one DC and one AC), for pages. */
   voltageRatings: VoltageRating[];
   /** The DC voltage rating, V: a bare "16V" or "400V DC". Undefined for a part rated in AC alone. */
@@ -85,11 +88,11 @@ export interface Part {
 
 const COMMON_FIELDS = ['id', 'kind', 'title', 'nominal', 'marking', 'tolerance', 'voltage', 'current', 'power', 'package', 'tags', 'notes', 'band', 'cost'];
 const FIELDS_BY_KIND: Readonly<Record<PartKind, readonly string[]>> = {
-  capacitor: [...COMMON_FIELDS, 'dielectric', 'safety', 'parasitics', 'dc-bias', 'mounting'],
-  inductor: [...COMMON_FIELDS, 'parasitics'],
-  resistor: [...COMMON_FIELDS, 'parasitics'],
+  capacitor: [...COMMON_FIELDS, 'dielectric', 'safety', 'parasitics', 'dc-bias', 'mounting', 'temperature', 'tc'],
+  inductor: [...COMMON_FIELDS, 'parasitics', 'temperature', 'tc'],
+  resistor: [...COMMON_FIELDS, 'parasitics', 'temperature', 'tc'],
   bead: [...COMMON_FIELDS, 'at', 'model'],
-  network: [...COMMON_FIELDS, 'dielectric', 'behaves-as', 'network', 'dc-bias', 'mounting'],
+  network: [...COMMON_FIELDS, 'dielectric', 'behaves-as', 'network', 'dc-bias', 'mounting', 'temperature', 'tc'],
 };
 
 /** What the one required field (besides id and kind) of each kind holds, for "missing field" messages. */
@@ -143,13 +146,16 @@ export function readPart(ctx: ReadContext): Part | undefined {
     root.error(undefined, `missing field "nominal" (a network that behaves as a ${behavesAs} needs its nominal value for the usable band)`);
   }
 
+  const tolerance = readTolerance(root);
+  const spread: PartSpread = { tolerance, parasitics: {} };
   const part: Partial<Part> = {
     id,
     kind,
     behavesAs,
     nominal,
     title: root.text('title') ?? id,
-    tolerance: root.ratio('tolerance'),
+    tolerance: tolerance ? Math.max(tolerance.minus, tolerance.plus) : undefined,
+    spread,
     voltageRatings: readVoltageRatings(root),
     currentA: root.quantity('current', 'current'),
     powerW: root.quantity('power', 'power'),
@@ -168,8 +174,11 @@ export function readPart(ctx: ReadContext): Part | undefined {
   if (root.has('marking')) part.marking = readMarking(root, kind, nominal);
   if (kind === 'capacitor' || kind === 'network') {
     part.dielectric = root.text('dielectric');
-    if (part.dielectric !== undefined) checkDielectric(root, part.dielectric);
+    if (part.dielectric !== undefined) spread.temperature = readDielectricCharacteristic(root, part.dielectric);
   }
+  if (root.has('temperature') && root.has('tc')) root.error('tc', 'give the temperature characteristic once: either "temperature" (a change over a range) or "tc" (a coefficient), not both');
+  // The part's own statement is more specific than its dielectric's class.
+  else if (kind !== 'bead') spread.temperature = readTemperatureBlock(root) ?? readCoefficient(root) ?? spread.temperature;
   // No "did you mean" here: a guessed class could name a stricter or weaker rating than the part has.
   if (kind === 'capacitor') part.safetyClass = root.text('safety', { oneOf: SAFETY_CLASSES, suggest: false });
   if (part.safetyClass) checkSafetyRating(root, part.safetyClass, part.voltageRatings!);
@@ -190,7 +199,7 @@ export function readPart(ctx: ReadContext): Part | undefined {
     part.within = band.ratio('within');
   }
 
-  const built = buildNetwork(root, kind, nominal);
+  const built = buildNetwork(root, kind, nominal, spread.parasitics);
   if (built) {
     part.parameters = built.parameters;
     part.network = built.network;
@@ -198,10 +207,7 @@ export function readPart(ctx: ReadContext): Part | undefined {
   if (kind === 'bead') {
     part.ratedAtHz = root.quantity('at', 'frequency');
     if (root.has('nominal') && !root.has('at')) root.error('nominal', 'a bead\'s nominal impedance needs the frequency it is rated at ("at", e.g. at: 100M)');
-    if (part.network && nominal !== undefined && part.ratedAtHz !== undefined) checkBeadRating(root, part.network, nominal, part.ratedAtHz, part.tolerance);
-  }
-  if (part.tolerance !== undefined && part.tolerance >= 1) {
-    root.warning('tolerance', `a tolerance of ${Math.round(part.tolerance * 100)}% is unusually wide; write 10% or 0.1 for ten percent`);
+    if (part.network && nominal !== undefined && part.ratedAtHz !== undefined) checkBeadRating(root, part.network, nominal, part.ratedAtHz, tolerance);
   }
 
   if (diagnostics.errorCount > before) return undefined;
@@ -218,14 +224,17 @@ export function beadRatingDeviation(network: Element, nominal: number, ratedAtHz
 }
 
 /** A bead's model must reproduce its rating: |Z(at)| within the tolerance (else 25%) of nominal. */
-function checkBeadRating(root: Fields, network: Element, nominal: number, ratedAtHz: number, tolerance: number | undefined): void {
+function checkBeadRating(root: Fields, network: Element, nominal: number, ratedAtHz: number, bounds: Bounds | undefined): void {
   const deviation = beadRatingDeviation(network, nominal, ratedAtHz);
+  // The side of the tolerance the model lies on: below the rating the "minus" side, above it the "plus" side.
+  const tolerance = bounds === undefined ? undefined : deviation < 0 ? bounds.minus : bounds.plus;
   const allowed = tolerance ?? BEAD_RATING_TOLERANCE;
   // A hair of slack for rounding: a model fitted exactly to the tolerance edge passes.
   if (!(Math.abs(deviation) > allowed * (1 + 1e-9))) return;
   const modelOhm = (1 + deviation) * nominal;
   const how = `${formatPercent(Math.abs(deviation))} ${deviation < 0 ? 'below' : 'above'}`;
-  const limit = tolerance !== undefined ? `its ±${formatPercent(tolerance)} tolerance` : `±${formatPercent(BEAD_RATING_TOLERANCE)} (no tolerance given; common practice)`;
+  const side = bounds === undefined || bounds.minus === bounds.plus ? '±' : deviation < 0 ? '−' : '+';
+  const limit = tolerance !== undefined ? `its ${side}${formatPercent(tolerance)} tolerance` : `±${formatPercent(BEAD_RATING_TOLERANCE)} (no tolerance given; common practice)`;
   root.warning(
     'nominal',
     `the model gives |Z| = ${formatEng(modelOhm, 'resistance')} at ${formatEng(ratedAtHz, 'frequency')}, ${how} the rated ${formatEng(nominal, 'resistance')}, outside ${limit}; fit the model to the rating or correct the rating`,
@@ -276,11 +285,6 @@ function checkSafetyRating(root: Fields, safetyClass: string, ratings: readonly 
   }
 }
 
-function checkDielectric(root: Fields, code: string): void {
-  if (isAcceptedDielectric(code)) return;
-  root.error('dielectric', `expected an EIA dielectric code such as C0G, X7R or X5R, found ${quote(code)}`);
-}
-
 function readDcBias(root: Fields, ratingV: number | undefined): BiasPoint[] {
   const table = root.map('dc-bias');
   if (!table) return [];
@@ -319,7 +323,7 @@ interface BuiltNetwork {
 }
 
 /** The model topology of each kind (DESIGN.md): an absent series parasitic is 0, an absent parallel one open. */
-function buildNetwork(root: Fields, kind: PartKind, nominal: number | undefined): BuiltNetwork | undefined {
+function buildNetwork(root: Fields, kind: PartKind, nominal: number | undefined, spreads: Record<string, Bounds>): BuiltNetwork | undefined {
   if (kind === 'network') {
     if (!root.has('network')) return undefined;
     const network = readNetworkNode(root.ctx, root.valueNode('network'), 'network');
@@ -329,7 +333,7 @@ function buildNetwork(root: Fields, kind: PartKind, nominal: number | undefined)
     const model = root.map('model');
     if (!model) return undefined;
     model.expect(Object.keys(BEAD_MODEL), ['r', 'l'], (name) => expectationInBrackets(BEAD_MODEL[name]));
-    const p = readParameters(model, BEAD_MODEL);
+    const p = readParameters(model, BEAD_MODEL, spreads);
     if (p.r === undefined || p.l === undefined) return undefined;
     const core = parallel(...[resistor(p.r, 'R'), inductor(p.l, 'L'), p.c !== undefined ? capacitor(p.c, 'C') : undefined].filter(isElement));
     return { network: series(...[p.rdc !== undefined ? resistor(p.rdc, 'Rdc') : undefined, core].filter(isElement)), parameters: p };
@@ -339,7 +343,7 @@ function buildNetwork(root: Fields, kind: PartKind, nominal: number | undefined)
   let p: Record<string, number> = {};
   if (parasitics) {
     parasitics.expect(Object.keys(fields));
-    p = readParameters(parasitics, fields);
+    p = readParameters(parasitics, fields, spreads);
   }
   if (nominal === undefined) return undefined;
   let network: Element;
@@ -370,10 +374,10 @@ function isElement(e: Element | undefined): e is Element {
   return e !== undefined;
 }
 
-function readParameters(fields: Fields, spec: Readonly<Record<string, Dimension>>): Record<string, number> {
+function readParameters(fields: Fields, spec: Readonly<Record<string, Dimension>>, spreads: Record<string, Bounds>): Record<string, number> {
   const out: Record<string, number> = {};
   for (const [name, dim] of Object.entries(spec)) {
-    const value = fields.quantity(name, dim);
+    const value = readSpreadQuantity(fields, name, dim, spreads);
     if (value !== undefined) out[name] = value;
   }
   return out;

@@ -8,6 +8,8 @@ import { ID_PATTERN, type Part } from './part.js';
 import { MAX_ID_LENGTH } from './page-names.js';
 import type { SourceFile } from './source.js';
 import { closest } from './suggest.js';
+import { readRange, type TemperatureRange } from './spread.js';
+import { formatCelsius } from '../units/temperature.js';
 
 /** The target impedance, given or from ripple and step. An explicit target may come with a step for the load-step check. */
 export type PlanTarget = { kind: 'explicit'; ohms: number; stepA?: number } | { kind: 'ripple'; ripple: number; stepA: number };
@@ -49,6 +51,8 @@ export interface Plan {
   riseS?: number;
   /** How long the load-step response is followed, s (`duration`); absent: from the rail's slowest pole. */
   durationS?: number;
+  /** The rail's own operating temperatures (`temperature`), within the library's; absent: the library's. */
+  temperature?: TemperatureRange;
   placements: Placement[];
   /** Warnings about this plan (also among the library's diagnostics), for its page. */
   warnings: Diagnostic[];
@@ -57,7 +61,7 @@ export interface Plan {
   at: SourcePosition;
 }
 
-const PLAN_FIELDS = ['rail', 'title', 'notes', 'voltage', 'ripple', 'step', 'target', 'band', 'mounting', 'mounting-by-package', 'regulator', 'plane', 'capacitors', 'rise', 'duration'];
+const PLAN_FIELDS = ['rail', 'title', 'notes', 'voltage', 'ripple', 'step', 'target', 'band', 'mounting', 'mounting-by-package', 'regulator', 'plane', 'capacitors', 'rise', 'duration', 'temperature'];
 const ENTRY_FIELDS = ['part', 'count', 'mounting'];
 
 export type VoltageStress = 'ok' | 'unrated' | 'above-derating' | 'over-rating';
@@ -92,8 +96,22 @@ export function beyondBiasTable(part: Part, railV: number): string | undefined {
   return `the DC-bias table of ${part.id} ends at ${formatEng(last.voltageV, 'V')}, below the rail's ${formatEng(railV, 'V')}; its last fraction, ${formatPercent(last.fraction)}, is used, which is likely optimistic (class 2 ceramics keep losing capacitance as the voltage rises)`;
 }
 
+/** `temperature: {from, to}`: the rail's own operating range, which may narrow the library's but not widen it. */
+function readPlanTemperature(root: Fields, operating: TemperatureRange | undefined): TemperatureRange | undefined {
+  const block = root.map('temperature');
+  if (!block) return undefined;
+  block.expect(['from', 'to'], ['from', 'to']);
+  const range = readRange(block);
+  if (!range || !operating || (range.fromC >= operating.fromC && range.toC <= operating.toC)) return range;
+  block.error(
+    range.fromC < operating.fromC ? 'from' : 'to',
+    `expected a range within the library's operating temperatures (folio.yaml "temperature", ${formatCelsius(operating.fromC)} to ${formatCelsius(operating.toC)}), found ${formatCelsius(range.fromC)} to ${formatCelsius(range.toC)}; widen the library's range first`,
+  );
+  return undefined;
+}
+
 /** Read one plan file against the library's parts. Returns undefined when it has errors (all reported). */
-export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>, derating: number): Plan | undefined {
+export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>, derating: number, operating?: TemperatureRange): Plan | undefined {
   const { diagnostics } = ctx;
   const before = diagnostics.errorCount;
   const warnings: Diagnostic[] = [];
@@ -135,6 +153,8 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
     }
   }
 
+  const temperature = readPlanTemperature(root, operating);
+
   const placements: Placement[] = [];
   const list = root.seq('capacitors');
   list?.items.forEach((item, i) => {
@@ -161,6 +181,7 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
       const beyond = beyondBiasTable(part, voltageV);
       if (beyond) warn(at, `${label}.part: ${beyond}`);
     }
+
     const mounting: Mounting = ownMounting !== undefined ? { mountingH: ownMounting, mountingFrom: 'entry' } : defaultMounting({ mountingH: mountingH ?? 0, mountingByPackage }, part);
     placements.push({ part, count, ...mounting, at });
   });
@@ -182,6 +203,7 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
     plane,
     riseS,
     durationS,
+    temperature,
     placements,
     warnings,
     source: ctx.source,

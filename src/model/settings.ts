@@ -5,6 +5,7 @@ import type { Node } from 'yaml';
 import type { SweepSpec } from '../circuit/sweep.js';
 import { formatEng } from '../units/format.js';
 import { Fields, scalarText, type ReadContext } from './fields.js';
+import { readRange, type TemperatureRange } from './spread.js';
 
 export const PAPER_SIZES = ['A4', 'Letter'] as const;
 export type PaperSize = (typeof PAPER_SIZES)[number];
@@ -20,6 +21,8 @@ export interface FolioSettings {
   paper: PaperSize;
   /** Fraction of a capacitor's voltage rating above which rail plans warn (common practice: 80%). */
   derating: number;
+  /** The ambient temperatures the library's parts work in, °C: the span of their temperature corners. */
+  temperature: TemperatureRange;
 }
 
 /** 100 Hz to 10 GHz covers bulk electrolytics through RF inductors; 100 points a decade resolves Q ≈ 100. */
@@ -29,6 +32,8 @@ export const DEFAULT_SETTINGS: Readonly<FolioSettings> = {
   within: 0.1,
   paper: 'A4',
   derating: 0.8,
+  // The commercial range (common practice); a library states its own in folio.yaml.
+  temperature: { fromC: 0, toC: 70 },
 };
 
 export const MAX_POINTS_PER_DECADE = 10_000;
@@ -39,7 +44,7 @@ export function readSettings(ctx: ReadContext): FolioSettings | undefined {
   if (contents === null) return { ...DEFAULT_SETTINGS };
   const root = Fields.of(ctx, contents, '');
   if (!root) return undefined;
-  root.expect(['title', 'owner', 'notice', 'sweep', 'band', 'paper', 'derating']);
+  root.expect(['title', 'owner', 'notice', 'sweep', 'band', 'paper', 'derating', 'temperature']);
   const settings: FolioSettings = { ...DEFAULT_SETTINGS, sweep: { ...DEFAULT_SETTINGS.sweep } };
   settings.title = root.text('title') ?? settings.title;
   settings.owner = root.text('owner');
@@ -69,6 +74,11 @@ export function readSettings(ctx: ReadContext): FolioSettings | undefined {
   if (band) {
     band.expect(['within']);
     settings.within = band.ratio('within') ?? settings.within;
+  }
+  const temperature = root.map('temperature');
+  if (temperature) {
+    temperature.expect(['from', 'to'], ['from', 'to']);
+    settings.temperature = readRange(temperature) ?? settings.temperature;
   }
   const derating = root.ratio('derating');
   if (derating !== undefined) {

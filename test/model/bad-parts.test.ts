@@ -39,7 +39,7 @@ const EXPECTED: Record<string, string[]> = {
   // The near miss already names "nominal": it is not reported a second time as missing.
   'parts/07-near-miss-nominl.yaml': [`parts/07-near-miss-nominl.yaml:3:1: unknown field "nominl"; did you mean "nominal"?`],
   'parts/08-unknown-field-far.yaml': [
-    `parts/08-unknown-field-far.yaml:4:1: unknown field "colour"; expected one of id, kind, title, nominal, marking, tolerance, voltage, current, power, package, tags, notes, band, cost, parasitics`,
+    `parts/08-unknown-field-far.yaml:4:1: unknown field "colour"; expected one of id, kind, title, nominal, marking, tolerance, voltage, current, power, package, tags, notes, band, cost, parasitics, temperature, tc`,
   ],
   'parts/09-missing-id.yaml': [
     `parts/09-missing-id.yaml:1:1: missing field "id" (a unique id of letters, digits, ".", "_" and "-", e.g. CAP-0402-100N)`,
@@ -109,9 +109,9 @@ const EXPECTED: Record<string, string[]> = {
   'parts/36-empty-file.yaml': [
     `parts/36-empty-file.yaml:1:1: expected one part: a mapping of fields such as "id: ...", "kind: ...", "nominal: ..."; the file has no content`,
   ],
-  // X9Q: 9 is no EIA-198 high-temperature code and Q no change code.
+  // X9Q: 9 is the EIA-198 class 2 digit for +200 °C, but Q is no change letter.
   'parts/37-dielectric-x9q.yaml': [
-    `parts/37-dielectric-x9q.yaml:4:13: dielectric: expected an EIA dielectric code such as C0G, X7R or X5R, found "X9Q"`,
+    `parts/37-dielectric-x9q.yaml:4:13: dielectric: expected an EIA dielectric code such as C0G, X7R or X5R, found "X9Q": its last letter "Q" is none of A, B, C, D, E, F, P, R, S, T, U, V (the largest change of a class 2 code)`,
   ],
   // IEC 60384-14 classes; deliberately no guess, since a guessed class names a different rating.
   'parts/38-safety-class.yaml': [`parts/38-safety-class.yaml:5:9: safety: expected one of X1, X2, X3, Y1, Y2, Y3, Y4, found "Y5"`],

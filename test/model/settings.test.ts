@@ -18,13 +18,15 @@ function read(yaml: string): { settings?: FolioSettings; messages: string[] } {
 }
 
 describe('defaults', () => {
-  it('are 100 Hz to 10 GHz at 100 points a decade, within 10%, A4, 80% derating', () => {
+  it('are 100 Hz to 10 GHz at 100 points a decade, within 10%, A4, 80% derating, 0 °C to 70 °C', () => {
     expect(DEFAULT_SETTINGS).toEqual({
       title: 'Part library',
       sweep: { fromHz: 100, toHz: 10e9, perDecade: 100 },
       within: 0.1,
       paper: 'A4',
       derating: 0.8,
+      // The commercial temperature range (common practice).
+      temperature: { fromC: 0, toC: 70 },
     });
   });
 

@@ -197,7 +197,7 @@ function readLoosePlan(library: Library, absolute: string, path: string, io: Com
   // Checked like a library file: kind, size and encoding, so a pipe or a huge file is a message, not a hang.
   const text = readTextFile(absolute, path, diagnostics);
   const source = text === undefined ? undefined : parseYamlSource(path, text, diagnostics);
-  const read = source && readPlan({ source, diagnostics }, library.partsById, library.settings.derating);
+  const read = source && readPlan({ source, diagnostics }, library.partsById, library.settings.derating, library.settings.temperature);
   for (const d of diagnostics.sorted()) io.err(formatDiagnostic(d) + '\n');
   return diagnostics.errorCount > 0 ? undefined : read;
 }
