@@ -2,6 +2,7 @@
 // Usage: npm run bench [-- SECTION ...]
 
 import { chartsBench } from './charts.bench.js';
+import { cornersBench } from './corners.bench.js';
 import { diffBench } from './diff.bench.js';
 import { engineBench } from './engine.bench.js';
 import { pdfBench } from './pdf.bench.js';
@@ -12,7 +13,7 @@ import { touchstoneBench } from './touchstone.bench.js';
 import { transientBench } from './transient.bench.js';
 import type { BenchSection } from './measure.js';
 
-const SECTIONS: BenchSection[] = [engineBench, chartsBench, railBench, suggestBench, transientBench, touchstoneBench, diffBench, siteBench, pdfBench];
+const SECTIONS: BenchSection[] = [engineBench, chartsBench, railBench, cornersBench, suggestBench, transientBench, touchstoneBench, diffBench, siteBench, pdfBench];
 
 const wanted = process.argv.slice(2);
 for (const section of SECTIONS) {

@@ -10,6 +10,8 @@ import type { ImpedancePoint } from './extremum.js';
 import { peakImpedance, peakQuality, type QualityPeak } from './part-peaks.js';
 import { resolvedSweep, type ResolvedSweep } from './resolved-sweep.js';
 import { selfResonances, type Resonance } from './resonance.js';
+import { partCorners, type PartCorners } from './part-corners.js';
+import type { TemperatureRange } from '../model/spread.js';
 
 export interface PartAnalysis {
   part: Part;
@@ -29,6 +31,8 @@ export interface PartAnalysis {
   peakImpedance: ImpedancePoint & { atSweepEnd: boolean };
   /** The greatest Q with the reactance of the part's kind (inductors, capacitors), refined. */
   peakQuality?: QualityPeak;
+  /** The part at the corners of its spread (part-corners.ts); null when nothing moves or no range was given. */
+  corners: PartCorners | null;
 }
 
 export function bandRuleOf(part: Part, within: number): BandRule | undefined {
@@ -44,8 +48,11 @@ export function bandRuleOf(part: Part, within: number): BandRule | undefined {
   }
 }
 
-/** Analyse a part over a sweep; `defaultWithin` applies when the part sets no band criterion. */
-export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number): PartAnalysis {
+/**
+ * Analyse a part over a sweep; `defaultWithin` applies when the part sets no band criterion. With the
+ * operating temperatures, also at the corners of its spread.
+ */
+export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number, operating?: TemperatureRange): PartAnalysis {
   const frequencies = logSweep(sweep);
   const z = impedanceSweep(part.network, frequencies);
   const resolved = resolvedSweep(part.network, frequencies, z);
@@ -69,6 +76,7 @@ export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number)
     within: bandRule && bandRule.behavesAs !== 'bead' ? within : undefined,
     peakImpedance: peakImpedance(part.network, resolved),
     peakQuality: reactanceSign ? peakQuality(part.network, resolved, reactanceSign) : undefined,
+    corners: operating ? partCorners(part, operating, frequencies, bandRule, wanted) : null,
   };
 }
 

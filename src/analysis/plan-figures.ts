@@ -10,6 +10,8 @@ import type { MountingSource, Placement, Plan, PlanTarget } from '../model/plan.
 import { biasFraction, scaleCapacitance, type BiasedCapacitance } from './dc-bias.js';
 import { analyseLoadStep, type LoadStepFigures } from './load-step.js';
 import { evaluateRail, placementElement, planeElement, regulatorElement, targetImpedance, type BranchKind, type RailBranch } from './rail.js';
+import type { TemperatureRange } from '../model/spread.js';
+import { cornerFigures, type CornerFigures } from './plan-corners.js';
 
 export interface PlacedModel {
   /** One placement: the part at its biased capacitance, in series with the mounting inductance. */
@@ -132,6 +134,8 @@ export interface PlanFigures {
   branches: BranchFigures[];
   /** The load step against the ripple budget (load-step.ts); null when the plan gives no step or no branch. */
   transient: LoadStepFigures | null;
+  /** The rail at the corners of its parts' spreads (plan-corners.ts); null when not asked for. */
+  corners: CornerFigures | null;
   warnings: Diagnostic[];
 }
 
@@ -165,6 +169,8 @@ export function railBranches(plan: Plan, placements: readonly Placement[]): { br
 export interface AnalyseOptions {
   /** Compute the load step (default true); callers that read only the impedance verdict skip it. */
   loadStep?: boolean;
+  /** The library's operating temperatures: evaluate the rail at its corners too (the plan may narrow them). */
+  operating?: TemperatureRange;
 }
 
 /**
@@ -223,6 +229,7 @@ export function analysePlan(
       impedanceOhm: Array.from(result.branchMagnitude[i]),
     })),
     transient: options.loadStep === false ? null : analyseLoadStep(plan, branches),
+    corners: options.operating ? cornerFigures(plan, placements, options.operating, targetOhm, frequencies, result) : null,
     warnings: [...warnings],
   };
 }
@@ -233,6 +240,11 @@ export function planFiguresWithoutCurves(f: PlanFigures): Record<string, unknown
   delete out.frequenciesHz;
   delete out.impedanceOhm;
   out.branches = f.branches.map((b) => ({ kind: b.kind, label: b.label, partId: b.partId, count: b.count }));
+  if (f.corners) {
+    const corners: Record<string, unknown> = { ...f.corners };
+    delete corners.envelope;
+    out.corners = corners;
+  }
   if (f.transient) {
     const transient: Record<string, unknown> = { ...f.transient };
     delete transient.curves;

@@ -88,6 +88,7 @@ function deferredAnalysis(part: Part, analyse: () => PartAnalysis): PartAnalysis
     get within() { return analysis().within; },
     get peakImpedance() { return analysis().peakImpedance; },
     get peakQuality() { return analysis().peakQuality; },
+    get corners() { return analysis().corners; },
   };
 }
 
@@ -117,7 +118,7 @@ export interface PdfLinks {
 export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), timings }: AssembleOptions): Promise<FolioData> {
   const analyse = (part: Part) => {
     const started = performance.now();
-    const a = analysePart(part, library.settings.sweep, library.settings.within);
+    const a = analysePart(part, library.settings.sweep, library.settings.within, library.settings.temperature);
     if (timings) timings.analyse += (performance.now() - started) / 1000;
     return a;
   };

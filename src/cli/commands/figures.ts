@@ -32,7 +32,7 @@ export function figures(args: string[], io: CommandIO): number {
   if (!library) return EXIT_BAD_INPUT;
   const sweep = sweepWithOverrides(library.settings.sweep, values);
   const parts = selectParts(library, positionals, io.cwd);
-  const summaries = parts.map((p) => partSummary(analysePart(p, sweep, library.settings.within)));
+  const summaries = parts.map((p) => partSummary(analysePart(p, sweep, library.settings.within, library.settings.temperature)));
   if (values.json) io.out(JSON.stringify(summaries, null, 2) + '\n');
   else io.out(summaries.map(describeFigures).join('\n'));
   return EXIT_OK;

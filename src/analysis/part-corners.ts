@@ -1,0 +1,102 @@
+// A part at the corners of its spread: the model evaluated at every combination of each factor's low and
+// high extreme (2^q models for q moving quantities), each analysed like the nominal part (resolved sweep,
+// refined SRF and band edges); the figures report the least and greatest of each over those corners.
+// For a model whose figures move monotonically with each quantity — the SRF 1/(2π√(L·C)) of a series RLC,
+// the band edges that follow it — the extremes over the whole spread lie at its corners; for others the
+// corners are what zfolio evaluates, and pages say so.
+//
+// The usable band at a corner is judged against that corner's own value (its effective value within
+// `within` of C_nom·k), so it shows how far the band moves, not whether the value is off nominal.
+
+import { impedanceSweep } from '../circuit/impedance.js';
+import type { Part } from '../model/part.js';
+import type { TemperatureRange } from '../model/spread.js';
+import { usableBand, type BandRule } from './band.js';
+import { resolvedSweep } from './resolved-sweep.js';
+import { selfResonances } from './resonance.js';
+import { spreadFactors, spreadModel, valueSpread, type SpreadFactor, type ValueSpread } from './part-spread.js';
+
+/** At most this many moving quantities a part (2^4 = 16 corners): value and three parasitics is every model. */
+export const MAX_PART_FACTORS = 5;
+
+export interface Range {
+  min: number;
+  max: number;
+}
+
+export interface PartCorners {
+  /** The temperatures the change was taken over, °C. */
+  operating: TemperatureRange;
+  factors: SpreadFactor[];
+  value: ValueSpread | null;
+  /** How many models were evaluated: 2^factors. */
+  corners: number;
+  /** The part's value (F, H or Ω; a bead's rated |Z|) at its extremes; null without a value spread or a nominal. */
+  nominalValue: Range | null;
+  /** The self-resonant frequency over the corners; null when a corner has none in the sweep. */
+  srfHz: Range | null;
+  /** Each band edge over the corners; null when a corner has no band. */
+  usableBand: { fromHz: Range; toHz: Range } | null;
+  /** Least and greatest |Z| over the corners at each sweep point (for the chart's envelope). */
+  envelope: { min: Float64Array; max: Float64Array };
+}
+
+const range = (values: readonly number[]): Range | null => (values.length === 0 ? null : { min: Math.min(...values), max: Math.max(...values) });
+
+/** Every corner's high/low assignment, in binary order: corner c has factor i high when bit i of c is set. */
+export function allCorners(count: number): boolean[][] {
+  return Array.from({ length: 2 ** count }, (_, c) => Array.from({ length: count }, (_, i) => ((c >> i) & 1) === 1));
+}
+
+/**
+ * The part's figures at every corner of its spread over `frequencies`, with the band rule of its kind
+ * (`rule`, as the nominal analysis uses it); null when nothing about the part moves.
+ */
+export function partCorners(part: Part, operating: TemperatureRange, frequencies: Float64Array, rule: BandRule | undefined, wantedResonance: 'series' | 'parallel' | undefined): PartCorners | null {
+  const factors = spreadFactors(part, operating).slice(0, MAX_PART_FACTORS);
+  if (factors.length === 0) return null;
+  const value = valueSpread(part, operating);
+  const n = frequencies.length;
+  const min = new Float64Array(n).fill(Infinity);
+  const max = new Float64Array(n).fill(0);
+  const srf: number[] = [];
+  const from: number[] = [];
+  const to: number[] = [];
+  let everySrf = true;
+  let everyBand = true;
+  const valueIndex = factors.findIndex((f) => f.quantity === 'value');
+  for (const high of allCorners(factors.length)) {
+    const element = spreadModel(part, factors, high);
+    const z = impedanceSweep(element, frequencies);
+    for (let i = 0; i < n; i++) {
+      const m = Math.hypot(z.re[i], z.im[i]);
+      if (m < min[i]) min[i] = m;
+      if (m > max[i]) max[i] = m;
+    }
+    const resolved = resolvedSweep(element, frequencies, z);
+    const resonances = selfResonances(element, resolved);
+    const self = wantedResonance ? resonances.find((r) => r.type === wantedResonance) : resonances[0];
+    if (self) srf.push(self.frequencyHz);
+    else everySrf = false;
+    if (rule) {
+      const k = valueIndex < 0 ? 1 : high[valueIndex] ? factors[valueIndex].high : factors[valueIndex].low;
+      const own: BandRule = rule.behavesAs === 'bead' ? rule : { ...rule, nominal: rule.nominal * k };
+      const band = usableBand(element, own, resolved);
+      if (band) {
+        from.push(band.fromHz);
+        to.push(band.toHz);
+      } else everyBand = false;
+    }
+  }
+  const nominal = part.nominal;
+  return {
+    operating,
+    factors,
+    value,
+    corners: 2 ** factors.length,
+    nominalValue: value && nominal !== undefined ? { min: nominal * value.low, max: nominal * value.high } : null,
+    srfHz: everySrf ? range(srf) : null,
+    usableBand: rule && everyBand && from.length > 0 ? { fromHz: range(from)!, toHz: range(to)! } : null,
+    envelope: { min, max },
+  };
+}
