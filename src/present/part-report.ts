@@ -6,6 +6,7 @@ import type { SweepColumns } from '../analysis/sweep-table.js';
 import { formatDegrees, formatEng } from '../units/format.js';
 import { bandRuleText, bandText } from './band-words.js';
 import { extremumNote } from './resonance-words.js';
+import { boundsText, celsiusSpan, changeText, parasiticSpreadText, spreadFigureTexts } from './corner-words.js';
 
 /** The human form: engineering notation with units. */
 export function describeFigures(s: PartSummary): string {
@@ -21,7 +22,22 @@ export function describeFigures(s: PartSummary): string {
   const rule = bandRuleText(s.behavesAs, s.within);
   if (s.behavesAs) lines.push(`  usable band  ${s.usableBand ? bandText(s.usableBand) + (rule ? ` (${rule})` : '') : 'none in the sweep'}`);
   else lines.push('  usable band  not defined (the network declares no behaves-as)');
+  lines.push(...spreadLines(s));
   return lines.join('\n') + '\n';
+}
+
+/** "  spread  value 76.5 nF to 126 nF (±10%, −15% … +15% over −10 °C to 55 °C)" and the figures at the corners. */
+function spreadLines(s: PartSummary): string[] {
+  const sp = s.spread;
+  if (!sp) return [];
+  const texts = spreadFigureTexts(sp);
+  const sources = [sp.tolerance ? boundsText(sp.tolerance) : '', sp.temperatureChange ? `${changeText(sp.temperatureChange)} over ${celsiusSpan(sp.temperature)}` : '', parasiticSpreadText(sp) ?? ''].filter(Boolean).join(', ');
+  const value = sp.nominalValue && s.unit !== null ? `value ${formatEng(sp.nominalValue.min, s.unit)} to ${formatEng(sp.nominalValue.max, s.unit)} ` : '';
+  const out = [`  spread       ${value}(${sources})`];
+  if (texts.srf) out.push(`               SRF ${texts.srf}`);
+  if (texts.bandTop) out.push(`               band top ${texts.bandTop}`);
+  out.push(`               at ${texts.corners}`);
+  return out;
 }
 
 /** A part's sweep as a table: frequency, R, X, |Z| and phase, one row per point, under a one-line heading. */

@@ -6,6 +6,7 @@ import { formatDiagnostic } from '../model/diagnostics.js';
 import { formatDecibels, formatEng } from '../units/format.js';
 import { biasLine, mountingSourceText, planBandText, planResultLine, planTargetText as targetLine, planeText, regulatorText } from './plan-words.js';
 import { loadStepLines } from './load-step-words.js';
+import { cornerVerdictText } from './corner-words.js';
 
 /** The rail's branches, one line each, aligned. */
 export function branchLines(f: PlanFigures): string[] {
@@ -27,6 +28,12 @@ export function peakLines(f: PlanFigures): string[] {
   });
 }
 
+/** The impedance verdict: nominal, and the worst corner when the rail was evaluated at its corners. */
+export function verdictLines(f: PlanFigures): string[] {
+  if (!f.corners) return [`  result     ${planResultLine(f)}`];
+  return [`  nominal    ${planResultLine(f)}`, `  corners    ${f.branches.length === 0 ? planResultLine(f) : cornerVerdictText(f.corners)}`];
+}
+
 /** "  load step  PASS dips …" and its continuation lines. */
 export function loadStepBlock(f: PlanFigures): string[] {
   const [first, ...more] = loadStepLines(f);
@@ -38,7 +45,7 @@ export function describePlan(f: PlanFigures): string {
   const lines = [`${f.rail}${f.title !== f.rail ? `  ·  ${f.title}` : ''}  (${f.file})`];
   lines.push(`  target     ${targetLine(f)}`);
   lines.push(`  band       ${planBandText(f)}, ${f.perDecade} points per decade, peaks refined`);
-  lines.push(`  result     ${planResultLine(f)}`, ...loadStepBlock(f));
+  lines.push(...verdictLines(f), ...loadStepBlock(f));
   lines.push(`  branches`, ...branchLines(f));
   lines.push(`  peaks`, ...peakLines(f));
   if (f.biasDerated.length > 0) lines.push(`  DC bias    capacitance at ${formatEng(f.voltageV, 'V')} from the DC-bias table of ${f.biasDerated.join(', ')}`);

@@ -7,7 +7,7 @@ import { formatDiagnostic } from '../model/diagnostics.js';
 import type { SkippedPart } from '../model/plan-candidates.js';
 import type { Plan } from '../model/plan.js';
 import { formatDecibels, formatEng } from '../units/format.js';
-import { branchLines, loadStepBlock, peakLines } from './plan-report.js';
+import { branchLines, loadStepBlock, peakLines, verdictLines } from './plan-report.js';
 import { planResultLine, planTargetText as targetLine } from './plan-words.js';
 import { capacitorsYaml } from './plan-yaml.js';
 
@@ -80,7 +80,7 @@ export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRe
     const f = s.figures;
     lines.push(`  target     ${targetLine(f)}`);
     // The search weighs the impedance only; the chosen set's load step is shown for what it is.
-    lines.push(`  result     ${planResultLine(f)}`, ...loadStepBlock(f));
+    lines.push(...verdictLines(f), ...loadStepBlock(f));
     describeSet(f);
     lines.push('  as plan YAML', ...capacitorsYaml(s.placements, '    '));
   } else if (s.closest) {

@@ -32,7 +32,9 @@ describe('zfolio plan: the load step', () => {
     const json = JSON.parse((await run(['plan', 'VDD_TEST', '--json'])).out).transient;
     const lines = out.split('\n');
     const at = lines.findIndex((l) => l.startsWith('  load step  '));
-    expect(lines[at - 1]).toMatch(/^ {2}result {5}(PASS|FAIL)/);
+    // The impedance verdict's two lines (nominal, worst corner) come just before it.
+    expect(lines[at - 2]).toMatch(/^ {2}nominal {4}(PASS|FAIL)/);
+    expect(lines[at - 1]).toMatch(/^ {2}corners {4}(PASS|FAIL)/);
     expect(lines[at]).toBe(`  load step  ${json.pass ? 'PASS' : 'FAIL'}  dips ${formatEng(json.droopV, 'V')} at ${formatEng(json.atS, 's')} (budget ${formatEng(json.budgetV, 'V')}), settles by ${formatEng(json.settleS, 's')}`);
     expect(lines[at + 1]).toBe(`             step 2 A over ${formatEng(json.riseS, 's')} (0.35 / band top), budget 50 mV = 1 V × 5%`);
     expect((await run(['plan', 'VDD_WEAK'])).out).toContain('  load step  no load step: the plan gives its target without a step current');

@@ -99,13 +99,13 @@ describe('zfolio plan (human form)', () => {
     const { code, out } = await run(['plan', 'plans/vdd-test.yaml']);
     expect(code).toBe(0);
     expect(out).toContain('target     25 mΩ = 1 V × 5% / 2 A');
-    expect(out).toMatch(/result {5}PASS {2}worst margin \+\d+\.\d\d dB at [\d.]+ [kM]?Hz/);
+    expect(out).toMatch(/nominal {4}PASS {2}worst margin \+\d+\.\d\d dB at [\d.]+ [kM]?Hz/);
     expect(out).toContain('6 × RT-C-22U   19.8 µF at 1 V (90% of 22 µF, DC-bias table), mounting 300 pH');
     expect(out).toMatch(/peaks\n {4}[\d.]+ [kM]Hz/);
   });
   it('a failing plan shows FAIL and its warning', async () => {
     const { out } = await run(['plan', 'VDD_WEAK']);
-    expect(out).toMatch(/result {5}FAIL {2}worst margin −\d+\.\d\d dB/);
+    expect(out).toMatch(/nominal {4}FAIL {2}worst margin −\d+\.\d\d dB/);
     expect(out).toContain('warnings\n    plans/vdd-weak.yaml:10:12: warning: capacitors[1].part:');
   });
 });

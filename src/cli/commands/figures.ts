@@ -10,8 +10,10 @@ import { selectParts } from '../select.js';
 
 export const figuresHelp = `Usage: zfolio figures [ID|FILE ...] [--json] [--library DIR] [--from F] [--to F] [--per-decade N]
 
-Prints each part's resonances, self-resonant frequency (SRF) and usable band.
-With no ID or FILE, every part in the library.
+Prints each part's resonances, self-resonant frequency (SRF) and usable band,
+and the same over its spread: its value, SRF and band edges at every corner of
+its tolerance, temperature change over folio.yaml's "temperature" and stated
+parasitic spreads. With no ID or FILE, every part in the library.
 
 Options:
   --json              print a JSON array (SI units: Hz, Ω) instead of text
