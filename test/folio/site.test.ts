@@ -44,7 +44,7 @@ describe('the demo folio', () => {
 
   it('states the figures `zfolio figures --json` gives, on the page and in its figures.json', () => {
     for (const part of library.parts) {
-      const summary = partSummary(analysePart(part, library.settings.sweep, library.settings.within));
+      const summary = partSummary(analysePart(part, library.settings.sweep, library.settings.within, library.settings.temperature));
       const json = JSON.parse(read(siteA, `parts/${part.id}/figures.json`));
       expect(json).toEqual(JSON.parse(JSON.stringify(summary)));
       const html = read(siteA, `parts/${part.id}/index.html`);
