@@ -61,8 +61,7 @@ ends below the rail voltage (its capacitance there would be extrapolated).
 Options:
   --json              print JSON (SI units); one object for one plan, else an array
   --corners           hold the rail to its corners: a corner that misses the
-                      target fails the check (exit 3); with --suggest, choose a
-                      set that meets the target at every corner
+                      target fails the check (exit 3)
   --suggest           choose the capacitors instead of checking the listed ones
   --margin DB         margin required under the target, in dB (default 0);
                       a negative margin is written --margin=-1
@@ -107,6 +106,7 @@ export function plan(args: string[], io: CommandIO): number {
     io.out(planHelp);
     return EXIT_OK;
   }
+  if (values.suggest && values.corners) throw new UsageError('--corners goes with checking a plan, not with --suggest');
   if (!values.suggest) {
     for (const name of SUGGEST_ONLY) if (values[name] !== undefined) throw new UsageError(`--${name} goes with --suggest`);
   } else if (positionals.length !== 1) throw new UsageError(`--suggest takes exactly one plan (a rail name or file), found ${positionals.length}`);
