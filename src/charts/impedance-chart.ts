@@ -7,6 +7,7 @@ import { ABOVE_FIRST, BELOW_FIRST, placeLabels, type LabelRequest } from './labe
 import { FONT_SIZE, PART_SERIES, PLOT_WIDTH, RATED_MARK, RESONANCE_MARK, frame } from './palette.js';
 import {
   bandData,
+  envelopeRows,
   curveRows,
   sweepAxis,
   mergeCurve,
@@ -17,7 +18,7 @@ import {
 } from './part-data.js';
 import type { ChartBinding, ChartDefinition, Row } from './render.js';
 import { logAxis, logTicks, paddedLogDomain, positiveExtent } from './scales.js';
-import { axisBinding, axisParams, bandLayers, curveLayer, frameLayer, gridLayers, keyLayers, placedLabelLayer, seriesEncoding, pointLayer, position, type SeriesScale } from './spec-parts.js';
+import { axisBinding, axisParams, bandLayers, curveLayer, envelopeLayer, frameLayer, gridLayers, keyLayers, placedLabelLayer, seriesEncoding, pointLayer, position, type SeriesScale } from './spec-parts.js';
 import { CHART_CONFIG } from './theme.js';
 import { formatEng } from '../units/format.js';
 
@@ -42,6 +43,7 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
         ...gridLayers('f', 'x', X),
         ...gridLayers('y', 'y', Y),
         ...bandLayers(X),
+        envelopeLayer('spread', X, Y),
         curveLayer('curves', X, Y, seriesEncoding(SERIES)),
         pointLayer('points', X, Y),
         // The rated point, larger than a resonance dot: on a bead it often sits close to the SRF.
@@ -57,7 +59,8 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
     const { re, im } = input.z;
     const magnitude = (i: number) => Math.hypot(re[i], im[i]);
     const rated = ratedPoint(input);
-    let [lo, hi] = positiveExtent([input.resonances.map((r) => r.impedanceOhm), Float64Array.from(input.frequencies, (_, i) => magnitude(i)), re, rated ? [rated.v] : []], MAX_DECADES);
+    const spread = input.spread ? [input.spread.min, input.spread.max] : [];
+    let [lo, hi] = positiveExtent([input.resonances.map((r) => r.impedanceOhm), Float64Array.from(input.frequencies, (_, i) => magnitude(i)), re, rated ? [rated.v] : [], ...spread], MAX_DECADES);
     // Room for resonance labels: below a dip, above a peak.
     if (input.resonances.some((r) => r.type === 'series')) lo /= LABEL_ROOM;
     if (input.resonances.some((r) => r.type === 'parallel')) hi *= LABEL_ROOM;
@@ -101,6 +104,7 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
         ...(ordered.length > 0 ? [{ kind: 'point' as const, color: RESONANCE_MARK, text: 'resonance (X = 0)' }] : []),
         ...(rated ? [{ kind: 'point' as const, color: RATED_MARK, shape: 'diamond', text: `rated |Z| ${formatEng(rated.v, 'Ω')} at ${formatEng(rated.f, 'Hz')}` }] : []),
         ...(band.key ? [band.key] : []),
+        ...(input.spread ? [{ kind: 'spread' as const, text: `|Z| over ${input.spread.corners} corners of the spread` }] : []),
       ],
       FRAME.width,
     );
@@ -115,6 +119,7 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
         curves,
         points: input.resonances.map((r) => ({ f: r.frequencyHz, v: r.impedanceOhm })),
         rated: rated ? [rated] : [],
+        spread: input.spread ? envelopeRows(input.spread.frequencies, input.spread.min, input.spread.max) : [],
         labels,
         ...key.datasets,
       },

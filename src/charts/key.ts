@@ -11,11 +11,13 @@ export type KeyItem =
   /** A line symbol drawn with the chart's line scales; `style` holds the row fields they read (e.g. {s: 'mag'}). */
   | { kind: 'line'; style: Row; text: string }
   | { kind: 'band'; text: string }
+  /** A tinted swatch for the envelope of a spread. */
+  | { kind: 'spread'; text: string }
   /** A point symbol: a vega point shape (default circle). */
   | { kind: 'point'; color: string; text: string; shape?: string };
 
 export interface KeyLayout {
-  datasets: { keyBands: Row[]; keyLines: Row[]; keyPoints: Row[]; keyText: Row[] };
+  datasets: { keyBands: Row[]; keySpread: Row[]; keyLines: Row[]; keyPoints: Row[]; keyText: Row[] };
   rows: number;
   /** Padding above the plot that holds the key. */
   topPadding: number;
@@ -33,7 +35,7 @@ const BELOW = 12;
  * of equal width (comparisons: ids of similar length read better as a grid).
  */
 export function layoutKey(items: readonly KeyItem[], width: number, columns?: number): KeyLayout {
-  const datasets: KeyLayout['datasets'] = { keyBands: [], keyLines: [], keyPoints: [], keyText: [] };
+  const datasets: KeyLayout['datasets'] = { keyBands: [], keySpread: [], keyLines: [], keyPoints: [], keyText: [] };
   const size = FONT_SIZE.legend;
   const widths = items.map((it) => SYMBOL + SYMBOL_GAP + textWidth(it.text, size));
   const columnWidth = columns ? width / columns : 0;
@@ -56,6 +58,7 @@ export function layoutKey(items: readonly KeyItem[], width: number, columns?: nu
     const y = -topPadding + 3 + r * ROW_HEIGHT + ROW_HEIGHT / 2;
     if (item.kind === 'line') datasets.keyLines.push({ x0, x1: x0 + SYMBOL, y, ...item.style });
     else if (item.kind === 'band') datasets.keyBands.push({ x0, x1: x0 + SYMBOL, y0: y - 5, y1: y + 5 });
+    else if (item.kind === 'spread') datasets.keySpread.push({ x0, x1: x0 + SYMBOL, y0: y - 5, y1: y + 5 });
     else datasets.keyPoints.push({ x: x0 + SYMBOL / 2, y, c: item.color, sh: item.shape ?? 'circle' });
     datasets.keyText.push({ x: x0 + SYMBOL + SYMBOL_GAP, y, t: cleanText(item.text) });
   }

@@ -21,6 +21,10 @@ export const BAND_FILL = '#7d9ec4';
 export const BAND_OPACITY = 0.2;
 export const BAND_EDGE = '#4f6f91';
 
+/** The envelope of |Z| over the corners of a spread: a warm tint behind the nominal curve. */
+export const SPREAD_FILL = '#c8a76a';
+export const SPREAD_OPACITY = 0.38;
+
 /** A series: its colour, its dash pattern (empty = solid) and its line width in px. */
 export interface SeriesStyle {
   color: string;

@@ -23,6 +23,17 @@ export interface PartChartInput {
   selfResonance?: Resonance;
   usableBand: UsableBand | null;
   within?: number;
+  /** The least and greatest |Z| over the corners of the part's spread, on the plain sweep; absent without one. */
+  spread?: { frequencies: Float64Array; min: Float64Array; max: Float64Array; corners: number } | null;
+}
+
+/** Rows of an envelope (min and max at each frequency, rows {f, v, v2, i}) with both ends on the plot. */
+export function envelopeRows(frequencies: ArrayLike<number>, min: ArrayLike<number>, max: ArrayLike<number>): Row[] {
+  const rows: Row[] = [];
+  for (let i = 0; i < frequencies.length; i++) {
+    if (min[i] > 0 && Number.isFinite(max[i])) rows.push({ f: frequencies[i], v: min[i], v2: max[i], i });
+  }
+  return rows;
 }
 
 /** Minimum distance between labelled ticks, px: about two label widths on x, one line on y. */

@@ -9,10 +9,10 @@ import { frameForKey, layoutKey, type KeyItem } from './key.js';
 import { ABOVE_FIRST, placeLabels, type LabelRequest } from './labels.js';
 import { overlayEncoding, overlayStyle } from './overlay.js';
 import { FONT_SIZE, INK, PLOT_WIDTH, RAIL_TOTAL, TARGET_LINE, frame } from './palette.js';
-import { curveRows, frequencyAxis, mergeCurve, toPlot, Y_TICK_SPACING } from './part-data.js';
+import { curveRows, envelopeRows, frequencyAxis, mergeCurve, toPlot, Y_TICK_SPACING } from './part-data.js';
 import { renderChart, type ChartDefinition, type ChartOutput, type ChartText, type Row } from './render.js';
 import { logAxis, logTicks, paddedLogDomain, positiveExtent } from './scales.js';
-import { axisBinding, axisParams, bandLayers, curveLayer, frameLayer, gridLayers, keyLayers, placedLabelLayer, position, seriesEncoding, type SeriesScale } from './spec-parts.js';
+import { axisBinding, axisParams, bandLayers, curveLayer, envelopeLayer, frameLayer, gridLayers, keyLayers, placedLabelLayer, position, seriesEncoding, type SeriesScale } from './spec-parts.js';
 import { CHART_CONFIG } from './theme.js';
 
 /** What the rail chart draws; all values in SI base units (Hz, Ω). */
@@ -31,6 +31,8 @@ export interface RailChartData {
   peaks: readonly { frequencyHz: number; impedanceOhm: number }[];
   /** The frequency band the target applies to. */
   band: { fromHz: number; toHz: number } | null;
+  /** Least and greatest |Z| of the rail over the corners of its parts' spreads, at each frequency. */
+  envelope?: { minOhm: ArrayLike<number>; maxOhm: ArrayLike<number>; corners: number } | null;
 }
 
 const SERIES: SeriesScale = { keys: ['total', 'target'], styles: [RAIL_TOTAL, TARGET_LINE] };
@@ -57,6 +59,7 @@ export const railChart: ChartDefinition<RailChartData> = {
         ...gridLayers('f', 'x', X),
         ...gridLayers('y', 'y', Y),
         ...bandLayers(X),
+        envelopeLayer('spread', X, Y),
         curveLayer('branches', X, Y, overlayEncoding(BRANCH_WIDTH), 'p'),
         curveLayer('curves', X, Y, seriesEncoding(SERIES)),
         {
@@ -78,7 +81,8 @@ export const railChart: ChartDefinition<RailChartData> = {
     const target = Float64Array.from({ length: n }, (_, i) => targetAt(data, i));
     // The rail and its target set the range (branches far above them are cut off at the top); half a
     // decade of headroom holds the peak labels.
-    const [lo, hi] = positiveExtent([data.totalOhm, target, data.peaks.map((p) => p.impedanceOhm)], MAX_DECADES);
+    const envelope = data.envelope ? [data.envelope.minOhm, data.envelope.maxOhm] : [];
+    const [lo, hi] = positiveExtent([data.totalOhm, target, data.peaks.map((p) => p.impedanceOhm), ...envelope], MAX_DECADES);
     const branchLow = positiveExtent(data.branches.map((b) => b.ohm), MAX_DECADES)[0];
     const yDomain = paddedLogDomain(Math.max(Math.min(lo, branchLow), hi / 10 ** MAX_DECADES), hi * 10 ** 0.5);
     const yMap = logAxis(yDomain, FRAME.height);
@@ -116,6 +120,7 @@ export const railChart: ChartDefinition<RailChartData> = {
       { kind: 'line', style: { s: 'target' }, text: `target${constantTarget}` },
       ...peakKey(peaks, targetNear),
       ...(data.band ? [{ kind: 'band' as const, text: `band ${formatEng(data.band.fromHz, 'Hz')} – ${formatEng(data.band.toHz, 'Hz')}` }] : []),
+      ...(data.envelope ? [{ kind: 'spread' as const, text: `rail |Z| over ${data.envelope.corners.toLocaleString('en-GB')} corners` }] : []),
       ...data.branches.map((b, k) => ({ kind: 'line' as const, style: { ...overlayStyle(k), branch: true }, text: b.label })),
     ];
     const key = layoutKey(items, FRAME.width);
@@ -131,6 +136,7 @@ export const railChart: ChartDefinition<RailChartData> = {
         band: data.band ? [{ f: data.band.fromHz, f2: data.band.toHz }] : [],
         bandEdges: data.band ? [{ f: data.band.fromHz }, { f: data.band.toHz }] : [],
         branches,
+        spread: data.envelope ? envelopeRows(f, data.envelope.minOhm, data.envelope.maxOhm) : [],
         curves,
         peaks: peaks.map((p) => ({ f: p.frequencyHz, v: p.impedanceOhm, color: peakColor(p, targetNear) })),
         labels,

@@ -6,7 +6,7 @@
 // Each piece is a plain object; a chart spec is a list of layers built from them.
 
 import type { Ticks } from './scales.js';
-import { BAND_EDGE, BAND_FILL, BAND_OPACITY, FONT_SIZE, GRID_MAJOR, GRID_MINOR, INK, RESONANCE_MARK, type SeriesStyle } from './palette.js';
+import { BAND_EDGE, BAND_FILL, BAND_OPACITY, FONT_SIZE, GRID_MAJOR, GRID_MINOR, INK, RESONANCE_MARK, SPREAD_FILL, SPREAD_OPACITY, type SeriesStyle } from './palette.js';
 
 // vega-lite's layer and encoding types are deep unions; the pieces here are checked by compiling every spec
 // in the tests (with vega-lite's warnings turned into failures), which says more than the static type.
@@ -117,6 +117,18 @@ export function bandLayers(x: Json): Json[] {
   ];
 }
 
+/**
+ * The least and greatest |Z| over the corners of a spread (rows {f, v, v2, i}) as a tinted area, drawn behind
+ * the curves so the nominal curve reads on top of it.
+ */
+export function envelopeLayer(data: string, x: Json, y: Json): Json {
+  return {
+    data: { name: data },
+    mark: { type: 'area', color: SPREAD_FILL, fillOpacity: SPREAD_OPACITY, clip: true },
+    encoding: { x, y, y2: { field: 'v2' }, order: { field: 'i', type: 'quantitative' } },
+  };
+}
+
 /** A straight reference line at y = v (rows {v}): zero lines, targets. */
 export function referenceLineLayer(data: string, y: Json, style: { color: string; width: number; dash?: number[] }): Json {
   return {
@@ -169,6 +181,7 @@ export function keyLayers(lineStyle: Json): Json[] {
   const px = (field: string) => ({ field, type: 'quantitative', scale: null });
   return [
     { data: { name: 'keyBands' }, mark: { type: 'rect', color: BAND_FILL, fillOpacity: BAND_OPACITY, stroke: BAND_EDGE, strokeWidth: 0.8, strokeDash: [4, 2] }, encoding: { x: px('x0'), x2: px('x1'), y: px('y0'), y2: px('y1') } },
+    { data: { name: 'keySpread' }, mark: { type: 'rect', color: SPREAD_FILL, fillOpacity: SPREAD_OPACITY }, encoding: { x: px('x0'), x2: px('x1'), y: px('y0'), y2: px('y1') } },
     { data: { name: 'keyLines' }, mark: { type: 'rule' }, encoding: { x: px('x0'), x2: px('x1'), y: px('y'), ...lineStyle } },
     {
       data: { name: 'keyPoints' },
@@ -180,4 +193,4 @@ export function keyLayers(lineStyle: Json): Json[] {
 }
 
 /** Names of the datasets a key fills. */
-export const KEY_DATASETS = ['keyBands', 'keyLines', 'keyPoints', 'keyText'] as const;
+export const KEY_DATASETS = ['keyBands', 'keySpread', 'keyLines', 'keyPoints', 'keyText'] as const;

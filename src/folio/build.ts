@@ -255,10 +255,11 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
 const PARTS_PER_WORKER_START = 40;
 
 export function chartPoolFor(library: Library, workers?: number, cache?: string | false): ChartPool {
-  const { sweep, within } = library.settings;
+  const { sweep, within, temperature } = library.settings;
   return new ChartPool({
     cacheDir: cache === false ? undefined : (cache ?? join(library.root, CACHE_DIR, 'charts')),
     workers: workers ?? (library.parts.length < PARTS_PER_WORKER_START ? 0 : undefined),
-    settingsKey: JSON.stringify({ sweep, within }),
+    // The operating temperatures set every part's and rail's spread envelope.
+    settingsKey: JSON.stringify({ sweep, within, temperature }),
   });
 }

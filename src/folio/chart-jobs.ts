@@ -29,6 +29,7 @@ export function chartInput(a: PartAnalysis): PartChartInput {
     selfResonance: a.selfResonance,
     usableBand: a.usableBand,
     within: a.within,
+    spread: a.corners ? { frequencies: a.frequencies, min: a.corners.envelope.min, max: a.corners.envelope.max, corners: a.corners.corners } : null,
   };
 }
 
@@ -60,6 +61,7 @@ export function railChartData(f: PlanFigures): RailChartData {
     branches: f.branches.map((b) => ({ label: b.label, ohm: b.impedanceOhm })),
     peaks: f.peaks.map((p) => ({ frequencyHz: p.frequencyHz, impedanceOhm: p.impedanceOhm })),
     band: { ...f.band },
+    envelope: f.corners?.envelope ? { minOhm: f.corners.envelope.minOhm, maxOhm: f.corners.envelope.maxOhm, corners: f.corners.evaluated } : null,
   };
 }
 
