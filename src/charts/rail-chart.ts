@@ -70,7 +70,7 @@ export const railChart: ChartDefinition<RailChartData> = {
         placedLabelLayer('labels', X, Y, INK),
         frameLayer(),
         ...keyLayers(seriesEncoding(SERIES)),
-        { ...keyLayers(overlayEncoding(BRANCH_WIDTH))[1], data: { name: 'keyBranchLines' } },
+        { ...keyLayers(overlayEncoding(BRANCH_WIDTH)).find((l) => (l.data as { name: string }).name === 'keyLines')!, data: { name: 'keyBranchLines' } },
       ],
     } as never;
   },

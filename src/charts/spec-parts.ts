@@ -125,7 +125,9 @@ export function envelopeLayer(data: string, x: Json, y: Json): Json {
   return {
     data: { name: data },
     mark: { type: 'area', color: SPREAD_FILL, fillOpacity: SPREAD_OPACITY, clip: true },
-    encoding: { x, y, y2: { field: 'v2' }, order: { field: 'i', type: 'quantitative' } },
+    // No `order` channel: on an area it sets the stacking order and would split the area point by point; the
+    // area follows x.
+    encoding: { x, y, y2: { field: 'v2' } },
   };
 }
 

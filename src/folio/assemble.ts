@@ -163,7 +163,7 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
 }
 
 async function planPage(plan: Plan, library: Library, siteDir: string, charts: ChartMaker, timings?: AssembleTimings): Promise<PlanPageData> {
-  const figures = analysePlan(plan, library.settings.sweep.perDecade);
+  const figures = analysePlan(plan, library.settings.sweep.perDecade, plan.placements, plan.warnings, { operating: library.settings.temperature });
   const inputs = [plan.source.hash, ...plan.placements.map((p) => p.part.source.hash)].join(',');
   const page = planPageData(figures, plan.source.hash, plan.notes, undefined);
   const folder = join(siteDir, 'plans', page.slug);

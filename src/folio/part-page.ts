@@ -14,6 +14,8 @@ import { nominalText, signedPercent } from '../present/part-words.js';
 import { extremumNote, resonanceNote } from '../present/resonance-words.js';
 import type { Row } from '../present/row.js';
 import { formatVoltageRating } from '../model/voltage-rating.js';
+import { spreadSummary } from '../analysis/summary.js';
+import { parasiticSpreadText, partCornerSentence, spreadFigureTexts, valueSpreadText } from '../present/corner-words.js';
 import type { Element } from '../circuit/element.js';
 
 export interface ImpedanceRow {
@@ -40,6 +42,24 @@ export interface PartPageText {
   mainsBanner?: MainsBanner;
   srfText: string;
   bandText: string;
+  /** What the spread rows mean and leave out, beside the figures; empty when nothing about the part moves. */
+  spreadNote: string;
+}
+
+/** The figures over the part's spread: its value, SRF and band edges at the corners. */
+function spreadRows(a: PartAnalysis): Row[] {
+  const s = spreadSummary(a);
+  if (!s) return [];
+  const texts = spreadFigureTexts(s);
+  const rows: Row[] = [];
+  const value = valueSpreadText(a.part, s);
+  if (value) rows.push({ label: 'Value over its spread', value, note: s.tolerance ? 'tolerance × temperature change' : 'temperature change' });
+  const parasitics = parasiticSpreadText(s);
+  if (parasitics) rows.push({ label: 'Parasitic spread', value: parasitics });
+  if (texts.srf) rows.push({ label: 'SRF over its spread', value: texts.srf, note: `at ${texts.corners}` });
+  if (texts.bandBottom && s.usableBand && s.usableBand.fromHz.max > a.frequencies[0]) rows.push({ label: 'Band bottom over its spread', value: texts.bandBottom });
+  if (texts.bandTop) rows.push({ label: 'Band top over its spread', value: texts.bandTop, note: 'each corner judged against its own value' });
+  return rows;
 }
 
 function facts(part: Part): Row[] {
@@ -153,7 +173,7 @@ export function partPageText(a: PartAnalysis): PartPageText {
     kindLabel: kindLabel(a.part),
     nominalText: nominalText(a.part),
     facts: facts(a.part),
-    figures: figures(a),
+    figures: [...figures(a), ...spreadRows(a)],
     impedanceTable: table.rows,
     effectiveHeading: table.heading,
     parameters: parameters(a.part.network, a.part.kind),
@@ -161,5 +181,6 @@ export function partPageText(a: PartAnalysis): PartPageText {
     mainsBanner: mainsBanner(a.part, storedEnergyText(a.part)),
     srfText: a.selfResonance ? formatEng(a.selfResonance.frequencyHz, 'frequency') : '—',
     bandText: a.bandRule ? bandText(a.usableBand) : '—',
+    spreadNote: a.corners ? partCornerSentence(a.corners.operating) : '',
   };
 }

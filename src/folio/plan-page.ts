@@ -8,6 +8,7 @@ import type { Row } from '../present/row.js';
 import { railSlug } from '../present/slugs.js';
 import { formatDecibels, formatEng, formatNumber } from '../units/format.js';
 import type { ChartOnPage } from './site-data.js';
+import { cornerVerdictWords, type CornerVerdictWords } from '../present/corner-words.js';
 import { LOAD_STEP_CAUTION, NO_LOAD_STEP, loadStepFacts, loadStepMethod, loadStepStatus, loadStepVerdict } from '../present/load-step-words.js';
 
 export interface PlanPageData {
@@ -29,6 +30,8 @@ export interface PlanPageData {
   loadStep: LoadStepPageData | null;
   /** Why there is no load step, when there is none. */
   loadStepNote: string;
+  /** The worst corner of the placed parts' spreads, beside the nominal verdict; null when not evaluated. */
+  corners: CornerVerdictWords | null;
 }
 
 export interface LoadStepPageData {
@@ -89,6 +92,7 @@ export function planPageData(f: PlanFigures, sourceHash: string, notes: string |
     biasNote: biasNote(f),
     chart,
     loadStep: f.transient ? { pass: f.transient.pass, status: loadStepStatus(f) ?? '', verdict: loadStepVerdict(f), facts: loadStepFacts(f), method: loadStepMethod(f), caution: LOAD_STEP_CAUTION, charts: [] } : null,
+    corners: f.corners ? cornerVerdictWords(f.corners, f.pass, f.branches.length === 0) : null,
     loadStepNote: f.transient ? '' : `${NO_LOAD_STEP[0].toUpperCase()}${NO_LOAD_STEP.slice(1)} ("step" beside "target" adds one).`,
   };
 }

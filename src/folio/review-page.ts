@@ -25,7 +25,15 @@ export interface ReviewPageData {
   /** Each decision as inline HTML, with the warnings shown beside it. */
   decisions: { html: string; warnings: string[] }[];
   /** Each covered rail's verdict, stated beside the decisions and on the pack's cover. */
-  railVerdicts: { rail: string; slug: string; pass: boolean; verdict: string; loadStep: { pass: boolean; status: string; verdict: string } | null }[];
+  railVerdicts: {
+    rail: string;
+    slug: string;
+    pass: boolean;
+    verdict: string;
+    loadStep: { pass: boolean; status: string; verdict: string } | null;
+    /** The rail at its corners: passes or not, and the worst corner. */
+    corners: { pass: boolean; status: string; verdict: string } | null;
+  }[];
   openPoints: { html: string; owner: string; due: string }[];
   coverText: string;
   parts: PartPageData[];
@@ -98,7 +106,7 @@ export function reviewPageData(
     summaryHtml: review.summary ? markdownBlock(review.summary) : '',
     summaryWarnings: warningsOf(statements.findIndex((st) => st.at === review.summaryAt), 'The summary'),
     decisions: review.decisions.map((d, i) => ({ html: markdownInline(d), warnings: warningsOf(statements.findIndex((st) => st.at === review.decisionsAt[i]), 'This decision') })),
-    railVerdicts: plans.map((p) => ({ rail: p.rail, slug: p.slug, pass: p.pass, verdict: p.verdict, loadStep: p.loadStep ? { pass: p.loadStep.pass, status: p.loadStep.status, verdict: p.loadStep.verdict } : null })),
+    railVerdicts: plans.map((p) => ({ rail: p.rail, slug: p.slug, pass: p.pass, verdict: p.verdict, loadStep: p.loadStep ? { pass: p.loadStep.pass, status: p.loadStep.status, verdict: p.loadStep.verdict } : null, corners: p.corners ? { pass: p.corners.pass, status: p.corners.status, verdict: p.corners.verdict } : null })),
     openPoints: review.openPoints.map((o) => ({ html: markdownInline(o.text), owner: o.owner ?? '', due: o.due ?? '' })),
     coverText: covered.join(', '),
     parts,

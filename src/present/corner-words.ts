@@ -110,3 +110,28 @@ export function cornerVerdictWord(c: CornerFigures | null): string {
   if (!c || c.method === 'none') return '—';
   return c.pass ? 'PASS' : 'FAIL';
 }
+
+/** A rail's worst corner as a page states it: the verdict word, the text after it, and how it was found. */
+export interface CornerVerdictWords {
+  pass: boolean;
+  status: string;
+  verdict: string;
+  method: string;
+  sentence: string;
+}
+
+/** The worst-corner line of a plan page, a plans index, a review and a pack's cover. */
+export function cornerVerdictWords(c: CornerFigures, nominalPass: boolean, empty: boolean): CornerVerdictWords {
+  const method = `${cornerMethodText(c)[0].toUpperCase()}${cornerMethodText(c).slice(1)}.`;
+  const sentence = railCornerSentence(c.temperature);
+  if (empty) return { pass: false, status: 'FAIL', verdict: 'nothing is on the rail yet', method, sentence };
+  if (c.method === 'none') return { pass: nominalPass, status: nominalPass ? 'PASS' : 'FAIL', verdict: 'as nominal: no placed part states a spread', method, sentence };
+  const failing = c.pass ? '' : `; ${c.failing} of ${c.evaluated.toLocaleString('en-GB')} corners miss the target`;
+  return {
+    pass: c.pass,
+    status: c.pass ? 'PASS' : 'FAIL',
+    verdict: `worst margin ${formatDecibels(c.worstMarginDb)} at ${formatEng(c.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(c.worstImpedanceOhm, 'Ω')}) with ${extremesText(c)}${failing}`,
+    method,
+    sentence,
+  };
+}

@@ -89,8 +89,10 @@ describe('a review accepting a failing rail', () => {
     const pack = read(join(root, '_site'), 'reviews/r/pack.html');
     const cover = pack.slice(pack.indexOf('id="pack-cover"'), pack.indexOf('id="pack-contents"'));
     expect(cover).toContain(`The summary accepts RAIL_BAD, which fails its target (worst margin ${bad} at 100 kHz, plans/bad.yaml).`);
-    expect(cover).toMatch(/<li>Rail <span class="mono">RAIL_BAD<\/span>: <span class="verdict-fail">FAIL<\/span>/);
-    expect(cover).toMatch(/<li>Rail <span class="mono">RAIL_OK<\/span>: <span class="verdict-pass">PASS<\/span>/);
+    expect(cover).toMatch(/<li>Rail <span class="mono">RAIL_BAD<\/span>: at nominal <span class="verdict-fail">FAIL<\/span>/);
+    expect(cover).toMatch(/<li>Rail <span class="mono">RAIL_OK<\/span>: at nominal <span class="verdict-pass">PASS<\/span>/);
+    // The part states no tolerance: its corners are the nominal, and the cover says so.
+    expect(cover).toContain('at its corners: <span class="verdict-pass">PASS</span> as nominal: no placed part states a spread');
     const decisions = pack.slice(pack.indexOf('id="pack-decisions"'));
     expect(decisions).toContain('<span class="verdict-fail">FAIL</span>');
     expect(decisions).toContain('This decision accepts RAIL_BAD');
