@@ -83,8 +83,11 @@ describe('the review pack', () => {
     const cover = pdftotext(file(), 1);
     for (const plan of review.plans) {
       const page = read(site, `plans/${plan.rail.replace(/[^A-Za-z0-9._-]+/g, '-')}/index.html`);
+      // The page's first verdict is the nominal one, the corner verdict follows it.
       const verdict = /\bverdict-(pass|fail)\b/.exec(page)![1].toUpperCase();
-      expect(cover).toMatch(new RegExp(`Rail ${plan.rail}: ${verdict}`));
+      const corner = /corner-verdict"><span class="verdict-label">Worst corner<\/span> <span class="verdict-(pass|fail)">/.exec(page)![1].toUpperCase();
+      expect(cover).toMatch(new RegExp(`Rail ${plan.rail}: at nominal ${verdict}`));
+      expect(cover).toMatch(new RegExp(`Rail ${plan.rail}: at nominal ${verdict}[^\\n]*\\n\\s*at its corners: ${corner}`));
     }
   });
 
