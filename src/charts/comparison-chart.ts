@@ -1,55 +1,38 @@
 // Chart: several parts' |Z| overlaid on common log-log axes, one colour and dash pattern per part (overlay.ts),
 // each part's self-resonance marked in its colour, the key listing the part ids in the order given.
 
-import { describeComparison } from '../present/chart-descriptions.js';
-import { frameForKey, layoutKey, type KeyItem } from './key.js';
+import { describeComparison, type ChartText } from '../present/chart-descriptions.js';
+import { AXIS_TITLE, KEY_TEXT } from '../present/chart-words.js';
+import { MAX_DECADES, frequencyAxis, logValueAxis } from './axes.js';
+import { curveRows, mergeCurve } from './curves.js';
+import { frame, PLOT_WIDTH } from './frame.js';
+import type { KeyItem } from './key.js';
 import { overlayColor, overlayEncoding, overlayStyle } from './overlay.js';
-import { FONT_SIZE, PLOT_WIDTH, frame } from './palette.js';
-import { curveRows, frequencyAxis, mergeCurve, Y_TICK_SPACING, type PartChartInput } from './part-data.js';
-import { renderChart, type ChartDefinition, type ChartOutput, type ChartText, type Row } from './render.js';
-import { logAxis, logTicks, paddedLogDomain, positiveExtent } from './scales.js';
-import { axisBinding, axisParams, curveLayer, frameLayer, gridLayers, keyLayers, position } from './spec-parts.js';
-import { textWidth } from './text-width.js';
-import { CHART_CONFIG } from './theme.js';
+import type { PartChartInput } from './part-marks.js';
+import { renderChart, type ChartOutput, type Row } from './render.js';
+import { positiveExtent } from './scales.js';
+import { colouredPointLayer, curveLayer } from './spec-parts.js';
+import { xyChart } from './xy-chart.js';
 
 /** The parts compared; any PartAnalysis fits. */
 export type ComparisonInput = readonly PartChartInput[];
 
 const FRAME = frame(PLOT_WIDTH, 300, 28, 42);
 const LINE_WIDTH = 1.4;
-const MAX_DECADES = 12;
-const X = position('f', 'f', 'log', 'Frequency');
-const Y = position('v', 'y', 'log', 'Impedance |Z|');
 
-export const comparisonChart: ChartDefinition<ComparisonInput> = {
+export const comparisonChart = xyChart<ComparisonInput>({
   name: 'comparison',
   frame: FRAME,
-  spec() {
-    return {
-      config: CHART_CONFIG,
-      params: [...axisParams('f'), ...axisParams('y')],
-      layer: [
-        ...gridLayers('f', 'x', X),
-        ...gridLayers('y', 'y', Y),
-        curveLayer('curves', X, Y, overlayEncoding(LINE_WIDTH), 'p'),
-        {
-          data: { name: 'points' },
-          mark: { type: 'point', shape: 'circle', size: 40, filled: true, stroke: '#ffffff', strokeWidth: 1, opacity: 1, clip: true },
-          encoding: { x: X, y: Y, color: { field: 'color', type: 'nominal', scale: null } },
-        },
-        frameLayer(),
-        ...keyLayers(overlayEncoding(LINE_WIDTH)),
-      ],
-    } as never;
-  },
-  bind(parts) {
+  x: { name: 'f', field: 'f', scale: 'log', title: AXIS_TITLE.frequency },
+  y: { name: 'y', field: 'v', scale: 'log', title: AXIS_TITLE.impedance },
+  keyStyle: overlayEncoding(LINE_WIDTH),
+  marks: (X, Y) => [curveLayer('curves', X, Y, overlayEncoding(LINE_WIDTH), 'p'), colouredPointLayer('points', X, Y, 40)],
+  draw(parts) {
     const from = Math.min(...parts.map((p) => p.frequencies[0]));
     const to = Math.max(...parts.map((p) => p.frequencies[p.frequencies.length - 1]));
-    const fa = frequencyAxis(from, to, FRAME.width);
+    const x = frequencyAxis(from, to, FRAME.width);
     const magnitudes = parts.map((p) => Float64Array.from(p.frequencies, (_, i) => Math.hypot(p.z.re[i], p.z.im[i])));
-    const yDomain = paddedLogDomain(...positiveExtent(magnitudes, MAX_DECADES));
-    const yMap = logAxis(yDomain, FRAME.height);
-    const ya = axisBinding('y', yDomain, logTicks(yDomain, FRAME.height, 'Ω', Y_TICK_SPACING));
+    const y = logValueAxis(...positiveExtent(magnitudes, MAX_DECADES), FRAME.height, 'Ω');
 
     const curves: Row[] = [];
     const points: Row[] = [];
@@ -57,22 +40,14 @@ export const comparisonChart: ChartDefinition<ComparisonInput> = {
       const srf = p.selfResonance;
       const exact = srf ? [{ f: srf.frequencyHz, v: srf.impedanceOhm }] : [];
       const curve = mergeCurve(p.frequencies, (i) => magnitudes[k][i], exact, true);
-      curves.push(...curveRows(curve, fa.map, yMap, 'z', { ...overlayStyle(k), p: k }));
+      curves.push(...curveRows(curve, x.map, y.map, 'z', { ...overlayStyle(k), p: k }));
       if (srf) points.push({ f: srf.frequencyHz, v: srf.impedanceOhm, color: overlayColor(k) });
     });
-
-    const items: KeyItem[] = parts.map((p, k) => ({ kind: 'line', style: overlayStyle(k), text: p.part.id }));
-    if (points.length > 0) items.push({ kind: 'point', color: '#6d6d6d', text: 'self-resonance (SRF)' });
-    const widest = Math.max(...items.map((it) => textWidth(it.text, FONT_SIZE.legend))) + 26 + 5 + 18;
-    const columns = Math.max(1, Math.min(4, Math.floor(FRAME.width / widest)));
-    const key = layoutKey(items, FRAME.width, columns);
-    return {
-      frame: frameForKey(FRAME, key),
-      params: { ...fa.params, ...ya.params },
-      datasets: { ...fa.datasets, ...ya.datasets, curves, points, ...key.datasets },
-    };
+    const key: KeyItem[] = parts.map((p, k) => ({ kind: 'line', style: overlayStyle(k), text: p.part.id }));
+    if (points.length > 0) key.push({ kind: 'point', color: '#6d6d6d', text: KEY_TEXT.selfResonance });
+    return { x, y, datasets: { curves, points }, key, keyGrid: true };
   },
-};
+});
 
 /** Render a comparison of parts (in the order given: the key lists them so). */
 export function renderComparisonChart(parts: ComparisonInput, text?: ChartText): Promise<ChartOutput> {

@@ -1,61 +1,39 @@
 // Chart: |Z| and R against frequency on log-log axes, resonances marked and labelled, usable band shaded.
 
-import { isSelfResonance } from '../analysis/resonance.js';
-import { resonanceLabel } from '../present/resonance-words.js';
-import { frameForKey, layoutKey } from './key.js';
-import { ABOVE_FIRST, BELOW_FIRST, placeLabels, type LabelRequest } from './labels.js';
-import { FONT_SIZE, PART_SERIES, PLOT_WIDTH, RATED_MARK, RESONANCE_MARK, frame } from './palette.js';
-import {
-  bandData,
-  envelopeRows,
-  curveRows,
-  sweepAxis,
-  mergeCurve,
-  resonancesByImportance,
-  toPlot,
-  Y_TICK_SPACING,
-  type PartChartInput,
-} from './part-data.js';
-import type { ChartBinding, ChartDefinition, Row } from './render.js';
-import { logAxis, logTicks, paddedLogDomain, positiveExtent } from './scales.js';
-import { axisBinding, axisParams, bandLayers, curveLayer, envelopeLayer, frameLayer, gridLayers, keyLayers, placedLabelLayer, seriesEncoding, pointLayer, position, type SeriesScale } from './spec-parts.js';
-import { CHART_CONFIG } from './theme.js';
-import { formatEng } from '../units/format.js';
+import { AXIS_TITLE, KEY_TEXT, partSpreadKeyText, ratedKeyText, resistanceKeyText } from '../present/chart-words.js';
+import { MAX_DECADES, logValueAxis, sweepAxis } from './axes.js';
+import { curveObstacle, curveRows, envelopeRows, mergeCurve, toPlot } from './curves.js';
+import { frame, PLOT_WIDTH } from './frame.js';
+import { ABOVE_FIRST, BELOW_FIRST } from './labels.js';
+import { placeMarkLabels, shown } from './mark-labels.js';
+import { PART_SERIES, RATED_MARK, RESONANCE_MARK } from './palette.js';
+import { bandData, resonanceLabels, type PartChartInput } from './part-marks.js';
+import { positiveExtent } from './scales.js';
+import { curveLayer, envelopeLayer, placedLabelLayer, pointLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
+import { xyChart } from './xy-chart.js';
 
 const SERIES: SeriesScale = { keys: ['mag', 'res'], styles: [PART_SERIES.magnitude, PART_SERIES.resistance] };
 const FRAME = frame(PLOT_WIDTH, 250, 28, 42);
-/** At most this many decades of Ω; lower values leave the plot at the bottom. */
-const MAX_DECADES = 12;
 /** Half a decade of headroom beside a resonance, for its label. */
 const LABEL_ROOM = 10 ** 0.5;
 
-const X = position('f', 'f', 'log', 'Frequency');
-const Y = position('v', 'y', 'log', 'Impedance |Z|, resistance R');
-
-export const impedanceChart: ChartDefinition<PartChartInput> = {
+export const impedanceChart = xyChart<PartChartInput>({
   name: 'impedance',
   frame: FRAME,
-  spec() {
-    return {
-      config: CHART_CONFIG,
-      params: [...axisParams('f'), ...axisParams('y')],
-      layer: [
-        ...gridLayers('f', 'x', X),
-        ...gridLayers('y', 'y', Y),
-        ...bandLayers(X),
-        envelopeLayer('spread', X, Y),
-        curveLayer('curves', X, Y, seriesEncoding(SERIES)),
-        pointLayer('points', X, Y),
-        // The rated point, larger than a resonance dot: on a bead it often sits close to the SRF.
-        { ...pointLayer('rated', X, Y, RATED_MARK, 'diamond'), mark: { type: 'point', shape: 'diamond', size: 90, filled: true, color: RATED_MARK, stroke: '#ffffff', strokeWidth: 1, opacity: 1, clip: true } },
-        placedLabelLayer('labels', X, Y),
-        frameLayer(),
-        ...keyLayers(seriesEncoding(SERIES)),
-      ],
-    } as never;
-  },
-  bind(input) {
-    const fa = sweepAxis(input.frequencies, FRAME.width);
+  x: { name: 'f', field: 'f', scale: 'log', title: AXIS_TITLE.frequency },
+  y: { name: 'y', field: 'v', scale: 'log', title: AXIS_TITLE.impedanceAndResistance },
+  keyStyle: seriesEncoding(SERIES),
+  band: true,
+  marks: (X, Y) => [
+    envelopeLayer('spread', X, Y),
+    curveLayer('curves', X, Y, seriesEncoding(SERIES)),
+    pointLayer('points', X, Y),
+    // The rated point, larger than a resonance dot: on a bead it often sits close to the SRF.
+    { ...pointLayer('rated', X, Y, RATED_MARK, 'diamond'), mark: { type: 'point', shape: 'diamond', size: 90, filled: true, color: RATED_MARK, stroke: '#ffffff', strokeWidth: 1, opacity: 1, clip: true } },
+    placedLabelLayer('labels', X, Y),
+  ],
+  draw(input) {
+    const x = sweepAxis(input.frequencies, FRAME.width);
     const { re, im } = input.z;
     const magnitude = (i: number) => Math.hypot(re[i], im[i]);
     const rated = ratedPoint(input);
@@ -64,9 +42,7 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
     // Room for resonance labels: below a dip, above a peak.
     if (input.resonances.some((r) => r.type === 'series')) lo /= LABEL_ROOM;
     if (input.resonances.some((r) => r.type === 'parallel')) hi *= LABEL_ROOM;
-    const yDomain = paddedLogDomain(lo, hi);
-    const yMap = logAxis(yDomain, FRAME.height);
-    const ya = axisBinding('y', yDomain, logTicks(yDomain, FRAME.height, 'Ω', Y_TICK_SPACING));
+    const y = logValueAxis(lo, hi, FRAME.height, 'Ω');
 
     // At a resonance X = 0, so |Z| = R = the resonance's impedance: both curves pass through it exactly.
     const exact = input.resonances.map((r) => ({ f: r.frequencyHz, v: r.impedanceOhm }));
@@ -74,59 +50,37 @@ export const impedanceChart: ChartDefinition<PartChartInput> = {
     const extrema = input.resonances.filter((r) => !r.extremum.atSweepEnd && r.extremum.frequencyHz !== r.frequencyHz).map((r) => ({ f: r.extremum.frequencyHz, v: r.extremum.impedanceOhm }));
     const mag = mergeCurve(input.frequencies, magnitude, [...exact, ...extrema], true);
     const res = mergeCurve(input.frequencies, (i) => re[i], exact, true);
-    const curves = [...curveRows(mag, fa.map, yMap, 'mag'), ...curveRows(res, fa.map, yMap, 'res')];
 
-    const ordered = resonancesByImportance(input);
-    const requests: LabelRequest[] = ordered.map((r) => ({
-      ...toPlot(fa.map, yMap, r.frequencyHz, r.impedanceOhm),
-      text: resonanceLabel(r, input.selfResonance),
-      fontSize: FONT_SIZE.note,
-      required: isSelfResonance(r, input.selfResonance),
-      // A series resonance is a dip: its label goes below; a parallel one is a peak: above.
-      candidates: r.type === 'series' ? BELOW_FIRST : ABOVE_FIRST,
-    }));
-    const obstacles = [mag, res].map((c) => ({
-      xs: c.f.map((f) => fa.map.toPx(f)),
-      ys: c.v.map((v) => (Number.isFinite(v) ? FRAME.height - yMap.toPx(v) : NaN)),
-    }));
-    const placements = placeLabels(requests, FRAME, obstacles);
-    const labels: Row[] = [];
-    ordered.forEach((r, k) => {
-      const p = placements[k];
-      if (p) labels.push({ f: r.frequencyHz, v: r.impedanceOhm, t: requests[k].text, dx: p.dx, dy: p.dy, al: p.align, bl: p.baseline });
-    });
-
-    const band = bandData(input);
-    const key = layoutKey(
-      [
-        { kind: 'line', style: { s: 'mag' }, text: '|Z|' },
-        { kind: 'line', style: { s: 'res' }, text: input.part.behavesAs === 'capacitor' ? 'R (ESR)' : 'R' },
-        ...(ordered.length > 0 ? [{ kind: 'point' as const, color: RESONANCE_MARK, text: 'resonance (X = 0)' }] : []),
-        ...(rated ? [{ kind: 'point' as const, color: RATED_MARK, shape: 'diamond', text: `rated |Z| ${formatEng(rated.v, 'Ω')} at ${formatEng(rated.f, 'Hz')}` }] : []),
-        ...(band.key ? [band.key] : []),
-        ...(input.spread ? [{ kind: 'spread' as const, text: `|Z| over ${input.spread.corners} corners of the spread` }] : []),
-      ],
-      FRAME.width,
+    // A series resonance is a dip: its label goes below; a parallel one is a peak: above.
+    const requests = resonanceLabels(
+      input,
+      (r) => ({ at: { f: r.frequencyHz, v: r.impedanceOhm }, ...toPlot(x.map, y.map, r.frequencyHz, r.impedanceOhm) }),
+      (r) => (r.type === 'series' ? BELOW_FIRST : ABOVE_FIRST),
     );
-    const binding: ChartBinding = {
-      frame: frameForKey(FRAME, key),
-      params: { ...fa.params, ...ya.params },
+    const placed = placeMarkLabels(requests, FRAME, [mag, res].map((c) => curveObstacle(c, x.map, y.map)));
+    const band = bandData(input);
+    return {
+      x,
+      y,
+      band,
       datasets: {
-        ...fa.datasets,
-        ...ya.datasets,
-        band: band.band,
-        bandEdges: band.bandEdges,
-        curves,
+        curves: [...curveRows(mag, x.map, y.map, 'mag'), ...curveRows(res, x.map, y.map, 'res')],
         points: input.resonances.map((r) => ({ f: r.frequencyHz, v: r.impedanceOhm })),
         rated: rated ? [rated] : [],
         spread: input.spread ? envelopeRows(input.spread.frequencies, input.spread.min, input.spread.max) : [],
-        labels,
-        ...key.datasets,
+        labels: shown(placed.labels),
       },
+      key: [
+        { kind: 'line', style: { s: 'mag' }, text: KEY_TEXT.magnitude },
+        { kind: 'line', style: { s: 'res' }, text: resistanceKeyText(input.part.behavesAs) },
+        ...(input.resonances.length > 0 ? [{ kind: 'point' as const, color: RESONANCE_MARK, text: KEY_TEXT.resonance }] : []),
+        ...(rated ? [{ kind: 'point' as const, color: RATED_MARK, shape: 'diamond', text: ratedKeyText(rated.v, rated.f) }] : []),
+        ...(band.key ? [band.key] : []),
+        ...(input.spread ? [{ kind: 'spread' as const, text: partSpreadKeyText(input.spread.corners) }] : []),
+      ],
     };
-    return binding;
   },
-};
+});
 
 /** A bead's rated impedance at its rated frequency, when that lies in the sweep: where the model should pass. */
 function ratedPoint(input: PartChartInput): { f: number; v: number } | undefined {

@@ -2,7 +2,8 @@
 // curves exactly (same series scales), band swatches and point symbols can sit beside line symbols, and the
 // frame's top padding can grow by whole rows when a comparison lists many parts.
 
-import { FONT_SIZE, type Frame } from './palette.js';
+import type { Frame } from './frame.js';
+import { FONT_SIZE } from './palette.js';
 import type { Row } from './render.js';
 import { cleanText } from '../present/escape.js';
 import { textWidth } from './text-width.js';
@@ -63,6 +64,12 @@ export function layoutKey(items: readonly KeyItem[], width: number, columns?: nu
     datasets.keyText.push({ x: x0 + SYMBOL + SYMBOL_GAP, y, t: cleanText(item.text) });
   }
   return { datasets, rows, topPadding };
+}
+
+/** Columns for a key of many entries of similar length: as many of the widest entry as fit, 1 to 4. */
+export function gridColumns(items: readonly KeyItem[], width: number): number {
+  const widest = Math.max(...items.map((it) => textWidth(it.text, FONT_SIZE.legend))) + SYMBOL + SYMBOL_GAP + ITEM_GAP;
+  return Math.max(1, Math.min(4, Math.floor(width / widest)));
 }
 
 /** The frame with its top padding set to hold the key. */

@@ -4,17 +4,19 @@
 // branch's share of the load current over time, in the rail chart's branch styles, so one sees which
 // capacitors carry the step and when the regulator takes over.
 
-import { formatEng } from '../units/format.js';
+import { AXIS_TITLE, KEY_TEXT, dipLabel, loadStepKey } from '../present/chart-words.js';
 import { describeLoadStep } from '../present/plan-chart-descriptions.js';
-import { frameForKey, layoutKey, type KeyItem } from './key.js';
-import { BELOW_FIRST, placeLabels, type LabelRequest } from './labels.js';
+import { linearValueAxis, logRangeAxis } from './axes.js';
+import { curveObstacle, curveRows, levelObstacle, plainCurve } from './curves.js';
+import { frame, PLOT_WIDTH } from './frame.js';
+import type { KeyItem } from './key.js';
+import { BELOW_FIRST } from './labels.js';
+import { placeMarkLabels, shown } from './mark-labels.js';
 import { overlayEncoding, overlayStyle } from './overlay.js';
-import { FONT_SIZE, INK, PLOT_WIDTH, RAIL_TOTAL, RESONANCE_MARK, TARGET_LINE, ZERO_LINE, frame } from './palette.js';
-import { curveRows, X_TICK_SPACING, type Curve } from './part-data.js';
-import { renderChart, type ChartDefinition, type ChartOutput, type ChartText, type Row } from './render.js';
-import { linearAxis, logAxis, logTicks, type Ticks } from './scales.js';
-import { axisBinding, axisParams, bandLayers, curveLayer, frameLayer, gridLayers, keyLayers, placedLabelLayer, pointLayer, position, referenceLineLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
-import { CHART_CONFIG } from './theme.js';
+import { INK, RAIL_TOTAL, RESONANCE_MARK, TARGET_LINE, ZERO_LINE } from './palette.js';
+import { renderChart, type ChartOutput, type Row } from './render.js';
+import { curveLayer, placedLabelLayer, pointLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
+import { xyChart, type AxisSpec } from './xy-chart.js';
 
 /** What the load-step charts draw; SI units (s, V, A/A). */
 export interface LoadStepChartData {
@@ -37,65 +39,30 @@ const SERIES: SeriesScale = { keys: ['voltage', 'budget', 'final'], styles: [RAI
 const VOLTAGE_FRAME = frame(PLOT_WIDTH, 260, 28, 42);
 const SHARE_FRAME = frame(PLOT_WIDTH, 220, 28, 42);
 const BRANCH_WIDTH = 1.3;
-const X = position('f', 'f', 'log', 'Time after the load step begins (log scale)');
-const Y_VOLTAGE = position('v', 'y', 'linear', 'Deviation from the DC voltage');
-const Y_SHARE = position('v', 'y', 'linear', 'Share of the load current');
+const TIME: AxisSpec = { name: 'f', field: 'f', scale: 'log', title: AXIS_TITLE.time };
+const ZERO = { color: ZERO_LINE, width: 0.8 };
 
 /** The time axis: a tenth of the rise time to the end of what is followed. */
 function timeAxis(data: LoadStepChartData) {
   const t = data.timesS;
-  const domain: [number, number] = [t[0], t[t.length - 1]];
-  return { map: logAxis(domain, PLOT_WIDTH), binding: axisBinding('f', domain, logTicks(domain, PLOT_WIDTH, 's', X_TICK_SPACING)) };
+  return logRangeAxis(t[0], t[t.length - 1], PLOT_WIDTH, 's');
 }
 
-/** 1, 2 or 5 × 10^k: the tick step nearest to `count` intervals over `span`. */
-export function niceStep(span: number, count: number): number {
-  const raw = span / count;
-  const base = 10 ** Math.floor(Math.log10(raw));
-  const m = raw / base;
-  return (m < 1.5 ? 1 : m < 3.5 ? 2 : m < 7.5 ? 5 : 10) * base;
+/** The ramp, shaded from the first time shown to the end of the rise. */
+function ramp(data: LoadStepChartData) {
+  return { band: [{ f: data.timesS[0], f2: data.riseS }], bandEdges: [{ f: data.riseS }] };
 }
 
-function linearAxisTicks(lo: number, hi: number, unit: string, count: number): { domain: [number, number]; ticks: Ticks } {
-  const step = niceStep(hi - lo, count);
-  const domain: [number, number] = [Math.floor(lo / step - 1e-9) * step, Math.ceil(hi / step + 1e-9) * step];
-  const values: number[] = [];
-  for (let k = Math.round(domain[0] / step); k * step <= domain[1] + step * 1e-9; k++) values.push(k * step);
-  const labels = values.map((v) => (Math.abs(v) < step * 1e-9 ? `0${unit ? ' ' + unit : ''}` : unit ? formatEng(v, unit) : String(Number(v.toPrecision(3))).replace('-', '−')));
-  return { domain, ticks: { values, labels, minor: [] } };
-}
-
-function curveOf(t: ArrayLike<number>, v: ArrayLike<number>, keep: (i: number) => boolean = () => false): Curve {
-  const out: Curve = { f: [], v: [], keep: [] };
-  for (let i = 0; i < t.length; i++) {
-    out.f.push(t[i]);
-    out.v.push(v[i]);
-    out.keep.push(i === 0 || i === t.length - 1 || keep(i));
-  }
-  return out;
-}
-
-export const loadStepChart: ChartDefinition<LoadStepChartData> = {
+export const loadStepChart = xyChart<LoadStepChartData>({
   name: 'load-step',
   frame: VOLTAGE_FRAME,
-  spec() {
-    return {
-      config: CHART_CONFIG,
-      params: [...axisParams('f'), ...axisParams('y')],
-      layer: [
-        ...gridLayers('f', 'x', X),
-        ...gridLayers('y', 'y', Y_VOLTAGE),
-        ...bandLayers(X),
-        referenceLineLayer('zero', Y_VOLTAGE, { color: ZERO_LINE, width: 0.8 }),
-        curveLayer('curves', X, Y_VOLTAGE, seriesEncoding(SERIES), 'p'),
-        pointLayer('points', X, Y_VOLTAGE, RESONANCE_MARK),
-        placedLabelLayer('labels', X, Y_VOLTAGE, INK),
-        frameLayer(),
-        ...keyLayers(seriesEncoding(SERIES)),
-      ],
-    } as never;
-  },
-  bind(data) {
+  x: TIME,
+  y: { name: 'y', field: 'v', scale: 'linear', title: AXIS_TITLE.deviation },
+  keyStyle: seriesEncoding(SERIES),
+  band: true,
+  zeroLine: ZERO,
+  marks: (X, Y) => [curveLayer('curves', X, Y, seriesEncoding(SERIES), 'p'), pointLayer('points', X, Y, RESONANCE_MARK), placedLabelLayer('labels', X, Y, INK)],
+  draw(data) {
     const x = timeAxis(data);
     const v = data.voltageV;
     let lo = -data.budgetV;
@@ -105,76 +72,43 @@ export const loadStepChart: ChartDefinition<LoadStepChartData> = {
       hi = Math.max(hi, v[i]);
     }
     const pad = 0.08 * (hi - lo);
-    const y = linearAxisTicks(lo - pad, hi + pad, 'V', 6);
-    const yMap = linearAxis(y.domain, VOLTAGE_FRAME.height);
+    const y = linearValueAxis(lo - pad, hi + pad, VOLTAGE_FRAME.height, 'V', 6);
     const t = data.timesS;
     const first = t[0];
     const last = t[t.length - 1];
     const droopIndex = Array.prototype.indexOf.call(t, data.droop.atS) as number;
+    const voltage = plainCurve(t, v, (i) => i === droopIndex);
+    const level = (value: number) => plainCurve([first, last], [value, value]);
     const curves: Row[] = [
-      ...curveRows(curveOf(t, v, (i) => i === droopIndex), x.map, yMap, 'voltage', { p: 0 }),
-      ...curveRows(curveOf([first, last], [-data.budgetV, -data.budgetV]), x.map, yMap, 'budget', { p: 1 }),
-      ...curveRows(curveOf([first, last], [data.budgetV, data.budgetV]), x.map, yMap, 'budget', { p: 2 }),
-      ...(data.finalV !== null ? curveRows(curveOf([first, last], [data.finalV, data.finalV]), x.map, yMap, 'final', { p: 3 }) : []),
+      ...curveRows(voltage, x.map, y.map, 'voltage', { p: 0 }),
+      ...curveRows(level(-data.budgetV), x.map, y.map, 'budget', { p: 1 }),
+      ...curveRows(level(data.budgetV), x.map, y.map, 'budget', { p: 2 }),
+      ...(data.finalV !== null ? curveRows(level(data.finalV), x.map, y.map, 'final', { p: 3 }) : []),
     ];
     const droop = { f: data.droop.atS, v: -data.droop.droopV };
-    const request: LabelRequest = {
-      x: x.map.toPx(droop.f),
-      y: VOLTAGE_FRAME.height - yMap.toPx(droop.v),
-      text: `−${formatEng(data.droop.droopV, 'V')} at ${formatEng(data.droop.atS, 's')}`,
-      fontSize: FONT_SIZE.note,
-      required: true,
-      candidates: BELOW_FIRST,
-    };
-    const obstacle = { xs: Array.from(t, (ti) => x.map.toPx(ti)), ys: Array.from(v, (vi) => VOLTAGE_FRAME.height - yMap.toPx(vi)) };
-    const level = (y: number) => ({ xs: [0, VOLTAGE_FRAME.width], ys: [VOLTAGE_FRAME.height - yMap.toPx(y), VOLTAGE_FRAME.height - yMap.toPx(y)] });
-    const [at] = placeLabels([request], VOLTAGE_FRAME, [obstacle, level(-data.budgetV), level(data.budgetV)]);
-    const labels: Row[] = at ? [{ ...droop, t: request.text, dx: at.dx, dy: at.dy, al: at.align, bl: at.baseline }] : [];
-    const items: KeyItem[] = [
-      { kind: 'line', style: { s: 'voltage' }, text: `v(t) for a ${formatEng(data.stepA, 'A')} step` },
-      { kind: 'line', style: { s: 'budget' }, text: `budget ±${formatEng(data.budgetV, 'V')}` },
-      ...(data.finalV !== null ? [{ kind: 'line' as const, style: { s: 'final' }, text: `final ${formatEng(data.finalV, 'V')}` }] : []),
-      { kind: 'point', color: RESONANCE_MARK, text: 'deepest dip' },
-      { kind: 'band', text: `load ramp, ${formatEng(data.riseS, 's')}` },
+    const dip = { at: droop, x: x.map.toPx(droop.f), y: VOLTAGE_FRAME.height - y.map.toPx(droop.v), text: dipLabel(data.droop.droopV, data.droop.atS), required: true, candidates: BELOW_FIRST };
+    const placed = placeMarkLabels([dip], VOLTAGE_FRAME, [curveObstacle(voltage, x.map, y.map), levelObstacle(-data.budgetV, x.map, y.map), levelObstacle(data.budgetV, x.map, y.map)]);
+    const key: KeyItem[] = [
+      { kind: 'line', style: { s: 'voltage' }, text: loadStepKey.voltage(data.stepA) },
+      { kind: 'line', style: { s: 'budget' }, text: loadStepKey.budget(data.budgetV) },
+      ...(data.finalV !== null ? [{ kind: 'line' as const, style: { s: 'final' }, text: loadStepKey.final(data.finalV) }] : []),
+      { kind: 'point', color: RESONANCE_MARK, text: KEY_TEXT.deepestDip },
+      { kind: 'band', text: loadStepKey.ramp(data.riseS) },
     ];
-    const key = layoutKey(items, VOLTAGE_FRAME.width);
-    return {
-      frame: frameForKey(VOLTAGE_FRAME, key),
-      params: { ...x.binding.params, ...axisBinding('y', y.domain, y.ticks).params },
-      datasets: {
-        ...x.binding.datasets,
-        ...axisBinding('y', y.domain, y.ticks).datasets,
-        band: [{ f: first, f2: data.riseS }],
-        bandEdges: [{ f: data.riseS }],
-        zero: [{ v: 0 }],
-        curves,
-        points: [droop],
-        labels,
-        ...key.datasets,
-      },
-    };
+    return { x, y, band: ramp(data), datasets: { curves, points: [droop], labels: shown(placed.labels) }, key };
   },
-};
+});
 
-export const loadShareChart: ChartDefinition<LoadStepChartData> = {
+export const loadShareChart = xyChart<LoadStepChartData>({
   name: 'load-share',
   frame: SHARE_FRAME,
-  spec() {
-    return {
-      config: CHART_CONFIG,
-      params: [...axisParams('f'), ...axisParams('y')],
-      layer: [
-        ...gridLayers('f', 'x', X),
-        ...gridLayers('y', 'y', Y_SHARE),
-        ...bandLayers(X),
-        referenceLineLayer('zero', Y_SHARE, { color: ZERO_LINE, width: 0.8 }),
-        curveLayer('branches', X, Y_SHARE, overlayEncoding(BRANCH_WIDTH), 'p'),
-        frameLayer(),
-        ...keyLayers(overlayEncoding(BRANCH_WIDTH)),
-      ],
-    } as never;
-  },
-  bind(data) {
+  x: TIME,
+  y: { name: 'y', field: 'v', scale: 'linear', title: AXIS_TITLE.share },
+  keyStyle: overlayEncoding(BRANCH_WIDTH),
+  band: true,
+  zeroLine: ZERO,
+  marks: (X, Y) => [curveLayer('branches', X, Y, overlayEncoding(BRANCH_WIDTH), 'p')],
+  draw(data) {
     const x = timeAxis(data);
     let lo = 0;
     let hi = 1;
@@ -185,29 +119,13 @@ export const loadShareChart: ChartDefinition<LoadStepChartData> = {
       }
     }
     const pad = 0.05 * (hi - lo);
-    const y = linearAxisTicks(lo - pad, hi + pad, '', 5);
-    const yMap = linearAxis(y.domain, SHARE_FRAME.height);
+    const y = linearValueAxis(lo - pad, hi + pad, SHARE_FRAME.height, '', 5);
     const branches: Row[] = [];
-    data.branches.forEach((b, k) => branches.push(...curveRows(curveOf(data.timesS, b.share), x.map, yMap, 'branch', { ...overlayStyle(k), p: k })));
-    const key = layoutKey(
-      [...data.branches.map((b, k) => ({ kind: 'line' as const, style: overlayStyle(k), text: b.label })), { kind: 'band' as const, text: 'load ramp' }],
-      SHARE_FRAME.width,
-    );
-    return {
-      frame: frameForKey(SHARE_FRAME, key),
-      params: { ...x.binding.params, ...axisBinding('y', y.domain, y.ticks).params },
-      datasets: {
-        ...x.binding.datasets,
-        ...axisBinding('y', y.domain, y.ticks).datasets,
-        band: [{ f: data.timesS[0], f2: data.riseS }],
-        bandEdges: [{ f: data.riseS }],
-        zero: [{ v: 0 }],
-        branches,
-        ...key.datasets,
-      },
-    };
+    data.branches.forEach((b, k) => branches.push(...curveRows(plainCurve(data.timesS, b.share), x.map, y.map, 'branch', { ...overlayStyle(k), p: k })));
+    const key: KeyItem[] = [...data.branches.map((b, k) => ({ kind: 'line' as const, style: overlayStyle(k), text: b.label })), { kind: 'band' as const, text: KEY_TEXT.loadRamp }];
+    return { x, y, band: ramp(data), datasets: { branches }, key };
   },
-};
+});
 
 /** Render both charts. */
 export async function renderLoadStepCharts(data: LoadStepChartData): Promise<{ voltage: ChartOutput; share: ChartOutput }> {

@@ -3,12 +3,13 @@
 import { admittanceChart } from './admittance-chart.js';
 import { describePartChart, type PartChartKind } from '../present/chart-descriptions.js';
 import { impedanceChart } from './impedance-chart.js';
-import type { PartChartInput } from './part-data.js';
+import type { PartChartInput } from './part-marks.js';
 import { phaseChart } from './phase-chart.js';
-import { partPlaneConstant, planeChart } from './plane-chart.js';
+import { planeChart } from './plane-chart.js';
+import { partPlaneConstant } from './plane-scale.js';
 import { renderChart, type ChartDefinition, type ChartOutput, type ChartText } from './render.js';
 
-export type { PartChartInput } from './part-data.js';
+export type { PartChartInput } from './part-marks.js';
 export type { PartChartKind } from '../present/chart-descriptions.js';
 
 export type PartCharts = Record<PartChartKind, ChartOutput>;

@@ -5,97 +5,47 @@
 // labelled on the path, and arrowheads between the marks show the direction of increasing frequency:
 // from capacitive (X < 0, below the zero line) to inductive (X > 0, above it) for a capacitor.
 
-import { isSelfResonance } from '../analysis/resonance.js';
-import { resonanceLabel } from '../present/resonance-words.js';
 import { impedanceAt } from '../circuit/impedance.js';
-import { formatEng } from '../units/format.js';
-import { frameForKey, layoutKey } from './key.js';
-import { placeLabels, type LabelRequest, type Placement } from './labels.js';
-import { FONT_SIZE, INK, INK_SOFT, PART_SERIES, PLOT_WIDTH, RESONANCE_MARK, ZERO_LINE, frame } from './palette.js';
-import { mergeCurve, resonancesByImportance, type PartChartInput } from './part-data.js';
-import type { ChartDefinition, Row } from './render.js';
-import { decadeOf, linearAxis, signedLog, signedLogTicks } from './scales.js';
+import { AXIS_TITLE, KEY_TEXT, SIGN_NOTE, decadeMarkText } from '../present/chart-words.js';
+import { levelObstacle, mergeCurve } from './curves.js';
+import { frame, PLOT_WIDTH } from './frame.js';
+import type { Placement } from './labels.js';
+import { placeMarkLabels, shown, type MarkLabel } from './mark-labels.js';
+import { FONT_SIZE, INK, INK_SOFT, PART_SERIES, RESONANCE_MARK, ZERO_LINE } from './palette.js';
+import { resonanceLabels, resonancesByImportance, type PartChartInput } from './part-marks.js';
+import { finiteExtent, partPlaneConstant, planeDomain } from './plane-scale.js';
+import type { Row } from './render.js';
+import { linearAxis, signedLog, signedLogTicks } from './scales.js';
 import { simplifyPolyline } from './simplify.js';
-import {
-  axisBinding,
-  axisParams,
-  curveLayer,
-  frameLayer,
-  gridLayers,
-  keyLayers,
-  seriesEncoding,
-  pixelTextLayer,
-  placedLabelLayer,
-  pointLayer,
-  position,
-  referenceLineLayer,
-  type SeriesScale,
-} from './spec-parts.js';
-import { CHART_CONFIG } from './theme.js';
+import { curveLayer, pixelTextLayer, placedLabelLayer, pointLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
+import { xyChart } from './xy-chart.js';
 
 const SERIES: SeriesScale = { keys: ['path'], styles: [PART_SERIES.path] };
 const FRAME = frame(PLOT_WIDTH, 300, 28, 42);
-const X = position('x', 'r', 'linear', 'Resistance R (signed-log scale)');
-const Y = position('v', 'y', 'linear', 'Reactance X (signed-log)');
 /** Decade marks closer than this (px) share a label. */
 const SAME_SPOT_PX = 4;
-/** The linear zone never reaches below this fraction of the largest |Z| (a lossless part has min |Z| = 0). */
-const MIN_LINEAR_ZONE = 1e-9;
 
-/** The signed-log constant for a part: the power of ten at or below its least |Z|. */
-export function planeConstant(magnitudes: ArrayLike<number>): number {
-  let lo = Infinity;
-  let hi = 0;
-  for (let i = 0; i < magnitudes.length; i++) {
-    const m = magnitudes[i];
-    if (m > 0 && m < lo) lo = m;
-    if (m > hi) hi = m;
-  }
-  if (!(hi > 0)) return 1;
-  return 10 ** decadeOf(Math.max(lo, hi * MIN_LINEAR_ZONE));
-}
-
-/** The transformed domain covering `lo..hi` out to the next ±c·10^k, and never less than [0, s(10c)]. */
-function planeDomain(lo: number, hi: number, c: number): [number, number] {
-  const edge = (v: number) => (v === 0 ? 0 : Math.sign(v) * signedLog(c * 10 ** Math.max(1, Math.ceil(Math.log10(Math.abs(v) / c) - 1e-9)), c));
-  const margin = 0.12;
-  return [Math.min(0, edge(lo)) - margin, Math.max(edge(10 * c), edge(hi)) + margin];
-}
-
-/** The signed-log constant of a part's path: planeConstant of its |Z| over the sweep. */
-export function partPlaneConstant(input: Pick<PartChartInput, 'frequencies' | 'z'>): number {
-  const { re, im } = input.z;
-  return planeConstant(Float64Array.from(input.frequencies, (_, i) => Math.hypot(re[i], im[i])));
-}
-
-export const planeChart: ChartDefinition<PartChartInput> = {
+export const planeChart = xyChart<PartChartInput>({
   name: 'plane',
   frame: FRAME,
-  spec() {
-    return {
-      config: CHART_CONFIG,
-      params: [...axisParams('r'), ...axisParams('y')],
-      layer: [
-        ...gridLayers('r', 'x', X),
-        ...gridLayers('y', 'y', Y),
-        referenceLineLayer('zero', Y, { color: ZERO_LINE, width: 1 }),
-        curveLayer('curves', X, Y, seriesEncoding(SERIES)),
-        {
-          data: { name: 'arrows' },
-          mark: { type: 'point', shape: 'triangle-up', size: 58, filled: true, color: PART_SERIES.path.color, opacity: 1, clip: true },
-          encoding: { x: X, y: Y, angle: { field: 'a', type: 'quantitative', scale: null } },
-        },
-        pointLayer('decades', X, Y, INK),
-        pointLayer('points', X, Y),
-        placedLabelLayer('decadeLabels', X, Y, INK),
-        placedLabelLayer('labels', X, Y),
-        pixelTextLayer('notes', INK_SOFT, FONT_SIZE.note, { fontStyle: 'italic' }),
-        frameLayer(),
-        ...keyLayers(seriesEncoding(SERIES)),
-      ],
-    } as never;
-  },
-  bind(input) {
+  x: { name: 'r', field: 'x', scale: 'linear', title: AXIS_TITLE.planeResistance },
+  y: { name: 'y', field: 'v', scale: 'linear', title: AXIS_TITLE.planeReactance },
+  keyStyle: seriesEncoding(SERIES),
+  zeroLine: { color: ZERO_LINE, width: 1 },
+  marks: (X, Y) => [
+    curveLayer('curves', X, Y, seriesEncoding(SERIES)),
+    {
+      data: { name: 'arrows' },
+      mark: { type: 'point', shape: 'triangle-up', size: 58, filled: true, color: PART_SERIES.path.color, opacity: 1, clip: true },
+      encoding: { x: X, y: Y, angle: { field: 'a', type: 'quantitative', scale: null } },
+    },
+    pointLayer('decades', X, Y, INK),
+    pointLayer('points', X, Y),
+    placedLabelLayer('decadeLabels', X, Y, INK),
+    placedLabelLayer('labels', X, Y),
+    pixelTextLayer('notes', INK_SOFT, FONT_SIZE.note, { fontStyle: 'italic' }),
+  ],
+  draw(input) {
     const { frequencies } = input;
     const { re, im } = input.z;
     const c = partPlaneConstant(input);
@@ -110,8 +60,6 @@ export const planeChart: ChartDefinition<PartChartInput> = {
     const rMap = linearAxis(rDomain, FRAME.width);
     const yMap = linearAxis(yDomain, FRAME.height);
     const px = (r: number, x: number) => ({ x: rMap.toPx(s(r)), y: FRAME.height - yMap.toPx(s(x)) });
-    const ra = axisBinding('r', rDomain, signedLogTicks(rDomain, c, FRAME.width, 'Ω', 62));
-    const ya = axisBinding('y', yDomain, signedLogTicks(yDomain, c, FRAME.height, 'Ω', 20));
 
     const xs = sr.map((v) => rMap.toPx(v));
     const ys = sx.map((v) => FRAME.height - yMap.toPx(v));
@@ -141,7 +89,7 @@ export const planeChart: ChartDefinition<PartChartInput> = {
 
     // Decades that land on (nearly) the same spot, as a resistor's do over most of its sweep, share one
     // label: "1 kHz – 10 MHz".
-    const marks: { r: number; x: number; text: string }[] = [];
+    const marks: MarkLabel[] = [];
     for (let k = 0; k < decades.length; ) {
       const head = px(decades[k].r, decades[k].x);
       let last = k;
@@ -150,78 +98,40 @@ export const planeChart: ChartDefinition<PartChartInput> = {
         if (Math.hypot(p.x - head.x, p.y - head.y) > SAME_SPOT_PX) break;
         last++;
       }
-      const text = last === k ? formatEng(decades[k].f, 'Hz') : `${formatEng(decades[k].f, 'Hz')} – ${formatEng(decades[last].f, 'Hz')}`;
-      marks.push({ r: decades[k].r, x: decades[k].x, text });
+      const { r, x } = decades[k];
+      marks.push({ at: { x: s(r), v: s(x) }, ...px(r, x), text: decadeMarkText(decades[k].f, decades[last].f), candidates: DECADE_PLACES });
       k = last + 1;
     }
 
-    const ordered = resonancesByImportance(input);
-    const requests: LabelRequest[] = [
-      ...ordered.map((r) => ({ ...px(r.impedanceOhm, 0), text: resonanceLabel(r, input.selfResonance), fontSize: FONT_SIZE.note, required: isSelfResonance(r, input.selfResonance) })),
-      ...marks.map((m) => ({ ...px(m.r, m.x), text: m.text, fontSize: FONT_SIZE.note, candidates: DECADE_PLACES })),
-    ];
-    const obstacle = { xs: kept.map((i) => xs[i]), ys: kept.map((i) => ys[i]) };
+    const resonances = resonanceLabels(input, (r) => ({ at: { x: s(r.impedanceOhm), v: 0 }, ...px(r.impedanceOhm, 0) }));
     const zeroY = FRAME.height - yMap.toPx(0);
-    const noteRequests: LabelRequest[] = [
-      { x: FRAME.width, y: zeroY, text: 'inductive (X > 0) ↑', fontSize: FONT_SIZE.note, candidates: NOTE_ABOVE },
-      { x: FRAME.width, y: zeroY, text: 'capacitive (X < 0) ↓', fontSize: FONT_SIZE.note, candidates: NOTE_BELOW },
+    const notes = [
+      { x: FRAME.width, y: zeroY, text: SIGN_NOTE.planeInductive, candidates: NOTE_ABOVE },
+      { x: FRAME.width, y: zeroY, text: SIGN_NOTE.planeCapacitive, candidates: NOTE_BELOW },
     ];
-    const zeroLine = { xs: [0, FRAME.width], ys: [zeroY, zeroY] };
-    const placements = placeLabels([...requests, ...noteRequests], FRAME, [obstacle, zeroLine]);
-    const labels: Row[] = [];
-    const decadeLabels: Row[] = [];
-    requests.forEach((q, k) => {
-      const p = placements[k];
-      if (!p) return;
-      const isResonance = k < ordered.length;
-      const at = isResonance ? { x: s(ordered[k].impedanceOhm), v: 0 } : { x: s(marks[k - ordered.length].r), v: s(marks[k - ordered.length].x) };
-      (isResonance ? labels : decadeLabels).push({ ...at, t: q.text, dx: p.dx, dy: p.dy, al: p.align, bl: p.baseline });
-    });
-    const notes: Row[] = [];
-    noteRequests.forEach((n, k) => {
-      const p = placements[requests.length + k];
-      if (p) notes.push({ x: n.x + p.dx, y: n.y + p.dy, t: n.text, al: p.align, bl: p.baseline });
-    });
-
-    const key = layoutKey(
-      [
-        { kind: 'line', style: { s: 'path' }, text: 'Z = R + jX (arrows: rising f)' },
-        { kind: 'point', color: INK, text: 'decade of frequency' },
-        ...(ordered.length > 0 ? [{ kind: 'point' as const, color: RESONANCE_MARK, text: 'resonance (X = 0)' }] : []),
-      ],
-      FRAME.width,
-    );
+    const path = { xs: kept.map((i) => xs[i]), ys: kept.map((i) => ys[i]) };
+    const placed = placeMarkLabels([...resonances, ...marks], FRAME, [path, levelObstacle(0, rMap, yMap)], notes);
+    const ordered = resonancesByImportance(input);
     return {
-      frame: frameForKey(FRAME, key),
-      params: { ...ra.params, ...ya.params },
+      x: { domain: rDomain, ticks: signedLogTicks(rDomain, c, FRAME.width, 'Ω', 62) },
+      y: { domain: yDomain, ticks: signedLogTicks(yDomain, c, FRAME.height, 'Ω', 20) },
       datasets: {
-        ...ra.datasets,
-        ...ya.datasets,
-        zero: [{ v: 0 }],
         curves,
         arrows,
         decades: decades.map((d) => ({ x: s(d.r), v: s(d.x) })),
         points: ordered.map((r) => ({ x: s(r.impedanceOhm), v: 0 })),
-        decadeLabels,
-        labels,
-        notes,
-        ...key.datasets,
+        decadeLabels: shown(placed.labels.slice(resonances.length)),
+        labels: shown(placed.labels.slice(0, resonances.length)),
+        notes: placed.notes,
       },
+      key: [
+        { kind: 'line', style: { s: 'path' }, text: KEY_TEXT.path },
+        { kind: 'point', color: INK, text: KEY_TEXT.decade },
+        ...(ordered.length > 0 ? [{ kind: 'point' as const, color: RESONANCE_MARK, text: KEY_TEXT.resonance }] : []),
+      ],
     };
   },
-};
-
-/** [min(0, …), max(0, …)] of the finite values. */
-function finiteExtent(values: readonly number[]): [number, number] {
-  let lo = 0;
-  let hi = 0;
-  for (const v of values) {
-    if (!Number.isFinite(v)) continue;
-    if (v < lo) lo = v;
-    if (v > hi) hi = v;
-  }
-  return [lo, hi];
-}
+});
 
 /** Z at `f` by linear interpolation in log f between sweep points (when no model is given). */
 function interpolated(frequencies: Float64Array, re: Float64Array, im: Float64Array, f: number): [number, number] {

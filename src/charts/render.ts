@@ -11,7 +11,7 @@
 
 import { parse, View, type Runtime, type Spec as VegaSpec } from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
-import { outerSize, type Frame } from './palette.js';
+import { outerSize, type Frame } from './frame.js';
 import { finishSvg, type ChartText } from './svg-finish.js';
 import { installTextMetrics } from './text-width.js';
 

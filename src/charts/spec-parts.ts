@@ -149,6 +149,15 @@ export function pointLayer(data: string, x: Json, y: Json, color = RESONANCE_MAR
   };
 }
 
+/** Marked points each in its own colour (rows {f|x, v, color}): a comparison's SRFs, a rail's peaks. */
+export function colouredPointLayer(data: string, x: Json, y: Json, size: number): Json {
+  return {
+    data: { name: data },
+    mark: { type: 'point', shape: 'circle', size, filled: true, stroke: '#ffffff', strokeWidth: 1, opacity: 1, clip: true },
+    encoding: { x, y, color: { field: 'color', type: 'nominal', scale: null } },
+  };
+}
+
 /** Labels placed by labels.ts: rows {…position, t, dx, dy, al, bl}. */
 export function placedLabelLayer(data: string, x: Json, y: Json, color = RESONANCE_MARK): Json {
   return {

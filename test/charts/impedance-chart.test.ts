@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { PLOT_WIDTH, RESONANCE_MARK } from '../../src/charts/palette.js';
+import { PLOT_WIDTH } from '../../src/charts/frame.js';
+import { RESONANCE_MARK } from '../../src/charts/palette.js';
 import { renderPartChart } from '../../src/charts/part-charts.js';
 import { formatEng } from '../../src/units/format.js';
 import { analysed, beadPart, capacitorPart, resistorPart } from './fixtures.js';

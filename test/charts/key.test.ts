@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { frameForKey, layoutKey, type KeyItem } from '../../src/charts/key.js';
-import { frame } from '../../src/charts/palette.js';
+import { frame } from '../../src/charts/frame.js';
 
 describe('chart key', () => {
   const items: KeyItem[] = [

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { analyseLoadStep } from '../../src/analysis/load-step.js';
 import { capacitor, inductor, resistor, series } from '../../src/circuit/element.js';
 import { describeLoadStep } from '../../src/present/plan-chart-descriptions.js';
-import { loadShareChart, loadStepChart, niceStep, renderLoadStepCharts, type LoadStepChartData } from '../../src/charts/load-step-chart.js';
+import { niceStep } from '../../src/charts/axes.js';
+import { loadShareChart, loadStepChart, renderLoadStepCharts, type LoadStepChartData } from '../../src/charts/load-step-chart.js';
 import { formatEng } from '../../src/units/format.js';
 import { svgTexts } from './svg-text.js';
 

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { RESONANCE_MARK } from '../../src/charts/palette.js';
-import { degreesLabel } from '../../src/charts/phase-chart.js';
 import { renderPartChart } from '../../src/charts/part-charts.js';
 import { analysed, capacitorPart, inductorPart } from './fixtures.js';
 import { svgTexts } from './svg-text.js';
@@ -8,10 +7,6 @@ import { svgTexts } from './svg-text.js';
 type Rows = Record<string, Record<string, unknown>[]>;
 
 describe('phase chart', () => {
-  it('writes degrees with a true minus sign', () => {
-    expect([-90, 0, 30].map(degreesLabel)).toEqual(['−90°', '0°', '30°']);
-  });
-
   it('spans −90°…90° with a zero line, the SRF where the phase crosses 0°, and says which side is which', async () => {
     const a = analysed(capacitorPart);
     const out = await renderPartChart('phase', a);

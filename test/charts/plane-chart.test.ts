@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { planeChart, planeConstant } from '../../src/charts/plane-chart.js';
+import { planeChart } from '../../src/charts/plane-chart.js';
 import { renderPartChart } from '../../src/charts/part-charts.js';
 import { renderChart } from '../../src/charts/render.js';
 import { analysed, beadPart, capacitorPart, resistorPart } from './fixtures.js';
@@ -9,12 +9,6 @@ type Rows = Record<string, Record<string, unknown>[]>;
 const DECADES = ['1 kHz', '10 kHz', '100 kHz', '1 MHz', '10 MHz', '100 MHz', '1 GHz', '10 GHz'];
 
 describe('complex-plane chart', () => {
-  it('picks the signed-log constant as the power of ten at or below the least |Z|', () => {
-    expect(planeConstant([5, 0.018, 300])).toBe(0.01);
-    expect(planeConstant([100, 1000])).toBe(100);
-    expect(planeConstant([0, 1e-12, 1e6])).toBe(1e-3); // nearly lossless: held at 1e-9 of the largest
-  });
-
   it('labels every decade of the sweep on the path and names its scale', async () => {
     const out = await renderPartChart('plane', analysed(capacitorPart));
     const texts = svgTexts(out.svg);

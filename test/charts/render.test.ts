@@ -6,7 +6,7 @@ import * as vega from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
 import { renderComparisonChart } from '../../src/charts/comparison-chart.js';
 import { impedanceChart } from '../../src/charts/impedance-chart.js';
-import { frame } from '../../src/charts/palette.js';
+import { frame } from '../../src/charts/frame.js';
 import { PART_CHART_KINDS, renderPartChart, renderPartCharts } from '../../src/charts/part-charts.js';
 import { renderRailChart } from '../../src/charts/rail-chart.js';
 import { chartStats, lastSceneBounds, renderChart, resetChartCache, type ChartDefinition } from '../../src/charts/render.js';
