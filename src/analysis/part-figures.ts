@@ -1,8 +1,11 @@
-// Everything zfolio states about one part: its impedance over the sweep, resonances, usable band and the
-// headline figures a datasheet page or `zfolio figures` prints.
+// Everything zfolio states about one part, computed once: its impedance over the sweep and every column
+// derived from it (R, X, |Z|, phase, G, B, |Y|, Q, effective C and L), the same over the resolved sweep the
+// charts draw and at each decade the datasheet tabulates, resonances, usable band and the headline figures.
+// Pages, charts, downloads and the command line read this record; none of them computes a figure again.
 
 import { dcResistance } from '../circuit/element.js';
 import { impedanceAt, impedanceSweep, type ImpedanceArrays } from '../circuit/impedance.js';
+import { deriveFigures, type ImpedanceFigures } from '../circuit/quantities.js';
 import { logSweep, type SweepSpec } from '../circuit/sweep.js';
 import type { Part } from '../model/part.js';
 import { usableBand, type BandRule, type UsableBand } from './band.js';
@@ -18,8 +21,19 @@ export interface PartAnalysis {
   sweep: SweepSpec;
   frequencies: Float64Array;
   z: ImpedanceArrays;
+  /** Every column over the sweep (what the CSV and JSON downloads and `zfolio sweep` give). */
+  columns: ImpedanceFigures;
   /** The sweep with ladders of points around every natural frequency: where features are searched. */
   resolved: ResolvedSweep;
+  /** Every column over the resolved sweep (what the charts draw). */
+  resolvedColumns: ImpedanceFigures;
+  /** Every column at each decade of frequency inside the sweep (the datasheet's table). */
+  decades: ImpedanceFigures;
+  /** At each decade, the value in the part's own terms: C_eff (F) of a capacitor where X < 0, L_eff (H) of an
+   *  inductor where X > 0, |Z|/R − 1 of a resistor; NaN where it has no meaning. */
+  decadeEffective: Float64Array;
+  /** A bead's |Z| at its rated frequency, Ω, when it states one. */
+  ratedImpedanceOhm?: number;
   resonances: Resonance[];
   /** The self-resonant frequency: a capacitor's first series resonance, an inductor's or bead's first parallel one. */
   selfResonance?: Resonance;
@@ -63,12 +77,19 @@ export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number,
   const reactanceSign = part.behavesAs === 'capacitor' ? -1 : part.behavesAs === 'inductor' ? 1 : undefined;
   const wanted = part.behavesAs === 'capacitor' ? 'series' : part.behavesAs === 'inductor' || part.behavesAs === 'bead' ? 'parallel' : undefined;
   const selfResonance = wanted ? resonances.find((r) => r.type === wanted) : resonances[0];
+  const decades = Float64Array.from(decadeFrequencies(sweep.fromHz, sweep.toHz));
+  const decadeFigures = deriveFigures(decades, impedanceSweep(part.network, decades));
   return {
     part,
     sweep,
     frequencies,
     z,
+    columns: deriveFigures(frequencies, z),
     resolved,
+    resolvedColumns: deriveFigures(resolved.frequencies, resolved.z),
+    decades: decadeFigures,
+    decadeEffective: effectiveValues(part, decadeFigures),
+    ...(part.behavesAs === 'bead' && part.ratedAtHz !== undefined ? { ratedImpedanceOhm: Math.hypot(...impedanceAt(part.network, part.ratedAtHz)) } : {}),
     resonances,
     selfResonance,
     bandRule,
@@ -78,6 +99,24 @@ export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number,
     peakQuality: reactanceSign ? peakQuality(part.network, resolved, reactanceSign) : undefined,
     corners: operating ? partCorners(part, operating, frequencies, bandRule, wanted) : null,
   };
+}
+
+/** The value of a part in its own terms at each point (see PartAnalysis.decadeEffective). */
+export function effectiveValues(part: Part, f: ImpedanceFigures): Float64Array {
+  const out = new Float64Array(f.frequencyHz.length).fill(NaN);
+  for (let i = 0; i < out.length; i++) {
+    if (part.behavesAs === 'capacitor') out[i] = f.effectiveCapacitanceF[i];
+    else if (part.behavesAs === 'inductor') out[i] = f.effectiveInductanceH[i];
+    else if (part.behavesAs === 'resistor' && part.nominal !== undefined) out[i] = f.magnitudeOhm[i] / part.nominal - 1;
+  }
+  return out;
+}
+
+/** Each decade (1, 10, 100 ... Hz) inside the sweep. */
+export function decadeFrequencies(fromHz: number, toHz: number): number[] {
+  const out: number[] = [];
+  for (let e = Math.ceil(Math.log10(fromHz) - 1e-9); 10 ** e <= toHz * (1 + 1e-9); e++) out.push(Number(`1e${e}`));
+  return out;
 }
 
 /** Impedance at a chosen frequency, for tables at round frequencies. */

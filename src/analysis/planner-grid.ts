@@ -2,6 +2,7 @@
 // search checks (the band's sweep, then any cuts), and the arithmetic the search and its starting set share.
 
 import type { Element } from '../circuit/element.js';
+import { addAdmittance, admittanceInto } from '../circuit/admittance.js';
 import { impedanceSweep } from '../circuit/impedance.js';
 import type { RailBranch } from './rail.js';
 
@@ -52,11 +53,7 @@ export function buildGrid(problem: PlannerProblem, cuts: readonly number[]): Gri
   const aIm = new Float64Array(size);
   for (const b of problem.fixed) {
     const z = impedanceSweep(b.element, f);
-    for (let k = 0; k < size; k++) {
-      const d = z.re[k] * z.re[k] + z.im[k] * z.im[k];
-      aRe[k] += (b.count * z.re[k]) / d;
-      aIm[k] -= (b.count * z.im[k]) / d;
-    }
+    addAdmittance(z.re, z.im, b.count, aRe, aIm);
   }
   const yRe: Float64Array[] = [];
   const yIm: Float64Array[] = [];
@@ -64,11 +61,7 @@ export function buildGrid(problem: PlannerProblem, cuts: readonly number[]): Gri
     const z = impedanceSweep(c.element, f);
     const re = new Float64Array(size);
     const im = new Float64Array(size);
-    for (let k = 0; k < size; k++) {
-      const d = z.re[k] * z.re[k] + z.im[k] * z.im[k];
-      re[k] = z.re[k] / d;
-      im[k] = -z.im[k] / d;
-    }
+    admittanceInto(z.re, z.im, re, im);
     yRe.push(re);
     yIm.push(im);
   }

@@ -7,6 +7,7 @@
 // placements carry N times the admittance of one, i.e. Z/N.
 
 import { inductor, series, type Element, capacitor, resistor } from '../circuit/element.js';
+import { addAdmittance, addAdmittanceSlope } from '../circuit/admittance.js';
 import { impedanceSweepInto } from '../circuit/impedance.js';
 import { admittanceSlope, impedanceSlopeAt, impedanceSlopeInto, type ImpedanceSlope } from '../circuit/slope.js';
 import { naturalFrequencies, type ComplexFrequency, type FrequencyRange } from '../circuit/natural-frequencies.js';
@@ -78,29 +79,17 @@ export interface RailEvaluation {
 }
 
 const slopeScratch = new Float64Array(4);
+const railScratch = new Float64Array(4);
 
 /** Y and dY/dω of the whole rail at one frequency (for peak refinement: no per-branch objects). */
 export function railSlopeAt(branches: readonly RailBranch[], frequencyHz: number): ImpedanceSlope {
   const omega = 2 * Math.PI * frequencyHz;
-  let g = 0;
-  let b = 0;
-  let dg = 0;
-  let db = 0;
+  railScratch.fill(0);
   for (const branch of branches) {
     impedanceSlopeInto(branch.element, omega, slopeScratch);
-    const [zr, zi, dzr, dzi] = slopeScratch;
-    // Y = 1/Z, Y' = −Z'·Y², times the count
-    const d = zr * zr + zi * zi;
-    const yr = zr / d;
-    const yi = -zi / d;
-    const sr = yr * yr - yi * yi;
-    const si = 2 * yr * yi;
-    g += branch.count * yr;
-    b += branch.count * yi;
-    dg -= branch.count * (dzr * sr - dzi * si);
-    db -= branch.count * (dzr * si + dzi * sr);
+    addAdmittanceSlope(slopeScratch[0], slopeScratch[1], slopeScratch[2], slopeScratch[3], branch.count, railScratch);
   }
-  return { re: g, im: b, dRe: dg, dIm: db };
+  return { re: railScratch[0], im: railScratch[1], dRe: railScratch[2], dIm: railScratch[3] };
 }
 
 /** Y and dY/dω of the whole rail at one frequency, and each branch's admittance there. */
@@ -108,8 +97,7 @@ export function railAdmittanceAt(branches: readonly RailBranch[], frequencyHz: n
   const omega = 2 * Math.PI * frequencyHz;
   const total = { re: 0, im: 0, dRe: 0, dIm: 0 };
   const branch = branches.map((b) => {
-    const y = admittanceSlope(impedanceSlopeAt(b.element, omega));
-    const scaled = { re: y.re * b.count, im: y.im * b.count, dRe: y.dRe * b.count, dIm: y.dIm * b.count };
+    const scaled = admittanceSlope(impedanceSlopeAt(b.element, omega), b.count);
     total.re += scaled.re;
     total.im += scaled.im;
     total.dRe += scaled.dRe;
@@ -154,11 +142,7 @@ export function evaluateRail(branches: readonly RailBranch[], targetOhm: number,
   const branchMagnitude: Float64Array[] = [];
   for (const branch of branches) {
     impedanceSweepInto(branch.element, grid, re, im);
-    for (let i = 0; i < m; i++) {
-      const d = re[i] * re[i] + im[i] * im[i];
-      g[i] += (branch.count * re[i]) / d;
-      b[i] -= (branch.count * im[i]) / d;
-    }
+    addAdmittance(re, im, branch.count, g, b);
     if (keepCurves) {
       const curve = new Float64Array(n);
       for (let i = 0; i < n; i++) {

@@ -1,6 +1,5 @@
 // A part's sweep as columns, for CSV and JSON downloads (SI base units, full precision).
 
-import { deriveFigures } from '../circuit/quantities.js';
 import type { PartAnalysis } from './part-figures.js';
 
 export const SWEEP_COLUMNS = [
@@ -20,7 +19,7 @@ export const SWEEP_COLUMNS = [
 export type SweepColumns = Record<(typeof SWEEP_COLUMNS)[number][1], Float64Array>;
 
 export function sweepColumns(a: PartAnalysis): SweepColumns {
-  return deriveFigures(a.frequencies, a.z);
+  return a.columns;
 }
 
 /** Numbers as JavaScript prints them (shortest exact form); empty where undefined (NaN). */

@@ -11,6 +11,7 @@
 // the same poles; Σ H_b = 1.
 
 import { dcResistance, parallel, scaledImpedance, type Element } from '../circuit/element.js';
+import { addAdmittance, admittanceInto } from '../circuit/admittance.js';
 import { impedanceSweepInto } from '../circuit/impedance.js';
 import { naturalFrequencies, type ComplexFrequency, type FrequencyRange } from '../circuit/natural-frequencies.js';
 import { logSweep } from '../circuit/sweep.js';
@@ -199,22 +200,14 @@ function sampleAt(branches: readonly TransientBranch[], hz: Float64Array): Sampl
   const b = new Float64Array(m);
   branches.forEach((branch, j) => {
     impedanceSweepInto(branch.element, hz, zr, zi);
-    for (let i = 0; i < m; i++) {
-      const d = zr[i] * zr[i] + zi[i] * zi[i];
-      yr[j][i] = (branch.count * zr[i]) / d;
-      yi[j][i] = (-branch.count * zi[i]) / d;
-      g[i] += yr[j][i];
-      b[i] += yi[j][i];
-    }
+    addAdmittance(zr, zi, branch.count, yr[j], yi[j]);
+    addAdmittance(zr, zi, branch.count, g, b);
   });
   const z = { re: new Float64Array(m), im: new Float64Array(m) };
+  admittanceInto(g, b, z.re, z.im);
   const weights = new Float64Array(m);
-  for (let i = 0; i < m; i++) {
-    const d = g[i] * g[i] + b[i] * b[i];
-    z.re[i] = g[i] / d;
-    z.im[i] = -b[i] / d;
-    weights[i] = Math.sqrt(d); // 1/|Z|: a relative fit
-  }
+  // 1/|Z|: a relative fit.
+  for (let i = 0; i < m; i++) weights[i] = Math.sqrt(g[i] * g[i] + b[i] * b[i]);
   // H_b = Y_b/Y
   const shares = branches.map((_, j) => {
     const re = new Float64Array(m);

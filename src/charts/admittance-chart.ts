@@ -58,9 +58,9 @@ export const admittanceChart = xyChart<PartChartInput>({
   marks: (X, Y) => [curveLayer('curves', X, Y, seriesEncoding(SERIES), 'g'), pointLayer('points', X, Y), placedLabelLayer('labels', X, Y)],
   draw(input) {
     const x = sweepAxis(input.frequencies, FRAME.width);
-    const { re, im } = input.z;
-    const g = (i: number) => re[i] / (re[i] * re[i] + im[i] * im[i]);
-    const b = (i: number) => -im[i] / (re[i] * re[i] + im[i] * im[i]);
+    const { conductanceS, susceptanceS } = input.columns;
+    const g = (i: number) => conductanceS[i];
+    const b = (i: number) => susceptanceS[i];
     // At a resonance X = 0: G = 1/R exactly and B = 0 (the |B| line breaks there).
     const gCurve = mergeCurve(input.frequencies, g, input.resonances.map((r) => ({ f: r.frequencyHz, v: 1 / r.impedanceOhm })), true);
     const bCurve = mergeCurve(input.frequencies, b, input.resonances.map((r) => ({ f: r.frequencyHz, v: 0 })), false);

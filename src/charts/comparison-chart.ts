@@ -31,7 +31,7 @@ export const comparisonChart = xyChart<ComparisonInput>({
     const from = Math.min(...parts.map((p) => p.frequencies[0]));
     const to = Math.max(...parts.map((p) => p.frequencies[p.frequencies.length - 1]));
     const x = frequencyAxis(from, to, FRAME.width);
-    const magnitudes = parts.map((p) => Float64Array.from(p.frequencies, (_, i) => Math.hypot(p.z.re[i], p.z.im[i])));
+    const magnitudes = parts.map((p) => p.columns.magnitudeOhm);
     const y = logValueAxis(...positiveExtent(magnitudes, MAX_DECADES), FRAME.height, 'Ω');
 
     const curves: Row[] = [];

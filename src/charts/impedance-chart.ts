@@ -34,11 +34,11 @@ export const impedanceChart = xyChart<PartChartInput>({
   ],
   draw(input) {
     const x = sweepAxis(input.frequencies, FRAME.width);
-    const { re, im } = input.z;
-    const magnitude = (i: number) => Math.hypot(re[i], im[i]);
+    const { magnitudeOhm, resistanceOhm: re } = input.columns;
+    const magnitude = (i: number) => magnitudeOhm[i];
     const rated = ratedPoint(input);
     const spread = input.spread ? [input.spread.min, input.spread.max] : [];
-    let [lo, hi] = positiveExtent([input.resonances.map((r) => r.impedanceOhm), Float64Array.from(input.frequencies, (_, i) => magnitude(i)), re, rated ? [rated.v] : [], ...spread], MAX_DECADES);
+    let [lo, hi] = positiveExtent([input.resonances.map((r) => r.impedanceOhm), magnitudeOhm, re, rated ? [rated.v] : [], ...spread], MAX_DECADES);
     // Room for resonance labels: below a dip, above a peak.
     if (input.resonances.some((r) => r.type === 'series')) lo /= LABEL_ROOM;
     if (input.resonances.some((r) => r.type === 'parallel')) hi *= LABEL_ROOM;

@@ -2,6 +2,7 @@
 // and the resonances, the self-resonance first, each labelled beside its point.
 
 import type { ImpedanceArrays } from '../circuit/impedance.js';
+import type { ImpedanceFigures } from '../circuit/quantities.js';
 import type { Element } from '../circuit/element.js';
 import type { UsableBand } from '../analysis/band.js';
 import { isSelfResonance, type Resonance } from '../analysis/resonance.js';
@@ -18,6 +19,8 @@ export interface PartChartInput {
   part: { id: string; title: string; kind: string; behavesAs?: string; network?: Element; nominal?: number; ratedAtHz?: number };
   frequencies: Float64Array;
   z: ImpedanceArrays;
+  /** Every column derived from `z`, at `frequencies` (|Z|, phase, G, B ...): the charts draw these. */
+  columns: ImpedanceFigures;
   resonances: readonly Resonance[];
   selfResonance?: Resonance;
   usableBand: UsableBand | null;

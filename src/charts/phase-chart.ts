@@ -17,7 +17,6 @@ const SERIES: SeriesScale = { keys: ['phase'], styles: [PART_SERIES.phase] };
 const FRAME = frame(PLOT_WIDTH, 220, 28, 42);
 /** ±90° plus a margin, so a curve at ±90° is not hidden under the plot's outline. */
 const DOMAIN: [number, number] = [-99, 99];
-const DEG_PER_RAD = 180 / Math.PI;
 
 export const phaseChart = xyChart<PartChartInput>({
   name: 'phase',
@@ -36,10 +35,9 @@ export const phaseChart = xyChart<PartChartInput>({
   draw(input) {
     const x = sweepAxis(input.frequencies, FRAME.width);
     const yMap = linearAxis(DOMAIN, FRAME.height);
-    const { re, im } = input.z;
     // At a resonance X = 0 and R > 0, so the phase is exactly 0°.
     const exact = input.resonances.map((r) => ({ f: r.frequencyHz, v: 0 }));
-    const curve = mergeCurve(input.frequencies, (i) => Math.atan2(im[i], re[i]) * DEG_PER_RAD, exact, false);
+    const curve = mergeCurve(input.frequencies, (i) => input.columns.phaseDeg[i], exact, false);
     const requests = resonanceLabels(input, (r) => ({ at: { f: r.frequencyHz, v: 0 }, ...toPlot(x.map, yMap, r.frequencyHz, 0) }), () => BESIDE_CROSSING);
     // Which sign means what, written beside the zero line at whichever end the curve leaves free.
     const notes = [

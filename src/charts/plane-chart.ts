@@ -47,7 +47,7 @@ export const planeChart = xyChart<PartChartInput>({
   ],
   draw(input) {
     const { frequencies } = input;
-    const { re, im } = input.z;
+    const { resistanceOhm: re, reactanceOhm: im } = input.columns;
     const c = partPlaneConstant(input);
     const s = (v: number) => signedLog(v, c);
 

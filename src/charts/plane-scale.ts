@@ -28,9 +28,8 @@ export function planeDomain(lo: number, hi: number, c: number): [number, number]
 }
 
 /** The signed-log constant of a part's path: planeConstant of its |Z| over the sweep. */
-export function partPlaneConstant(input: Pick<PartChartInput, 'frequencies' | 'z'>): number {
-  const { re, im } = input.z;
-  return planeConstant(Float64Array.from(input.frequencies, (_, i) => Math.hypot(re[i], im[i])));
+export function partPlaneConstant(input: Pick<PartChartInput, 'columns'>): number {
+  return planeConstant(input.columns.magnitudeOhm);
 }
 
 /** [min(0, …), max(0, …)] of the finite values. */

@@ -1,6 +1,7 @@
 // Figures derived point by point from Z = R + jX (standard definitions; e.g. Alexander & Sadiku, ch. 9
 // and 14): |Z|, phase, Y = 1/Z = G + jB, Q = |X|/R, effective C = −1/(ωX) and effective L = X/ω.
 
+import { admittanceInto } from './admittance.js';
 import type { ImpedanceArrays } from './impedance.js';
 
 export interface ImpedanceFigures {
@@ -44,14 +45,12 @@ export function deriveFigures(frequencyHz: Float64Array, z: ImpedanceArrays): Im
     const omega = 2 * Math.PI * frequencyHz[i];
     magnitude[i] = m;
     phase[i] = Math.atan2(x, r) * DEG_PER_RAD;
-    const d = r * r + x * x;
-    g[i] = r / d;
-    b[i] = -x / d;
     yMag[i] = 1 / m;
     q[i] = Math.abs(x) / r;
     cEff[i] = x < 0 ? -1 / (omega * x) : NaN;
     lEff[i] = x > 0 ? x / omega : NaN;
   }
+  admittanceInto(z.re, z.im, g, b);
   return {
     frequencyHz,
     resistanceOhm: z.re,

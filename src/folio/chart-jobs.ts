@@ -25,6 +25,7 @@ export function chartInput(a: PartAnalysis): PartChartInput {
     // The resolved sweep: curves pass through every narrow peak and notch the figures name.
     frequencies: a.resolved.frequencies,
     z: { re: a.resolved.z.re, im: a.resolved.z.im },
+    columns: a.resolvedColumns,
     resonances: a.resonances,
     selfResonance: a.selfResonance,
     usableBand: a.usableBand,

@@ -1,7 +1,6 @@
 // What a datasheet page shows about one part, computed here and handed to the templates as ready text:
 // facts, headline figures, Z at round frequencies, the model's parameters and the cautions.
 
-import { impedanceAt } from '../circuit/impedance.js';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { Part } from '../model/part.js';
 import { formatDegrees, formatEng, formatNumber, formatPercent } from '../units/format.js';
@@ -109,9 +108,8 @@ function figures(a: PartAnalysis): Row[] {
   if (part.behavesAs === 'bead') {
     const peak = a.peakImpedance;
     rows.push({ label: 'Peak |Z|', value: formatEng(peak.impedanceOhm, 'resistance'), note: `${peak.atSweepEnd ? 'at the sweep end, ' : ''}at ${formatEng(peak.frequencyHz, 'frequency')}` });
-    if (part.ratedAtHz !== undefined) {
-      const [re, im] = impedanceAt(part.network, part.ratedAtHz);
-      const modelOhm = Math.hypot(re, im);
+    if (part.ratedAtHz !== undefined && a.ratedImpedanceOhm !== undefined) {
+      const modelOhm = a.ratedImpedanceOhm;
       const rated = part.nominal !== undefined ? `; rated ${formatEng(part.nominal, 'resistance')}, ${signedPercent(modelOhm / part.nominal - 1)}` : '';
       rows.push({ label: `|Z| at ${formatEng(part.ratedAtHz, 'frequency')}`, value: formatEng(modelOhm, 'resistance'), note: `model${rated}` });
     }
@@ -119,31 +117,22 @@ function figures(a: PartAnalysis): Row[] {
   return rows;
 }
 
-/** Each decade (1, 10, 100 ... Hz) inside the sweep. */
-export function decadeFrequencies(fromHz: number, toHz: number): number[] {
-  const out: number[] = [];
-  for (let e = Math.ceil(Math.log10(fromHz) - 1e-9); 10 ** e <= toHz * (1 + 1e-9); e++) out.push(Number(`1e${e}`));
-  return out;
-}
-
 function impedanceTable(a: PartAnalysis): { heading: string; rows: ImpedanceRow[] } {
-  const { part } = a;
-  const heading = part.behavesAs === 'capacitor' ? 'C_eff' : part.behavesAs === 'inductor' ? 'L_eff' : part.behavesAs === 'resistor' ? '|Z|/R − 1' : '';
-  const rows = decadeFrequencies(a.sweep.fromHz, a.sweep.toHz).map((f) => {
-    const [re, im] = impedanceAt(part.network, f);
-    const w = 2 * Math.PI * f;
-    let effective = '';
-    if (part.behavesAs === 'capacitor' && im < 0) effective = formatEng(-1 / (w * im), 'capacitance');
-    else if (part.behavesAs === 'inductor' && im > 0) effective = formatEng(im / w, 'inductance');
-    else if (part.behavesAs === 'resistor' && part.nominal !== undefined) effective = formatPercent(Math.hypot(re, im) / part.nominal - 1);
+  const { behavesAs } = a.part;
+  const heading = behavesAs === 'capacitor' ? 'C_eff' : behavesAs === 'inductor' ? 'L_eff' : behavesAs === 'resistor' ? '|Z|/R − 1' : '';
+  const unit = behavesAs === 'capacitor' ? 'capacitance' : 'inductance';
+  const d = a.decades;
+  const rows = Array.from(d.frequencyHz, (f, i) => {
+    const value = a.decadeEffective[i];
+    const effective = Number.isNaN(value) ? '' : behavesAs === 'resistor' ? formatPercent(value) : formatEng(value, unit);
     return {
       frequency: formatEng(f, 'frequency'),
-      resistance: formatEng(re, 'resistance'),
-      reactance: formatEng(im, 'resistance'),
-      magnitude: formatEng(Math.hypot(re, im), 'resistance'),
-      phase: formatDegrees((Math.atan2(im, re) * 180) / Math.PI),
+      resistance: formatEng(d.resistanceOhm[i], 'resistance'),
+      reactance: formatEng(d.reactanceOhm[i], 'resistance'),
+      magnitude: formatEng(d.magnitudeOhm[i], 'resistance'),
+      phase: formatDegrees(d.phaseDeg[i]),
       effective,
-      q: re > 0 ? formatNumber(Math.abs(im) / re) : '—',
+      q: d.resistanceOhm[i] > 0 ? formatNumber(d.q[i]) : '—',
     };
   });
   return { heading, rows };

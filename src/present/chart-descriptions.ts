@@ -4,6 +4,7 @@
 
 import type { UsableBand } from '../analysis/band.js';
 import type { Resonance } from '../analysis/resonance.js';
+import type { ImpedanceFigures } from '../circuit/quantities.js';
 import { formatDegrees, formatEng, formatPercent } from '../units/format.js';
 import { bandCaption, bandRange } from './band-words.js';
 import { resonanceLabel } from './resonance-words.js';
@@ -20,7 +21,8 @@ export interface ChartText {
 export interface DescribedPart {
   part: { id: string; behavesAs?: string };
   frequencies: Float64Array;
-  z: { re: Float64Array; im: Float64Array };
+  /** The columns over `frequencies` (src/circuit/quantities.ts). */
+  columns: Pick<ImpedanceFigures, 'resistanceOhm' | 'reactanceOhm' | 'magnitudeOhm' | 'phaseDeg' | 'conductanceS'>;
   resonances: readonly Resonance[];
   selfResonance?: Resonance;
   usableBand: UsableBand | null;
@@ -61,11 +63,11 @@ export function describePartChart(kind: PartChartKind, input: DescribedPart, pla
   const id = input.part.id;
   const f = input.frequencies;
   const n = f.length;
-  const { re, im } = input.z;
+  const { resistanceOhm: re, reactanceOhm: im, magnitudeOhm, phaseDeg, conductanceS } = input.columns;
   const at = (i: number) => formatEng(f[i], 'Hz');
   switch (kind) {
     case 'impedance': {
-      const m = (i: number) => Math.hypot(re[i], im[i]);
+      const m = (i: number) => magnitudeOhm[i];
       const e = extremes(n, m);
       return {
         title: `${id}: impedance |Z| and resistance R against frequency`,
@@ -78,7 +80,7 @@ export function describePartChart(kind: PartChartKind, input: DescribedPart, pla
       };
     }
     case 'phase': {
-      const p = (i: number) => (Math.atan2(im[i], re[i]) * 180) / Math.PI;
+      const p = (i: number) => phaseDeg[i];
       return {
         title: `${id}: phase of the impedance against frequency`,
         description:
@@ -102,8 +104,7 @@ export function describePartChart(kind: PartChartKind, input: DescribedPart, pla
       };
     }
     case 'admittance': {
-      const d = (i: number) => re[i] * re[i] + im[i] * im[i];
-      const g = extremes(n, (i) => re[i] / d(i));
+      const g = extremes(n, (i) => conductanceS[i]);
       return {
         title: `${id}: admittance G and B against frequency`,
         description:

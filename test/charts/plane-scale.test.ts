@@ -3,6 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { finiteExtent, partPlaneConstant, planeConstant, planeDomain } from '../../src/charts/plane-scale.js';
 import { signedLog } from '../../src/charts/scales.js';
+import { deriveFigures } from '../../src/circuit/quantities.js';
 
 describe('the complex plane\'s scale', () => {
   it('picks the signed-log constant as the power of ten at or below the least |Z|', () => {
@@ -15,7 +16,7 @@ describe('the complex plane\'s scale', () => {
   it('takes a part\'s constant from |Z| over its sweep', () => {
     // |3 + 4j| = 5, |30 − 40j| = 50: the least is 5, so c = 1.
     const z = { re: Float64Array.from([3, 30]), im: Float64Array.from([4, -40]) };
-    expect(partPlaneConstant({ frequencies: Float64Array.from([1, 10]), z })).toBe(1);
+    expect(partPlaneConstant({ columns: deriveFigures(Float64Array.from([1, 10]), z) })).toBe(1);
   });
 
   it('spans the data out to the next ±c·10^k, never less than s(10c), with a margin of 0.12', () => {
