@@ -13,6 +13,7 @@ import type { Plan } from '../model/plan.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 import { escapeJsonMarkup } from '../present/escape.js';
 import { selectionText } from '../present/part-words.js';
+import { libraryRevision } from '../history/library-revision.js';
 import { comparisonSlug } from '../present/slugs.js';
 import { writeFileDeep } from './output.js';
 import { planPageData, type PlanPageData } from './plan-page.js';
@@ -160,6 +161,7 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   const reviews = library.reviews.map((r) => {
     const page = reviewPageData(r, library, { parts: partsById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
     if (pdfLinks.review(page.slug)) page.pdfFile = reviewPdfPath(page.slug);
+    page.revision = libraryRevision(library.root, page.sources.map((x) => x.file));
     return page;
   });
   // Carried-over parts keep the page the last build wrote; only the others are rendered.

@@ -2,7 +2,7 @@
 // anti-resonance peaks, the placements with their capacitance at the rail voltage, and the warnings.
 
 import type { PlacementFigures, PlanFigures } from '../analysis/plan-figures.js';
-import { formatDiagnostic } from '../model/diagnostics.js';
+import { warningNote, type WarningNote } from '../present/warning-notes.js';
 import { atRailText, biasNote, biasSourceText, mountingSourceText, planBandText, planTargetText, planVerdict, planeText, regulatorText } from '../present/plan-words.js';
 import type { Row } from '../present/row.js';
 import { railSlug } from '../present/slugs.js';
@@ -23,7 +23,8 @@ export interface PlanPageData {
   facts: Row[];
   peaks: { frequency: string; impedance: string; margin: string; between: string; over: boolean }[];
   placements: { partId: string; title: string; count: number; mounting: string; mountingFrom: string; nominal: string; atRail: string; rating: string; note: string }[];
-  warnings: string[];
+  /** The plan's warnings as notes a reader can act on, each with its file:line:col. */
+  warnings: WarningNote[];
   biasNote: string;
   chart?: ChartOnPage;
   /** The load step against the ripple budget, beside the impedance verdict; null without a step. */
@@ -59,7 +60,7 @@ export function planPageData(f: PlanFigures, sourceHash: string, notes: string |
   if (byPackage.length > 0) facts.push({ label: 'Mounting by package', value: byPackage.map(([name, h]) => `${name}: ${formatEng(h, 'H')}`).join(', ') });
   facts.push({ label: 'Placements', value: String(f.totalPlacements), note: f.totalCost !== null ? `total cost ${formatNumber(f.totalCost, 4)}` : undefined });
 
-  const warnings = f.warnings.map(formatDiagnostic);
+  const warnings = f.warnings.map(warningNote);
   return {
     slug: railSlug(f.rail),
     rail: f.rail,

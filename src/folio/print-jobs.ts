@@ -18,13 +18,18 @@ export interface PrintSelection {
   parts?: ReadonlySet<string>;
   /** Review slugs to print; undefined: all. */
   reviews?: ReadonlySet<string>;
+  /** Rail names whose plan to print on its own; undefined: none (a build prints plans inside review packs). */
+  plans?: ReadonlySet<string>;
 }
+
+export const planPdfPath = (slug: string) => `pdf/plans/${slug}.pdf`;
 
 export function printJobsFor(library: Library, folio: FolioData, siteDir: string, date: Date, selection: PrintSelection = {}): PrintJob[] {
   const day = date.toISOString().slice(0, 10);
   const libraryTitle = library.settings.title;
   const parts = folio.parts.filter((p) => !selection.parts || selection.parts.has(p.id));
   const reviews = folio.reviews.filter((r) => !selection.reviews || selection.reviews.has(r.slug));
+  const plans = folio.plans.filter((p) => selection.plans?.has(p.rail));
   return [
     ...reviews.map((r) => ({
       htmlFile: join(siteDir, 'reviews', r.slug, 'pack.html'),
@@ -36,6 +41,17 @@ export function printJobsFor(library: Library, folio: FolioData, siteDir: string
       },
       furniture: { headLeft: libraryTitle, headRight: `Review · ${r.title}`, footLeft: `built ${day} · ${r.sourceFile} · ${r.date}` },
       pack: true,
+    })),
+    ...plans.map((p) => ({
+      htmlFile: join(siteDir, 'plans', p.slug, 'index.html'),
+      pdfFile: join(siteDir, planPdfPath(p.slug)),
+      meta: {
+        title: `Rail plan ${p.rail} — ${p.title}`,
+        subject: `Decoupling plan of rail ${p.rail} against its target impedance, from ${libraryTitle}`,
+        keywords: ['rail plan', p.rail],
+      },
+      furniture: { headLeft: libraryTitle, headRight: `Rail plan ${p.rail}`, footLeft: `built ${day} · ${p.sourceFile} · sha256:${p.sourceHash}` },
+      pack: false,
     })),
     ...parts.map((p) => ({
       htmlFile: join(siteDir, 'parts', p.id, 'index.html'),

@@ -1,13 +1,15 @@
 // What a review page and its pack show: the review's facts and decisions (short markdown, rendered inert),
 // the sheets of everything it covers, the cautions that apply to them, and every source file with its hash.
 
+import { createHash } from 'node:crypto';
 import { reviewSlug } from '../present/slugs.js';
+import type { LibraryRevision } from '../history/library-revision.js';
 import type { LibraryReview, Library } from '../model/library.js';
 import type { ComparisonPageData, PartPageData } from './site-data.js';
 import type { PlanPageData } from './plan-page.js';
 import type { ChangesData } from './changes-page.js';
 import { markdownBlock, markdownInline } from './markdown.js';
-import { GENERAL_CAUTION, RATINGS_CAUTION } from '../present/cautions.js';
+import { groupedCautions, type GroupedCaution } from '../present/cautions.js';
 import { comparisonKey } from '../model/comparison.js';
 import { acceptedFailureText, acceptedFailures, reviewStatements } from '../model/review-consistency.js';
 import { railVerdicts } from '../analysis/review-checks.js';
@@ -41,8 +43,13 @@ export interface ReviewPageData {
   plans: PlanPageData[];
   /** Pack sections after the contents page, in order, with the ids the pack template gives them. */
   sections: { id: string; title: string }[];
-  cautions: string[];
+  /** Each caution once, with the parts it applies to. */
+  cautions: GroupedCaution[];
   sources: { file: string; hash: string }[];
+  /** One hash over every source file listed (their paths and hashes), so the cover can name the library's state. */
+  contentHash: string;
+  /** The git revision of those files, when the library is in git (set by the build). */
+  revision?: LibraryRevision;
   /** Site-relative path of the pack PDF, when PDFs are built. */
   pdfFile?: string;
   /** What changed since the revision the review names in `since:` (set by the build). */
@@ -73,8 +80,7 @@ export function reviewPageData(
 
   // Every part the review draws on, directly or through a plan or comparison, brings its cautions.
   const involved = new Set([...review.parts, ...review.comparisons.flatMap((c) => c.parts), ...review.plans.flatMap((p) => p.placements.map((x) => x.part))]);
-  const specific = [...involved].flatMap((p) => pages.parts.get(p.id)?.text.cautions ?? []).filter((c) => c !== GENERAL_CAUTION && c !== RATINGS_CAUTION);
-  const cautions = [...new Set(specific)].sort().concat(GENERAL_CAUTION, RATINGS_CAUTION);
+  const cautions = groupedCautions([...involved]);
 
   const files = new Map<string, string>();
   const add = (file: string, hash: string) => files.set(file, hash);
@@ -96,6 +102,7 @@ export function reviewPageData(
     parts.length ? count(parts.length, 'part', 'parts') : '',
   ].filter(Boolean);
 
+  const sources = [...files].map(([file, hash]) => ({ file, hash })).sort((a, b) => (a.file < b.file ? -1 : 1));
   return {
     slug: reviewSlug(review),
     title: review.title,
@@ -114,6 +121,10 @@ export function reviewPageData(
     plans,
     sections,
     cautions,
-    sources: [...files].map(([file, hash]) => ({ file, hash })).sort((a, b) => (a.file < b.file ? -1 : 1)),
+    sources,
+    contentHash: createHash('sha256')
+      .update(sources.map((x) => `${x.hash}  ${x.file}\n`).join(''))
+      .digest('hex')
+      .slice(0, 16),
   };
 }

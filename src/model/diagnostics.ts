@@ -18,6 +18,8 @@ export interface SourcePosition {
 export interface Diagnostic extends SourcePosition {
   severity: Severity;
   message: string;
+  /** What to do about it, as a sentence, where a page shows the problem as a note (the command line prints the message alone). */
+  advice?: string;
 }
 
 /** `file:line:col: message`, with "warning: " before the message of a warning. */

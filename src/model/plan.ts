@@ -110,14 +110,20 @@ function readPlanTemperature(root: Fields, operating: TemperatureRange | undefin
   return undefined;
 }
 
+/** Rounded up to three significant figures, so that the rating a warning asks for is never below the need. */
+function roundUp3(x: number): number {
+  const step = 10 ** (Math.floor(Math.log10(x)) - 2);
+  return Math.ceil(x / step - 1e-9) * step;
+}
+
 /** Read one plan file against the library's parts. Returns undefined when it has errors (all reported). */
 export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>, derating: number, operating?: TemperatureRange): Plan | undefined {
   const { diagnostics } = ctx;
   const before = diagnostics.errorCount;
   const warnings: Diagnostic[] = [];
-  const warn = (at: SourcePosition, message: string) => {
+  const warn = (at: SourcePosition, message: string, advice?: string) => {
     diagnostics.warning(at, message);
-    warnings.push({ ...at, severity: 'warning', message });
+    warnings.push({ ...at, severity: 'warning', message, ...(advice ? { advice } : {}) });
   };
   const root = Fields.of(ctx, ctx.source.document.contents as Node | null, '');
   if (!root) return undefined;
@@ -173,13 +179,17 @@ export function readPlan(ctx: ReadContext, partsById: ReadonlyMap<string, Part>,
       if (stress === 'over-rating') {
         entry.error('part', `the rail's ${formatEng(voltageV, 'V')} exceeds the ${formatEng(rating, 'V')} rating of ${part.id}; choose a part rated above the rail`);
       } else if (stress === 'above-derating') {
-        warn(at, `${label}.part: the rail's ${formatEng(voltageV, 'V')} is ${formatPercent(voltageV / rating)} of the ${formatEng(rating, 'V')} rating of ${part.id}, above the derating limit of ${formatPercent(derating)} (folio.yaml "derating")`);
+        warn(
+          at,
+          `${label}.part: the rail's ${formatEng(voltageV, 'V')} is ${formatPercent(voltageV / rating)} of the ${formatEng(rating, 'V')} rating of ${part.id}, above the derating limit of ${formatPercent(derating)} (folio.yaml "derating")`,
+          `Place a part rated ${formatEng(roundUp3(voltageV / derating), 'V')} or more (the rail's voltage over the derating limit), or let the review record why ${part.id} may stay.`,
+        );
       } else if (stress === 'unrated') {
         const why = part.voltageAcV !== undefined ? `is rated ${formatEng(part.voltageAcV, 'V')} AC only, and an AC rating is not a DC rating` : 'states no voltage rating';
-        warn(at, `${label}.part: ${part.id} ${why}, so the rail's ${formatEng(voltageV, 'V')} cannot be checked against it`);
+        warn(at, `${label}.part: ${part.id} ${why}, so the rail's ${formatEng(voltageV, 'V')} cannot be checked against it`, `Give ${part.id} a DC rating in its part file, or place a part that has one.`);
       }
       const beyond = beyondBiasTable(part, voltageV);
-      if (beyond) warn(at, `${label}.part: ${beyond}`);
+      if (beyond) warn(at, `${label}.part: ${beyond}`, `Extend the DC-bias table of ${part.id} to the rail voltage from the maker's curve, or treat this rail's margin as optimistic.`);
     }
 
     const mounting: Mounting = ownMounting !== undefined ? { mountingH: ownMounting, mountingFrom: 'entry' } : defaultMounting({ mountingH: mountingH ?? 0, mountingByPackage }, part);
@@ -258,7 +268,7 @@ function readBand(root: Fields): Plan['band'] | undefined {
 }
 
 /** `mounting-by-package: {"0402": 0.25nH, ...}`; a package no part in the library has is a warning. */
-function readMountingByPackage(root: Fields, partsById: ReadonlyMap<string, Part>, warn: (at: SourcePosition, message: string) => void): Record<string, number> {
+function readMountingByPackage(root: Fields, partsById: ReadonlyMap<string, Part>, warn: (at: SourcePosition, message: string, advice?: string) => void): Record<string, number> {
   const table = root.map('mounting-by-package');
   // No prototype: a package named "constructor" or "__proto__" is a key like any other.
   const out: Record<string, number> = Object.create(null) as Record<string, number>;
@@ -270,7 +280,11 @@ function readMountingByPackage(root: Fields, partsById: ReadonlyMap<string, Part
     out[name] = value;
     if (!packages.has(name)) {
       const guess = closest(name, packages);
-      warn(table.keyPosition(name), `mounting-by-package: no part in the library has package ${quote(name)}${guess ? `; did you mean "${guess}"?` : ''}`);
+      warn(
+        table.keyPosition(name),
+        `mounting-by-package: no part in the library has package ${quote(name)}${guess ? `; did you mean "${guess}"?` : ''}`,
+        'Write the package as the part files write it, or remove the entry: as it stands it sets no placement\'s mounting.',
+      );
     }
   }
   return out;

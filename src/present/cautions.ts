@@ -51,14 +51,8 @@ export function cautionsFor(part: Part): string[] {
     }
   }
   if (behaves === 'capacitor') {
-    if (part.voltageRatings.length > 0) {
-      const limits = part.voltageRatings.map((r) => (r.kind === 'AC' ? `the rated ${formatVoltageRating(r)} (r.m.s., in continuous service)` : `the rated ${formatVoltageRating(r)} including ripple peaks and transients`));
-      const plans =
-        part.voltageV !== undefined
-          ? "rail plans warn above the library's derating fraction of the DC rating"
-          : 'an AC rating is not a DC rating, and rail plans, which check DC ratings only, cannot check this part on a DC rail';
-      out.push(`Do not exceed ${limits.join(', nor ')}; ${plans}.`);
-    }
+    const rating = ratingCaution(part);
+    if (rating) out.push(rating);
     if (part.dielectric && isClass2Dielectric(part.dielectric)) {
       out.push(`${part.dielectric} is a class 2 ceramic: its capacitance falls with DC bias, temperature and age. The curves show the zero-bias model${part.dcBias.length > 0 ? '; rail plans use the DC-bias table' : ''}.`);
     }
@@ -77,6 +71,47 @@ export function cautionsFor(part: Part): string[] {
   }
   out.push(GENERAL_CAUTION, RATINGS_CAUTION);
   return out;
+}
+
+/** "Do not exceed the rated 16 V including ripple peaks and transients; …" for a capacitor with a rating. */
+function ratingCaution(part: Part): string | undefined {
+  if (part.behavesAs !== 'capacitor' || part.voltageRatings.length === 0) return undefined;
+  const limits = part.voltageRatings.map((r) => (r.kind === 'AC' ? `the rated ${formatVoltageRating(r)} (r.m.s., in continuous service)` : `the rated ${formatVoltageRating(r)} including ripple peaks and transients`));
+  return `Do not exceed ${limits.join(', nor ')}; ${part.voltageV !== undefined ? DC_RATING_PLANS : AC_ONLY_PLANS}.`;
+}
+
+const DC_RATING_PLANS = "rail plans warn above the library's derating fraction of the DC rating";
+const AC_ONLY_PLANS = 'an AC rating is not a DC rating, and rail plans, which check DC ratings only, cannot check this part on a DC rail';
+
+/** One caution of a set of parts, with the parts it applies to (each with the figure it concerns, if any). */
+export interface GroupedCaution {
+  text: string;
+  /** The parts it applies to, in the order given; empty when it applies to every part. */
+  parts: { id: string; detail: string }[];
+}
+
+/**
+ * The cautions of several parts (a review pack's), each said once with the parts it applies to, in the order
+ * of the first part that brings it; the general cautions, which every part carries, last and unlisted.
+ * A DC voltage rating differs from part to part, so those cautions are one, with each part's rating beside it.
+ */
+export function groupedCautions(parts: readonly Part[]): GroupedCaution[] {
+  const groups = new Map<string, GroupedCaution>();
+  const add = (text: string, id: string, detail: string) => {
+    let g = groups.get(text);
+    if (!g) groups.set(text, (g = { text, parts: [] }));
+    if (!g.parts.some((p) => p.id === id)) g.parts.push({ id, detail });
+  };
+  for (const part of parts) {
+    const rating = ratingCaution(part);
+    for (const c of cautionsFor(part)) {
+      if (c === GENERAL_CAUTION || c === RATINGS_CAUTION) continue;
+      const dcOnly = part.voltageRatings.length > 0 && part.voltageRatings.every((r) => r.kind === 'DC');
+      if (c === rating && dcOnly) add(`Do not exceed a capacitor's rated DC voltage (beside each part) including ripple peaks and transients; ${DC_RATING_PLANS}.`, part.id, part.voltageRatings.map(formatVoltageRating).join(', '));
+      else add(c, part.id, '');
+    }
+  }
+  return [...groups.values(), { text: GENERAL_CAUTION, parts: [] }, { text: RATINGS_CAUTION, parts: [] }];
 }
 
 function lowerFirst(text: string): string {

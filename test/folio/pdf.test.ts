@@ -11,10 +11,12 @@ import { buildFolio, type BuildResult } from '../../src/folio/build.js';
 import { main } from '../../src/cli/main.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { read, REPO, tempDir, copyLibrary } from './site-helpers.js';
+import { measurePdf, nearlyEmptyPages } from '../../bench/print-legibility.js';
 
 const DATE = new Date('2026-12-01T12:00:00Z');
 const CAPACITOR = 'ORV-C-0402-100N-X7R';
 const INDUCTOR = 'ORV-L-PWR-4U7-3A';
+const BEAD = 'ORV-FB-0402-120R-2A';
 const library = loadLibrary(REPO).library!;
 let result: BuildResult;
 let site: string;
@@ -28,7 +30,7 @@ beforeAll(async () => {
   result = await buildFolio({
     libraryRoot: REPO,
     outDir: site,
-    pdf: { env: process.env, date: DATE, select: { parts: new Set([CAPACITOR, INDUCTOR]) } },
+    pdf: { env: process.env, date: DATE, select: { parts: new Set([CAPACITOR, INDUCTOR, BEAD]) } },
   });
   if (result.pdfProblem) throw new Error(`PDF tests need Chromium: ${result.pdfProblem}`);
 }, 300_000);
@@ -36,7 +38,7 @@ beforeAll(async () => {
 describe('part datasheets', () => {
   it('are written for the parts asked for, and linked from their pages', () => {
     const files = result.pdfs.map((p) => p.pdfFile).sort();
-    expect(files).toEqual([`pdf/parts/${CAPACITOR}.pdf`, `pdf/parts/${INDUCTOR}.pdf`, 'pdf/reviews/dl3-power-integrity.pdf'].sort());
+    expect(files).toEqual([`pdf/parts/${CAPACITOR}.pdf`, `pdf/parts/${INDUCTOR}.pdf`, `pdf/parts/${BEAD}.pdf`, 'pdf/reviews/dl3-power-integrity.pdf'].sort());
     expect(read(site, `parts/${CAPACITOR}/index.html`)).toContain(`href="../../pdf/parts/${CAPACITOR}.pdf"`);
   });
 
@@ -124,6 +126,15 @@ describe('the review pack', () => {
   });
 });
 
+// Paper a reviewer can read: word sizes and words per page read back with pdftotext -bbox (bench/print-legibility.ts).
+describe('legible paper', () => {
+  const files = () => result.pdfs.map((p) => join(site, p.pdfFile));
+
+  it('has no nearly empty page (fewer than 70 words, running head and footer included)', () => {
+    for (const file of files()) expect(nearlyEmptyPages(measurePdf(file)), file).toEqual([]);
+  });
+});
+
 describe('zfolio print', () => {
   it('prints one datasheet on Letter paper into the folder asked for, leaving the site alone', async () => {
     const out = tempDir('print');
@@ -147,11 +158,30 @@ describe('zfolio print', () => {
     expect(existsSync(repoSite) ? statSync(repoSite).mtimeMs : null).toBe(siteBefore);
   }, 180_000);
 
+  it('prints a rail plan on its own, named by its rail or its plan file', async () => {
+    const out = tempDir('print-rail');
+    const lines: string[] = [];
+    const code = await main(['print', 'VDD_CORE', 'plans/vdd-3v3.yaml', '--out', out, '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
+    expect(code).toBe(0);
+    expect(lines.join('')).toMatch(/VDD_CORE\.pdf  \d+ pages?\n/);
+    const text = pdftotext(join(out, 'VDD_CORE.pdf'));
+    const page = read(site, 'plans/VDD_CORE/index.html');
+    const verdict = /\bverdict-(pass|fail)\b/.exec(page)![1].toUpperCase();
+    expect(text).toContain('VDD_CORE');
+    expect(text).toContain(`${verdict} — worst margin`);
+    expect(text).toContain('Anti-resonance peaks'.toUpperCase());
+    expect(text).not.toContain('Sign-off'.toUpperCase());
+    expect(text).toContain(`Rail plan VDD_CORE`);
+    const pages = Number(pdfinfo(join(out, 'VDD_CORE.pdf')).Pages);
+    for (let n = 1; n <= pages; n++) expect(text).toContain(`page ${n} of ${pages}`);
+    expect(pdfinfo(join(out, 'VDD_3V3.pdf')).Title).toMatch(/^Rail plan VDD_3V3 — /);
+  }, 180_000);
+
   it('names what it cannot find', async () => {
     const err: string[] = [];
     const code = await main(['print', 'ORV-C-0402-100N-X7X', '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: () => {}, err: (t) => err.push(t) });
     expect(code).toBe(2);
-    expect(err.join('')).toContain('no part or review called "ORV-C-0402-100N-X7X"; did you mean ORV-C-0402-100N-X7R?');
+    expect(err.join('')).toContain('no part, rail or review called "ORV-C-0402-100N-X7X"; did you mean ORV-C-0402-100N-X7R?');
   });
 });
 

@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { basename, join, relative, resolve, sep } from 'node:path';
 import { buildFolio } from '../../folio/build.js';
 import { terminalProgress } from '../../folio/progress.js';
-import { reviewSlug } from '../../present/slugs.js';
+import { railSlug, reviewSlug } from '../../present/slugs.js';
 import { OutputRefused } from '../../folio/output-guard.js';
 import { madeByZfolio } from '../../folio/pdf.js';
 import { alive } from '../../folio/output.js';
@@ -15,12 +15,13 @@ import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { loadReported, plural } from '../report.js';
 import { paperOption } from './build.js';
 
-export const printHelp = `Usage: zfolio print ID|REVIEW ... [--out DIR] [--library DIR] [--chrome PATH] [--paper A4|Letter]
+export const printHelp = `Usage: zfolio print ID|RAIL|REVIEW ... [--out DIR] [--library DIR] [--chrome PATH] [--paper A4|Letter]
 
-Prints the datasheet of each part named by id, and the review pack of each
-review named by its file (reviews/NAME.yaml) or NAME, to NAME.pdf in the
-output folder. The built site is left alone. Needs Chromium. An existing file
-of the same name is replaced only if it is a PDF zfolio made.
+Prints the datasheet of each part named by id, the plan of each rail named by
+its name or plan file (plans/NAME.yaml), and the review pack of each review
+named by its file (reviews/NAME.yaml) or NAME, to NAME.pdf in the output
+folder. The built site is left alone. Needs Chromium. An existing file of the
+same name is replaced only if it is a PDF zfolio made.
 
 Options:
   --out DIR           where the PDFs go (default: the current folder)
@@ -36,7 +37,7 @@ export async function print(args: string[], io: CommandIO): Promise<number> {
     io.out(printHelp);
     return EXIT_OK;
   }
-  if (positionals.length === 0) throw new UsageError('name at least one part id or review to print');
+  if (positionals.length === 0) throw new UsageError('name at least one part id, rail or review to print');
   const root = libraryRoot(values, io);
   const paper = paperOption(values.paper);
   const library = loadReported(root, io);
@@ -45,19 +46,22 @@ export async function print(args: string[], io: CommandIO): Promise<number> {
   const reviewsBySlug = new Map(library.reviews.map((r) => [reviewSlug(r), r]));
   const parts = new Set<string>();
   const reviews = new Set<string>();
+  const plans = new Set<string>();
   for (const name of positionals) {
     const asFile = relative(root, resolve(io.cwd, name)).split(sep).join('/');
     const review = library.reviews.find((r) => r.source.path === asFile) ?? reviewsBySlug.get(basename(name).replace(/\.ya?ml$/i, ''));
+    const plan = library.plans.find((p) => p.rail === name || p.source.path === asFile);
     if (library.partsById.has(name)) parts.add(name);
+    else if (plan) plans.add(plan.rail);
     else if (review) reviews.add(reviewSlug(review));
     else {
-      const guess = closest(name, [...library.partsById.keys(), ...reviewsBySlug.keys()]);
-      throw new UsageError(`no part or review called ${JSON.stringify(name)}${guess ? `; did you mean ${guess}?` : ''}`);
+      const guess = closest(name, [...library.partsById.keys(), ...library.plans.map((p) => p.rail), ...reviewsBySlug.keys()]);
+      throw new UsageError(`no part, rail or review called ${JSON.stringify(name)}${guess ? `; did you mean ${guess}?` : ''}`);
     }
   }
 
   const outDir = resolve(io.cwd, typeof values.out === 'string' ? values.out : '.');
-  await guardPdfFolder(outDir, [...parts, ...reviews].map((name) => `${name}.pdf`));
+  await guardPdfFolder(outDir, [...parts, ...reviews, ...[...plans].map(railSlug)].map((name) => `${name}.pdf`));
 
   removeDeadScratch();
   const scratch = mkdtempSync(join(tmpdir(), `${SCRATCH_PREFIX}${process.pid}-`));
@@ -67,7 +71,7 @@ export async function print(args: string[], io: CommandIO): Promise<number> {
       outDir: join(scratch, 'site'),
       cwd: io.cwd,
       progress: terminalProgress((text) => io.err(text), io.isTTY),
-      pdf: { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper, select: { parts, reviews } },
+      pdf: { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper, select: { parts, reviews, plans } },
     });
     if (!result.ok) return EXIT_BAD_INPUT;
     if (result.pdfProblem) {

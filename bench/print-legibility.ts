@@ -1,0 +1,117 @@
+// How legible the printed folio is: the size on paper of every word of every PDF, read back with poppler's
+// `pdftotext -bbox`, and the pages that hold almost nothing.
+// Usage: node --import tsx bench/print-legibility.ts SITE_OR_PDF ...   (a built site's pdf/ folder is searched)
+
+import { execFileSync } from 'node:child_process';
+import { readdirSync, statSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import { pathToFileURL } from 'node:url';
+
+/**
+ * pdftotext's word box spans the font's ascent to its descent, not the em. zfolio prints with DejaVu Sans and
+ * DejaVu Sans Mono (the system fonts its CSS names first), whose ascent is 0.928 em and descent 0.236 em
+ * (from the fonts' hhea tables, as pdffonts' embedded descriptors carry them): a box 1.164 em high. The
+ * running head, set at 7.5 pt, reads back 8.73 pt high, which checks the ratio.
+ */
+export const BOX_PER_EM = 1.164;
+
+export interface PrintedWord {
+  page: number;
+  text: string;
+  /** Font size on paper, in points. */
+  sizePt: number;
+}
+
+export interface PdfLegibility {
+  file: string;
+  pages: number;
+  words: PrintedWord[];
+  /** Words on each page (1-based page i at index i - 1). */
+  wordsPerPage: number[];
+}
+
+const WORD = /<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)<\/word>/;
+
+/**
+ * Text turned a quarter (a chart's vertical axis title) gives a box taller than wide: its size is its width.
+ * A box is taken as turned when it is more than 12 pt high and under half as wide as high, which no upright
+ * word of a folio is (the largest upright text, the part id, is about 17 pt and many letters wide).
+ */
+function sizeOf(width: number, height: number): number {
+  const turned = height > 12 * BOX_PER_EM && width < height / 2;
+  return (turned ? width : height) / BOX_PER_EM;
+}
+
+export function measurePdf(file: string): PdfLegibility {
+  const html = execFileSync('pdftotext', ['-bbox', file, '-'], { encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
+  const words: PrintedWord[] = [];
+  const wordsPerPage: number[] = [];
+  for (const line of html.split('\n')) {
+    if (line.includes('<page ')) {
+      wordsPerPage.push(0);
+      continue;
+    }
+    const m = WORD.exec(line);
+    if (!m) continue;
+    const [x0, y0, x1, y1] = [m[1], m[2], m[3], m[4]].map(Number);
+    words.push({ page: wordsPerPage.length, text: m[5], sizePt: sizeOf(x1 - x0, y1 - y0) });
+    wordsPerPage[wordsPerPage.length - 1]++;
+  }
+  return { file, pages: wordsPerPage.length, words, wordsPerPage };
+}
+
+/** Share of words under `pt` points. */
+export function shareUnder(words: PrintedWord[], pt: number): number {
+  return words.length === 0 ? 0 : words.filter((w) => w.sizePt < pt).length / words.length;
+}
+
+/** The issue's bar for a page that is nearly empty: fewer words than this, furniture included. */
+export const NEARLY_EMPTY_WORDS = 70;
+
+export function nearlyEmptyPages(pdf: PdfLegibility): number[] {
+  return pdf.wordsPerPage.flatMap((n, i) => (n < NEARLY_EMPTY_WORDS ? [i + 1] : []));
+}
+
+export function pdfFilesUnder(path: string): string[] {
+  if (statSync(path).isFile()) return [path];
+  return readdirSync(path, { recursive: true, encoding: 'utf8' })
+    .filter((f) => f.endsWith('.pdf'))
+    .sort()
+    .map((f) => join(path, f));
+}
+
+function percent(x: number): string {
+  return `${(100 * x).toFixed(1)}%`;
+}
+
+function report(paths: string[]): string[] {
+  const files = paths.flatMap(pdfFilesUnder);
+  const all = files.map(measurePdf);
+  const words = all.flatMap((p) => p.words);
+  const lines: string[] = [];
+  for (const pdf of all) {
+    const empty = nearlyEmptyPages(pdf);
+    lines.push(
+      `${relative(process.cwd(), pdf.file)}: ${pdf.pages} pages, ${pdf.words.length} words, under 6 pt ${percent(shareUnder(pdf.words, 6))}, ` +
+        `under 6.5 pt ${percent(shareUnder(pdf.words, 6.5))}, under 7 pt ${percent(shareUnder(pdf.words, 7))}` +
+        (empty.length ? `, nearly empty: page ${empty.join(', ')}` : ''),
+    );
+  }
+  const pages = all.reduce((n, p) => n + p.pages, 0);
+  const empty = all.reduce((n, p) => n + nearlyEmptyPages(p).length, 0);
+  lines.push(
+    `all: ${files.length} PDFs, ${pages} pages, ${words.length} words; under 6 pt ${percent(shareUnder(words, 6))}, ` +
+      `under 6.5 pt ${percent(shareUnder(words, 6.5))}, under 7 pt ${percent(shareUnder(words, 7))}; ` +
+      `pages under ${NEARLY_EMPTY_WORDS} words: ${empty}`,
+  );
+  return lines;
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  const paths = process.argv.slice(2);
+  if (paths.length === 0) {
+    console.error('usage: node --import tsx bench/print-legibility.ts SITE_OR_PDF ...');
+    process.exit(2);
+  }
+  for (const line of report(paths)) console.log(line);
+}
