@@ -14,11 +14,21 @@ import type { Diagnostic, SourcePosition } from './diagnostics.js';
 /** A rail's verdict, as its plan page states it. */
 export interface RailVerdict {
   rail: string;
+  /** The nominal impedance verdict: |Z| under the target over the band. */
   pass: boolean;
   worstMarginDb: number;
   worstFrequencyHz: number;
   /** The plan file, for the message. */
   file: string;
+  /** The load-step verdict, when the plan gives a step (pass false also when the response has no verdict). */
+  loadStep?: { pass: boolean; resolved: boolean; excursionV: number; budgetV: number } | null;
+  /** The impedance verdict at the rail's corners, when its parts state a spread. */
+  corners?: { pass: boolean; worstMarginDb: number; worstFrequencyHz: number; evaluated: number } | null;
+}
+
+/** The rail fails something a reviewer signs: its target at nominal or at a corner, or its load step. */
+export function railFails(v: RailVerdict): boolean {
+  return !v.pass || v.loadStep?.pass === false || v.corners?.pass === false;
 }
 
 /** Text a review states, with where it is written and what to call it in a message. */
@@ -85,7 +95,7 @@ export interface AcceptedFailure {
 
 /** Every statement that accepts a failing rail, one entry per rail it accepts; `covered`: the review's rails. */
 export function acceptedFailures(statements: readonly ReviewStatement[], verdicts: ReadonlyMap<string, RailVerdict>, covered: readonly string[] = []): AcceptedFailure[] {
-  const failing = [...verdicts.values()].filter((v) => !v.pass);
+  const failing = [...verdicts.values()].filter(railFails);
   if (failing.length === 0) return [];
   const out: AcceptedFailure[] = [];
   statements.forEach((s, statement) => {
@@ -97,9 +107,25 @@ export function acceptedFailures(statements: readonly ReviewStatement[], verdict
   return out;
 }
 
-/** "accepts VCC_5V, which fails its target (worst margin −6.93 dB at 1.2 MHz, plans/vcc-5v.yaml)". */
+/**
+ * "accepts VCC_5V, which fails its target (worst margin −6.93 dB at 1.2 MHz, plans/vcc-5v.yaml)"; each
+ * failing verdict is named: the target at nominal, the target at a corner, the load step.
+ */
 export function acceptedFailureText(v: RailVerdict): string {
-  return `accepts ${v.rail}, which fails its target (worst margin ${formatDecibels(v.worstMarginDb)} at ${formatEng(v.worstFrequencyHz, 'Hz')}, ${v.file})`;
+  const what: string[] = [];
+  if (!v.pass) what.push(`its target (worst margin ${formatDecibels(v.worstMarginDb)} at ${formatEng(v.worstFrequencyHz, 'Hz')}`);
+  if (v.corners && !v.corners.pass) {
+    const at = `worst margin ${formatDecibels(v.corners.worstMarginDb)} at ${formatEng(v.corners.worstFrequencyHz, 'Hz')} over ${v.corners.evaluated} corners`;
+    what.push(v.pass ? `its target at a corner (${at}` : `also at a corner (${at}`);
+  }
+  if (v.loadStep && !v.loadStep.pass) {
+    what.push(
+      v.loadStep.resolved
+        ? `its load step (the rail moves by up to ${formatEng(v.loadStep.excursionV, 'V')} against a budget of ${formatEng(v.loadStep.budgetV, 'V')}`
+        : `its load step (no verdict: the rail's response could not be computed to the method's accuracy`,
+    );
+  }
+  return `accepts ${v.rail}, which fails ${what.join('), ')}, ${v.file})`;
 }
 
 /** What a review states that a reader signs: its title, its summary (on the pack's cover) and its decisions. */

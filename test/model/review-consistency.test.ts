@@ -4,7 +4,7 @@
 // The verdicts here are given by the test, so each case checks only the reading and the message.
 
 import { describe, expect, it } from 'vitest';
-import { acceptedFailures, railsAccepted, reviewStatements, reviewWarnings, type RailVerdict } from '../../src/model/review-consistency.js';
+import { acceptedFailures, railFails, railsAccepted, reviewStatements, reviewWarnings, type RailVerdict } from '../../src/model/review-consistency.js';
 
 const RAILS = ['VCC_5V', 'VDD_CORE', 'VDD_3V3'];
 
@@ -86,5 +86,50 @@ describe('warnings where a review accepts a failing rail', () => {
     expect(asked).toBe(1);
     expect(found).toEqual(acceptedFailures(reviewStatements(review), verdicts, ['VCC_5V', 'VDD_CORE']).map((f) => f.warning));
     expect(found).toHaveLength(2);
+  });
+});
+
+describe('a rail fails what a reviewer signs: its target at nominal, at a corner, or its load step', () => {
+  const base: RailVerdict = { rail: 'VDD_CORE', pass: true, worstMarginDb: 2.88, worstFrequencyHz: 13e6, file: 'plans/vdd-core.yaml' };
+  const decision = { decisions: ['Accept VDD_CORE as placed.'], decisionsAt: [{ file: 'reviews/r.yaml', line: 7, column: 5 }] };
+  const messages = (v: RailVerdict) => acceptedFailures(reviewStatements(decision), new Map([[v.rail, v]])).map((f) => f.warning.message);
+
+  it('passing everywhere: no warning', () => {
+    const v = { ...base, loadStep: { pass: true, resolved: true, excursionV: 0.0145, budgetV: 0.027 }, corners: { pass: true, worstMarginDb: 0.22, worstFrequencyHz: 14.7e6, evaluated: 16 } };
+    expect(railFails(v)).toBe(false);
+    expect(messages(v)).toEqual([]);
+  });
+
+  it('failing only its load step', () => {
+    const v = { ...base, loadStep: { pass: false, resolved: true, excursionV: 0.031, budgetV: 0.027 } };
+    expect(railFails(v)).toBe(true);
+    expect(messages(v)).toEqual([
+      'decisions[0]: accepts VDD_CORE, which fails its load step (the rail moves by up to 31 mV against a budget of 27 mV, plans/vdd-core.yaml); record the fix, or say that the failure is waived and why',
+    ]);
+  });
+
+  it('a load step without a verdict is not a pass', () => {
+    const v = { ...base, loadStep: { pass: false, resolved: false, excursionV: NaN, budgetV: 0.027 } };
+    expect(messages(v)[0]).toContain("fails its load step (no verdict: the rail's response could not be computed");
+  });
+
+  it('passing at nominal, failing at a corner', () => {
+    const v = { ...base, corners: { pass: false, worstMarginDb: -0.8, worstFrequencyHz: 14.7e6, evaluated: 16 } };
+    expect(messages(v)).toEqual([
+      'decisions[0]: accepts VDD_CORE, which fails its target at a corner (worst margin −0.80 dB at 14.7 MHz over 16 corners, plans/vdd-core.yaml); record the fix, or say that the failure is waived and why',
+    ]);
+  });
+
+  it('failing everything names each failure once', () => {
+    const v = {
+      ...base,
+      pass: false,
+      worstMarginDb: -1.5,
+      corners: { pass: false, worstMarginDb: -3, worstFrequencyHz: 14.7e6, evaluated: 16 },
+      loadStep: { pass: false, resolved: true, excursionV: 0.031, budgetV: 0.027 },
+    };
+    expect(messages(v)[0]).toContain(
+      'fails its target (worst margin −1.50 dB at 13 MHz), also at a corner (worst margin −3.00 dB at 14.7 MHz over 16 corners), its load step (the rail moves by up to 31 mV against a budget of 27 mV, plans/vdd-core.yaml)',
+    );
   });
 });
