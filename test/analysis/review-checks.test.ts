@@ -12,7 +12,7 @@
 
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { railVerdicts } from '../../src/analysis/review-checks.js';
 import { loadLibrary, type Library } from '../../src/model/library.js';
