@@ -52,7 +52,7 @@ function spreadRows(a: PartAnalysis): Row[] {
   const texts = spreadFigureTexts(s);
   const rows: Row[] = [];
   const value = valueSpreadText(a.part, s);
-  if (value) rows.push({ label: 'Value over its spread', value, note: s.tolerance ? 'tolerance × temperature change' : 'temperature change' });
+  if (value) rows.push({ label: 'Value over its spread', value, note: s.tolerance && s.temperatureChange ? 'tolerance × temperature change' : s.tolerance ? 'tolerance' : 'temperature change' });
   const parasitics = parasiticSpreadText(s);
   if (parasitics) rows.push({ label: 'Parasitic spread', value: parasitics });
   if (texts.srf) rows.push({ label: 'SRF over its spread', value: texts.srf, note: `at ${texts.corners}` });

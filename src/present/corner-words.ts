@@ -33,19 +33,20 @@ export function changeText(c: { low: number; high: number }): string {
   return `${signed(c.low)} … ${signed(c.high)}`;
 }
 
-/** Where the temperature change comes from, in words: "X7R (EIA-198), specified −55 °C to 125 °C". */
+/** Where the temperature change comes from, in words: "X7R, EIA-198 class 2, specified −55 °C to 125 °C". */
 export function temperatureSourceText(part: Part): string | undefined {
   const t = part.spread.temperature;
   if (!t) return undefined;
-  if (t.kind === 'range') return t.from === 'dielectric' ? `${t.code} (EIA-198 class 2), specified ${formatCelsius(t.fromC)} to ${formatCelsius(t.toC)}` : `as the part states, ${formatCelsius(t.fromC)} to ${formatCelsius(t.toC)}`;
-  const ppm = (x: number) => `${Number((x * 1e6).toPrecision(4))}`;
-  const coefficient = t.lowPerK === t.highPerK ? `${ppm(t.lowPerK)} ppm/K` : `${ppm(t.lowPerK)} to ${ppm(t.highPerK)} ppm/K`;
-  return t.from === 'dielectric' ? `${t.code} (EIA-198 class 1): ${coefficient} from 25 °C` : `${coefficient} from 25 °C (tc)`;
+  if (t.kind === 'range') return t.from === 'dielectric' ? `${t.code}, EIA-198 class 2, specified ${formatCelsius(t.fromC)} to ${formatCelsius(t.toC)}` : `as the part states, ${formatCelsius(t.fromC)} to ${formatCelsius(t.toC)}`;
+  const ppm = (x: number) => `${x < 0 ? '−' : ''}${Number((Math.abs(x) * 1e6).toPrecision(4))}`;
+  const coefficient =
+    t.lowPerK === t.highPerK ? `${ppm(t.lowPerK)} ppm/K` : t.lowPerK === -t.highPerK ? `±${ppm(t.highPerK)} ppm/K` : `${ppm(t.lowPerK)} to ${ppm(t.highPerK)} ppm/K`;
+  return t.from === 'dielectric' ? `${t.code}, EIA-198 class 1, ${coefficient} from 25 °C` : `tc ${coefficient} from 25 °C`;
 }
 
 /**
- * The facts-table line of a part's spread: "10 µF ±10%, −15% … +15% over −10 °C to 55 °C (X7R …):
- * 7.65 µF to 12.7 µF".
+ * The line of a part's spread: "10 µF ±10%, −15% … +15% over −55 °C to 125 °C (X7R, EIA-198 class 2,
+ * specified −55 °C to 125 °C): 7.65 µF to 12.7 µF".
  */
 export function valueSpreadText(part: Part, s: SpreadSummary): string | undefined {
   if (!part.behavesAs || part.nominal === undefined) return undefined;

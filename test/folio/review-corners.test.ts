@@ -4,7 +4,9 @@
 // is the series R-L-C closed form |R + j(ωL − 1/(ωC))| (Alexander & Sadiku, ch. 14), largest at the band's
 // low end, 100 kHz. Against 1.75 Ω the nominal part passes by 20·log10(1.75/|Z|) ≈ +0.82 dB; at its low
 // corner (C·0.8) |Z| is about 1.25 times larger and the margin about −1.1 dB; its high corner passes.
+// The PDFs are printed by the system Chromium and read back with poppler's pdftotext (Debian poppler-utils).
 
+import { execFileSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -29,8 +31,19 @@ beforeAll(async () => {
   writeFileSync(join(root, 'parts/c.yaml'), 'id: T-C-1U\nkind: capacitor\nnominal: 1u\ntolerance: 20%\nvoltage: 16V\nparasitics: {esr: 10m, esl: 1n}\n');
   writeFileSync(join(root, 'plans/edge.yaml'), `rail: RAIL_EDGE\nvoltage: 1V\ntarget: ${TARGET}\nband: {from: 100k, to: 10M}\nmounting: 0nH\ncapacitors:\n  - {part: T-C-1U, count: 1}\n`);
   writeFileSync(join(root, 'reviews/r.yaml'), 'title: Corner review (invented)\ndate: 2026-03-18\nboard: test board\nreviewers: [A. Person]\ncovers: {plans: [RAIL_EDGE]}\ndecisions: [Measure the rail before sign-off.]\n');
-  built = await buildFolio({ libraryRoot: root, outDir: join(root, '_site'), cache: false, workers: 0 });
-}, 120_000);
+  built = await buildFolio({
+    libraryRoot: root,
+    outDir: join(root, '_site'),
+    cache: false,
+    workers: 0,
+    pdf: { env: process.env, date: new Date('2026-12-01T12:00:00Z'), select: { parts: new Set(['T-C-1U']) } },
+  });
+  if (built.pdfProblem) throw new Error(`PDF tests need Chromium: ${built.pdfProblem}`);
+}, 300_000);
+
+/** A PDF's text, its lines' runs of spaces (layout columns, wrapped lines) read as one space. */
+const pdfText = (file: string) => execFileSync('pdftotext', ['-layout', join(root, '_site', file), '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+const AGEING = 'ageing, which the maker\'s data must cover (class 2 ceramics lose a few percent of their capacitance per decade of hours, common practice)';
 
 describe('a rail passing at nominal and failing at a corner', () => {
   const nominal = formatDecibels(marginDb(1e-6));
@@ -69,5 +82,23 @@ describe('a rail passing at nominal and failing at a corner', () => {
     expect(cover).toMatch(/<li>Rail <span class="mono">RAIL_EDGE<\/span>: at nominal <span class="verdict-pass">PASS<\/span>/);
     expect(cover).toContain(`<br>at its corners: <span class="verdict-fail">FAIL</span> worst margin ${low} at 100 kHz`);
     expect(cover).toContain('with T-C-1U low; 1 of 2 corners miss the target');
+  });
+
+  it('the pack PDF\'s cover says so too, and its plan section says what a corner is and leaves out', () => {
+    const text = pdfText('pdf/reviews/r.pdf');
+    const cover = text.slice(0, text.indexOf('Sign-off'));
+    expect(cover).toContain(`Rail RAIL_EDGE: at nominal PASS worst margin ${nominal} at 100 kHz`);
+    expect(cover).toContain(`at its corners: FAIL worst margin ${low} at 100 kHz`);
+    expect(cover).toContain('with T-C-1U low; 1 of 2 corners miss the target');
+    expect(text).toContain(`Worst corner FAIL — worst margin ${low} at 100 kHz`);
+    expect(text).toContain(`A corner puts every placed part at the low or the high end of its spread at once`);
+    expect(text).toContain(AGEING);
+  });
+
+  it('the part\'s PDF datasheet states its spread and what its corners leave out', () => {
+    const text = pdfText('pdf/parts/T-C-1U.pdf');
+    // 1 µF ±20% with no temperature characteristic: 0.8 µF to 1.2 µF.
+    expect(text).toContain('1 µF ±20%: 800 nF to 1.2 µF');
+    expect(text).toContain(AGEING);
   });
 });

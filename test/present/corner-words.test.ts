@@ -1,0 +1,58 @@
+// A part's spread in plain words, and the sentence on what a corner leaves out. The value's extremes are
+// C·(1 − t)·(1 + ΔC_low) and C·(1 + t)·(1 + ΔC_high), the factors multiplied at their own extremes; X7R is
+// −55 °C to 125 °C and ±15 % (EIA-198 class 2 letter R), class 1 C0G is 0 ± 30 ppm/K (EIA-198);
+// class 2 ceramics lose a few percent per decade of hours (common practice).
+
+import { describe, expect, it } from 'vitest';
+import { analysePart } from '../../src/analysis/part-figures.js';
+import { spreadSummary } from '../../src/analysis/summary.js';
+import { DiagnosticList } from '../../src/model/diagnostics.js';
+import { readPart, type Part } from '../../src/model/part.js';
+import { parseYamlSource } from '../../src/model/source.js';
+import { partCornerSentence, railCornerSentence, valueSpreadText } from '../../src/present/corner-words.js';
+import { formatEng } from '../../src/units/format.js';
+
+function part(yaml: string): Part {
+  const diagnostics = new DiagnosticList();
+  const p = readPart({ source: parseYamlSource('parts/p.yaml', yaml, diagnostics)!, diagnostics });
+  expect(diagnostics.sorted()).toEqual([]);
+  return p!;
+}
+
+const SWEEP = { fromHz: 1e3, toHz: 1e9, perDecade: 20 };
+const words = (p: Part, operating: { fromC: number; toC: number }) => valueSpreadText(p, spreadSummary(analysePart(p, SWEEP, 0.1, operating))!);
+
+describe('a part\'s value over its spread, in plain words', () => {
+  it('10 µF ±10% X7R over −55 °C to 125 °C: the tolerance, the change over the range, and where it comes from', () => {
+    const p = part('id: C\nkind: capacitor\nnominal: 10u\ntolerance: 10%\ndielectric: X7R\nparasitics: {esr: 5m, esl: 0.5n}\n');
+    const low = formatEng(10e-6 * 0.9 * 0.85, 'F');
+    const high = formatEng(10e-6 * 1.1 * 1.15, 'F');
+    expect([low, high]).toEqual(['7.65 µF', '12.7 µF']);
+    expect(words(p, { fromC: -55, toC: 125 })).toBe(`10 µF ±10%, −15% … +15% over −55 °C to 125 °C (X7R, EIA-198 class 2, specified −55 °C to 125 °C): ${low} to ${high}`);
+  });
+
+  it('an asymmetric tolerance and a stated temperature block', () => {
+    const p = part('id: C\nkind: capacitor\nnominal: 4.7u\ntolerance: +80%/-20%\ntemperature: {from: -30°C, to: 85°C, change: +22%/-56%}\nparasitics: {esr: 5m, esl: 0.5n}\n');
+    const text = words(p, { fromC: 0, toC: 70 });
+    expect(text).toBe(`4.7 µF +80%/−20%, −56% … +22% over 0 °C to 70 °C (as the part states, −30 °C to 85 °C): ${formatEng(4.7e-6 * 0.8 * 0.44, 'F')} to ${formatEng(4.7e-6 * 1.8 * 1.22, 'F')}`);
+  });
+
+  it('C0G: ±30 ppm/K from 25 °C, so at most ±30e-6 × 45 K = ±0.135% over 0 °C to 70 °C', () => {
+    const p = part('id: C\nkind: capacitor\nnominal: 100p\ntolerance: 5%\ndielectric: C0G\nparasitics: {esr: 50m, esl: 0.4n}\n');
+    const change = 30e-6 * (70 - 25);
+    expect(words(p, { fromC: 0, toC: 70 })).toBe(
+      `100 pF ±5%, −0.135% … +0.135% over 0 °C to 70 °C (C0G, EIA-198 class 1, ±30 ppm/K from 25 °C): ${formatEng(100e-12 * 0.95 * (1 - change), 'F')} to ${formatEng(100e-12 * 1.05 * (1 + change), 'F')}`,
+    );
+  });
+});
+
+describe('what a corner is and what it leaves out, in one sentence', () => {
+  it.each([
+    ['part', partCornerSentence({ fromC: -40, toC: 85 })],
+    ['rail', railCornerSentence({ fromC: -40, toC: 85 })],
+  ])('%s: one sentence naming ageing and its usual size', (_, sentence) => {
+    expect(sentence.match(/[.!?](\s|$)/g)).toHaveLength(1);
+    expect(sentence).toMatch(/ageing, which the maker's data must cover \(class 2 ceramics lose a few percent of their capacitance per decade of hours, common practice\)\.$/);
+    expect(sentence).toContain('−40 °C to 85 °C');
+  });
+});
