@@ -7,6 +7,12 @@
 //
 // The usable band at a corner is judged against that corner's own value (its effective value within
 // `within` of C_nom·k), so it shows how far the band moves, not whether the value is off nominal.
+//
+// The |Z| envelope is not taken at the corners alone: near a resonance |Z| is least for a value between
+// them (a series RLC reaches its ESR at every frequency between the corners' SRFs). So each quantity is
+// also stepped across its range with the others at their ends, and the nominal model is included; along
+// those edges of the box L·C takes every value between its extremes, so a series resonance anywhere in the
+// spread shows in the envelope, to within the step.
 
 import { impedanceSweep } from '../circuit/impedance.js';
 import type { Part } from '../model/part.js';
@@ -14,7 +20,8 @@ import type { TemperatureRange } from '../model/spread.js';
 import { usableBand, type BandRule } from './band.js';
 import { resolvedSweep } from './resolved-sweep.js';
 import { selfResonances } from './resonance.js';
-import { spreadFactors, spreadModel, valueSpread, type SpreadFactor, type ValueSpread } from './part-spread.js';
+import type { Element } from '../circuit/element.js';
+import { scaledModel, spreadFactors, spreadModel, valueSpread, type SpreadFactor, type ValueSpread } from './part-spread.js';
 
 /** At most this many moving quantities a part (2^4 = 16 corners): value and three parasitics is every model. */
 export const MAX_PART_FACTORS = 5;
@@ -37,11 +44,43 @@ export interface PartCorners {
   srfHz: Range | null;
   /** Each band edge over the corners; null when a corner has no band. */
   usableBand: { fromHz: Range; toHz: Range } | null;
-  /** Least and greatest |Z| over the corners at each sweep point (for the chart's envelope). */
+  /** Least and greatest |Z| over the spread at each sweep point (for the chart's envelope): the corners, the
+   *  nominal model, and each quantity stepped across its range with the others at their ends. */
   envelope: { min: Float64Array; max: Float64Array };
 }
 
 const range = (values: readonly number[]): Range | null => (values.length === 0 ? null : { min: Math.min(...values), max: Math.max(...values) });
+
+/** Points each quantity is stepped through for the envelope, its ends included (geometric steps). */
+export const ENVELOPE_STEPS = 25;
+
+/** Widen `min`/`max` by the model's |Z| at every sweep point. */
+function widen(element: Element, frequencies: Float64Array, min: Float64Array, max: Float64Array): void {
+  const z = impedanceSweep(element, frequencies);
+  for (let i = 0; i < frequencies.length; i++) {
+    const m = Math.hypot(z.re[i], z.im[i]);
+    if (m < min[i]) min[i] = m;
+    if (m > max[i]) max[i] = m;
+  }
+}
+
+/** The envelope's points between the corners: the nominal model and every edge of the box, stepped. */
+function widenBetweenCorners(part: Part, factors: readonly SpreadFactor[], frequencies: Float64Array, min: Float64Array, max: Float64Array): void {
+  widen(part.network, frequencies, min, max);
+  const q = factors.length;
+  factors.forEach((f, i) => {
+    for (const others of allCorners(q - 1)) {
+      for (let s = 1; s < ENVELOPE_STEPS - 1; s++) {
+        const multipliers = others.map((high, j) => {
+          const g = factors[j < i ? j : j + 1];
+          return high ? g.high : g.low;
+        });
+        multipliers.splice(i, 0, f.low * (f.high / f.low) ** (s / (ENVELOPE_STEPS - 1)));
+        widen(scaledModel(part, factors, multipliers), frequencies, min, max);
+      }
+    }
+  });
+}
 
 /** Every corner's high/low assignment, in binary order: corner c has factor i high when bit i of c is set. */
 export function allCorners(count: number): boolean[][] {
@@ -88,6 +127,7 @@ export function partCorners(part: Part, operating: TemperatureRange, frequencies
       } else everyBand = false;
     }
   }
+  widenBetweenCorners(part, factors, frequencies, min, max);
   const nominal = part.nominal;
   return {
     operating,

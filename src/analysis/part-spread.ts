@@ -127,14 +127,19 @@ export function spreadModel(part: Part, factors: readonly SpreadFactor[], high: 
   const key = factors.map((f, i) => `${f.quantity}=${multipliers[i]}`).join(',');
   let element = byKey.get(key);
   if (!element) {
-    const byLeaf = new Map<string, number>();
-    let value = 1;
-    factors.forEach((f, i) => {
-      if (f.quantity === 'value') value = multipliers[i];
-      else byLeaf.set(LEAF_OF_PARAMETER[f.quantity], multipliers[i]);
-    });
-    element = scaleLeaves(part.network, (leaf) => valueFactorOf(part, leaf, value) * (leaf.name !== undefined ? (byLeaf.get(leaf.name) ?? 1) : 1));
+    element = scaledModel(part, factors, multipliers);
     byKey.set(key, element);
   }
   return element;
+}
+
+/** The part's model with each factor's quantity at the multiplier given for it (anywhere in its range); not cached. */
+export function scaledModel(part: Part, factors: readonly SpreadFactor[], multipliers: readonly number[]): Element {
+  const byLeaf = new Map<string, number>();
+  let value = 1;
+  factors.forEach((f, i) => {
+    if (f.quantity === 'value') value = multipliers[i];
+    else byLeaf.set(LEAF_OF_PARAMETER[f.quantity], multipliers[i]);
+  });
+  return scaleLeaves(part.network, (leaf) => valueFactorOf(part, leaf, value) * (leaf.name !== undefined ? (byLeaf.get(leaf.name) ?? 1) : 1));
 }

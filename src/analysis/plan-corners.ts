@@ -35,7 +35,7 @@ export interface CornerFigures {
   extremes: Record<string, Extreme>;
   /** At the worst corner: each parasitic spread's extreme, by part. */
   parasiticExtremes: Record<string, Record<string, Extreme>>;
-  /** Least and greatest |Z| over the corners at each sweep point, Ω (for the chart; not in plan --json). */
+  /** Least and greatest |Z| over the corners and the nominal rail at each sweep point, Ω (for the chart; not in plan --json). */
   envelope: { minOhm: number[]; maxOhm: number[] } | null;
 }
 
@@ -118,6 +118,7 @@ export function cornerFigures(plan: Plan, placements: readonly Placement[], oper
     failing: result.failing,
     extremes,
     parasiticExtremes,
-    envelope: { minOhm: Array.from(result.envelope.min), maxOhm: Array.from(result.envelope.max) },
+    // The nominal rail is drawn inside its envelope (between corners |Z| need not be monotone).
+    envelope: { minOhm: Array.from(result.envelope.min, (z, i) => Math.min(z, nominal.magnitude[i])), maxOhm: Array.from(result.envelope.max, (z, i) => Math.max(z, nominal.magnitude[i])) },
   };
 }

@@ -76,7 +76,7 @@ export const impedanceChart = xyChart<PartChartInput>({
         ...(input.resonances.length > 0 ? [{ kind: 'point' as const, color: RESONANCE_MARK, text: KEY_TEXT.resonance }] : []),
         ...(rated ? [{ kind: 'point' as const, color: RATED_MARK, shape: 'diamond', text: ratedKeyText(rated.v, rated.f) }] : []),
         ...(band.key ? [band.key] : []),
-        ...(input.spread ? [{ kind: 'spread' as const, text: partSpreadKeyText(input.spread.corners) }] : []),
+        ...(input.spread ? [{ kind: 'spread' as const, text: partSpreadKeyText() }] : []),
       ],
     };
   },

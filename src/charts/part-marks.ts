@@ -25,7 +25,7 @@ export interface PartChartInput {
   selfResonance?: Resonance;
   usableBand: UsableBand | null;
   within?: number;
-  /** The least and greatest |Z| over the corners of the part's spread, on the plain sweep; absent without one. */
+  /** The least and greatest |Z| over the part's spread (src/analysis/part-corners.ts), on the plain sweep; absent without one. */
   spread?: { frequencies: Float64Array; min: Float64Array; max: Float64Array; corners: number } | null;
 }
 

@@ -68,14 +68,14 @@ export function targetKeyText(target: number | undefined): string {
   return `target${target !== undefined ? ` ${formatEng(target, 'Ω')}` : ''}`;
 }
 
-/** "|Z| over 8 corners of the spread": a part's envelope in a key. */
-export function partSpreadKeyText(corners: number): string {
-  return `|Z| over ${corners} corners of the spread`;
+/** "range of |Z| over the spread": a part's envelope in a key (corners, nominal and the values between). */
+export function partSpreadKeyText(): string {
+  return 'range of |Z| over the spread';
 }
 
-/** "rail |Z| over 1,024 corners": a rail's envelope in a key. */
+/** "range of rail |Z| over nominal and 1,024 corners": a rail's envelope in a key. */
 export function railSpreadKeyText(corners: number): string {
-  return `rail |Z| over ${corners.toLocaleString('en-GB')} corners`;
+  return `range of rail |Z| over nominal and ${corners.toLocaleString('en-GB')} corners`;
 }
 
 /** A decade mark on the complex plane: "1 MHz", or "1 kHz – 10 MHz" for decades drawn on one spot. */

@@ -50,6 +50,26 @@ describe('a series RLC capacitor at ±tolerance', () => {
     expect(corners.envelope.max[i] * w * C * (1 - t)).toBeCloseTo(1, 6);
     expect(corners.envelope.min[i] * w * C * (1 + t)).toBeCloseTo(1, 6);
   });
+
+  it('the envelope at every sweep point is |Z| over C anywhere in C·(1 ± t): down to the ESR between the ends\' SRFs', () => {
+    // |R + j(ωL − 1/(ωC'))| for C' in [C(1 − t), C(1 + t)]: greatest at an end; least at an end, or R where
+    // ωL = 1/(ωC') has a root in the range (series R-L-C closed form, as above). A dense sweep over C' in
+    // the test (2,001 points) stands for "anywhere".
+    const R = 0.018;
+    const z = (f: number, c: number) => Math.hypot(R, 2 * Math.PI * f * L - 1 / (2 * Math.PI * f * c));
+    let inside = 0;
+    sweep.forEach((f, i) => {
+      const values = Array.from({ length: 2001 }, (_, k) => z(f, C * (1 - t) * ((1 + t) / (1 - t)) ** (k / 2000)));
+      const least = f >= SRF(L, C * (1 + t)) && f <= SRF(L, C * (1 - t)) ? R : Math.min(...values);
+      if (least === R) inside++;
+      expect(Math.abs(corners.envelope.max[i] / Math.max(...values) - 1)).toBeLessThan(1e-9);
+      // Geometric steps of 0.83% in C: within 0.5% of the least |Z| near resonance, exact elsewhere.
+      expect(corners.envelope.min[i] / least - 1).toBeLessThan(5e-3);
+      expect(corners.envelope.min[i] / Math.min(...values)).toBeGreaterThan(1 - 1e-9);
+    });
+    // The sweep has points between the two SRFs (22.6 MHz and 25 MHz, at 50 per decade): two.
+    expect(inside).toBe(2);
+  });
 });
 
 describe('temperature with tolerance, and parasitic spreads', () => {

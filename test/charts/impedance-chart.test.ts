@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { PLOT_WIDTH } from '../../src/charts/frame.js';
 import { RESONANCE_MARK } from '../../src/charts/palette.js';
-import { renderPartChart } from '../../src/charts/part-charts.js';
+import { PART_CHARTS, renderPartChart } from '../../src/charts/part-charts.js';
 import { formatEng } from '../../src/units/format.js';
 import { analysed, beadPart, capacitorPart, resistorPart } from './fixtures.js';
 import { RATED_MARK } from '../../src/charts/palette.js';
@@ -85,5 +85,30 @@ describe('impedance chart', () => {
       expect((out.spec as { datasets: Rows }).datasets.rated).toEqual([]);
       expect(svgTexts(out.svg).some((t) => t.startsWith('rated'))).toBe(false);
     }
+  });
+  it('draws the envelope of a spread behind the curves, as given, and the nominal |Z| inside it', async () => {
+    // The demo capacitor with C anywhere in C·(1 ± 10%): |Z| = |R + j(ωL − 1/(ωC))| (series R-L-C, as above;
+    // its 1 GΩ leakage is left out, which moves |Z| by far less than a pixel here) is greatest at an end of
+    // the range and least at an end or, between the ends' SRFs, at resonance, where it is R.
+    const a = analysed(capacitorPart);
+    const frequencies = Float64Array.from(a.frequencies);
+    const z = (f: number, c: number) => Math.hypot(0.018, 2 * Math.PI * f * L - 1 / (2 * Math.PI * f * c));
+    const srf = (c: number) => 1 / (2 * Math.PI * Math.sqrt(L * c));
+    const min = frequencies.map((f) => (f >= srf(C * 1.1) && f <= srf(C * 0.9) ? 0.018 : Math.min(z(f, C * 0.9), z(f, C * 1.1))));
+    const max = frequencies.map((f) => Math.max(z(f, C * 0.9), z(f, C * 1.1)));
+    const out = await renderPartChart('impedance', { ...a, spread: { frequencies, min, max, corners: 2 } });
+    expect(svgTexts(out.svg)).toContain('range of |Z| over the spread');
+    const layers = (PART_CHARTS.impedance.spec() as { layer: { data?: { name?: string } }[] }).layer.map((l) => l.data?.name);
+    expect(layers.indexOf('spread')).toBeGreaterThan(-1);
+    expect(layers.indexOf('spread')).toBeLessThan(layers.indexOf('curves'));
+    const rows = (out.spec as { datasets: Rows }).datasets.spread;
+    expect(rows).toHaveLength(frequencies.length);
+    rows.forEach((r, i) => expect([r.f, r.v, r.v2]).toEqual([frequencies[i], min[i], max[i]]));
+    for (const r of rows) {
+      const nominal = z(r.f as number, C);
+      expect(r.v as number).toBeLessThanOrEqual(nominal * (1 + 1e-12));
+      expect(r.v2 as number).toBeGreaterThanOrEqual(nominal * (1 - 1e-12));
+    }
+    expect((await renderPartChart('impedance', a)).spec).toMatchObject({ datasets: { spread: [] } });
   });
 });

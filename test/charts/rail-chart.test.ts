@@ -44,4 +44,22 @@ describe('rail chart', () => {
     expect(texts.some((t) => t.startsWith('peak'))).toBe(false);
     expect(out.description).toContain('No peaks.');
   });
+
+  it('draws the envelope of the corners as a tinted band behind every curve, and its key says what it is', async () => {
+    const data = demoRail();
+    const min = Array.from(data.totalOhm, (z) => z * 0.8);
+    const max = Array.from(data.totalOhm, (z) => z * 1.25);
+    const out = await renderRailChart({ ...data, envelope: { minOhm: min, maxOhm: max, corners: 1024 } });
+    expect(svgTexts(out.svg)).toContain('range of rail |Z| over nominal and 1,024 corners');
+    const layers = (railChart.spec() as { layer: { data?: { name?: string } }[] }).layer.map((l) => l.data?.name);
+    expect(layers.indexOf('spread')).toBeGreaterThan(-1);
+    for (const drawnLater of ['branches', 'curves', 'peaks']) expect(layers.indexOf('spread')).toBeLessThan(layers.indexOf(drawnLater));
+    const rows = (out.spec as { datasets: Rows }).datasets.spread;
+    expect(rows).toHaveLength(data.frequencies.length);
+    rows.forEach((r, i) => expect([r.f, r.v, r.v2]).toEqual([data.frequencies[i], min[i], max[i]]));
+    // Without an envelope, no band and no key entry.
+    const plain = await renderRailChart(data);
+    expect((plain.spec as { datasets: Rows }).datasets.spread).toEqual([]);
+    expect(svgTexts(plain.svg).some((t) => t.startsWith('range of'))).toBe(false);
+  });
 });

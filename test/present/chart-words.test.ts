@@ -21,8 +21,8 @@ describe('chart words', () => {
   });
 
   it('count the corners of a spread, thousands grouped', () => {
-    expect(partSpreadKeyText(8)).toBe('|Z| over 8 corners of the spread');
-    expect(railSpreadKeyText(1024)).toBe('rail |Z| over 1,024 corners');
+    expect(partSpreadKeyText()).toBe('range of |Z| over the spread');
+    expect(railSpreadKeyText(1024)).toBe('range of rail |Z| over nominal and 1,024 corners');
   });
 
   it('word the load step and the before-and-after charts', () => {
