@@ -6,13 +6,15 @@ import { analysePart, type PartAnalysis } from '../analysis/part-figures.js';
 import { analysePlan, planFiguresWithoutCurves } from '../analysis/plan-figures.js';
 import { partSummary } from '../analysis/summary.js';
 import { sweepCsv } from '../analysis/sweep-table.js';
+import { logSweep } from '../circuit/sweep.js';
+import { partSubcircuit, partTouchstone } from '../measure/part-export.js';
 import { comparisonKey } from '../model/comparison.js';
 import type { Library } from '../model/library.js';
 import type { Part } from '../model/part.js';
 import type { Plan } from '../model/plan.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 import { escapeJsonMarkup } from '../present/escape.js';
-import { selectionText } from '../present/part-words.js';
+import { selectionText, sweepText } from '../present/part-words.js';
 import { libraryRevision } from '../history/library-revision.js';
 import { comparisonSlug } from '../present/slugs.js';
 import { writeFileDeep } from './output.js';
@@ -23,6 +25,7 @@ import {
   automaticComparisons,
   folioHeader,
   partPageData,
+  modelFileNames,
   type ChartOnPage,
   type ComparisonPageData,
   type FolioData,
@@ -147,6 +150,7 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
         const folder = join(siteDir, 'parts', part.id);
         timedWrite(timings, join(folder, 'sweep.csv'), () => sweepCsv(a));
         timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(partSummary(a)));
+        writeModelFiles(part, folder, library.settings.sweep, timings);
         page = partPageData(a, drawn.map((c) => placeChart(c, folder, timings)));
       }
       progress.tick();
@@ -167,6 +171,15 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   // Carried-over parts keep the page the last build wrote; only the others are rendered.
   const partPages = parts.filter((p) => !carried.has(p.id));
   return { ...folioHeader(library), parts, partPages, comparisons, plans, reviews };
+}
+
+/**
+ * The model for simulators, beside the page: a one-port Touchstone file over the library's sweep (12
+ * significant digits, a quarter shorter than in full) and a SPICE subcircuit.
+ */
+function writeModelFiles(part: Part, folder: string, sweep: Library['settings']['sweep'], timings?: AssembleTimings): void {
+  timedWrite(timings, join(folder, modelFileNames(part.id).touchstone), () => partTouchstone(part, logSweep(sweep), sweepText(sweep), 12));
+  timedWrite(timings, join(folder, modelFileNames(part.id).spice), () => partSubcircuit(part));
 }
 
 async function planPage(plan: Plan, library: Library, siteDir: string, charts: ChartMaker, timings?: AssembleTimings): Promise<PlanPageData> {

@@ -45,6 +45,8 @@ export interface PartPageData {
   sourceFile: string;
   sourceHash: string;
   sweepText: string;
+  /** The model for simulators, beside the page. */
+  modelFiles: { touchstone: string; spice: string };
   /** Site-relative path of the part's PDF datasheet, when PDFs are built. */
   pdfFile?: string;
 }
@@ -79,6 +81,11 @@ export interface FolioData {
   reviews: ReviewPageData[];
 }
 
+/** The model files beside a part's page, named for the part so a download keeps its name. */
+export function modelFileNames(id: string): { touchstone: string; spice: string } {
+  return { touchstone: `${id}.s1p`, spice: `${id}.subckt` };
+}
+
 export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageData {
   const { part } = a;
   const text = partPageText(a);
@@ -107,6 +114,7 @@ export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageDa
     sourceFile: part.source.path,
     sourceHash: part.source.hash,
     sweepText: sweepText(a.sweep),
+    modelFiles: modelFileNames(part.id),
   };
 }
 

@@ -63,14 +63,17 @@ function header(part: ExportablePart, what: string): string[] {
   ].map(ascii);
 }
 
-/** A version 1 one-port file: the model's S11 re 50 Ω, RI, at each frequency of `frequencies` (Hz). */
-export function partTouchstone(part: ExportablePart, frequencies: Float64Array, sweepText: string): string {
+/**
+ * A version 1 one-port file: the model's S11 re 50 Ω, RI, at each frequency of `frequencies` (Hz), each
+ * number in full or to `digits` significant digits.
+ */
+export function partTouchstone(part: ExportablePart, frequencies: Float64Array, sweepText: string, digits?: number): string {
   const z = impedanceSweep(part.network, frequencies);
   const re = new Float64Array(frequencies.length);
   const im = new Float64Array(frequencies.length);
   for (let k = 0; k < frequencies.length; k++) [re[k], im[k]] = reflectionOf(z.re[k], z.im[k], EXPORT_REFERENCE_OHM);
   const comments = [TOUCHSTONE_MARK, ...header(part, `one-port S-parameters of the model, reference ${EXPORT_REFERENCE_OHM} ohm, ${ascii(sweepText)}`)];
-  return writeTouchstone({ version: 1, ports: 1, parameter: 'S', format: 'RI', unit: 'Hz', reference: EXPORT_REFERENCE_OHM, frequencies, re, im, comments });
+  return writeTouchstone({ version: 1, ports: 1, parameter: 'S', format: 'RI', unit: 'Hz', reference: EXPORT_REFERENCE_OHM, frequencies, re, im, comments, digits });
 }
 
 /** A SPICE subcircuit of the part's element tree, pins 1 and 2. */

@@ -60,6 +60,20 @@ describe('the demo folio', () => {
     expect(csv.length - 1).toBe(801); // 100 Hz to 10 GHz at 100 per decade, both ends
   });
 
+  it('offers the model as a one-port Touchstone file and a SPICE subcircuit, linked from every part page', () => {
+    for (const part of library.parts) {
+      const html = read(siteA, `parts/${part.id}/index.html`);
+      expect(html).toContain(`href="../../parts/${part.id}/${part.id}.s1p" download>`);
+      expect(html).toContain(`href="../../parts/${part.id}/${part.id}.subckt" download>`);
+      const s1p = read(siteA, `parts/${part.id}/${part.id}.s1p`).split('\n');
+      expect(s1p[0]).toBe('! zfolio export');
+      expect(s1p[1].startsWith(`! ${part.id}: `) && s1p[1].endsWith(`(${part.kind})`)).toBe(true);
+      // The same sweep as the CSV: 801 points after the header and option line.
+      expect(s1p.filter((l) => /^\d/.test(l))).toHaveLength(801);
+      expect(read(siteA, `parts/${part.id}/${part.id}.subckt`)).toContain(`.SUBCKT ${part.id} 1 2\n`);
+    }
+  });
+
   it('has an index listing every part, and comparison pages including one automatic one per kind', () => {
     const index = read(siteA, 'index.html');
     for (const part of library.parts) expect(index).toContain(`href="parts/${part.id}/index.html"`);
