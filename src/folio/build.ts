@@ -3,7 +3,8 @@
 
 import { cpSync } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
-import type { Diagnostic } from '../model/diagnostics.js';
+import { sortedDiagnostics, type Diagnostic } from '../model/diagnostics.js';
+import { libraryMeasurements } from '../measure/part-measurements.js';
 import { loadLibrary, type Library } from '../model/library.js';
 import { railVerdicts } from '../analysis/review-checks.js';
 import { reviewWarnings } from '../model/review-consistency.js';
@@ -141,6 +142,10 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   const history = buildHistory(library, options.since);
   diagnostics.push(...history.diagnostics);
   if (history.diagnostics.some((d) => d.severity === 'error')) return result;
+  // Measurement files read and compared with their parts' models: an unreadable one stops the build here.
+  const measured = libraryMeasurements(library.parts, library.settings.measurementWarnDb);
+  diagnostics.push(...sortedDiagnostics(measured.diagnostics));
+  if (measured.diagnostics.some((d) => d.severity === 'error')) return result;
 
   // Chromium first: one that is missing or will not start is known before the build's time is spent, and the
   // pages then link only the PDFs there are (kept ones, as a build without --pdf).

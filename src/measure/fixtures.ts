@@ -13,10 +13,12 @@
 // S21 = −2·Y21·Y0/ΔY, ΔY = (Y11 + Y0)(Y22 + Y0) − Y12·Y21, Y0 = 1/Z0.
 
 import type { Diagnostic } from '../model/diagnostics.js';
+import { MEASUREMENT_FIXTURES, type MeasurementFixture } from '../model/measurement-entry.js';
 import type { NetworkData } from './network-data.js';
 
-export const FIXTURES = ['reflection', 'shunt-thru', 'series-thru'] as const;
-export type Fixture = (typeof FIXTURES)[number];
+/** The fixtures, named as part files and the command line name them. */
+export const FIXTURES = MEASUREMENT_FIXTURES;
+export type Fixture = MeasurementFixture;
 
 /** Z = re + j·im, Ω, at each frequency of a measurement. */
 export interface MeasuredImpedance {

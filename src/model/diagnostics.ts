@@ -40,6 +40,11 @@ export function formatPosition(at: SourcePosition): string {
   return `${displayPath(at.file)}:${at.line}:${at.column}`;
 }
 
+/** Diagnostics in file, line, column order (then by message), as reports list them. */
+export function sortedDiagnostics(list: readonly Diagnostic[]): Diagnostic[] {
+  return [...list].sort((a, b) => (a.file < b.file ? -1 : a.file > b.file ? 1 : 0) || a.line - b.line || a.column - b.column || (a.message < b.message ? -1 : a.message > b.message ? 1 : 0));
+}
+
 /** The most problems listed for one file; the rest are counted in one closing line. */
 export const PER_FILE_LIMIT = 100;
 /** A last guard on message length: every found value is quoted short, but ids and paths are the user's. */

@@ -181,16 +181,36 @@ export function readTextFile(absolute: string, shown: string, diagnostics: Diagn
   return bytes.toString('utf8');
 }
 
+/**
+ * The text of a data file the library names (a measurement), or what is wrong with it in words: checked like
+ * a library file (kind before opening, links only inside the library, UTF-8), up to `maxBytes`.
+ */
+export function readDataFile(root: string, path: string, maxBytes: number, what: string): { text: string } | { problem: string } {
+  const entry = resolveEntry(root, path);
+  if (entry === undefined) return { problem: `no file ${path} in the library` };
+  if ('problem' in entry) return { problem: `${path} is ${entry.problem}` };
+  if (!entry.stats.isFile()) return { problem: `${path} is ${kindOf(entry.stats)}; expected ${what}` };
+  let bytes: Buffer;
+  try {
+    bytes = readRegularFile(entry.real, path, maxBytes, what);
+  } catch (error) {
+    return { problem: error instanceof FileProblem ? error.message : `${path} cannot be read (${codeOf(error)})` };
+  }
+  if (firstInvalidUtf8(bytes) >= 0) return { problem: `${path} is not text (it holds a byte that is not UTF-8); expected ${what}` };
+  return { text: bytes.toString('utf8') };
+}
+
 class FileProblem extends Error {}
 
-function readRegularFile(absolute: string, path: string): Buffer {
+function readRegularFile(absolute: string, path: string, maxBytes = MAX_FILE_BYTES, what = 'a YAML file'): Buffer {
   // O_NONBLOCK: should the entry have become a pipe since it was checked, opening it still returns at once.
   const fd = openSync(absolute, constants.O_RDONLY | constants.O_NONBLOCK);
   try {
     const stats = fstatSync(fd);
-    if (!stats.isFile()) throw new FileProblem(`${path} is ${kindOf(stats)}; expected a YAML file`);
-    if (stats.size > MAX_FILE_BYTES) {
-      throw new FileProblem(`the file is ${(stats.size / 1048576).toFixed(1)} MB; a library file may be at most ${MAX_FILE_BYTES / 1048576} MB`);
+    if (!stats.isFile()) throw new FileProblem(`${path} is ${kindOf(stats)}; expected ${what}`);
+    if (stats.size > maxBytes) {
+      const which = maxBytes === MAX_FILE_BYTES ? 'a library file' : what;
+      throw new FileProblem(`${maxBytes === MAX_FILE_BYTES ? 'the file' : path} is ${(stats.size / 1048576).toFixed(1)} MB; ${which} may be at most ${maxBytes / 1048576} MB`);
     }
     const buffer = Buffer.alloc(stats.size);
     let filled = 0;

@@ -9,6 +9,7 @@ import { ID_PATTERN, readPart, type Part } from './part.js';
 import { readPlan, uniqueRails, type Plan } from './plan.js';
 import { comparisonKey, readComparison, type Comparison } from './comparison.js';
 import { readReview, type Review } from './review.js';
+import { loadMeasurementFiles } from './measurement-files.js';
 import { DEFAULT_SETTINGS, readSettings, type FolioSettings } from './settings.js';
 import { parseYamlSource, positionOf, type SourceFile } from './source.js';
 import { coverageGap, type TemperatureRange } from './spread.js';
@@ -84,6 +85,7 @@ export function loadLibrary(root: string): LoadResult {
     parts.push(part);
   }
 
+  loadMeasurementFiles(root, parts, diagnostics);
   if (settings) temperatureCoverage(parts, settings.temperature, diagnostics);
 
   const unreadable = { parts: unreadableParts, comparisons: new Map<string, string>(), plans: new Map<string, string>() };

@@ -14,6 +14,7 @@ import { MAX_ID_LENGTH } from './page-names.js';
 import { positionOf, type SourceFile } from './source.js';
 import { formatVoltageRating, readVoltageRatings, type VoltageRating } from './voltage-rating.js';
 import { readCoefficient, readDielectricCharacteristic, readSpreadQuantity, readTemperatureBlock, readTolerance, type Bounds, type PartSpread } from './spread.js';
+import { readMeasurementEntries, type MeasurementEntry } from './measurement-entry.js';
 
 export const PART_KINDS = ['capacitor', 'inductor', 'resistor', 'bead', 'network'] as const;
 export type PartKind = (typeof PART_KINDS)[number];
@@ -81,12 +82,14 @@ export interface Part {
   cost?: number;
   tags: string[];
   notes?: string;
+  /** Measurements of the part (files under measurements/), in the order written. */
+  measurements: MeasurementEntry[];
   source: SourceFile;
   /** Where the id is written, for messages about this part. */
   at: SourcePosition;
 }
 
-const COMMON_FIELDS = ['id', 'kind', 'title', 'nominal', 'marking', 'tolerance', 'voltage', 'current', 'power', 'package', 'tags', 'notes', 'band', 'cost'];
+const COMMON_FIELDS = ['id', 'kind', 'title', 'nominal', 'marking', 'tolerance', 'voltage', 'current', 'power', 'package', 'tags', 'notes', 'band', 'cost', 'measurements'];
 const FIELDS_BY_KIND: Readonly<Record<PartKind, readonly string[]>> = {
   capacitor: [...COMMON_FIELDS, 'dielectric', 'safety', 'parasitics', 'dc-bias', 'mounting', 'temperature', 'tc'],
   inductor: [...COMMON_FIELDS, 'parasitics', 'temperature', 'tc'],
@@ -163,6 +166,7 @@ export function readPart(ctx: ReadContext): Part | undefined {
     tags: root.textList('tags'),
     notes: root.text('notes'),
     cost: readCost(root),
+    measurements: readMeasurementEntries(root),
     dcBias: [],
     source,
     at: root.position('id'),

@@ -125,7 +125,7 @@ export function readReview<C, P>(ctx: ReadContext, targets: ReviewTargets<C, P>)
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 
 /** A calendar date written YYYY-MM-DD (ISO 8601): the form, then that the day exists in that month and year. */
-function readDate(fields: Fields, name: string): string | undefined {
+export function readDate(fields: Fields, name: string): string | undefined {
   const text = fields.text(name, { pattern: ISO_DATE, patternHint: 'a date written YYYY-MM-DD' });
   if (text === undefined) return undefined;
   const [year, month, day] = text.split('-').map(Number);

@@ -23,6 +23,8 @@ export interface FolioSettings {
   derating: number;
   /** The ambient temperatures the library's parts work in, °C: the span of their temperature corners. */
   temperature: TemperatureRange;
+  /** A model that misses its own measurement by more than this rms |Z| error, dB, is a warning (common practice: 1 dB). */
+  measurementWarnDb: number;
 }
 
 /** 100 Hz to 10 GHz covers bulk electrolytics through RF inductors; 100 points a decade resolves Q ≈ 100. */
@@ -34,7 +36,11 @@ export const DEFAULT_SETTINGS: Readonly<FolioSettings> = {
   derating: 0.8,
   // The commercial range (common practice); a library states its own in folio.yaml.
   temperature: { fromC: 0, toC: 70 },
+  measurementWarnDb: 1,
 };
+
+/** The largest warning threshold a library may set: 40 dB is a factor of 100 in |Z|. */
+export const MAX_MEASUREMENT_WARN_DB = 40;
 
 export const MAX_POINTS_PER_DECADE = 10_000;
 
@@ -44,7 +50,7 @@ export function readSettings(ctx: ReadContext): FolioSettings | undefined {
   if (contents === null) return { ...DEFAULT_SETTINGS };
   const root = Fields.of(ctx, contents, '');
   if (!root) return undefined;
-  root.expect(['title', 'owner', 'notice', 'sweep', 'band', 'paper', 'derating', 'temperature']);
+  root.expect(['title', 'owner', 'notice', 'sweep', 'band', 'paper', 'derating', 'temperature', 'measurements']);
   const settings: FolioSettings = { ...DEFAULT_SETTINGS, sweep: { ...DEFAULT_SETTINGS.sweep } };
   settings.title = root.text('title') ?? settings.title;
   settings.owner = root.text('owner');
@@ -85,5 +91,23 @@ export function readSettings(ctx: ReadContext): FolioSettings | undefined {
     if (derating > 1) root.error('derating', `expected a fraction of the rating up to 100%, found ${quote(scalarText(root.valueNode('derating')) ?? '')}`);
     else settings.derating = derating;
   }
+  const measurements = root.map('measurements');
+  if (measurements) {
+    measurements.expect(['warn-above']);
+    settings.measurementWarnDb = readDecibels(measurements, 'warn-above') ?? settings.measurementWarnDb;
+  }
   return ctx.diagnostics.errorCount > before ? undefined : settings;
+}
+
+/** A level in decibels above zero: "1 dB", "0.5dB" or a bare number of dB. */
+function readDecibels(fields: Fields, name: string): number | undefined {
+  if (!fields.has(name)) return undefined;
+  const text = scalarText(fields.valueNode(name))?.trim() ?? '';
+  const m = /^(\d+(?:\.\d*)?|\.\d+)\s*(?:dB)?$/.exec(text);
+  const value = m ? Number(m[1]) : NaN;
+  if (!(value > 0) || value > MAX_MEASUREMENT_WARN_DB) {
+    fields.error(name, `expected an rms |Z| error in dB above 0 and at most ${MAX_MEASUREMENT_WARN_DB} (e.g. 1 dB), found ${quote(text)}`);
+    return undefined;
+  }
+  return value;
 }

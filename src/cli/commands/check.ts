@@ -5,8 +5,9 @@ import { EXIT_BAD_INPUT, EXIT_OK, type CommandIO } from '../io.js';
 import { loadReported, plural } from '../report.js';
 import { railVerdicts } from '../../analysis/review-checks.js';
 import { reviewWarnings } from '../../model/review-consistency.js';
-import { formatDiagnostic } from '../../model/diagnostics.js';
+import { formatDiagnostic, sortedDiagnostics } from '../../model/diagnostics.js';
 import { buildHistory } from '../../folio/build-history.js';
+import { libraryMeasurements } from '../../measure/part-measurements.js';
 
 export const checkHelp = `Usage: zfolio check [--library DIR]
 
@@ -37,12 +38,22 @@ export function check(args: string[], io: CommandIO): number {
     io.err(`${plural(errors, 'error')} in the library's reviews\n`);
     return EXIT_BAD_INPUT;
   }
+  // Measurement files, read as Touchstone and compared with their parts' models.
+  const measured = libraryMeasurements(library.parts, library.settings.measurementWarnDb);
+  for (const d of sortedDiagnostics(measured.diagnostics)) io.err(formatDiagnostic(d) + '\n');
+  const measurementErrors = measured.diagnostics.filter((d) => d.severity === 'error').length;
+  if (measurementErrors > 0) {
+    io.err(`${plural(measurementErrors, 'error')} in the measurements\n`);
+    return EXIT_BAD_INPUT;
+  }
+  const measurements = [...measured.byPart.values()].reduce((n, list) => n + list.length, 0);
   // Parts always; comparisons, plans and reviews when the library holds any.
   const held = [
     plural(library.parts.length, 'part'),
     ...(library.comparisons.length ? [plural(library.comparisons.length, 'comparison')] : []),
     ...(library.plans.length ? [plural(library.plans.length, 'rail plan')] : []),
     ...(library.reviews.length ? [plural(library.reviews.length, 'review')] : []),
+    ...(measurements ? [plural(measurements, 'measurement')] : []),
   ];
   io.out(`ok: ${held.join(', ')} in ${plural(library.sources.length, 'file')}, no errors\n`);
   return EXIT_OK;
