@@ -39,7 +39,7 @@ const EXPECTED: Record<string, string[]> = {
   // The near miss already names "nominal": it is not reported a second time as missing.
   'parts/07-near-miss-nominl.yaml': [`parts/07-near-miss-nominl.yaml:3:1: unknown field "nominl"; did you mean "nominal"?`],
   'parts/08-unknown-field-far.yaml': [
-    `parts/08-unknown-field-far.yaml:4:1: unknown field "colour"; expected one of id, kind, title, nominal, marking, tolerance, voltage, current, power, package, tags, notes, band, cost, parasitics, temperature, tc`,
+    `parts/08-unknown-field-far.yaml:4:1: unknown field "colour"; expected one of id, kind, title, nominal, marking, tolerance, voltage, current, power, package, tags, notes, band, cost, measurements, parasitics, temperature, tc`,
   ],
   'parts/09-missing-id.yaml': [
     `parts/09-missing-id.yaml:1:1: missing field "id" (a unique id of letters, digits, ".", "_" and "-", e.g. CAP-0402-100N)`,

@@ -194,7 +194,7 @@ describe('mounting inductance of each placement', () => {
       return diagnostics.sorted().map(formatDiagnostic);
     };
     expect(errors('id: MT-L\nkind: inductor\nnominal: 1u\nmounting: 1nH\n')).toEqual([
-      'parts/l.yaml:4:1: unknown field "mounting"; expected one of id, kind, title, nominal, marking, tolerance, voltage, current, power, package, tags, notes, band, cost, parasitics, temperature, tc',
+      'parts/l.yaml:4:1: unknown field "mounting"; expected one of id, kind, title, nominal, marking, tolerance, voltage, current, power, package, tags, notes, band, cost, measurements, parasitics, temperature, tc',
     ]);
     expect(errors('id: MT-N\nkind: network\nbehaves-as: inductor\nnominal: 1u\nnetwork: {l: 1u}\nmounting: 1nH\n')).toEqual([
       'parts/l.yaml:6:11: mounting: a mounting inductance applies to capacitors placed on rails only; this network does not behave as a capacitor',

@@ -27,6 +27,7 @@ describe('defaults', () => {
       derating: 0.8,
       // The commercial temperature range (common practice).
       temperature: { fromC: 0, toC: 70 },
+      measurementWarnDb: 1,
     });
   });
 

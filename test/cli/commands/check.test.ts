@@ -1,5 +1,7 @@
 // zfolio check: every problem on stderr as file:line:col, exit 1; a summary on stdout and exit 0 when sound.
 
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { formatDiagnostic } from '../../../src/model/diagnostics.js';
@@ -32,7 +34,9 @@ describe('zfolio check', () => {
     expect(files('comparisons')).toBeGreaterThanOrEqual(2);
     expect(files('reviews')).toBeGreaterThanOrEqual(1);
     const reviews = files('reviews') === 1 ? '1 review' : `${files('reviews')} reviews`;
-    expect(r.out).toBe(`ok: ${files('parts')} parts, ${files('comparisons')} comparisons, ${files('plans')} rail plans, ${reviews} in ${total} files, no errors\n`);
+    // Measurements are counted by the entries that name them: every demo measurement file is named once.
+    const measurements = readdirSync(join(DEMO_LIBRARY, 'measurements')).length;
+    expect(r.out).toBe(`ok: ${files('parts')} parts, ${files('comparisons')} comparisons, ${files('plans')} rail plans, ${reviews}, ${measurements} measurements in ${total} files, no errors\n`);
   });
 
   it('fails the bad-parts corpus: exit 1, every diagnostic on stderr, one a line, then the count', async () => {
