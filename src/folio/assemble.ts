@@ -8,6 +8,9 @@ import { partSummary } from '../analysis/summary.js';
 import { sweepCsv } from '../analysis/sweep-table.js';
 import { logSweep } from '../circuit/sweep.js';
 import { partSubcircuit, partTouchstone } from '../measure/part-export.js';
+import type { PartMeasurement } from '../measure/part-measurements.js';
+import { measurementInputs } from '../model/measurement-entry.js';
+import { measurementChartData, measurementPageData, type MeasurementPageData } from './measurement-page.js';
 import { comparisonKey } from '../model/comparison.js';
 import type { Library } from '../model/library.js';
 import type { Part } from '../model/part.js';
@@ -70,7 +73,7 @@ function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimi
 }
 
 /** A part's page data as a build records it for the next: all but its charts and its PDF link. */
-export type RecordedPage = Omit<PartPageData, 'charts' | 'pdfFile'>;
+export type RecordedPage = Omit<PartPageData, 'charts' | 'pdfFile' | 'measurements'>;
 
 /**
  * A part's analysis, made the first time a figure of it is read: a chart maker needs only the part to find
@@ -115,6 +118,8 @@ export interface AssembleOptions {
    * are not even analysed unless a chart of theirs must be drawn again.
    */
   carried?: ReadonlyMap<string, RecordedPage | undefined>;
+  /** Each measured part against its measurements (src/measure/part-measurements.ts), by part id. */
+  measurements?: ReadonlyMap<string, readonly PartMeasurement[]>;
   /** Filled in when given. */
   timings?: AssembleTimings;
 }
@@ -124,7 +129,7 @@ export interface PdfLinks {
   review(slug: string): boolean;
 }
 
-export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), timings }: AssembleOptions): Promise<FolioData> {
+export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), measurements = new Map(), timings }: AssembleOptions): Promise<FolioData> {
   const analyse = (part: Part) => {
     const started = performance.now();
     const a = analysePart(part, library.settings.sweep, library.settings.within, library.settings.temperature);
@@ -144,7 +149,8 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
       if (carried.has(part.id)) {
         const drawn = shownElsewhere.has(part.id) ? (await charts.partCharts(a)).map(chartOnPage) : [];
         const recorded = carried.get(part.id);
-        page = recorded ? { ...recorded, charts: drawn } : partPageData(a, drawn);
+        page = recorded ? { ...recorded, charts: drawn, measurements: [] } : partPageData(a, drawn);
+        if (shownElsewhere.has(part.id)) page.measurements = await measurementSections(part, measurements.get(part.id), library, charts);
       } else {
         const drawn = await charts.partCharts(a);
         const folder = join(siteDir, 'parts', part.id);
@@ -152,6 +158,7 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
         timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(partSummary(a)));
         writeModelFiles(part, folder, library.settings.sweep, timings);
         page = partPageData(a, drawn.map((c) => placeChart(c, folder, timings)));
+        page.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
       }
       progress.tick();
       if (pdfLinks.part(part.id)) page.pdfFile = partPdfPath(part.id);
@@ -171,6 +178,19 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   // Carried-over parts keep the page the last build wrote; only the others are rendered.
   const partPages = parts.filter((p) => !carried.has(p.id));
   return { ...folioHeader(library), parts, partPages, comparisons, plans, reviews };
+}
+
+/** A part's measurement sections, their charts placed beside the page by `place` (or only drawn). */
+async function measurementSections(part: Part, found: readonly PartMeasurement[] | undefined, library: Library, charts: ChartMaker, place: (c: ChartArtifact) => ChartOnPage = chartOnPage): Promise<MeasurementPageData[]> {
+  if (!found) return [];
+  return Promise.all(
+    found.map(async (m, i) => {
+      const index = i + 1;
+      const inputs = `${part.source.path} ${part.source.hash}\n${measurementInputs([m.entry])}\n${m.fixture}`;
+      const drawn = await charts.measurementCharts(measurementChartData(part, m), index, inputs);
+      return measurementPageData(part, m, index, library.settings.measurementWarnDb, drawn.map(place));
+    }),
+  );
 }
 
 /**

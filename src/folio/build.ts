@@ -4,7 +4,7 @@
 import { cpSync } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
 import { sortedDiagnostics, type Diagnostic } from '../model/diagnostics.js';
-import { libraryMeasurements } from '../measure/part-measurements.js';
+import { libraryMeasurements, type PartMeasurement } from '../measure/part-measurements.js';
 import { loadLibrary, type Library } from '../model/library.js';
 import { railVerdicts } from '../analysis/review-checks.js';
 import { reviewWarnings } from '../model/review-consistency.js';
@@ -73,6 +73,8 @@ export interface BuildResult {
   pages: number;
   seconds: number;
   library?: Library;
+  /** Each measured part against its measurements, when the library loaded. */
+  measurements?: ReadonlyMap<string, readonly PartMeasurement[]>;
   /** The data the pages were rendered from (a carried-over part's charts are left out: its page was not rendered). */
   folio?: FolioData;
   /** PDFs written (site-relative paths) with their page counts. */
@@ -145,6 +147,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   // Measurement files read and compared with their parts' models: an unreadable one stops the build here.
   const measured = libraryMeasurements(library.parts, library.settings.measurementWarnDb);
   diagnostics.push(...sortedDiagnostics(measured.diagnostics));
+  result.measurements = measured.byPart;
   if (measured.diagnostics.some((d) => d.severity === 'error')) return result;
 
   // Chromium first: one that is missing or will not start is known before the build's time is spent, and the
@@ -204,7 +207,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     timings.load = clock();
 
     clock = stageClock();
-    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, timings: timings.assemble });
+    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, measurements: result.measurements, timings: timings.assemble });
     await addChanges(folio, run.history, options.charts ?? pool!, staging.dir);
     await pool?.close();
     Object.assign(timings.assemble, clock());

@@ -9,13 +9,15 @@ import { renderLoadStepCharts, type LoadStepChartData } from '../charts/load-ste
 import { renderChangeChart, type ChangeChartData } from '../charts/change-chart.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact } from './chart-maker.js';
+import { MEASUREMENT_CHART_KINDS, renderMeasurementCharts, type MeasurementChartData } from '../charts/measurement-charts.js';
 
 export type ChartJob =
   | { type: 'part'; input: PartChartInput }
   | { type: 'comparison'; inputs: PartChartInput[]; title: string }
   | { type: 'rail'; data: RailChartData }
   | { type: 'load-step'; data: LoadStepChartData }
-  | { type: 'change'; data: ChangeChartData };
+  | { type: 'change'; data: ChangeChartData }
+  | { type: 'measurement'; data: MeasurementChartData; index: number };
 
 /** The part of an analysis the charts read: typed arrays and plain objects only (no YAML nodes). */
 export function chartInput(a: PartAnalysis): PartChartInput {
@@ -38,6 +40,10 @@ export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {
   if (job.type === 'part') {
     const charts = await renderPartCharts(job.input);
     return PART_CHART_KINDS.map((key) => ({ key, ...charts[key] }));
+  }
+  if (job.type === 'measurement') {
+    const charts = await renderMeasurementCharts(job.data);
+    return MEASUREMENT_CHART_KINDS.map((kind) => ({ key: `${kind}-${job.index}`, ...charts[kind] }));
   }
   if (job.type === 'rail') return [{ key: 'rail', ...(await renderRailChart(job.data)) }];
   if (job.type === 'change') return [{ key: 'change', ...(await renderChangeChart(job.data)) }];

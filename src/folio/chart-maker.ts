@@ -4,6 +4,7 @@
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChangeChartData } from '../charts/change-chart.js';
+import type { MeasurementChartData } from '../charts/measurement-charts.js';
 
 export interface ChartArtifact {
   /** File-name-safe key: "impedance", "phase", "plane", "admittance", "overlay". */
@@ -25,4 +26,6 @@ export interface ChartMaker {
   loadStepCharts(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact[]>;
   /** A part's or a rail's |Z| at an earlier revision and now, on one chart. */
   changeChart(data: ChangeChartData): Promise<ChartArtifact>;
+  /** A part against its `index`-th measurement (1-based): |Z|, phase and residual; `inputsKey` names the part and measurement files. */
+  measurementCharts(data: MeasurementChartData, index: number, inputsKey: string): Promise<ChartArtifact[]>;
 }

@@ -17,6 +17,7 @@ import { chartInput, loadStepChartData, railChartData, renderChartJob, type Char
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 import type { ChangeChartData } from '../charts/change-chart.js';
+import type { MeasurementChartData } from '../charts/measurement-charts.js';
 
 export interface ChartPoolOptions {
   /** Folder for cached charts; none: no cache. */
@@ -109,6 +110,10 @@ export class ChartPool implements ChartMaker {
     const key = this.key('change', createHash('sha256').update(JSON.stringify(data)).digest('hex'));
     const [chart] = await this.cached(key, () => this.run({ type: 'change', data }));
     return chart;
+  }
+
+  async measurementCharts(data: MeasurementChartData, index: number, inputsKey: string): Promise<ChartArtifact[]> {
+    return this.cached(this.key('measurement', String(index), inputsKey), () => this.run({ type: 'measurement', data, index }));
   }
 
   /** Stop the workers and drop cache entries this build did not use, so the cache never grows stale. */

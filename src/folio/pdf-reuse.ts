@@ -10,6 +10,7 @@ import { createHash } from 'node:crypto';
 import { constants, copyFileSync, linkSync, mkdirSync, readdirSync, statSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import type { Library } from '../model/library.js';
+import { measurementInputs } from '../model/measurement-entry.js';
 import { partPdfPath, reviewPdfPath } from './assemble.js';
 import { reviewSlug } from '../present/slugs.js';
 
@@ -27,9 +28,9 @@ export interface PdfStamp {
  */
 export function pdfKeys(library: Library, site: string, reviewInputs: (slug: string) => string = () => ''): Map<string, string> {
   const hash = (...parts: string[]) => createHash('sha256').update(['pdf', site, ...parts].join('\n')).digest('hex').slice(0, 32);
-  const everything = library.sources.map((s) => `${s.path} ${s.hash}`).join('\n');
+  const everything = [...library.sources.map((s) => `${s.path} ${s.hash}`), ...library.parts.map((p) => measurementInputs(p.measurements))].join('\n');
   return new Map([
-    ...library.parts.map((p): [string, string] => [partPdfPath(p.id), hash('part', p.source.path, p.source.hash)]),
+    ...library.parts.map((p): [string, string] => [partPdfPath(p.id), hash('part', p.source.path, p.source.hash, measurementInputs(p.measurements))]),
     ...library.reviews.map((r): [string, string] => [reviewPdfPath(reviewSlug(r)), hash('review', reviewSlug(r), everything, ...[reviewInputs(reviewSlug(r))].filter(Boolean))]),
   ]);
 }

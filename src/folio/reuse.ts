@@ -16,6 +16,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Library } from '../model/library.js';
 import type { Part } from '../model/part.js';
+import { measurementInputs } from '../model/measurement-entry.js';
 import { PACKAGE_ROOT, VERSION } from '../version.js';
 import type { RecordedPage } from './assemble.js';
 import type { PartPageData } from './site-data.js';
@@ -103,9 +104,12 @@ export function siteKey(library: Library): string {
     .digest('hex');
 }
 
-/** The key of one part's folder: the shared key, the part file's path and content hash, and whether its page links a PDF. */
+/**
+ * The key of one part's folder: the shared key, the part file's path and content hash, its measurement
+ * files' paths and hashes, and whether its page links a PDF.
+ */
 export function partKey(site: string, part: Part, linksPdf: boolean): string {
-  return createHash('sha256').update(`${site}\n${part.source.path}\n${part.source.hash}\n${linksPdf ? 'pdf' : 'no pdf'}`).digest('hex').slice(0, 32);
+  return createHash('sha256').update(`${site}\n${part.source.path}\n${part.source.hash}\n${measurementInputs(part.measurements)}\n${linksPdf ? 'pdf' : 'no pdf'}`).digest('hex').slice(0, 32);
 }
 
 export function recordFile(cacheRoot: string, outDir: string): string {
@@ -129,7 +133,7 @@ export function dropRecord(file: string): void {
 /** A part's page data as JSON that reads back the same, or undefined (a number JSON cannot keep). */
 function recordedPage(page: PartPageData | undefined): RecordedPage | undefined {
   if (!page) return undefined;
-  const { charts: _charts, pdfFile: _pdfFile, ...rest } = page;
+  const { charts: _charts, pdfFile: _pdfFile, measurements: _measurements, ...rest } = page;
   let faithful = true;
   JSON.stringify(rest, (_key, value: unknown) => {
     if (typeof value === 'number' && (!Number.isFinite(value) || Object.is(value, -0))) faithful = false;

@@ -13,6 +13,7 @@ import { partPageText, type PartPageText } from './part-page.js';
 import { schematicSvg } from './schematic.js';
 import type { PlanPageData } from './plan-page.js';
 import type { ReviewPageData } from './review-page.js';
+import type { MeasurementPageData } from './measurement-page.js';
 
 /** A chart as a page shows it: inline SVG, caption, and the file its vega-lite spec is written to. */
 export interface ChartOnPage {
@@ -47,6 +48,8 @@ export interface PartPageData {
   sweepText: string;
   /** The model for simulators, beside the page. */
   modelFiles: { touchstone: string; spice: string };
+  /** The part against each of its measurements (filled in by the build; empty without measurements). */
+  measurements: MeasurementPageData[];
   /** Site-relative path of the part's PDF datasheet, when PDFs are built. */
   pdfFile?: string;
 }
@@ -115,6 +118,7 @@ export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageDa
     sourceHash: part.source.hash,
     sweepText: sweepText(a.sweep),
     modelFiles: modelFileNames(part.id),
+    measurements: [],
   };
 }
 

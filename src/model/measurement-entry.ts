@@ -29,6 +29,11 @@ export interface MeasurementEntry {
   hash?: string;
 }
 
+/** What a part's pages depend on besides its part file: each measurement file's path and content hash. */
+export function measurementInputs(entries: readonly MeasurementEntry[]): string {
+  return entries.map((e) => `${e.file} ${e.hash ?? ''}`).join('\n');
+}
+
 const ENTRY_FIELDS = ['file', 'fixture', 'note', 'date'];
 // Under measurements/, no backslash; and (checked below) no ".", ".." or empty segment: a file inside the folder.
 const FILE_PATTERN = /^measurements\/[^\\]+$/;

@@ -74,6 +74,24 @@ describe('the demo folio', () => {
     }
   });
 
+  it('shows each measured part against its measurement: file, the miss, three charts and the model-vs-fit table; no such section elsewhere', () => {
+    const measured = library.parts.filter((p) => p.measurements.length > 0);
+    expect(measured.length).toBeGreaterThanOrEqual(4);
+    for (const part of library.parts) {
+      const html = read(siteA, `parts/${part.id}/index.html`);
+      const sections = html.match(/<section class="measurement"/g) ?? [];
+      expect(sections.length, part.id).toBe(part.measurements.length);
+      if (part.measurements.length === 0) continue;
+      expect(html).toContain(`<td class="mono">${part.measurements[0].file}</td>`);
+      expect(html).toMatch(/the model misses the measurement by \d+\.\d\d dB rms in \|Z\|/);
+      for (const kind of ['measured-impedance-1', 'measured-phase-1', 'residual-1']) {
+        expect(html).toContain(`<figure class="chart" id="chart-${kind}">`);
+        expect(filesUnder(siteA)).toContain(`parts/${part.id}/${kind}.vl.json`);
+      }
+      expect(html).toContain('<h3>Model vs fit</h3>');
+    }
+  });
+
   it('has an index listing every part, and comparison pages including one automatic one per kind', () => {
     const index = read(siteA, 'index.html');
     for (const part of library.parts) expect(index).toContain(`href="parts/${part.id}/index.html"`);
