@@ -1,5 +1,5 @@
-// Watching a library's inputs (folio.yaml and the YAML files under parts/, comparisons/, plans/, reviews/)
-// and the templates, and calling back once per burst of changes.
+// Watching a library's inputs (folio.yaml, the YAML files under parts/, comparisons/, plans/, reviews/, and
+// the measurement files under measurements/) and the templates, and calling back once per burst of changes.
 //
 // Each folder gets its own non-recursive fs.watch. Node 20's recursive mode on Linux watches every file
 // by its inode, so after an editor saves by writing a new file and renaming it over the old one, later
@@ -10,7 +10,9 @@ import { existsSync, readdirSync, statSync, watch, type Dirent, type FSWatcher }
 import { basename, dirname, join, relative, sep } from 'node:path';
 
 /** Folders of a library whose YAML files are read (see src/model/library.ts). */
-export const LIBRARY_FOLDERS = ['parts', 'comparisons', 'plans', 'reviews'] as const;
+export const LIBRARY_FOLDERS = ['parts', 'comparisons', 'plans', 'reviews', 'measurements'] as const;
+/** The folder whose files count whatever their name (Touchstone files, not YAML). */
+const DATA_FOLDER = 'measurements';
 export const FOLIO_FILE = 'folio.yaml';
 /** Editors write a file in several steps; wait this long after the last event before acting. */
 export const DEFAULT_DEBOUNCE_MS = 150;
@@ -50,7 +52,7 @@ export function isLibraryInput(path: string): boolean {
   const segments = path.split('/');
   if (segments.length < 2 || !(LIBRARY_FOLDERS as readonly string[]).includes(segments[0])) return false;
   // The loader skips hidden files and folders at any depth.
-  return YAML_FILE.test(segments[segments.length - 1]) && !segments.some((s) => isEditorLeftover(s));
+  return (segments[0] === DATA_FOLDER || YAML_FILE.test(segments[segments.length - 1])) && !segments.some((s) => isEditorLeftover(s));
 }
 
 const isDirectory = (path: string) => {

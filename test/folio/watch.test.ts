@@ -16,8 +16,12 @@ describe('isLibraryInput', () => {
     }
   });
 
+  it('counts every file under measurements/, whatever its name (Touchstone files)', () => {
+    for (const path of ['measurements/a.s2p', 'measurements/bench/b.s1p', 'measurements/c.ts']) expect(isLibraryInput(path), path).toBe(true);
+  });
+
   it('ignores other files, other folders, hidden files and editor leftovers', () => {
-    for (const path of ['other.yaml', 'parts', 'parts/notes.txt', '_site/parts/a.yaml', '.zfolio-cache/x.yaml', 'parts/.a.yaml', 'parts/.a.yaml.swp', 'parts/a.yaml~', 'parts/.hidden/a.yaml', 'templates/part.njk']) {
+    for (const path of ['other.yaml', 'parts', 'parts/notes.txt', '_site/parts/a.yaml', '.zfolio-cache/x.yaml', 'parts/.a.yaml', 'parts/.a.yaml.swp', 'parts/a.yaml~', 'parts/.hidden/a.yaml', 'templates/part.njk', 'measurements/.a.s2p', 'measurements/a.s2p~', 'measured/a.s2p']) {
       expect(isLibraryInput(path), path).toBe(false);
     }
   });
