@@ -3,7 +3,7 @@
 // degrees) over the measured frequencies. Everything is drawn at the measurement's own frequencies.
 
 import { frameForKey, layoutKey } from './key.js';
-import { measurementChartText } from './measurement-text.js';
+import { measurementChartText } from '../present/measurement-chart-descriptions.js';
 import { PART_SERIES, PLOT_WIDTH, ZERO_LINE, frame, type SeriesStyle } from './palette.js';
 import { degreesLabel } from './phase-chart.js';
 import { curveRows, sweepAxis, Y_TICK_SPACING, type Curve } from './part-data.js';

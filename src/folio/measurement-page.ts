@@ -1,13 +1,13 @@
 // What a datasheet page shows of a part's measurement: where it came from, how far the typed model is from
 // it, the model-against-measurement charts, and the typed parameters beside the ones a fit of the same
-// model gives ("model vs fit").
+// model gives ("model vs fit"). The words come from src/present/measurement-words.ts.
 
 import type { MeasurementChartData } from '../charts/measurement-charts.js';
 import { FIT_PARAMETERS, type FitKind } from '../measure/fit-models.js';
-import type { LeftOut } from '../measure/fit.js';
 import type { PartMeasurement } from '../measure/part-measurements.js';
 import type { Part } from '../model/part.js';
 import { formatEng, formatPercent } from '../units/format.js';
+import { absentText, fixtureText, leftOutShort, limitText, missText, pointsText, signedPercent } from '../present/measurement-words.js';
 import type { ChartOnPage } from './site-data.js';
 
 export interface FitRow {
@@ -36,12 +36,6 @@ export interface MeasurementPageData {
   charts: ChartOnPage[];
 }
 
-const FIXTURE_TEXT: Readonly<Record<string, string>> = {
-  reflection: 'one-port reflection',
-  'shunt-thru': 'two-port shunt-thru (part from the line to ground)',
-  'series-thru': 'two-port series-thru (part in series between the ports)',
-};
-
 export function measurementChartData(part: Part, m: PartMeasurement): MeasurementChartData {
   return {
     partId: part.id,
@@ -57,18 +51,16 @@ export function measurementChartData(part: Part, m: PartMeasurement): Measuremen
 }
 
 export function measurementPageData(part: Part, m: PartMeasurement, index: number, warnDb: number, charts: ChartOnPage[]): MeasurementPageData {
-  const f = m.measured.frequencies;
-  const r = m.residual;
   return {
     index,
     file: m.entry.file,
-    fixtureText: `${FIXTURE_TEXT[m.fixture]}${m.fixtureByDefault ? ', by default for this kind and port count' : ''}, against ${formatEng(m.measured.referenceOhm, 'resistance')}`,
+    fixtureText: fixtureText(m.fixture, m.fixtureByDefault, m.measured.referenceOhm),
     note: m.entry.note,
     date: m.entry.date,
-    pointsText: `${f.length} points from ${formatEng(f[0], 'frequency')} to ${formatEng(f[f.length - 1], 'frequency')}`,
-    missText: `${r.rmsDb.toFixed(2)} dB rms in |Z| (at most ${r.maxDb.toFixed(2)} dB, at ${formatEng(m.worstHz, 'frequency')}) and ${r.rmsDeg.toFixed(2)}° rms in phase`,
-    within: !(r.rmsDb > warnDb),
-    limitText: `${warnDb} dB rms (folio.yaml measurements: warn-above)`,
+    pointsText: pointsText(m.measured.frequencies),
+    missText: missText(m.residual, m.worstHz),
+    within: !(m.residual.rmsDb > warnDb),
+    limitText: limitText(warnDb),
     fit: m.fit ? fitTable(part, m) : undefined,
     fitProblem: m.fitProblem,
     charts,
@@ -88,27 +80,9 @@ function fitTable(part: Part, m: PartMeasurement): MeasurementPageData['fit'] {
     const difference = typed !== undefined && fitted !== undefined ? signedPercent(fitted / typed - 1) : '—';
     return { name: spec.name, typed: typedText, fitted: fittedText, difference };
   });
-  const res = fit.residual;
   return {
     rows,
-    residualText: `the fitted model misses the measurement by ${res.rmsDb.toFixed(2)} dB rms in |Z| (at most ${res.maxDb.toFixed(2)} dB) and ${res.rmsDeg.toFixed(2)}° rms in phase`,
+    residualText: `the fitted model misses the measurement by ${missText(fit.residual)}`,
     leftOut: fit.leftOut.map((l) => `${l.name}: ${leftOutShort(l)}`),
   };
-}
-
-function absentText(absence: string): string {
-  return absence === 'open' ? 'absent (open)' : absence === 'zero' ? 'absent (0)' : '—';
-}
-
-function leftOutShort(l: LeftOut): string {
-  const where = l.strongest === 'low-end' ? '; a sweep starting lower would show it' : l.strongest === 'high-end' ? '; a sweep reaching higher would show it' : '';
-  if (l.why === 'no-effect') return `no visible effect in the measured range${where}`;
-  if (l.why === 'uncertain') return `too uncertain in this data${where}`;
-  return `no better fit with it than the noise explains${where}`;
-}
-
-/** A relative difference to a tenth of a percent, with its sign: "+8.2%", "−66.7%", "0.0%". */
-function signedPercent(ratio: number): string {
-  const text = Math.abs(ratio * 100).toFixed(1);
-  return text === '0.0' ? '0.0%' : `${ratio > 0 ? '+' : '−'}${text}%`;
 }

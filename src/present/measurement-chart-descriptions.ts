@@ -2,8 +2,8 @@
 // the model is from the measurement.
 
 import { formatEng } from '../units/format.js';
-import type { MeasurementChartData, MeasurementChartKind } from './measurement-charts.js';
-import type { ChartText } from './svg-finish.js';
+import type { MeasurementChartData, MeasurementChartKind } from '../charts/measurement-charts.js';
+import type { ChartText } from './chart-descriptions.js';
 
 function range(data: MeasurementChartData): string {
   const f = data.frequencies;
