@@ -13,7 +13,9 @@ import type { ChartOnPage } from './site-data.js';
 export interface FitRow {
   name: string;
   typed: string;
+  /** The fitted value with its standard error, or why the fit left the parameter out. */
   fitted: string;
+  leftOut: boolean;
   /** fitted/typed − 1, or why there is no such number. */
   difference: string;
 }
@@ -78,7 +80,7 @@ function fitTable(part: Part, m: PartMeasurement): MeasurementPageData['fit'] {
     const typedText = typed !== undefined ? formatEng(typed, spec.dimension, { digits: 4 }) : absentText(spec.absence);
     const fittedText = fitted !== undefined ? `${formatEng(fitted, spec.dimension, { digits: 4 })} ± ${formatPercent(Math.expm1(fit.standardErrors[spec.name]), 2)}` : left ? `left out (${leftOutShort(left)})` : '—';
     const difference = typed !== undefined && fitted !== undefined ? signedPercent(fitted / typed - 1) : '—';
-    return { name: spec.name, typed: typedText, fitted: fittedText, difference };
+    return { name: spec.name, typed: typedText, fitted: fittedText, leftOut: fitted === undefined, difference };
   });
   return {
     rows,

@@ -33,7 +33,7 @@ const hashless = (line: string) => line.replace(/\([0-9a-f]{12}\)/g, '(HASH)');
 
 it('the README example of zfolio diff prints what the README says', async () => {
   const repo = makeRepo('readme');
-  for (const name of ['folio.yaml', 'parts', 'plans', 'comparisons', 'reviews']) cpSync(join(DEMO, name), join(repo.dir, name), { recursive: true });
+  for (const name of ['folio.yaml', 'parts', 'plans', 'comparisons', 'reviews', 'measurements']) cpSync(join(DEMO, name), join(repo.dir, name), { recursive: true });
   repo.commit('the demo library');
   const { steps, output } = readmeExample('npx zfolio diff signed-2026-03');
   expect(steps[0]).toBe('git tag signed-2026-03');

@@ -114,7 +114,8 @@ describe('pages', () => {
     for (const kind of ['inductor', 'resistor', 'bead', 'network'] as const) {
       const part = library.parts.find((p) => p.kind === kind)!;
       const page = await open(`parts/${part.id}/index.html`);
-      expect(await page.$$eval('figure.chart svg', (s) => s.length)).toBe(4);
+      // Four charts, and three more for each measurement the part has.
+      expect(await page.$$eval('figure.chart svg', (s) => s.length)).toBe(4 + 3 * part.measurements.length);
       await page.screenshot({ path: join(ARTIFACTS, `part-${kind}.png`), fullPage: true });
       await page.close();
     }

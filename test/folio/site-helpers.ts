@@ -12,10 +12,10 @@ export function tempDir(stem: string): string {
   return mkdtempSync(join(tmpdir(), `zfolio-${stem}-`));
 }
 
-/** A copy of a library folder (YAML only matters; caches and built sites are left behind). */
+/** A copy of a library folder (its YAML and measurement files; caches and built sites are left behind). */
 export function copyLibrary(from: string, stem: string): string {
   const to = tempDir(stem);
-  for (const entry of ['folio.yaml', 'parts', 'comparisons', 'plans', 'reviews']) {
+  for (const entry of ['folio.yaml', 'parts', 'comparisons', 'plans', 'reviews', 'measurements']) {
     try {
       cpSync(join(from, entry), join(to, entry), { recursive: true });
     } catch {

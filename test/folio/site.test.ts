@@ -82,7 +82,7 @@ describe('the demo folio', () => {
       const sections = html.match(/<section class="measurement"/g) ?? [];
       expect(sections.length, part.id).toBe(part.measurements.length);
       if (part.measurements.length === 0) continue;
-      expect(html).toContain(`<td class="mono">${part.measurements[0].file}</td>`);
+      expect(html).toContain(`<p class="measurement-source"><span class="mono">${part.measurements[0].file}</span> · `);
       expect(html).toMatch(/the model misses the measurement by \d+\.\d\d dB rms in \|Z\|/);
       for (const kind of ['measured-impedance-1', 'measured-phase-1', 'residual-1']) {
         expect(html).toContain(`<figure class="chart" id="chart-${kind}">`);
