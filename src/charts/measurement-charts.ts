@@ -107,7 +107,8 @@ export const measuredPhaseChart: ChartDefinition<MeasurementChartData> = {
   },
 };
 
-const Y_RESIDUAL = position('v', 'y', 'linear', 'Model − measurement');
+// One axis for both errors: its title names both units, the key says which line is which.
+const Y_RESIDUAL = position('v', 'y', 'linear', 'Model − measurement (dB, °)');
 
 /**
  * A symmetric range around zero that holds every error, in about three steps of 1, 2 or 5 × 10^k a side, with

@@ -1,5 +1,5 @@
 // What a datasheet page shows of a part's measurement: where it came from, how far the typed model is from
-// it, the model-against-measurement charts, and the typed parameters beside the ones a fit of the same
+// it (with the file's own opening comments), the model-against-measurement charts, and the typed parameters beside the ones a fit of the same
 // model gives ("model vs fit"). The words come from src/present/measurement-words.ts.
 
 import type { MeasurementChartData } from '../charts/measurement-charts.js';
@@ -7,7 +7,8 @@ import { FIT_PARAMETERS, type FitKind } from '../measure/fit-models.js';
 import type { PartMeasurement } from '../measure/part-measurements.js';
 import type { Part } from '../model/part.js';
 import { formatEng, formatPercent } from '../units/format.js';
-import { absentText, fixtureText, leftOutShort, limitText, missText, pointsText, signedPercent } from '../present/measurement-words.js';
+import { headerComments } from '../measure/touchstone-header.js';
+import { absentText, fixtureText, headerText, leftOutShort, limitText, missText, pointsText, signedPercent } from '../present/measurement-words.js';
 import type { ChartOnPage } from './site-data.js';
 
 export interface FitRow {
@@ -27,6 +28,8 @@ export interface MeasurementPageData {
   fixtureText: string;
   note?: string;
   date?: string;
+  /** The file's own opening comments (what was measured, how, by whom), quoted. */
+  header?: string;
   pointsText: string;
   /** "0.37 dB rms in |Z| (at most 0.71 dB, at 24.8 MHz) and 0.45° rms in phase" */
   missText: string;
@@ -59,6 +62,7 @@ export function measurementPageData(part: Part, m: PartMeasurement, index: numbe
     fixtureText: fixtureText(m.fixture, m.fixtureByDefault, m.measured.referenceOhm),
     note: m.entry.note,
     date: m.entry.date,
+    header: m.entry.text !== undefined ? headerText(headerComments(m.entry.text)) : undefined,
     pointsText: pointsText(m.measured.frequencies),
     missText: missText(m.residual, m.worstHz),
     within: !(m.residual.rmsDb > warnDb),

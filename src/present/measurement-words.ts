@@ -3,6 +3,7 @@
 
 import type { LeftOut } from '../measure/fit.js';
 import type { FitResidual } from '../measure/fit.js';
+import type { FileHeader } from '../measure/touchstone-header.js';
 import { formatEng } from '../units/format.js';
 
 const FIXTURE_TEXT: Readonly<Record<string, string>> = {
@@ -49,4 +50,11 @@ export function leftOutShort(l: LeftOut): string {
 export function signedPercent(ratio: number): string {
   const text = Math.abs(ratio * 100).toFixed(1);
   return text === '0.0' ? '0.0%' : `${ratio > 0 ? '+' : '−'}${text}%`;
+}
+
+/** A file's opening comments as one quotation, or undefined when it has none: "Sample 3, bench fixture … (2 more comment lines in the file)". */
+export function headerText(h: FileHeader): string | undefined {
+  if (h.lines.length === 0) return undefined;
+  const rest = h.more > 0 ? ` … (${h.more} more comment line${h.more === 1 ? '' : 's'} in the file)` : '';
+  return h.lines.join(' ') + rest;
 }

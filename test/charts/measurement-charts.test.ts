@@ -70,7 +70,7 @@ describe('measurement charts', () => {
     expect(charts.residual.description).toContain('The largest |Z| error, −0.83 dB, is at 1 kHz.');
     expect(charts['measured-impedance'].description).toContain('shunt-thru fixture, 61 points, 1 kHz to 1 GHz');
     const texts = svgTexts(charts.residual.svg);
-    for (const t of ['Model − measurement', '−4', '+4', '−1', '0', '|Z| error, dB (rms 0.83, max 0.83)', 'phase error, degrees (rms 3.00)']) expect(texts).toContain(t);
+    for (const t of ['Model − measurement (dB, °)', '−4', '+4', '−1', '0', '|Z| error, dB (rms 0.83, max 0.83)', 'phase error, degrees (rms 3.00)']) expect(texts).toContain(t);
     // The residual rows are the errors as given.
     const rows = (charts.residual.spec as { datasets: Rows }).datasets.curves;
     expect(rows.filter((r) => r.s === 'deg').every((r) => r.v === -3)).toBe(true);

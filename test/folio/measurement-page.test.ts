@@ -23,6 +23,8 @@ describe('measurementPageData', () => {
     expect(p.missText).toMatch(/^1\.57 dB rms in \|Z\| \(at most 9\.54 dB, at 22\.4 MHz\) and [\d.]+° rms in phase$/);
     expect([p.within, p.limitText]).toEqual([false, '1 dB rms (folio.yaml measurements: warn-above)']);
     expect([p.date, p.note]).toEqual(['2026-01-15', 'synthetic']);
+    // The file's own opening comment, as test/measure/measured-library.ts writes it.
+    expect(p.header).toBe('synthetic measurement made by a test');
     const rows = p.fit!.rows;
     expect(rows.map((r) => [r.name, r.typed, r.difference])).toEqual([
       ['nominal', '100 nF', '0.0%'],

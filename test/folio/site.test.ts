@@ -74,7 +74,7 @@ describe('the demo folio', () => {
     }
   });
 
-  it('shows each measured part against its measurement: file, the miss, three charts and the model-vs-fit table; no such section elsewhere', () => {
+  it('shows each measured part against its measurement: file, its opening comments, the miss, three charts and the model-vs-fit table; no such section elsewhere', () => {
     const measured = library.parts.filter((p) => p.measurements.length > 0);
     expect(measured.length).toBeGreaterThanOrEqual(4);
     for (const part of library.parts) {
@@ -84,6 +84,8 @@ describe('the demo folio', () => {
       if (part.measurements.length === 0) continue;
       expect(html).toContain(`<p class="measurement-source"><span class="mono">${part.measurements[0].file}</span> · `);
       expect(html).toMatch(/the model misses the measurement by \d+\.\d\d dB rms in \|Z\|/);
+      // The demo's files are synthetic, and their own opening comments say so on the page.
+      expect(html).toContain(`<span class="label">The file's opening comments:</span> <q>SYNTHETIC measurement for the zfolio demo library: no part was measured.`);
       for (const kind of ['measured-impedance-1', 'measured-phase-1', 'residual-1']) {
         expect(html).toContain(`<figure class="chart" id="chart-${kind}">`);
         expect(filesUnder(siteA)).toContain(`parts/${part.id}/${kind}.vl.json`);

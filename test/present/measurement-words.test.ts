@@ -1,7 +1,7 @@
 // A measurement in words: fixtures, the miss, why a parameter was left out, signed differences.
 
 import { describe, expect, it } from 'vitest';
-import { absentText, fixtureText, leftOutShort, limitText, missText, pointsText, signedPercent } from '../../src/present/measurement-words.js';
+import { absentText, fixtureText, headerText, leftOutShort, limitText, missText, pointsText, signedPercent } from '../../src/present/measurement-words.js';
 
 describe('measurement words', () => {
   it('fixtures, points and the limit', () => {
@@ -24,5 +24,12 @@ describe('measurement words', () => {
     expect(leftOutShort({ ...base, why: 'uncertain', strongest: 'inside' })).toBe('too uncertain in this data');
     expect(leftOutShort({ ...base, why: 'not-needed', strongest: 'high-end' })).toBe('no better fit with it than the noise explains; a sweep reaching higher would show it');
     expect([signedPercent(0.082), signedPercent(-2 / 3), signedPercent(-5e-14), signedPercent(0)]).toEqual(['+8.2%', '−66.7%', '0.0%', '0.0%']);
+  });
+
+  it("a file's opening comments as one quotation, with how many more there are", () => {
+    expect(headerText({ lines: ['SYNTHETIC measurement.', 'Seed 1201.'], more: 0 })).toBe('SYNTHETIC measurement. Seed 1201.');
+    expect(headerText({ lines: ['a'], more: 1 })).toBe('a … (1 more comment line in the file)');
+    expect(headerText({ lines: ['a'], more: 4 })).toBe('a … (4 more comment lines in the file)');
+    expect(headerText({ lines: [], more: 0 })).toBeUndefined();
   });
 });
