@@ -2,15 +2,17 @@
 // the two phases, and the residual (model − measurement: the |Z| error in dB and the phase error in
 // degrees) over the measured frequencies. Everything is drawn at the measurement's own frequencies.
 
-import { frameForKey, layoutKey } from './key.js';
 import { measurementChartText } from '../present/measurement-chart-descriptions.js';
-import { PART_SERIES, PLOT_WIDTH, ZERO_LINE, frame, type SeriesStyle } from './palette.js';
-import { degreesLabel } from './phase-chart.js';
-import { curveRows, sweepAxis, Y_TICK_SPACING, type Curve } from './part-data.js';
-import { renderChart, type ChartDefinition, type ChartOutput, type Row } from './render.js';
+import { AXIS_TITLE, degreesLabel } from '../present/chart-words.js';
+import { MAX_DECADES, sweepAxis, Y_TICK_SPACING } from './axes.js';
+import { curveRows, plainCurve } from './curves.js';
+import { frame, PLOT_WIDTH } from './frame.js';
+import type { KeyItem } from './key.js';
+import { PART_SERIES, ZERO_LINE, type SeriesStyle } from './palette.js';
+import { renderChart, type ChartOutput, type Row } from './render.js';
 import { linearAxis, linearTicks, logAxis, logTicks, paddedLogDomain, positiveExtent } from './scales.js';
-import { axisBinding, axisParams, curveLayer, frameLayer, gridLayers, keyLayers, position, referenceLineLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
-import { CHART_CONFIG } from './theme.js';
+import { curveLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
+import { xyChart, type AxisSpec } from './xy-chart.js';
 
 /** What the measurement charts draw; SI units (Hz, Ω), errors in dB and degrees. */
 export interface MeasurementChartData {
@@ -33,82 +35,71 @@ const PAIR: SeriesScale = { keys: ['model', 'measured'], styles: [MODEL, MEASURE
 const RESIDUAL: SeriesScale = { keys: ['db', 'deg'], styles: [{ color: '#1f3d73', dash: [], width: 1.3 }, { color: '#b5520b', dash: [5, 3], width: 1.3 }] };
 const FRAME = frame(PLOT_WIDTH, 230, 28, 42);
 const RESIDUAL_FRAME = frame(PLOT_WIDTH, 200, 28, 42);
-const MAX_DECADES = 12;
 const DEG = 180 / Math.PI;
 
-const X = position('f', 'f', 'log', 'Frequency');
+const X: AxisSpec = { name: 'f', field: 'f', scale: 'log', title: AXIS_TITLE.frequency };
 
-function curveOf(f: Float64Array, value: (k: number) => number, positive = false): Curve {
-  const out: Curve = { f: [], v: [], keep: [] };
-  for (let k = 0; k < f.length; k++) {
-    const v = value(k);
-    out.f.push(f[k]);
-    out.v.push(Number.isFinite(v) && (!positive || v > 0) ? v : NaN);
-    out.keep.push(k === 0 || k === f.length - 1);
-  }
-  return out;
-}
-
-function pairSpec(y: ReturnType<typeof position>) {
-  return {
-    config: CHART_CONFIG,
-    params: [...axisParams('f'), ...axisParams('y')],
-    layer: [...gridLayers('f', 'x', X), ...gridLayers('y', 'y', y), curveLayer('curves', X, y, seriesEncoding(PAIR)), frameLayer(), ...keyLayers(seriesEncoding(PAIR))],
-  } as never;
-}
-
-function pairKey(data: MeasurementChartData, what: string) {
-  return layoutKey(
-    [
-      { kind: 'line', style: { s: 'model' }, text: `${what}, model (${data.partId})` },
-      { kind: 'line', style: { s: 'measured' }, text: `${what}, measured (${data.file})` },
-    ],
-    FRAME.width,
+/** The values at every measured frequency; non-finite ones (or ≤ 0 on a log axis, when `positive`) are gaps. */
+function curveOf(f: Float64Array, value: (k: number) => number, positive = false) {
+  return plainCurve(
+    f,
+    Float64Array.from(f, (_, k) => {
+      const v = value(k);
+      return Number.isFinite(v) && (!positive || v > 0) ? v : NaN;
+    }),
   );
 }
 
-const Y_MAGNITUDE = position('v', 'y', 'log', 'Impedance |Z|');
+function pairKey(data: MeasurementChartData, what: string): KeyItem[] {
+  return [
+    { kind: 'line', style: { s: 'model' }, text: `${what}, model (${data.partId})` },
+    { kind: 'line', style: { s: 'measured' }, text: `${what}, measured (${data.file})` },
+  ];
+}
 
-export const measuredImpedanceChart: ChartDefinition<MeasurementChartData> = {
+export const measuredImpedanceChart = xyChart<MeasurementChartData>({
   name: 'measured-impedance',
   frame: FRAME,
-  spec: () => pairSpec(Y_MAGNITUDE),
-  bind(data) {
-    const fa = sweepAxis(data.frequencies, FRAME.width);
+  x: X,
+  y: { name: 'y', field: 'v', scale: 'log', title: AXIS_TITLE.impedance },
+  keyStyle: seriesEncoding(PAIR),
+  marks: (x, y) => [curveLayer('curves', x, y, seriesEncoding(PAIR))],
+  draw(data) {
+    const x = sweepAxis(data.frequencies, FRAME.width);
     const size = (z: { re: Float64Array; im: Float64Array }) => Float64Array.from(data.frequencies, (_, k) => Math.hypot(z.re[k], z.im[k]));
     const model = size(data.model);
     const measured = size(data.measured);
     const domain = paddedLogDomain(...positiveExtent([model, measured], MAX_DECADES));
     const yMap = logAxis(domain, FRAME.height);
-    const ya = axisBinding('y', domain, logTicks(domain, FRAME.height, 'Ω', Y_TICK_SPACING));
     // The measurement over the model: its scatter stays visible where the two agree.
-    const curves: Row[] = [...curveRows(curveOf(data.frequencies, (k) => model[k], true), fa.map, yMap, 'model'), ...curveRows(curveOf(data.frequencies, (k) => measured[k], true), fa.map, yMap, 'measured')];
-    const key = pairKey(data, '|Z|');
-    return { frame: frameForKey(FRAME, key), params: { ...fa.params, ...ya.params }, datasets: { ...fa.datasets, ...ya.datasets, curves, ...key.datasets } };
+    const curves: Row[] = [...curveRows(curveOf(data.frequencies, (k) => model[k], true), x.map, yMap, 'model'), ...curveRows(curveOf(data.frequencies, (k) => measured[k], true), x.map, yMap, 'measured')];
+    return { x, y: { domain, ticks: logTicks(domain, FRAME.height, 'Ω', Y_TICK_SPACING) }, datasets: { curves }, key: pairKey(data, '|Z|') };
   },
-};
+});
 
 const PHASE_DOMAIN: [number, number] = [-99, 99];
-const Y_PHASE = position('v', 'y', 'linear', 'Phase of Z');
 
-export const measuredPhaseChart: ChartDefinition<MeasurementChartData> = {
+export const measuredPhaseChart = xyChart<MeasurementChartData>({
   name: 'measured-phase',
   frame: FRAME,
-  spec: () => pairSpec(Y_PHASE),
-  bind(data) {
-    const fa = sweepAxis(data.frequencies, FRAME.width);
+  x: X,
+  y: { name: 'y', field: 'v', scale: 'linear', title: AXIS_TITLE.phase },
+  keyStyle: seriesEncoding(PAIR),
+  marks: (x, y) => [curveLayer('curves', x, y, seriesEncoding(PAIR))],
+  draw(data) {
+    const x = sweepAxis(data.frequencies, FRAME.width);
     const yMap = linearAxis(PHASE_DOMAIN, FRAME.height);
-    const ya = axisBinding('y', PHASE_DOMAIN, { ...linearTicks([-90, 90], 30, degreesLabel), minor: [-75, -45, -15, 15, 45, 75] });
     // A measured phase beyond ±90° (a little negative resistance from the fixture's error) is drawn at the edge.
     const phase = (z: { re: Float64Array; im: Float64Array }) => (k: number) => Math.max(-99, Math.min(99, Math.atan2(z.im[k], z.re[k]) * DEG));
-    const curves: Row[] = [...curveRows(curveOf(data.frequencies, phase(data.model)), fa.map, yMap, 'model'), ...curveRows(curveOf(data.frequencies, phase(data.measured)), fa.map, yMap, 'measured')];
-    const key = pairKey(data, 'phase');
-    return { frame: frameForKey(FRAME, key), params: { ...fa.params, ...ya.params }, datasets: { ...fa.datasets, ...ya.datasets, curves, ...key.datasets } };
+    const curves: Row[] = [...curveRows(curveOf(data.frequencies, phase(data.model)), x.map, yMap, 'model'), ...curveRows(curveOf(data.frequencies, phase(data.measured)), x.map, yMap, 'measured')];
+    return {
+      x,
+      y: { domain: PHASE_DOMAIN, ticks: { ...linearTicks([-90, 90], 30, degreesLabel), minor: [-75, -45, -15, 15, 45, 75] } },
+      datasets: { curves },
+      key: pairKey(data, 'phase'),
+    };
   },
-};
-
-// One axis for both errors: its title names both units, the key says which line is which.
-const Y_RESIDUAL = position('v', 'y', 'linear', 'Model − measurement (dB, °)');
+});
 
 /**
  * A symmetric range around zero that holds every error, in about three steps of 1, 2 or 5 × 10^k a side, with
@@ -128,41 +119,33 @@ export function residualDomain(errorDb: ArrayLike<number>, errorDeg: ArrayLike<n
   return { domain: [-top, top], step };
 }
 
-export const residualChart: ChartDefinition<MeasurementChartData> = {
+export const residualChart = xyChart<MeasurementChartData>({
   name: 'residual',
   frame: RESIDUAL_FRAME,
-  spec() {
-    return {
-      config: CHART_CONFIG,
-      params: [...axisParams('f'), ...axisParams('y')],
-      layer: [
-        ...gridLayers('f', 'x', X),
-        ...gridLayers('y', 'y', Y_RESIDUAL),
-        referenceLineLayer('zero', Y_RESIDUAL, { color: ZERO_LINE, width: 1 }),
-        curveLayer('curves', X, Y_RESIDUAL, seriesEncoding(RESIDUAL)),
-        frameLayer(),
-        ...keyLayers(seriesEncoding(RESIDUAL)),
-      ],
-    } as never;
-  },
-  bind(data) {
-    const fa = sweepAxis(data.frequencies, RESIDUAL_FRAME.width);
+  x: X,
+  // One axis for both errors: its title names both units, the key says which line is which.
+  y: { name: 'y', field: 'v', scale: 'linear', title: 'Model − measurement (dB, °)' },
+  keyStyle: seriesEncoding(RESIDUAL),
+  zeroLine: { color: ZERO_LINE, width: 1 },
+  marks: (x, y) => [curveLayer('curves', x, y, seriesEncoding(RESIDUAL))],
+  draw(data) {
+    const x = sweepAxis(data.frequencies, RESIDUAL_FRAME.width);
     const { domain, step } = residualDomain(data.errorDb, data.errorDeg);
     const yMap = linearAxis(domain, RESIDUAL_FRAME.height);
     const label = (v: number) => (v === 0 ? '0' : `${v < 0 ? '−' : '+'}${Number(Math.abs(v).toPrecision(3))}`);
-    const ya = axisBinding('y', domain, { ...linearTicks(domain, step, label), minor: [] });
-    const curves: Row[] = [...curveRows(curveOf(data.frequencies, (k) => data.errorDeg[k]), fa.map, yMap, 'deg'), ...curveRows(curveOf(data.frequencies, (k) => data.errorDb[k]), fa.map, yMap, 'db')];
+    const curves: Row[] = [...curveRows(curveOf(data.frequencies, (k) => data.errorDeg[k]), x.map, yMap, 'deg'), ...curveRows(curveOf(data.frequencies, (k) => data.errorDb[k]), x.map, yMap, 'db')];
     const r = data.residual;
-    const key = layoutKey(
-      [
+    return {
+      x,
+      y: { domain, ticks: { ...linearTicks(domain, step, label), minor: [] } },
+      datasets: { curves },
+      key: [
         { kind: 'line', style: { s: 'db' }, text: `|Z| error, dB (rms ${r.rmsDb.toFixed(2)}, max ${r.maxDb.toFixed(2)})` },
         { kind: 'line', style: { s: 'deg' }, text: `phase error, degrees (rms ${r.rmsDeg.toFixed(2)})` },
       ],
-      RESIDUAL_FRAME.width,
-    );
-    return { frame: frameForKey(RESIDUAL_FRAME, key), params: { ...fa.params, ...ya.params }, datasets: { ...fa.datasets, ...ya.datasets, zero: [{ v: 0 }], curves, ...key.datasets } };
+    };
   },
-};
+});
 
 export const MEASUREMENT_CHARTS = { 'measured-impedance': measuredImpedanceChart, 'measured-phase': measuredPhaseChart, residual: residualChart } as const;
 export type MeasurementChartKind = keyof typeof MEASUREMENT_CHARTS;
