@@ -8,6 +8,7 @@ import { availableParallelism, loadavg } from 'node:os';
 import { join } from 'node:path';
 import { buildFolio, type BuildResult } from '../src/folio/build.js';
 import { renderPages } from '../src/folio/eleventy.js';
+import { comparisonIndex } from '../src/folio/comparison-index.js';
 import type { ChartOnPage, FolioData } from '../src/folio/site-data.js';
 import { treeHashes } from '../test/folio/site-helpers.js';
 import { writeGeneratedLibrary } from './generate.js';
@@ -27,10 +28,12 @@ function withoutSvg(folio: FolioData): FolioData {
   const bare = (c: ChartOnPage): ChartOnPage => ({ ...c, svg: '' });
   const parts = folio.parts.map((p) => ({ ...p, charts: p.charts.map(bare) }));
   const byId = new Map(parts.map((p) => [p.id, p]));
+  const comparisons = folio.comparisons.map((c) => ({ ...c, parts: c.parts.map((p) => byId.get(p.id)!), chart: c.chart && bare(c.chart) }));
   return {
     ...folio,
     parts,
-    comparisons: folio.comparisons.map((c) => ({ ...c, parts: c.parts.map((p) => byId.get(p.id)!), chart: c.chart && bare(c.chart) })),
+    comparisons,
+    ...comparisonIndex(comparisons),
     plans: folio.plans.map((p) => ({ ...p, chart: p.chart && bare(p.chart) })),
     reviews: folio.reviews.map((r) => ({ ...r, parts: r.parts.map((p) => byId.get(p.id)!) })),
   };

@@ -20,6 +20,8 @@ import { escapeJsonMarkup } from '../present/escape.js';
 import { selectionText, sweepText } from '../present/part-words.js';
 import { libraryRevision } from '../history/library-revision.js';
 import { comparisonSlug } from '../present/slugs.js';
+import { comparisonIndex } from './comparison-index.js';
+import { partList, writeIndexRows } from './part-list.js';
 import { writeFileDeep } from './output.js';
 import { planPageData, type PlanPageData } from './plan-page.js';
 import type { Progress } from './progress.js';
@@ -177,7 +179,9 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   });
   // Carried-over parts keep the page the last build wrote; only the others are rendered.
   const partPages = parts.filter((p) => !carried.has(p.id));
-  return { ...folioHeader(library), parts, partPages, comparisons, plans, reviews };
+  const list = partList(parts);
+  writeIndexRows(list, siteDir, (path, text) => timedWrite(timings, path, () => text));
+  return { ...folioHeader(library), parts, partList: list, partPages, comparisons, ...comparisonIndex(comparisons), plans, reviews };
 }
 
 /** A part's measurement sections, their charts placed beside the page by `place` (or only drawn). */
@@ -240,8 +244,9 @@ async function comparisonPages(
     const data = await add(comparisonSlug(c), { title: c.title, description: c.description, automatic: false, selection: selectionText(c), sourceFile: c.source.path }, c.parts.map((p) => p.id));
     byKey.set(comparisonKey(c), data);
   }
-  for (const auto of automaticComparisons(library)) {
-    await add(`all-${auto.kind}`, { title: auto.title, automatic: true, selection: `every ${auto.kind} in the library` }, auto.parts.map((p) => p.id));
+  for (const f of automaticComparisons(library)) {
+    const family = { kind: f.kind, packageText: f.packageText, valuesText: f.valuesText, subsetText: f.subsetText };
+    await add(f.slug, { title: f.title, automatic: true, selection: f.selection, family }, f.parts.map((p) => p.id));
   }
   return { pages, byKey };
 }

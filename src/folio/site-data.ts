@@ -2,13 +2,16 @@
 
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { Library } from '../model/library.js';
-import type { Part, PartKind } from '../model/part.js';
+import type { PartKind } from '../model/part.js';
 import { formatEng, formatPercent } from '../units/format.js';
 import { kindPlural } from '../present/kinds.js';
 import { modelCaption } from '../present/model-words.js';
 import { ratingText, sweepText } from '../present/part-words.js';
 import { VERSION } from '../version.js';
 import { MAINS_LEGEND, mainsMark, type MainsMark } from '../present/mains.js';
+import type { ComparisonIndex } from './comparison-index.js';
+import { KIND_ORDER, partFamilies, type PartFamily } from './families.js';
+import type { PartList } from './part-list.js';
 import { partPageText, type PartPageText } from './part-page.js';
 import { schematicSvg } from './schematic.js';
 import type { PlanPageData } from './plan-page.js';
@@ -63,9 +66,12 @@ export interface ComparisonPageData {
   sourceFile?: string;
   parts: PartPageData[];
   chart?: ChartOnPage;
+  /** An automatic comparison's place among the part families (families.ts). */
+  family?: { kind: PartKind; packageText: string; valuesText: string; subsetText: string };
 }
 
-export interface FolioData {
+/** The site's data; the comparison lists the index pages show come from comparison-index.ts. */
+export interface FolioData extends ComparisonIndex {
   title: string;
   owner?: string;
   version: string;
@@ -77,6 +83,8 @@ export interface FolioData {
   /** The index's legend for mains marks, when the library holds a mains part. */
   mainsLegend?: string;
   parts: PartPageData[];
+  /** The parts index in pages (part-list.ts). */
+  partList: PartList;
   /** The parts whose pages this build renders (all but those carried over from the last build). */
   partPages: PartPageData[];
   comparisons: ComparisonPageData[];
@@ -122,20 +130,18 @@ export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageDa
   };
 }
 
-/** One automatic comparison per kind present in the library. */
-export function automaticComparisons(library: Library): { kind: PartKind; title: string; parts: Part[] }[] {
-  const kinds = [...new Set(library.parts.map((p) => p.kind))].sort();
-  return kinds.map((kind) => ({ kind, title: `All ${kindPlural(kind)}`, parts: library.parts.filter((p) => p.kind === kind) }));
+/** The automatic comparisons: the library's part families, each one chart of at most FAMILY_SIZE parts. */
+export function automaticComparisons(library: Library): PartFamily[] {
+  return partFamilies(library.parts);
 }
 
 export function kindCounts(library: Library): FolioData['kindCounts'] {
-  const order: PartKind[] = ['capacitor', 'inductor', 'resistor', 'bead', 'network'];
-  return order
+  return KIND_ORDER
     .map((kind) => ({ kind, label: kindPlural(kind), count: library.parts.filter((p) => p.kind === kind).length }))
     .filter((k) => k.count > 0);
 }
 
-export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partPages' | 'comparisons' | 'plans' | 'reviews'> {
+export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partList' | 'partPages' | 'comparisons' | 'plans' | 'reviews' | keyof ComparisonIndex> {
   const s = library.settings;
   return {
     title: s.title,

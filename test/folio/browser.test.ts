@@ -122,11 +122,12 @@ describe('pages', () => {
   });
 
   it('a comparison page overlays the parts on one chart', async () => {
-    const page = await open('comparisons/all-capacitor/index.html');
+    // The demo's inductors are one family of every inductor.
+    const page = await open('comparisons/family-inductor/index.html');
     const box = await page.$eval('figure.chart svg', (s) => s.getBoundingClientRect().width);
     expect(box).toBeGreaterThan(300);
     const rows = await page.$$eval('table.grid tbody tr', (r) => r.length);
-    expect(rows).toBe(library.parts.filter((p) => p.kind === 'capacitor').length);
+    expect(rows).toBe(library.parts.filter((p) => p.kind === 'inductor').length);
     await page.screenshot({ path: join(ARTIFACTS, 'comparison.png'), fullPage: true });
     await page.close();
   });

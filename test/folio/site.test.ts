@@ -94,11 +94,19 @@ describe('the demo folio', () => {
     }
   });
 
-  it('has an index listing every part, and comparison pages including one automatic one per kind', () => {
+  it('has an index listing every part, and comparison pages including the automatic part families of every kind', () => {
     const index = read(siteA, 'index.html');
     for (const part of library.parts) expect(index).toContain(`href="parts/${part.id}/index.html"`);
-    const kinds = new Set(library.parts.map((p) => p.kind));
-    for (const kind of kinds) expect(filesUnder(siteA)).toContain(`comparisons/all-${kind}/index.html`);
+    // The demo fits on one page of the index: no pager, no row scripts.
+    expect(index).not.toContain('data-pager');
+    expect(filesUnder(siteA).filter((f) => f.startsWith('list/'))).toEqual([]);
+    const comparisons = read(siteA, 'comparisons/index.html');
+    const families = [...comparisons.matchAll(/<a href="(family-[^"/]+)\/index.html">/g)].map((m) => m[1]);
+    const members = families.map((slug) => [...read(siteA, `comparisons/${slug}/index.html`).matchAll(/href="..\/..\/parts\/([^/]+)\/index.html"/g)].map((m) => m[1]));
+    // Every part is in exactly one family, and no family (one chart, a curve a part) holds more than 12.
+    expect(members.flat().sort()).toEqual(library.parts.map((p) => p.id).sort());
+    for (const ids of members) expect(ids.length).toBeLessThanOrEqual(12);
+    for (const kind of new Set(library.parts.map((p) => p.kind))) expect(index).toContain(`href="comparisons/index.html#families-${kind}"`);
     for (const c of library.comparisons) expect(index).toContain(c.title.replace(/&/g, '&amp;'));
   });
 
