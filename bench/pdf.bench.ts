@@ -7,8 +7,8 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { findChrome, launchChrome } from '../src/folio/browser.js';
-import { buildFolio, type BuildResult } from '../src/folio/build.js';
+import { findChrome, launchChrome } from '../src/print/browser.js';
+import { buildFolio, type BuildResult } from '../src/build/build.js';
 import { mulberry32, writeGeneratedLibrary } from './generate.js';
 import type { BenchSection } from './measure.js';
 

@@ -6,11 +6,11 @@
 import { readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, loadavg } from 'node:os';
 import { join } from 'node:path';
-import { buildFolio, type BuildResult } from '../src/folio/build.js';
-import { renderPages } from '../src/folio/eleventy.js';
-import { comparisonIndex } from '../src/folio/comparison-index.js';
-import type { ChartOnPage, FolioData } from '../src/folio/site-data.js';
-import { treeHashes } from '../test/folio/site-helpers.js';
+import { buildFolio, type BuildResult } from '../src/build/build.js';
+import { renderPages } from '../src/build/eleventy.js';
+import { comparisonIndex } from '../src/pages/comparison-index.js';
+import type { ChartOnPage, FolioData } from '../src/pages/site-data.js';
+import { treeHashes } from '../test/site-helpers.js';
 import { writeGeneratedLibrary } from './generate.js';
 import type { BenchSection } from './measure.js';
 

@@ -9,16 +9,16 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
 import ts from 'typescript';
 import { describe, expect, it } from 'vitest';
-import { REPO } from './folio/site-helpers.js';
+import { REPO } from './site-helpers.js';
 
 const SRC = join(REPO, 'src');
 
 /** Lowest first: a module may import values from its own layer and the layers before it. */
-export const LAYERS = ['units', 'circuit', 'model', 'analysis', 'measure', 'history', 'present', 'charts', 'folio', 'serve', 'cli'] as const;
+export const LAYERS = ['units', 'circuit', 'model', 'analysis', 'measure', 'history', 'present', 'charts', 'pages', 'print', 'build', 'serve', 'cli'] as const;
 type Layer = (typeof LAYERS)[number];
 
 /** Files directly under src/ and the layer they belong to. */
-const ROOT_FILES: Readonly<Record<string, Layer>> = { 'version.ts': 'folio' };
+const ROOT_FILES: Readonly<Record<string, Layer>> = { 'version.ts': 'pages', 'on-exit.ts': 'print' };
 
 /** Layers that take numbers (or figures) and return numbers (or words): no file system, no rendering. */
 const PURE: readonly Layer[] = ['units', 'circuit', 'analysis', 'measure', 'present'];

@@ -5,7 +5,7 @@
 
 import { closeSync, mkdirSync, openSync, readSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
-import { OutputRefused } from '../folio/output-guard.js';
+import { OutputRefused } from '../build/output-guard.js';
 
 /** First lines by which zfolio knows an exported file as its own. */
 export const EXPORT_MARKS = ['! zfolio export', '* zfolio export'];

@@ -18,7 +18,7 @@ export const EXIT_OK = 0;
 export const EXIT_BAD_INPUT = 1;
 /**
  * The command cannot run as asked: unknown command or option, missing argument, or an output folder zfolio
- * will not replace (see folio/output-guard.ts) or cannot write.
+ * will not replace (see build/output-guard.ts) or cannot write.
  */
 export const EXIT_MISUSE = 2;
 

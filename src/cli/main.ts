@@ -12,7 +12,7 @@ import { fit, fitHelp } from './commands/fit.js';
 import { exportCommand, exportHelp } from './commands/export.js';
 import { DEBUG_ENV, EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
 import { failureDetails, failureLine } from './failure.js';
-import { OutputRefused } from '../folio/output-guard.js';
+import { OutputRefused } from '../build/output-guard.js';
 import { VERSION } from '../version.js';
 
 type Command = (args: string[], io: CommandIO) => number | Promise<number>;

@@ -3,7 +3,7 @@
 // ends it with 1 after removing its staging folder and stopping its Chromium; a fault nothing caught is one
 // line and 1. `serve` handles its own signals: it stops serving and exits 0.
 
-import { runExitTasks } from '../folio/on-exit.js';
+import { runExitTasks } from '../on-exit.js';
 import { failureLine } from './failure.js';
 import { EXIT_BAD_INPUT, EXIT_OK, processIO } from './io.js';
 import { COMMANDS, main } from './main.js';

@@ -17,7 +17,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { railVerdicts } from '../../src/analysis/review-checks.js';
 import { loadLibrary, type Library } from '../../src/model/library.js';
 import { run } from '../cli/fake-io.js';
-import { tempDir } from '../folio/site-helpers.js';
+import { tempDir } from '../site-helpers.js';
 
 const R = 5e-3;
 const L = 10e-9;

@@ -6,7 +6,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { GOOD_LIBRARY } from './fake-io.js';
-import { copyLibrary } from '../folio/site-helpers.js';
+import { copyLibrary } from '../site-helpers.js';
 
 const PACKAGE = fileURLToPath(new URL('../../', import.meta.url));
 

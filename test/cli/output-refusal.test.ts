@@ -4,8 +4,8 @@
 import { cpSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { SITE_MARKER } from '../../src/folio/output-guard.js';
-import { diskSnapshot, tempDir } from '../folio/site-helpers.js';
+import { SITE_MARKER } from '../../src/build/output-guard.js';
+import { diskSnapshot, tempDir } from '../site-helpers.js';
 import { GOOD_LIBRARY, run } from './fake-io.js';
 
 let top: string;

@@ -7,7 +7,7 @@ import { cpSync, existsSync, readdirSync, readFileSync, readlinkSync } from 'nod
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it, vi } from 'vitest';
-import { tempDir } from '../folio/site-helpers.js';
+import { tempDir } from '../site-helpers.js';
 import { GOOD_LIBRARY, run } from './fake-io.js';
 
 const PACKAGE = fileURLToPath(new URL('../../', import.meta.url));

@@ -7,7 +7,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { capacitor as C, inductor as L, parallel, resistor as R, series, type Element } from '../../src/circuit/element.js';
 import { writeTouchstone } from '../../src/measure/touchstone-write.js';
-import { tempDir } from '../folio/site-helpers.js';
+import { tempDir } from '../site-helpers.js';
 import { logFrequencies, synthesise } from './synthetic.js';
 
 /** The measured capacitor as it really is (the "truth" the measurement is made of). */

@@ -10,7 +10,7 @@ import { DiagnosticList, formatDiagnostic } from '../../src/model/diagnostics.js
 import { loadLibrary } from '../../src/model/library.js';
 import { readPart, type Part } from '../../src/model/part.js';
 import { parseYamlSource } from '../../src/model/source.js';
-import { REPO } from '../folio/site-helpers.js';
+import { REPO } from '../site-helpers.js';
 
 function read(yaml: string): { part?: Part; messages: string[] } {
   const diagnostics = new DiagnosticList();

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { formatDiagnostic } from '../../src/model/diagnostics.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { contentHash } from '../../src/model/source.js';
-import { tempDir } from '../folio/site-helpers.js';
+import { tempDir } from '../site-helpers.js';
 import { measuredLibrary } from '../measure/measured-library.js';
 
 const messages = (root: string) => loadLibrary(root).diagnostics.map(formatDiagnostic);

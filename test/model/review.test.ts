@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { formatDiagnostic } from '../../src/model/diagnostics.js';
 import { loadLibrary } from '../../src/model/library.js';
-import { REPO, tempDir } from '../folio/site-helpers.js';
+import { REPO, tempDir } from '../site-helpers.js';
 
 /** The rail fixture library plus one comparison and the given review file. */
 function libraryWithReview(review: string) {

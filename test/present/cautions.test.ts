@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { cautionsFor, groupedCautions, GENERAL_CAUTION, RATINGS_CAUTION } from '../../src/present/cautions.js';
 import type { Part } from '../../src/model/part.js';
 import { loadLibrary } from '../../src/model/library.js';
-import { REPO } from '../folio/site-helpers.js';
+import { REPO } from '../site-helpers.js';
 
 // The demo library's parts (invented): several capacitors rated 4 V to 16 V DC, of X5R, X6S and X7R.
 const library = loadLibrary(REPO).library!;

@@ -2,7 +2,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { analysePlan } from '../../src/analysis/plan-figures.js';
 import { loadStepFacts, loadStepVerdict } from '../../src/present/load-step-words.js';
-import { planPageData } from '../../src/folio/plan-page.js';
+import { planPageData } from '../../src/pages/plan-page.js';
 import { DiagnosticList } from '../../src/model/diagnostics.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { readPlan } from '../../src/model/plan.js';

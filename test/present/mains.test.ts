@@ -11,7 +11,7 @@ import { readPart, type Part } from '../../src/model/part.js';
 import { parseYamlSource } from '../../src/model/source.js';
 import { cautionsFor, storedEnergyText } from '../../src/present/cautions.js';
 import { mainsBanner, mainsMark, safetyClassCaution } from '../../src/present/mains.js';
-import { REPO } from '../folio/site-helpers.js';
+import { REPO } from '../site-helpers.js';
 
 function part(yaml: string): Part {
   const diagnostics = new DiagnosticList();

@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadLibrary } from '../../src/model/library.js';
 import { DEMO_MEASUREMENTS, writeDemoMeasurements } from '../../scripts/synthesise-measurements.js';
-import { REPO, tempDir } from '../folio/site-helpers.js';
+import { REPO, tempDir } from '../site-helpers.js';
 
 describe('the demo measurements', () => {
   it('are exactly what the seeded generator writes', () => {

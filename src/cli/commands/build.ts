@@ -2,8 +2,8 @@
 
 import { relative, resolve } from 'node:path';
 import { formatDiagnostic } from '../../model/diagnostics.js';
-import { buildFolio, DEFAULT_OUT_DIR, type BuildResult } from '../../folio/build.js';
-import { terminalProgress } from '../../folio/progress.js';
+import { buildFolio, DEFAULT_OUT_DIR, type BuildResult } from '../../build/build.js';
+import { terminalProgress } from '../../build/progress.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { RevisionError } from '../../history/git-revision.js';

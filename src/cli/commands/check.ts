@@ -6,7 +6,7 @@ import { loadReported, plural } from '../report.js';
 import { railVerdicts } from '../../analysis/review-checks.js';
 import { reviewWarnings } from '../../model/review-consistency.js';
 import { formatDiagnostic, sortedDiagnostics } from '../../model/diagnostics.js';
-import { buildHistory } from '../../folio/build-history.js';
+import { buildHistory } from '../../build/build-history.js';
 import { libraryMeasurements } from '../../measure/part-measurements.js';
 
 export const checkHelp = `Usage: zfolio check [--library DIR]

@@ -4,7 +4,7 @@ import { formatDiagnostic, type Diagnostic } from '../../model/diagnostics.js';
 import { loadLibrary, type Library } from '../../model/library.js';
 import { RevisionError, type Revision } from '../../history/git-revision.js';
 import { loadLibraryAt } from '../../history/revision-library.js';
-import { untilDone } from '../../folio/on-exit.js';
+import { untilDone } from '../../on-exit.js';
 import { diffLibraries, type LibraryDiff } from '../../history/library-diff.js';
 import { changeLines } from '../../present/diff-text.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';

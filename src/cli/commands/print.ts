@@ -3,12 +3,12 @@
 import { copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, renameSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { basename, join, relative, resolve, sep } from 'node:path';
-import { buildFolio } from '../../folio/build.js';
-import { terminalProgress } from '../../folio/progress.js';
+import { buildFolio } from '../../build/build.js';
+import { terminalProgress } from '../../build/progress.js';
 import { railSlug, reviewSlug } from '../../present/slugs.js';
-import { OutputRefused } from '../../folio/output-guard.js';
-import { madeByZfolio } from '../../folio/pdf.js';
-import { alive } from '../../folio/output.js';
+import { OutputRefused } from '../../build/output-guard.js';
+import { madeByZfolio } from '../../print/pdf.js';
+import { alive } from '../../build/output.js';
 import { closest } from '../../model/suggest.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';

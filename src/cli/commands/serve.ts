@@ -3,10 +3,10 @@
 import { existsSync } from 'node:fs';
 import { relative, resolve } from 'node:path';
 import { formatDiagnostic } from '../../model/diagnostics.js';
-import { DEFAULT_OUT_DIR } from '../../folio/build.js';
-import { terminalProgress } from '../../folio/progress.js';
-import { serveFolio, type BuildReport } from '../../folio/serve.js';
-import { DEFAULT_HOST, DEFAULT_PORT } from '../../folio/static-server.js';
+import { DEFAULT_OUT_DIR } from '../../build/build.js';
+import { terminalProgress } from '../../build/progress.js';
+import { serveFolio, type BuildReport } from '../../serve/serve.js';
+import { DEFAULT_HOST, DEFAULT_PORT } from '../../serve/static-server.js';
 import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
 import { EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { plural } from '../report.js';

@@ -6,7 +6,7 @@ import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { readTouchstone } from '../../../src/measure/touchstone-read.js';
-import { diskSnapshot, tempDir } from '../../folio/site-helpers.js';
+import { diskSnapshot, tempDir } from '../../site-helpers.js';
 import { GOOD_LIBRARY, run } from '../fake-io.js';
 
 const top = tempDir('export');

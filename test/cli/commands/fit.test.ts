@@ -11,7 +11,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { capacitor as C, inductor as L, parallel, resistor as R, series } from '../../../src/circuit/element.js';
 import { writeTouchstone } from '../../../src/measure/touchstone-write.js';
 import { loadLibrary } from '../../../src/model/library.js';
-import { tempDir } from '../../folio/site-helpers.js';
+import { tempDir } from '../../site-helpers.js';
 import { logFrequencies, synthesise } from '../../measure/synthetic.js';
 import { run } from '../fake-io.js';
 

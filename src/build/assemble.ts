@@ -1,0 +1,250 @@
+// Assembling the site's data: every part, comparison, rail plan and review analysed, its charts drawn and its
+// downloads written into the site folder, and the page data the templates read.
+
+import { join } from 'node:path';
+import { analysePart, type PartAnalysis } from '../analysis/part-figures.js';
+import { analysePlan, planFiguresWithoutCurves } from '../analysis/plan-figures.js';
+import { partSummary } from '../analysis/summary.js';
+import { sweepCsv } from '../analysis/sweep-table.js';
+import { logSweep } from '../circuit/sweep.js';
+import { partSubcircuit, partTouchstone } from '../measure/part-export.js';
+import type { PartMeasurement } from '../measure/part-measurements.js';
+import { measurementInputs } from '../model/measurement-entry.js';
+import { measurementChartData, measurementPageData, type MeasurementPageData } from '../pages/measurement-page.js';
+import { comparisonKey } from '../model/comparison.js';
+import type { Library } from '../model/library.js';
+import type { Part } from '../model/part.js';
+import type { Plan } from '../model/plan.js';
+import type { ChartArtifact, ChartMaker } from './chart-maker.js';
+import { escapeJsonMarkup } from '../present/escape.js';
+import { selectionText, sweepText } from '../present/part-words.js';
+import { libraryRevision } from '../history/library-revision.js';
+import { comparisonSlug } from '../present/slugs.js';
+import { comparisonIndex } from '../pages/comparison-index.js';
+import { partList, writeIndexRows } from '../pages/part-list.js';
+import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
+import { writeFileDeep } from './output.js';
+import { planPageData, type PlanPageData } from '../pages/plan-page.js';
+import type { Progress } from './progress.js';
+import { reviewPageData, type ReviewPageData } from '../pages/review-page.js';
+import {
+  automaticComparisons,
+  folioHeader,
+  partPageData,
+  modelFileNames,
+  type ChartOnPage,
+  type ComparisonPageData,
+  type FolioData,
+  type PartPageData,
+} from '../pages/site-data.js';
+
+/**
+ * Pretty JSON with a final newline (downloads are read by people too), with <, > and & written as \u
+ * escapes: the same data when parsed, and inert if a file is ever sniffed or pasted as HTML.
+ */
+export const jsonFile = (value: unknown) => escapeJsonMarkup(JSON.stringify(value, null, 2)) + '\n';
+
+
+/** A chart as its page shows it; its spec is (or was) written beside the page. */
+function chartOnPage(chart: ChartArtifact): ChartOnPage {
+  return { key: chart.key, title: chart.title, description: chart.description, svg: chart.svg, specFile: `${chart.key}.vl.json` };
+}
+
+/** Time spent on parts of the work, in seconds (for benchmarks and a build's breakdown). */
+export interface AssembleTimings {
+  /** Analysing every part (sweeps, resonances, bands). */
+  analyse: number;
+  /** Writing downloads: sweep CSVs, figures and chart specs (made into text and written). */
+  downloads: number;
+}
+
+/** Write a file and add the time it took, text making included, to `timings.downloads`. */
+function timedWrite(timings: AssembleTimings | undefined, path: string, content: () => string): void {
+  const started = performance.now();
+  writeFileDeep(path, content());
+  if (timings) timings.downloads += (performance.now() - started) / 1000;
+}
+
+/** Write a chart's spec beside its page and say where it is, relative to the page. */
+function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimings): ChartOnPage {
+  const page = chartOnPage(chart);
+  timedWrite(timings, join(folder, page.specFile), () => jsonFile(chart.spec));
+  return page;
+}
+
+/** A part's page data as a build records it for the next: all but its charts and its PDF link. */
+export type RecordedPage = Omit<PartPageData, 'charts' | 'pdfFile' | 'measurements'>;
+
+/**
+ * A part's analysis, made the first time a figure of it is read: a chart maker needs only the part to find
+ * its charts in the cache, and draws (reading the sweep) only when they are not there.
+ */
+function deferredAnalysis(part: Part, analyse: () => PartAnalysis): PartAnalysis {
+  let made: PartAnalysis | undefined;
+  const analysis = () => (made ??= analyse());
+  return {
+    part,
+    get sweep() { return analysis().sweep; },
+    get frequencies() { return analysis().frequencies; },
+    get z() { return analysis().z; },
+    get columns() { return analysis().columns; },
+    get resolved() { return analysis().resolved; },
+    get resolvedColumns() { return analysis().resolvedColumns; },
+    get decades() { return analysis().decades; },
+    get decadeEffective() { return analysis().decadeEffective; },
+    get ratedImpedanceOhm() { return analysis().ratedImpedanceOhm; },
+    get resonances() { return analysis().resonances; },
+    get selfResonance() { return analysis().selfResonance; },
+    get bandRule() { return analysis().bandRule; },
+    get usableBand() { return analysis().usableBand; },
+    get within() { return analysis().within; },
+    get peakImpedance() { return analysis().peakImpedance; },
+    get peakQuality() { return analysis().peakQuality; },
+    get corners() { return analysis().corners; },
+  };
+}
+
+export interface AssembleOptions {
+  library: Library;
+  siteDir: string;
+  charts: ChartMaker;
+  progress: Progress;
+  /** Which parts (by id) and reviews (by slug) link to their PDF. */
+  pdfLinks: PdfLinks;
+  /**
+   * Parts whose folders (page, downloads) were carried over whole from the last build: nothing is drawn or
+   * written for them; their charts are read from the chart maker only where another page shows them. With
+   * the page data the last build recorded for them (the same, by the key it was carried over with), they
+   * are not even analysed unless a chart of theirs must be drawn again.
+   */
+  carried?: ReadonlyMap<string, RecordedPage | undefined>;
+  /** Each measured part against its measurements (src/measure/part-measurements.ts), by part id. */
+  measurements?: ReadonlyMap<string, readonly PartMeasurement[]>;
+  /** Filled in when given. */
+  timings?: AssembleTimings;
+}
+
+export interface PdfLinks {
+  part(id: string): boolean;
+  review(slug: string): boolean;
+}
+
+export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), measurements = new Map(), timings }: AssembleOptions): Promise<FolioData> {
+  const analyse = (part: Part) => {
+    const started = performance.now();
+    const a = analysePart(part, library.settings.sweep, library.settings.within, library.settings.temperature);
+    if (timings) timings.analyse += (performance.now() - started) / 1000;
+    return a;
+  };
+  const byId = new Map(library.parts.map((p) => [p.id, deferredAnalysis(p, () => analyse(p))]));
+  // Review packs print whole datasheets, charts included.
+  const shownElsewhere = new Set(library.reviews.flatMap((r) => r.parts.map((p) => p.id)));
+
+  progress.stage('charts', library.parts.length);
+  // All requests at once: the chart maker spreads them over its workers and answers from its cache.
+  const parts: PartPageData[] = await Promise.all(
+    library.parts.map(async (part) => {
+      const a = byId.get(part.id)!;
+      let page: PartPageData;
+      if (carried.has(part.id)) {
+        const drawn = shownElsewhere.has(part.id) ? (await charts.partCharts(a)).map(chartOnPage) : [];
+        const recorded = carried.get(part.id);
+        page = recorded ? { ...recorded, charts: drawn, measurements: [] } : partPageData(a, drawn);
+        if (shownElsewhere.has(part.id)) page.measurements = await measurementSections(part, measurements.get(part.id), library, charts);
+      } else {
+        const drawn = await charts.partCharts(a);
+        const folder = join(siteDir, 'parts', part.id);
+        timedWrite(timings, join(folder, 'sweep.csv'), () => sweepCsv(a));
+        timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(partSummary(a)));
+        writeModelFiles(part, folder, library.settings.sweep, timings);
+        page = partPageData(a, drawn.map((c) => placeChart(c, folder, timings)));
+        page.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
+      }
+      progress.tick();
+      if (pdfLinks.part(part.id)) page.pdfFile = partPdfPath(part.id);
+      return page;
+    }),
+  );
+  const partsById = new Map(parts.map((p) => [p.id, p]));
+
+  const { pages: comparisons, byKey } = await comparisonPages(library, byId, partsById, siteDir, charts, timings);
+  const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts, timings)));
+  const reviews = library.reviews.map((r) => {
+    const page = reviewPageData(r, library, { parts: partsById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
+    if (pdfLinks.review(page.slug)) page.pdfFile = reviewPdfPath(page.slug);
+    page.revision = libraryRevision(library.root, page.sources.map((x) => x.file));
+    return page;
+  });
+  // Carried-over parts keep the page the last build wrote; only the others are rendered.
+  const partPages = parts.filter((p) => !carried.has(p.id));
+  const list = partList(parts);
+  writeIndexRows(list, siteDir, (path, text) => timedWrite(timings, path, () => text));
+  return { ...folioHeader(library), parts, partList: list, partPages, comparisons, ...comparisonIndex(comparisons), plans, reviews };
+}
+
+/** A part's measurement sections, their charts placed beside the page by `place` (or only drawn). */
+async function measurementSections(part: Part, found: readonly PartMeasurement[] | undefined, library: Library, charts: ChartMaker, place: (c: ChartArtifact) => ChartOnPage = chartOnPage): Promise<MeasurementPageData[]> {
+  if (!found) return [];
+  return Promise.all(
+    found.map(async (m, i) => {
+      const index = i + 1;
+      const inputs = `${part.source.path} ${part.source.hash}\n${measurementInputs([m.entry])}\n${m.fixture}`;
+      const drawn = await charts.measurementCharts(measurementChartData(part, m), index, inputs);
+      return measurementPageData(part, m, index, library.settings.measurementWarnDb, drawn.map(place));
+    }),
+  );
+}
+
+/**
+ * The model for simulators, beside the page: a one-port Touchstone file over the library's sweep (12
+ * significant digits, a quarter shorter than in full) and a SPICE subcircuit.
+ */
+function writeModelFiles(part: Part, folder: string, sweep: Library['settings']['sweep'], timings?: AssembleTimings): void {
+  timedWrite(timings, join(folder, modelFileNames(part.id).touchstone), () => partTouchstone(part, logSweep(sweep), sweepText(sweep), 12));
+  timedWrite(timings, join(folder, modelFileNames(part.id).spice), () => partSubcircuit(part));
+}
+
+async function planPage(plan: Plan, library: Library, siteDir: string, charts: ChartMaker, timings?: AssembleTimings): Promise<PlanPageData> {
+  const figures = analysePlan(plan, library.settings.sweep.perDecade, plan.placements, plan.warnings, { operating: library.settings.temperature });
+  const inputs = [plan.source.hash, ...plan.placements.map((p) => p.part.source.hash)].join(',');
+  const page = planPageData(figures, plan.source.hash, plan.notes, undefined);
+  const folder = join(siteDir, 'plans', page.slug);
+  page.chart = placeChart(await charts.railChart(figures, inputs), folder, timings);
+  if (page.loadStep) page.loadStep.charts = (await charts.loadStepCharts(figures, inputs)).map((c) => placeChart(c, folder, timings));
+  timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(planFiguresWithoutCurves(figures)));
+  return page;
+}
+
+async function comparisonPages(
+  library: Library,
+  byId: ReadonlyMap<string, PartAnalysis>,
+  pagesById: ReadonlyMap<string, PartPageData>,
+  siteDir: string,
+  charts: ChartMaker,
+  timings?: AssembleTimings,
+): Promise<{ pages: ComparisonPageData[]; byKey: Map<string, ComparisonPageData> }> {
+  const pages: ComparisonPageData[] = [];
+  const byKey = new Map<string, ComparisonPageData>();
+  const slugs = new Set<string>();
+  const add = async (wanted: string, page: Omit<ComparisonPageData, 'slug' | 'parts' | 'chart'>, partIds: string[]) => {
+    // Two files whose names differ only in characters a folder name cannot hold get distinct folders.
+    let slug = wanted;
+    for (let n = 2; slugs.has(slug); n++) slug = `${wanted}-${n}`;
+    slugs.add(slug);
+    const analyses = partIds.map((id) => byId.get(id)!);
+    const folder = join(siteDir, 'comparisons', slug);
+    const chart = analyses.length > 0 ? placeChart(await charts.comparisonChart(analyses, page.title), folder, timings) : undefined;
+    const data: ComparisonPageData = { slug, ...page, parts: partIds.map((id) => pagesById.get(id)!), chart };
+    pages.push(data);
+    return data;
+  };
+  for (const c of library.comparisons) {
+    const data = await add(comparisonSlug(c), { title: c.title, description: c.description, automatic: false, selection: selectionText(c), sourceFile: c.source.path }, c.parts.map((p) => p.id));
+    byKey.set(comparisonKey(c), data);
+  }
+  for (const f of automaticComparisons(library)) {
+    const family = { kind: f.kind, packageText: f.packageText, valuesText: f.valuesText, subsetText: f.subsetText };
+    await add(f.slug, { title: f.title, automatic: true, selection: f.selection, family }, f.parts.map((p) => p.id));
+  }
+  return { pages, byKey };
+}

@@ -1,0 +1,274 @@
+// zfolio build: library -> figures -> charts -> pages (-> PDFs), written to a staging folder and swapped in
+// whole, so a failed build never leaves a half-written site.
+
+import { cpSync } from 'node:fs';
+import { join, relative, resolve, sep } from 'node:path';
+import { sortedDiagnostics, type Diagnostic } from '../model/diagnostics.js';
+import { libraryMeasurements, type PartMeasurement } from '../measure/part-measurements.js';
+import { loadLibrary, type Library } from '../model/library.js';
+import { railVerdicts } from '../analysis/review-checks.js';
+import { reviewWarnings } from '../model/review-consistency.js';
+import type { PaperSize } from '../model/settings.js';
+import { assembleSite, type AssembleTimings } from './assemble.js';
+import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
+import type { Browser } from 'puppeteer-core';
+import { ChromeStartError, chromeHint, findChrome, launchChrome } from '../print/browser.js';
+import type { ChartMaker } from './chart-maker.js';
+import { ChartPool, type ChartPoolStats } from './chart-pool.js';
+import { renderPages, TEMPLATES_DIR } from './eleventy.js';
+import { checkWritable, stageOutput, type SwapStep } from './output.js';
+import { guardOutput } from './output-guard.js';
+import type { FolioData } from '../pages/site-data.js';
+import { printJobs, type PrintedFile } from '../print/print.js';
+import { buildDate, printJobsFor, type PrintSelection } from '../print/print-jobs.js';
+import { silentProgress, type Progress } from './progress.js';
+import { dropRecord, linkPartFolders, partKey, readRecord, recordFile, reusableParts, siteKey, writeRecord } from './reuse.js';
+import { keptPdfs, linkPdfs, pdfKeys, pdfsIn, stampPdfs } from './pdf-reuse.js';
+import { buildHistory, type BuildHistory } from './build-history.js';
+import { addChanges } from '../pages/changes-page.js';
+
+export interface BuildOptions {
+  libraryRoot: string;
+  /** Default: _site under the library. Must be a site zfolio wrote, an empty folder or absent (see output-guard.ts). */
+  outDir?: string;
+  /** The command's current folder, which the site may not replace (default: the process's). */
+  cwd?: string;
+  /** The home folder, which the site may not replace (default: the system's). */
+  home?: string;
+  progress?: Progress;
+  /** Where charts come from; default: a ChartPool with the library's cache (see chartPoolFor). */
+  charts?: ChartMaker;
+  /** Worker threads for charts (default: one per core when many parts need drawing, none for a few). */
+  workers?: number;
+  /** Print PDFs too. */
+  pdf?: PdfOptions;
+  /**
+   * Cache folder: drawn charts (charts/) and a record of the last build of each output folder (builds/), so
+   * that a rebuild draws, writes and renders only what changed. False for none (every build starts from
+   * nothing). Default: .zfolio-cache under the library.
+   */
+  cache?: string | false;
+  /** A git revision: the site gets a "Changes since REV" page. */
+  since?: string;
+  /** Called at each step of putting the new site in place (tests stop the process there). */
+  onSwapStep?(step: SwapStep): void;
+}
+
+export interface PdfOptions {
+  /** --chrome PATH. */
+  chrome?: string;
+  env: Readonly<Record<string, string | undefined>>;
+  /** Default: folio.yaml's paper. */
+  paper?: PaperSize;
+  /** Printed in every footer; default: $SOURCE_DATE_EPOCH if set, else now. */
+  date?: Date;
+  /** Only these parts and reviews (default: all). */
+  select?: PrintSelection;
+}
+
+export interface BuildResult {
+  ok: boolean;
+  diagnostics: Diagnostic[];
+  outDir: string;
+  parts: number;
+  pages: number;
+  seconds: number;
+  library?: Library;
+  /** Each measured part against its measurements, when the library loaded. */
+  measurements?: ReadonlyMap<string, readonly PartMeasurement[]>;
+  /** The data the pages were rendered from (a carried-over part's charts are left out: its page was not rendered). */
+  folio?: FolioData;
+  /** PDFs written (site-relative paths) with their page counts. */
+  pdfs: PrintedFile[];
+  /** Set when PDFs were asked for but could not be made (the HTML site was still written). */
+  pdfProblem?: string;
+  /** Parts whose folders were carried over unchanged from the last build. */
+  reused: number;
+  /** Without printing: PDFs of the last build kept because their inputs are unchanged. */
+  keptPdfs: number;
+  /** Without printing: PDFs of the last build that were not kept (site-relative paths). */
+  removedPdfs: string[];
+  /** The chart pool's counts (absent when charts came from a given chart maker). */
+  charts?: ChartPoolStats;
+  timings: BuildTimings;
+}
+
+/** Wall-clock seconds and CPU seconds of the whole process (every thread) spent in one stage. */
+export interface StageTime {
+  seconds: number;
+  cpuSeconds: number;
+}
+
+export interface BuildTimings {
+  /** Reading and checking the library; finding what the last build left that can be reused. */
+  load: StageTime;
+  /** Analyses, charts and downloads: the site's data. */
+  assemble: StageTime & AssembleTimings;
+  /** Eleventy rendering and writing the pages, the static assets, and linking the carried-over part folders. */
+  pages: StageTime;
+  pdf: StageTime;
+  /** Putting the new site in place of the old, and recording what it holds. */
+  swap: StageTime;
+}
+
+function stageClock(): () => StageTime {
+  const wall = performance.now();
+  const cpu = process.cpuUsage();
+  return () => {
+    const used = process.cpuUsage(cpu);
+    return { seconds: (performance.now() - wall) / 1000, cpuSeconds: (used.user + used.system) / 1e6 };
+  };
+}
+
+export const DEFAULT_OUT_DIR = '_site';
+/** Under the library; listed in .gitignore. */
+export const CACHE_DIR = '.zfolio-cache';
+
+export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
+  const started = performance.now();
+  const progress = options.progress ?? silentProgress;
+  const libraryRoot = resolve(options.libraryRoot);
+  const outDir = resolve(libraryRoot, options.outDir ?? DEFAULT_OUT_DIR);
+  const zero = { seconds: 0, cpuSeconds: 0 };
+  const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
+  const clock = stageClock();
+  // Before anything is read or written: a refused output leaves the disk exactly as it was.
+  guardOutput(outDir, { libraryRoot, cwd: options.cwd ?? process.cwd(), home: options.home });
+  checkWritable(outDir);
+  const { library, diagnostics } = loadLibrary(libraryRoot);
+  const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, keptPdfs: 0, removedPdfs: [], timings };
+  if (!library) return result;
+  result.library = library;
+  // Warnings that need the analysis: a review that accepts a rail failing its target.
+  diagnostics.push(...reviewWarnings(library.reviews, () => railVerdicts(library)));
+  // The revisions compared with: read from git before anything is written (see build-history.ts).
+  const history = buildHistory(library, options.since);
+  diagnostics.push(...history.diagnostics);
+  if (history.diagnostics.some((d) => d.severity === 'error')) return result;
+  // Measurement files read and compared with their parts' models: an unreadable one stops the build here.
+  const measured = libraryMeasurements(library.parts, library.settings.measurementWarnDb);
+  diagnostics.push(...sortedDiagnostics(measured.diagnostics));
+  result.measurements = measured.byPart;
+  if (measured.diagnostics.some((d) => d.severity === 'error')) return result;
+
+  // Chromium first: one that is missing or will not start is known before the build's time is spent, and the
+  // pages then link only the PDFs there are (kept ones, as a build without --pdf).
+  let browser: Browser | undefined;
+  if (options.pdf) {
+    const chrome = findChrome(options.pdf.chrome, options.pdf.env);
+    if ('problem' in chrome) result.pdfProblem = chromeHint(chrome.problem);
+    else {
+      try {
+        browser = await launchChrome(chrome.path);
+      } catch (error) {
+        if (!(error instanceof ChromeStartError)) throw error;
+        result.pdfProblem = error.message;
+      }
+    }
+  }
+  try {
+    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history });
+  } finally {
+    await browser?.close();
+  }
+}
+
+interface Running {
+  history: BuildHistory;
+  started: number;
+  progress: Progress;
+  clock: () => StageTime;
+}
+
+async function buildWith(options: BuildOptions, library: Library, outDir: string, browser: Browser | undefined, result: BuildResult, run: Running): Promise<BuildResult> {
+  const { progress } = run;
+  const { timings } = result;
+  let clock = run.clock;
+  const cacheRoot = options.cache === false ? undefined : resolve(library.root, options.cache ?? CACHE_DIR);
+  const site = siteKey(library);
+  // Part folders can be carried over only when charts come from the cache-keyed pool.
+  const recordAt = cacheRoot && !options.charts ? recordFile(cacheRoot, outDir) : undefined;
+  const record = recordAt ? readRecord(recordAt, outDir) : undefined;
+  // PDFs: printed afresh with a browser; without one, the last site's are kept where their inputs are unchanged.
+  const keys = pdfKeys(library, site, (slug) => run.history.reviews.get(slug)?.revision.commit ?? '');
+  const earlier = browser ? [] : pdfsIn(outDir);
+  const kept = browser ? new Set<string>() : keptPdfs(record?.pdfs, keys, outDir);
+  const pdfLinks = {
+    part: (id: string) => Boolean(browser) || kept.has(partPdfPath(id)),
+    review: (slug: string) => Boolean(browser) || kept.has(reviewPdfPath(slug)),
+  };
+  const partKeys = new Map(recordAt ? library.parts.map((p) => [p.id, partKey(site, p, pdfLinks.part(p.id))]) : []);
+  const staging = stageOutput(outDir, { onStep: options.onSwapStep });
+  let pool: ChartPool | undefined;
+  try {
+    const carried = reusableParts(record, partKeys, outDir);
+    const fresh = library.parts.length - carried.size;
+    pool = options.charts ? undefined : chartPoolFor(library, options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), cacheRoot ? join(cacheRoot, 'charts') : false);
+    for (const part of library.parts) if (carried.has(part.id)) pool?.keepPartCharts({ part });
+    timings.load = clock();
+
+    clock = stageClock();
+    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, measurements: result.measurements, timings: timings.assemble });
+    await addChanges(folio, run.history, options.charts ?? pool!, staging.dir);
+    await pool?.close();
+    Object.assign(timings.assemble, clock());
+
+    clock = stageClock();
+    progress.stage('pages', 1);
+    const written = await renderPages(staging.dir, folio);
+    progress.tick();
+    cpSync(join(TEMPLATES_DIR, 'assets'), join(staging.dir, 'assets'), { recursive: true });
+    // Links into the last site come last, so that nothing is written through them into it.
+    const linked = linkPartFolders(record, carried.keys(), outDir, staging.dir);
+    linkPdfs(kept, outDir, staging.dir);
+    timings.pages = clock();
+
+    if (browser && options.pdf) {
+      clock = stageClock();
+      const paper = options.pdf.paper ?? library.settings.paper;
+      const date = options.pdf.date ?? buildDate(options.pdf.env);
+      const printed = await printJobs(browser, printJobsFor(library, folio, staging.dir, date, options.pdf.select), paper, date, progress);
+      result.pdfs = printed.map((p) => ({ ...p, pdfFile: relative(staging.dir, p.pdfFile).split(sep).join('/') }));
+      timings.pdf = clock();
+    }
+
+    clock = stageClock();
+    // The record is dropped before the swap and written after it, so it never describes a site not in place.
+    if (recordAt) dropRecord(recordAt);
+    staging.commit();
+    if (recordAt) {
+      const pdfs = stampPdfs(browser ? result.pdfs.map((p) => p.pdfFile) : kept, keys, outDir);
+      writeRecord(recordAt, outDir, partKeys, new Map(folio.parts.map((p) => [p.id, p])), record, linked, pdfs);
+    }
+    timings.swap = clock();
+    Object.assign(result, {
+      ok: true,
+      parts: folio.parts.length,
+      pages: written + carried.size,
+      reused: carried.size,
+      keptPdfs: kept.size,
+      removedPdfs: earlier.filter((p) => !kept.has(p)),
+      charts: pool?.stats,
+      folio,
+      seconds: (performance.now() - run.started) / 1000,
+    });
+    return result;
+  } catch (error) {
+    staging.abandon();
+    await pool?.close();
+    throw error;
+  }
+}
+
+/** Below this many parts to draw (not carried over), starting worker threads costs more than it saves. */
+const PARTS_PER_WORKER_START = 40;
+
+export function chartPoolFor(library: Library, workers?: number, cache?: string | false): ChartPool {
+  const { sweep, within, temperature } = library.settings;
+  return new ChartPool({
+    cacheDir: cache === false ? undefined : (cache ?? join(library.root, CACHE_DIR, 'charts')),
+    workers: workers ?? (library.parts.length < PARTS_PER_WORKER_START ? 0 : undefined),
+    // The operating temperatures set every part's and rail's spread envelope.
+    settingsKey: JSON.stringify({ sweep, within, temperature }),
+  });
+}

@@ -1,0 +1,225 @@
+// Putting a site in place: the site path is a link swapped in one rename, never empty; leftovers of killed
+// builds go at the next build; a read-only output is refused before anything moves. The swap is checked on
+// small hand-made sites in-process, then on real builds killed (SIGKILL) at each step and at random moments.
+
+import { spawn, spawnSync } from 'node:child_process';
+import { chmodSync, existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterEach, describe, expect, it } from 'vitest';
+import { buildFolio } from '../../src/build/build.js';
+import { checkWritable, removeLeftovers, stageOutput } from '../../src/build/output.js';
+import { MARKER_TEXT, OutputRefused, SITE_MARKER } from '../../src/build/output-guard.js';
+import { diskSnapshot, filesUnder, REPO, tempDir } from '../site-helpers.js';
+
+/** Stage a one-page site saying `text` and commit it. */
+function publish(site: string, text: string): void {
+  const staging = stageOutput(site);
+  writeFileSync(join(staging.dir, 'index.html'), text);
+  staging.commit();
+}
+
+const holdingOf = (site: string) => join(site, '..', `.${site.split('/').pop()}.zfolio`);
+
+/** The pid of a process that has ended. */
+function deadPid(): number {
+  return Number(spawnSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], { encoding: 'utf8' }).stdout);
+}
+
+describe('stageOutput', () => {
+  it('makes the site path a relative link to a version in the holding folder, with the marker', () => {
+    const top = tempDir('swap');
+    const site = join(top, 'site');
+    publish(site, 'one');
+    expect(lstatSync(site).isSymbolicLink()).toBe(true);
+    expect(readlinkSync(site)).toMatch(/^\.site\.zfolio\/site-\d+-[0-9a-f]{8}$/);
+    expect(readFileSync(join(site, 'index.html'), 'utf8')).toBe('one');
+    expect(readFileSync(join(site, SITE_MARKER), 'utf8')).toBe(MARKER_TEXT);
+  });
+
+  it('replaces the site and removes the version it replaced', () => {
+    const top = tempDir('swap');
+    const site = join(top, 'site');
+    publish(site, 'one');
+    publish(site, 'two');
+    expect(readFileSync(join(site, 'index.html'), 'utf8')).toBe('two');
+    expect(readdirSync(holdingOf(site))).toEqual([readlinkSync(site).split('/')[1]]);
+    expect(readdirSync(top).sort()).toEqual(['.site.zfolio', 'site']);
+  });
+
+  it('takes the place of an empty folder, and of a site written as a real folder', () => {
+    const top = tempDir('swap');
+    const empty = join(top, 'empty');
+    mkdirSync(empty);
+    publish(empty, 'new');
+    expect(lstatSync(empty).isSymbolicLink()).toBe(true);
+    const real = join(top, 'real');
+    mkdirSync(join(real, 'parts'), { recursive: true });
+    writeFileSync(join(real, SITE_MARKER), MARKER_TEXT);
+    writeFileSync(join(real, 'parts', 'old.html'), 'old');
+    publish(real, 'new');
+    expect(readFileSync(join(real, 'index.html'), 'utf8')).toBe('new');
+    expect(existsSync(join(real, 'parts'))).toBe(false);
+    expect(readdirSync(holdingOf(real))).toHaveLength(1);
+  });
+
+  it('abandoned, leaves the site and the disk as they were', () => {
+    const top = tempDir('swap');
+    const site = join(top, 'site');
+    publish(site, 'one');
+    const before = diskSnapshot(top);
+    const staging = stageOutput(site);
+    writeFileSync(join(staging.dir, 'index.html'), 'half');
+    staging.abandon();
+    expect(readFileSync(join(site, 'index.html'), 'utf8')).toBe('one');
+    // The holding folder's own time changes (an entry came and went); nothing in it or beside it does.
+    before.delete('.site.zfolio');
+    const after = diskSnapshot(top);
+    after.delete('.site.zfolio');
+    expect(after).toEqual(before);
+  });
+});
+
+describe('removeLeftovers', () => {
+  it('removes versions and links of builds that are gone, and the staging and previous folders of older zfolio', () => {
+    const top = tempDir('leftovers');
+    const site = join(top, 'site');
+    publish(site, 'one');
+    const dead = deadPid();
+    const holding = holdingOf(site);
+    mkdirSync(join(holding, `site-${dead}-0badc0de`, 'parts'), { recursive: true });
+    writeFileSync(join(holding, `site-${dead}-0badc0de`, 'parts', 'x.html'), 'x');
+    writeFileSync(join(holding, `link-${dead}-0badc0de`), '');
+    mkdirSync(join(top, `.site.staging-${dead}`));
+    mkdirSync(join(top, `.site.previous-${dead}`));
+    // A build still running (this test's parent process) keeps its version; names zfolio does not make stay.
+    mkdirSync(join(holding, `site-${process.ppid}-00c0ffee`));
+    mkdirSync(join(holding, 'notes'));
+    mkdirSync(join(top, '.site.staging-other'));
+    removeLeftovers(site);
+    expect(readdirSync(holding).sort()).toEqual([readlinkSync(site).split('/')[1], 'notes', `site-${process.ppid}-00c0ffee`].sort());
+    expect(readdirSync(top).sort()).toEqual(['.site.staging-other', '.site.zfolio', 'site']);
+    expect(readFileSync(join(site, 'index.html'), 'utf8')).toBe('one');
+  });
+});
+
+describe('a read-only output', () => {
+  const modes: [string, number][] = [];
+  const unlockAll = () => {
+    for (const [path, mode] of modes.splice(0)) chmodSync(path, mode);
+  };
+  afterEach(unlockAll);
+  const lock = (path: string) => {
+    modes.push([path, lstatSync(path).mode & 0o7777]);
+    chmodSync(path, 0o555);
+  };
+  const refusal = (site: string) => {
+    try {
+      checkWritable(site);
+    } catch (error) {
+      expect(error).toBeInstanceOf(OutputRefused);
+      return (error as Error).message;
+    }
+    return 'writable';
+  };
+
+  it('is refused, naming the read-only folder: the parent, the site, a folder inside it', () => {
+    const top = tempDir('readonly');
+    const site = join(top, 'out', 'site');
+    mkdirSync(join(top, 'out'));
+    publish(site, 'one');
+    mkdirSync(join(site, 'parts'));
+    expect(refusal(site)).toBe('writable');
+    lock(join(top, 'out'));
+    expect(refusal(site)).toBe(`cannot write the site to ${site}: ${join(top, 'out')} is read-only; make it writable or choose another --out`);
+    expect(refusal(join(top, 'out', 'new', 'deeper'))).toMatch(/: .*out is read-only/);
+    unlockAll();
+    lock(site); // chmod follows the link to the version it points at
+    expect(refusal(site)).toMatch(new RegExp(`: ${site} is read-only`));
+    unlockAll();
+    lock(join(site, 'parts'));
+    expect(refusal(site)).toMatch(/\/parts is read-only/);
+  });
+
+  it('stops a build before anything moves: exit-2 error, the disk as it was', async () => {
+    const top = tempDir('readonly-build');
+    const library = join(top, 'lib');
+    mkdirSync(join(library, 'parts'), { recursive: true });
+    writeFileSync(join(library, 'parts', 'c.yaml'), readFileSync(join(REPO, 'test/fixtures/good-library/parts/capacitor.yaml')));
+    const site = join(top, 'site');
+    publish(site, 'one');
+    lock(readlinkSync(site).startsWith('.') ? join(top, readlinkSync(site)) : site);
+    const before = diskSnapshot(top);
+    await expect(buildFolio({ libraryRoot: library, outDir: site, cwd: library, workers: 0 })).rejects.toThrow(OutputRefused);
+    expect(diskSnapshot(top)).toEqual(before);
+  });
+});
+
+const SCRIPT = fileURLToPath(new URL('./scripts/build-until.ts', import.meta.url));
+const GOOD = join(REPO, 'test/fixtures/good-library');
+
+/** A copy of the good library whose capacitor's title says `title`. */
+function libraryTitled(library: string, title: string): void {
+  mkdirSync(join(library, 'parts'), { recursive: true });
+  for (const name of readdirSync(join(GOOD, 'parts'))) {
+    const text = readFileSync(join(GOOD, 'parts', name), 'utf8');
+    writeFileSync(join(library, 'parts', name), name === 'capacitor.yaml' ? text.replace(/^title: .*$/m, `title: ${title}`) : text);
+  }
+  writeFileSync(join(library, 'folio.yaml'), readFileSync(join(GOOD, 'folio.yaml')));
+}
+
+describe('a build killed at each step of the swap', () => {
+  // The reference: every file a complete site of the good library holds.
+  let complete: string[];
+  const capPage = (site: string) => readFileSync(join(site, 'parts', 'CAP-TEST-100N', 'index.html'), 'utf8');
+
+  it.each([
+    ['staged', 'old'],
+    ['linked', 'old'],
+    ['swapped', 'new'],
+    ['cleaned', 'new'],
+  ])('killed when %s, leaves a complete site (the %s one); the next build removes what it left', async (step, which) => {
+    const top = tempDir(`kill-${step}`);
+    const library = join(top, 'lib');
+    libraryTitled(library, 'Old title');
+    const site = join(library, '_site');
+    expect((await buildFolio({ libraryRoot: library, outDir: site, cwd: library, workers: 0 })).ok).toBe(true);
+    complete ??= filesUnder(site);
+    expect(complete).toContain('parts/CAP-TEST-100N/index.html');
+
+    libraryTitled(library, 'New title');
+    const killed = spawnSync(process.execPath, ['--import', 'tsx', SCRIPT, library, site, step], { cwd: REPO, encoding: 'utf8' });
+    expect(killed.signal).toBe('SIGKILL');
+    expect(filesUnder(site)).toEqual(complete);
+    expect(capPage(site)).toContain(which === 'old' ? 'Old title' : 'New title');
+
+    libraryTitled(library, 'Third title');
+    expect((await buildFolio({ libraryRoot: library, outDir: site, cwd: library, workers: 0 })).ok).toBe(true);
+    expect(capPage(site)).toContain('Third title');
+    expect(readdirSync(holdingOf(site))).toEqual([readlinkSync(site).split('/')[1]]);
+    expect(readdirSync(library).sort()).toEqual(['._site.zfolio', '.zfolio-cache', '_site', 'folio.yaml', 'parts']);
+  }, 120_000);
+});
+
+describe('builds killed at random moments', () => {
+  it('always leave a complete site at the site path', async () => {
+    const top = tempDir('kill-random');
+    const library = join(top, 'lib');
+    libraryTitled(library, 'Title 0');
+    const site = join(library, '_site');
+    expect((await buildFolio({ libraryRoot: library, outDir: site, cwd: library, workers: 0 })).ok).toBe(true);
+    const complete = filesUnder(site);
+    // Fixed delays spread over a build's life in its own process (start-up, load, charts, pages, swap).
+    for (const [round, delayMs] of [700, 1500, 2300, 3100].entries()) {
+      libraryTitled(library, `Title ${round + 1}`);
+      const child = spawn(process.execPath, ['--import', 'tsx', SCRIPT, library, site], { cwd: REPO, stdio: 'ignore' });
+      const ended = new Promise((done) => child.on('exit', done));
+      await new Promise((done) => setTimeout(done, delayMs));
+      child.kill('SIGKILL');
+      await ended;
+      expect(filesUnder(site), `killed after ${delayMs} ms`).toEqual(complete);
+    }
+    expect((await buildFolio({ libraryRoot: library, outDir: site, cwd: library, workers: 0 })).ok).toBe(true);
+    expect(readdirSync(holdingOf(site))).toEqual([readlinkSync(site).split('/')[1]]);
+  }, 120_000);
+});

@@ -1,0 +1,146 @@
+// Rebuilds that carry unchanged part folders over from the last site: after every kind of change the rebuilt
+// site must be byte-for-byte the site a build from nothing makes of the same files (the reference here is
+// a cold build with no cache), and only what changed may be drawn and written again.
+
+import { existsSync, mkdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { buildFolio } from '../../src/build/build.js';
+import { linkPartFolders, readRecord, reusableParts, writeRecord } from '../../src/build/reuse.js';
+import { loadLibrary } from '../../src/model/library.js';
+import { copyLibrary, REPO, tempDir, treeHashes } from '../site-helpers.js';
+
+let root: string;
+let out: string;
+let partCount: number;
+let firstPages: number;
+
+/** Files whose bytes differ between two built sites (or that only one has). */
+function differences(a: string, b: string): string[] {
+  const x = treeHashes(a);
+  const y = treeHashes(b);
+  return [...new Set([...x.keys(), ...y.keys()])].filter((f) => x.get(f) !== y.get(f)).sort();
+}
+
+/** Rebuild in place with the cache, then build the same files from nothing elsewhere; both must agree. */
+async function rebuildAndCompare() {
+  const rebuilt = await buildFolio({ libraryRoot: root, outDir: out, workers: 0 });
+  expect(rebuilt.ok).toBe(true);
+  const reference = join(tempDir('reuse-cold'), '_site');
+  expect((await buildFolio({ libraryRoot: root, outDir: reference, workers: 0, cache: false })).ok).toBe(true);
+  expect(differences(out, reference)).toEqual([]);
+  rmSync(reference, { recursive: true, force: true });
+  return rebuilt;
+}
+
+function editFile(relative: string, edit: (text: string) => string): void {
+  const file = join(root, relative);
+  const before = readFileSync(file, 'utf8');
+  const after = edit(before);
+  expect(after, relative).not.toBe(before);
+  writeFileSync(file, after);
+}
+
+beforeAll(async () => {
+  root = copyLibrary(REPO, 'reuse');
+  out = join(root, '_site');
+  partCount = loadLibrary(root).library!.parts.length;
+  const first = await buildFolio({ libraryRoot: root, outDir: out, workers: 0 });
+  expect(first.ok).toBe(true);
+  expect(first.reused).toBe(0);
+  firstPages = first.pages;
+}, 240_000);
+
+describe('a rebuild with the last site and the cache in place', () => {
+  it('carries every part folder over when nothing changed, and writes the same site', async () => {
+    const before = treeHashes(out);
+    const again = await buildFolio({ libraryRoot: root, outDir: out, workers: 0 });
+    expect(again.reused).toBe(partCount);
+    // Carried-over pages still count as pages of the site.
+    expect(again.pages).toBe(firstPages);
+    expect(again.charts!.drawn).toBe(0);
+    expect(treeHashes(out)).toEqual(before);
+  }, 120_000);
+
+  it('draws only the edited part (and the comparisons holding it) again, and matches a cold build', async () => {
+    // A part the demo review covers: its datasheet is printed in the review pack too.
+    editFile('parts/capacitors/mlcc/orv-c-0402-100n-x7r.yaml', (t) => t.replace(/esr: *[^\s,}]+/, 'esr: 21m'));
+    const rebuilt = await rebuildAndCompare();
+    expect(rebuilt.reused).toBe(partCount - 1);
+    expect(rebuilt.charts!.drawn).toBeGreaterThanOrEqual(4);
+  }, 240_000);
+
+  it('matches a cold build after a part is added and another removed', async () => {
+    writeFileSync(join(root, 'parts', 'added.yaml'), 'id: ADDED-C-1\nkind: capacitor\ntitle: An added test capacitor (invented)\nnominal: 47n\nparasitics: {esr: 30m, esl: 0.5n}\n');
+    rmSync(join(root, 'parts', 'resistors', 'precision', 'orv-r-0603-100k-0p1.yaml'), { force: false });
+    const rebuilt = await rebuildAndCompare();
+    expect(rebuilt.reused).toBe(partCount - 1);
+  }, 240_000);
+
+  it('rebuilds every part folder when the library settings change, and matches a cold build', async () => {
+    editFile('folio.yaml', (t) => t.replace(/^owner: .*$/m, 'owner: Reuse test bench (invented)'));
+    const rebuilt = await rebuildAndCompare();
+    expect(rebuilt.reused).toBe(0);
+  }, 240_000);
+
+  it('rebuilds a part folder whose files were changed in the last site by hand', async () => {
+    const page = join(out, 'parts', 'ORV-C-0402-1U-X5R', 'index.html');
+    writeFileSync(page, readFileSync(page, 'utf8').replace('</main>', '<p>edited by hand</p></main>'));
+    const rebuilt = await rebuildAndCompare();
+    expect(rebuilt.reused).toBe(loadLibrary(root).library!.parts.length - 1);
+    expect(readFileSync(page, 'utf8')).not.toContain('edited by hand');
+  }, 240_000);
+
+  it('builds from nothing when the last site is gone', async () => {
+    rmSync(out, { recursive: true, force: true });
+    const rebuilt = await rebuildAndCompare();
+    expect(rebuilt.reused).toBe(0);
+    expect(existsSync(join(out, 'index.html'))).toBe(true);
+  }, 240_000);
+});
+
+describe('carrying part folders over', () => {
+  it('links only folders whose recorded files are untouched, and never writes through a link into the last site', () => {
+    const dir = tempDir('reuse-link');
+    const last = join(dir, 'last');
+    const staging = join(dir, 'staging');
+    for (const id of ['A', 'B']) {
+      mkdirSync(join(last, 'parts', id), { recursive: true });
+      writeFileSync(join(last, 'parts', id, 'index.html'), `<p>${id} as the last build wrote it</p>`);
+      writeFileSync(join(last, 'parts', id, 'sweep.csv'), `f,${id}\n`);
+    }
+    const keys = new Map([['A', 'key-a'], ['B', 'key-b']]);
+    writeRecord(join(dir, 'record.json'), last, keys);
+    const record = readRecord(join(dir, 'record.json'), last)!;
+    expect(Object.keys(record.parts)).toEqual(['A', 'B']);
+    // Another output folder's record is not this one's.
+    expect(readRecord(join(dir, 'record.json'), join(dir, 'elsewhere'))).toBeUndefined();
+
+    // B's page is changed by hand (new size): B is not reusable; a changed key makes A not reusable either.
+    writeFileSync(join(last, 'parts', 'B', 'index.html'), '<p>edited by hand, longer than before</p>');
+    expect([...reusableParts(record, keys, last).keys()]).toEqual(['A']);
+    expect([...reusableParts(record, new Map([['A', 'other-key']]), last).keys()]).toEqual([]);
+
+    // The build wrote A's page itself: that file is kept, the rest is linked, and the last site is untouched.
+    mkdirSync(join(staging, 'parts', 'A'), { recursive: true });
+    writeFileSync(join(staging, 'parts', 'A', 'index.html'), '<p>A as this build wrote it</p>');
+    linkPartFolders(record, new Set(['A']), last, staging);
+    expect(readFileSync(join(staging, 'parts', 'A', 'index.html'), 'utf8')).toBe('<p>A as this build wrote it</p>');
+    expect(readFileSync(join(last, 'parts', 'A', 'index.html'), 'utf8')).toBe('<p>A as the last build wrote it</p>');
+    expect(statSync(join(staging, 'parts', 'A', 'sweep.csv')).ino).toBe(statSync(join(last, 'parts', 'A', 'sweep.csv')).ino);
+    rmSync(dir, { recursive: true, force: true });
+  });
+
+  it('forgets the records of output folders that are gone', () => {
+    const dir = tempDir('reuse-records');
+    const kept = join(dir, "kept \"site\"");
+    const gone = join(dir, 'gone');
+    for (const site of [kept, gone]) mkdirSync(join(site, 'parts', 'A'), { recursive: true });
+    writeRecord(join(dir, 'gone.json'), gone, new Map([['A', 'k']]));
+    rmSync(gone, { recursive: true });
+    writeRecord(join(dir, 'kept.json'), kept, new Map([['A', 'k']]));
+    expect(existsSync(join(dir, 'gone.json'))).toBe(false);
+    expect(readRecord(join(dir, 'kept.json'), kept)?.parts.A.key).toBe('k');
+    rmSync(dir, { recursive: true, force: true });
+  });
+});

@@ -1,0 +1,179 @@
+// The demo library built into a site: a page per part with its four charts, figures as `zfolio figures
+// --json` states them, self-contained (no outside URL), deterministic, and never half-written.
+
+import { mkdirSync, readdirSync, readlinkSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { analysePart } from '../../src/analysis/part-figures.js';
+import { partSummary } from '../../src/analysis/summary.js';
+import { buildFolio, type BuildResult } from '../../src/build/build.js';
+import { loadLibrary, type Library } from '../../src/model/library.js';
+import { formatEng } from '../../src/units/format.js';
+import { copyLibrary, filesUnder, read, REPO, tempDir, treeHashes } from '../site-helpers.js';
+
+let library: Library;
+let first: BuildResult;
+let siteA: string;
+let siteB: string;
+
+beforeAll(async () => {
+  library = loadLibrary(REPO).library!;
+  siteA = join(tempDir('site-a'), '_site');
+  siteB = join(tempDir('site-b'), '_site');
+  // Two cold builds (no chart cache), one drawing charts in this thread and one in worker threads.
+  first = await buildFolio({ libraryRoot: REPO, outDir: siteA, cache: false, workers: 0 });
+  await buildFolio({ libraryRoot: REPO, outDir: siteB, cache: false, workers: 2 });
+}, 240_000);
+
+describe('the demo folio', () => {
+  it('builds without problems', () => {
+    expect(first.ok).toBe(true);
+    expect(first.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+    expect(first.parts).toBe(library.parts.length);
+  });
+
+  it('has one datasheet page per part, each with four charts as inline SVG', () => {
+    for (const part of library.parts) {
+      const html = read(siteA, `parts/${part.id}/index.html`);
+      const charts = [...html.matchAll(/<figure class="chart" id="chart-(\w+)">\s*<svg[^>]*role="img"/g)].map((m) => m[1]);
+      expect(charts, part.id).toEqual(['impedance', 'phase', 'plane', 'admittance']);
+      // Each chart carries its text alternative.
+      expect((html.match(/<svg[^>]*role="img"[\s\S]*?<title[^>]*>[^<]+<\/title>\s*<desc[^>]*>[^<]+<\/desc>/g) ?? []).length).toBeGreaterThanOrEqual(4);
+    }
+  });
+
+  it('states the figures `zfolio figures --json` gives, on the page and in its figures.json', () => {
+    for (const part of library.parts) {
+      const summary = partSummary(analysePart(part, library.settings.sweep, library.settings.within, library.settings.temperature));
+      const json = JSON.parse(read(siteA, `parts/${part.id}/figures.json`));
+      expect(json).toEqual(JSON.parse(JSON.stringify(summary)));
+      const html = read(siteA, `parts/${part.id}/index.html`);
+      const srf = summary.selfResonanceHz === null ? '—' : formatEng(summary.selfResonanceHz, 'Hz');
+      expect(html, part.id).toContain(`<dd class="srf">${srf}</dd>`);
+    }
+  });
+
+  it('offers the sweep as CSV, one row per sweep point', () => {
+    const part = library.parts[0];
+    const csv = read(siteA, `parts/${part.id}/sweep.csv`).trim().split('\n');
+    expect(csv[0]).toBe('frequency_Hz,R_ohm,X_ohm,Zmag_ohm,phase_deg,G_S,B_S,Ymag_S,Q,Ceff_F,Leff_H');
+    expect(csv.length - 1).toBe(801); // 100 Hz to 10 GHz at 100 per decade, both ends
+  });
+
+  it('offers the model as a one-port Touchstone file and a SPICE subcircuit, linked from every part page', () => {
+    for (const part of library.parts) {
+      const html = read(siteA, `parts/${part.id}/index.html`);
+      expect(html).toContain(`href="../../parts/${part.id}/${part.id}.s1p" download>`);
+      expect(html).toContain(`href="../../parts/${part.id}/${part.id}.subckt" download>`);
+      const s1p = read(siteA, `parts/${part.id}/${part.id}.s1p`).split('\n');
+      expect(s1p[0]).toBe('! zfolio export');
+      expect(s1p[1].startsWith(`! ${part.id}: `) && s1p[1].endsWith(`(${part.kind})`)).toBe(true);
+      // The same sweep as the CSV: 801 points after the header and option line.
+      expect(s1p.filter((l) => /^\d/.test(l))).toHaveLength(801);
+      expect(read(siteA, `parts/${part.id}/${part.id}.subckt`)).toContain(`.SUBCKT ${part.id} 1 2\n`);
+    }
+  });
+
+  it('shows each measured part against its measurement: file, its opening comments, the miss, three charts and the model-vs-fit table; no such section elsewhere', () => {
+    const measured = library.parts.filter((p) => p.measurements.length > 0);
+    expect(measured.length).toBeGreaterThanOrEqual(4);
+    for (const part of library.parts) {
+      const html = read(siteA, `parts/${part.id}/index.html`);
+      const sections = html.match(/<section class="measurement"/g) ?? [];
+      expect(sections.length, part.id).toBe(part.measurements.length);
+      if (part.measurements.length === 0) continue;
+      expect(html).toContain(`<p class="measurement-source"><span class="mono">${part.measurements[0].file}</span> · `);
+      expect(html).toMatch(/the model misses the measurement by \d+\.\d\d dB rms in \|Z\|/);
+      // The demo's files are synthetic, and their own opening comments say so on the page.
+      expect(html).toContain(`<span class="label">The file's opening comments:</span> <q>SYNTHETIC measurement for the zfolio demo library: no part was measured.`);
+      for (const kind of ['measured-impedance-1', 'measured-phase-1', 'residual-1']) {
+        expect(html).toContain(`<figure class="chart" id="chart-${kind}">`);
+        expect(filesUnder(siteA)).toContain(`parts/${part.id}/${kind}.vl.json`);
+      }
+      expect(html).toContain('<h3>Model vs fit</h3>');
+    }
+  });
+
+  it('has an index listing every part, and comparison pages including the automatic part families of every kind', () => {
+    const index = read(siteA, 'index.html');
+    for (const part of library.parts) expect(index).toContain(`href="parts/${part.id}/index.html"`);
+    // The demo fits on one page of the index: no pager, no row scripts.
+    expect(index).not.toContain('data-pager');
+    expect(filesUnder(siteA).filter((f) => f.startsWith('list/'))).toEqual([]);
+    const comparisons = read(siteA, 'comparisons/index.html');
+    const families = [...comparisons.matchAll(/<a href="(family-[^"/]+)\/index.html">/g)].map((m) => m[1]);
+    const members = families.map((slug) => [...read(siteA, `comparisons/${slug}/index.html`).matchAll(/href="..\/..\/parts\/([^/]+)\/index.html"/g)].map((m) => m[1]));
+    // Every part is in exactly one family, and no family (one chart, a curve a part) holds more than 12.
+    expect(members.flat().sort()).toEqual(library.parts.map((p) => p.id).sort());
+    for (const ids of members) expect(ids.length).toBeLessThanOrEqual(12);
+    for (const kind of new Set(library.parts.map((p) => p.kind))) expect(index).toContain(`href="comparisons/index.html#families-${kind}"`);
+    for (const c of library.comparisons) expect(index).toContain(c.title.replace(/&/g, '&amp;'));
+  });
+
+  it('is self-contained: no http(s) URL in any src or href, no CSS import from elsewhere, and a strict CSP', () => {
+    for (const file of filesUnder(siteA).filter((f) => /\.(html|css|svg|js)$/.test(f))) {
+      const text = read(siteA, file);
+      expect(text.match(/(?:src|href)\s*=\s*["']?\s*(?:https?:)?\/\//gi), file).toBeNull();
+      expect(text.match(/url\(\s*["']?\s*(?:https?:)?\/\//gi), file).toBeNull();
+      expect(text.match(/@import/gi), file).toBeNull();
+      if (file.endsWith('.html')) expect(text, file).toContain(`content="default-src 'none';`);
+    }
+  });
+
+  it('uses relative links only, so it works from the file system', () => {
+    for (const file of filesUnder(siteA).filter((f) => f.endsWith('.html'))) {
+      const links = [...read(siteA, file).matchAll(/(?:src|href)="([^"]*)"/g)].map((m) => m[1]);
+      for (const link of links) expect(link.startsWith('/'), `${file}: ${link}`).toBe(false);
+    }
+  });
+
+  it('is byte-identical from build to build, drawn in this thread or in workers', () => {
+    const a = treeHashes(siteA);
+    const b = treeHashes(siteB);
+    expect([...b.keys()]).toEqual([...a.keys()]);
+    for (const [file, hash] of a) expect(b.get(file), file).toBe(hash);
+  });
+});
+
+describe('a library with problems', () => {
+  it('stops the build before anything is written and leaves the previous site as it was', async () => {
+    const root = copyLibrary(join(REPO, 'test/fixtures/good-library'), 'bad-build');
+    const out = join(root, '_site');
+    expect((await buildFolio({ libraryRoot: root, outDir: out, workers: 0 })).ok).toBe(true);
+    const before = treeHashes(out);
+    writeFileSync(join(root, 'parts', 'broken.yaml'), 'id: BROKEN-1\nkind: capacitor\nnominal: 10 nH\n');
+    const result = await buildFolio({ libraryRoot: root, outDir: out, workers: 0 });
+    expect(result.ok).toBe(false);
+    expect(result.diagnostics.map((d) => `${d.file}:${d.line}:${d.column}`)).toContain('parts/broken.yaml:3:10');
+    expect(treeHashes(out)).toEqual(before);
+    // No staging folder is left behind either: the holding folder keeps only the site in place.
+    expect(readdirSync(join(root, '._site.zfolio'))).toEqual([readlinkSync(out).split('/')[1]]);
+  }, 120_000);
+});
+
+describe('text from YAML', () => {
+  it('is escaped wherever it lands: a title with <script> and quotes renders as text', async () => {
+    const root = tempDir('xss');
+    mkdirSync(join(root, 'parts'));
+    const evil = `<script>alert("x")</script> "quoted" & 'single' </textarea>`;
+    writeFileSync(
+      join(root, 'parts', 'evil.yaml'),
+      `id: EVIL-1\nkind: capacitor\ntitle: ${JSON.stringify(evil)}\nnominal: 1u\ntags: ["<img src=x onerror=alert(1)>"]\nnotes: "</script><script>alert(2)</script>"\nparasitics: {esr: 10m, esl: 1n}\n`,
+    );
+    writeFileSync(join(root, 'folio.yaml'), `title: "<b>Lib</b> & co"\n`);
+    const out = join(root, '_site');
+    const result = await buildFolio({ libraryRoot: root, outDir: out, workers: 0, cache: false });
+    expect(result.ok).toBe(true);
+    for (const file of filesUnder(out).filter((f) => /\.(html|svg|json)$/.test(f))) {
+      const text = read(out, file);
+      expect(text, file).not.toContain('<script>alert');
+      expect(text, file).not.toContain('<img src=x');
+      expect(text, file).not.toContain('<b>Lib</b>');
+    }
+    const page = read(out, 'parts/EVIL-1/index.html');
+    expect(page).toContain('&lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt;');
+    // The only script on a page is the folio's own file.
+    expect(page.match(/<script\b[^>]*>/g)).toEqual(['<script src="../../assets/folio.js">']);
+    rmSync(root, { recursive: true, force: true });
+  }, 120_000);
+});

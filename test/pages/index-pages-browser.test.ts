@@ -1,0 +1,167 @@
+// The parts index of a generated 2,000-part library (invented parts, bench/generate.ts) in the system
+// Chromium, from the file system: the first page opens quickly with 200 rows, every part is reachable
+// through the page links with script off, and with script on the fields filter and the headings sort all
+// 2,000 parts, shown a page at a time. Charts are not what this test looks at, so the build draws none
+// (a chart maker that returns empty charts); every page and the index's row scripts are the real ones.
+
+import { mkdirSync, rmSync, statSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import type { Browser, Page } from 'puppeteer-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { writeGeneratedLibrary } from '../../bench/generate.js';
+import { findChrome, launchChrome } from '../../src/print/browser.js';
+import { buildFolio } from '../../src/build/build.js';
+import type { ChartArtifact, ChartMaker } from '../../src/build/chart-maker.js';
+import { loadLibrary, type Library } from '../../src/model/library.js';
+import { REPO } from '../site-helpers.js';
+
+const PARTS = 2000;
+const ARTIFACTS = join(REPO, 'test', '.artifacts');
+let root: string;
+let site: string;
+let library: Library;
+let browser: Browser;
+const problems: string[] = [];
+
+const blank = (key: string, title: string): ChartArtifact => ({ key, title, description: title, svg: '<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"></svg>', spec: {} });
+const noCharts: ChartMaker = {
+  partCharts: async () => [],
+  comparisonChart: async (_, title) => blank('overlay', title),
+  railChart: async () => blank('rail', 'rail'),
+  loadStepCharts: async () => [],
+  changeChart: async () => blank('change', 'change'),
+  measurementCharts: async () => [],
+};
+
+beforeAll(async () => {
+  root = writeGeneratedLibrary(PARTS, 3);
+  site = join(root, '_site');
+  library = loadLibrary(root).library!;
+  const result = await buildFolio({ libraryRoot: root, outDir: site, cache: false, charts: noCharts });
+  expect(result.ok).toBe(true);
+  const chrome = findChrome(undefined, process.env);
+  if (!('path' in chrome)) throw new Error(`browser tests need Chromium: ${chrome.problem}`);
+  browser = await launchChrome(chrome.path);
+  mkdirSync(ARTIFACTS, { recursive: true });
+}, 300_000);
+
+afterAll(async () => {
+  await browser?.close();
+  if (root) rmSync(root, { recursive: true, force: true });
+});
+
+async function open(file: string, javascript = true): Promise<Page> {
+  const page = await browser.newPage();
+  await page.setJavaScriptEnabled(javascript);
+  await page.setViewport({ width: 1280, height: 900 });
+  const siteUrl = pathToFileURL(site).href;
+  page.on('console', (m) => {
+    if (m.type() === 'error' || m.type() === 'warn') problems.push(`${file}: console ${m.type()}: ${m.text()}`);
+  });
+  page.on('pageerror', (e) => problems.push(`${file}: page error: ${(e as Error).message}`));
+  page.on('requestfailed', (r) => problems.push(`${file}: request failed: ${r.url()}`));
+  await page.goto(`${siteUrl}/${file}`, { waitUntil: 'load' });
+  return page;
+}
+
+const ids = (page: Page) => page.$$eval('table.parts-index tbody tr', (rows) => rows.filter((r) => !(r as HTMLElement).hidden).map((r) => r.querySelector('a')!.textContent!.trim()));
+const count = (page: Page) => page.$eval('output[name=count]', (o) => (o as HTMLOutputElement).value);
+/** What the find field matches, by the test's own reading of the part files: every word in id, title, kind, package, dielectric or tags. */
+const matching = (words: string[]) =>
+  library.parts
+    .filter((p) => {
+      const text = [p.id, p.title, p.kind, p.package ?? '', p.dielectric ?? '', ...p.tags].join(' ').toLowerCase();
+      return words.every((w) => text.includes(w));
+    })
+    .map((p) => p.id)
+    .sort();
+
+describe(`the index of ${PARTS.toLocaleString('en-GB')} parts`, () => {
+  it('shows its first page of 200 parts quickly, from a page far smaller than the whole list', async () => {
+    expect(statSync(join(site, 'index.html')).size).toBeLessThan(250_000);
+    const page = await browser.newPage();
+    await page.setViewport({ width: 1280, height: 900 });
+    const started = performance.now();
+    await page.goto(`${pathToFileURL(site).href}/index.html`, { waitUntil: 'load' });
+    await page.screenshot({ path: join(ARTIFACTS, 'index-2000-first.png') });
+    const seconds = (performance.now() - started) / 1000;
+    console.log(`index of ${PARTS} parts: first screenshot ${seconds.toFixed(2)} s after navigation started`);
+    // A loose bound for a shared, busy machine; the figure itself is printed above.
+    expect(seconds).toBeLessThan(5);
+    expect(await ids(page)).toEqual(library.parts.map((p) => p.id).sort().slice(0, 200));
+    await page.close();
+  });
+
+  it('reaches every part through its page links with script off', async () => {
+    const seen: string[] = [];
+    let file: string | undefined = 'index.html';
+    const visited: string[] = [];
+    while (file) {
+      visited.push(file);
+      const page = await open(file, false);
+      expect(await page.$eval('form[data-filters]', (f) => (f as HTMLFormElement).hidden)).toBe(true);
+      seen.push(...(await ids(page)));
+      // The next page: the link after the current page's number.
+      const next = await page.$eval('nav[data-pager]', (nav) => {
+        const current = nav.querySelector('[aria-current=page]')!;
+        const after = current.nextElementSibling as HTMLAnchorElement | null;
+        return after ? after.getAttribute('href') : null;
+      });
+      // Links are relative to the page: resolve against its folder.
+      file = next ? join(dirname(file), next).split('\\').join('/') : undefined;
+      await page.close();
+    }
+    expect(visited).toEqual(['index.html', ...Array.from({ length: 9 }, (_, i) => `list/${i + 2}.html`)]);
+    expect(seen).toEqual(library.parts.map((p) => p.id).sort());
+  });
+
+  it('filters all parts from any page and pages through the matches', async () => {
+    const page = await open('list/3.html');
+    await page.type('input[name=q]', 'generated capacitor');
+    const expected = matching(['generated', 'capacitor']);
+    expect(expected.length).toBeGreaterThan(200);
+    await page.waitForFunction(() => /shown/.test((document.querySelector('output[name=count]') as HTMLOutputElement).value));
+    const pages = Math.ceil(expected.length / 200);
+    expect(await count(page)).toBe(`${expected.length} of ${PARTS} shown, page 1 of ${pages}`);
+    expect(await ids(page)).toEqual(expected.slice(0, 200));
+    // Links from a page in list/ lead to the part pages one folder up.
+    expect(await page.$eval('table.parts-index tbody a', (a) => a.getAttribute('href'))).toBe(`../parts/${expected[0]}/index.html`);
+    await page.click('nav[data-pager] button:last-of-type');
+    expect(await count(page)).toBe(`${expected.length} of ${PARTS} shown, page 2 of ${pages}`);
+    expect(await ids(page)).toEqual(expected.slice(200, 400));
+    await page.screenshot({ path: join(ARTIFACTS, 'index-2000-filtered.png') });
+
+    await page.click('input[name=q]', { clickCount: 3 });
+    await page.keyboard.press('Backspace');
+    await page.select('select[name=kind]', 'bead');
+    const beads = library.parts.filter((p) => p.kind === 'bead').map((p) => p.id).sort();
+    expect(await count(page)).toBe(`${beads.length} of ${PARTS} shown, page 1 of ${Math.ceil(beads.length / 200)}`);
+    expect(await ids(page)).toEqual(beads.slice(0, 200));
+    await page.close();
+  });
+
+  it('sorts all parts by a column, both ways, with the order of the numbers', async () => {
+    const page = await open('index.html');
+    await page.click('th[data-key=srf] button');
+    await page.waitForFunction(() => /shown/.test((document.querySelector('output[name=count]') as HTMLOutputElement).value));
+    const srfs = () => page.$$eval('table.parts-index tbody tr', (rows) => rows.map((r) => r.cells[5].dataset.value ?? ''));
+    // Every part's SRF, read back from the no-script pages of the same site.
+    const all: number[] = [];
+    for (let n = 1; n <= 10; n++) {
+      const p = await open(n === 1 ? 'index.html' : `list/${n}.html`, false);
+      all.push(...(await p.$$eval('table.parts-index tbody tr', (rows) => rows.map((r) => r.cells[5].dataset.value ?? ''))).filter((v) => v !== '').map(Number));
+      await p.close();
+    }
+    all.sort((a, b) => a - b);
+    expect((await srfs()).map(Number)).toEqual(all.slice(0, 200));
+    await page.click('th[data-key=srf] button');
+    expect((await srfs()).map(Number)).toEqual([...all].reverse().slice(0, 200));
+    await page.screenshot({ path: join(ARTIFACTS, 'index-2000-sorted.png') });
+    await page.close();
+  });
+
+  it('raised no console error and no failed request', () => {
+    expect(problems).toEqual([]);
+  });
+});

@@ -1,0 +1,138 @@
+// The built demo folio in the system Chromium, opened from the file system as a reader would: the index
+// filters and sorts, part and comparison pages show their charts, nothing is fetched from outside and no
+// error reaches the console. Screenshots go to test/.artifacts/ for people to look at.
+
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import type { Browser, Page } from 'puppeteer-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { findChrome, launchChrome } from '../../src/print/browser.js';
+import { buildFolio } from '../../src/build/build.js';
+import { loadLibrary } from '../../src/model/library.js';
+import { REPO, tempDir } from '../site-helpers.js';
+
+const ARTIFACTS = join(REPO, 'test', '.artifacts');
+const library = loadLibrary(REPO).library!;
+let site: string;
+let browser: Browser;
+const problems: string[] = [];
+
+beforeAll(async () => {
+  site = join(tempDir('browser'), '_site');
+  const result = await buildFolio({ libraryRoot: REPO, outDir: site, cache: false });
+  expect(result.ok).toBe(true);
+  const chrome = findChrome(undefined, process.env);
+  // CI installs Debian's chromium; a machine without it fails here rather than skipping.
+  if (!('path' in chrome)) throw new Error(`browser tests need Chromium: ${chrome.problem}`);
+  browser = await launchChrome(chrome.path);
+  mkdirSync(ARTIFACTS, { recursive: true });
+}, 240_000);
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+/** A tab that records console errors, page errors, failed requests and any request outside the site. */
+async function open(file: string, javascript = true): Promise<Page> {
+  const page = await browser.newPage();
+  await page.setJavaScriptEnabled(javascript);
+  await page.setViewport({ width: 1280, height: 900 });
+  const siteUrl = pathToFileURL(site).href;
+  page.on('console', (m) => {
+    if (m.type() === 'error' || m.type() === 'warn') problems.push(`${file}: console ${m.type()}: ${m.text()}`);
+  });
+  page.on('pageerror', (e) => problems.push(`${file}: page error: ${(e as Error).message}`));
+  page.on('requestfailed', (r) => problems.push(`${file}: request failed: ${r.url()}`));
+  page.on('request', (r) => {
+    if (!r.url().startsWith(siteUrl + '/') && !r.url().startsWith('data:')) problems.push(`${file}: outside request: ${r.url()}`);
+  });
+  await page.goto(`${siteUrl}/${file}`, { waitUntil: 'load' });
+  return page;
+}
+
+const visibleIds = (page: Page) =>
+  page.$$eval('table.parts-index tbody tr', (rows) => rows.filter((r) => !(r as HTMLElement).hidden).map((r) => r.querySelector('a')!.textContent!.trim()));
+
+describe('the index', () => {
+  it('filters by text and by kind', async () => {
+    const page = await open('index.html');
+    expect(await page.$eval('form[data-filters]', (f) => (f as HTMLFormElement).hidden)).toBe(false);
+    expect(await visibleIds(page)).toHaveLength(library.parts.length);
+
+    const beads = library.parts.filter((p) => p.kind === 'bead').map((p) => p.id);
+    await page.select('select[name=kind]', 'bead');
+    expect((await visibleIds(page)).sort()).toEqual([...beads].sort());
+    expect(await page.$eval('output[name=count]', (o) => (o as HTMLOutputElement).value)).toBe(`${beads.length} of ${library.parts.length} shown`);
+
+    await page.select('select[name=kind]', '');
+    const word = '0402';
+    await page.type('input[name=q]', word);
+    const expected = library.parts.filter((p) => [p.id, p.title, p.package ?? '', ...p.tags].join(' ').toLowerCase().includes(word)).map((p) => p.id);
+    expect((await visibleIds(page)).sort()).toEqual(expected.sort());
+    await page.screenshot({ path: join(ARTIFACTS, 'index-filtered.png') });
+    await page.close();
+  });
+
+  it('sorts by SRF, both ways, with the order of the numbers and not of the text', async () => {
+    const page = await open('index.html');
+    const srfs = () => page.$$eval('table.parts-index tbody tr', (rows) => rows.map((r) => r.cells[5].dataset.value ?? ''));
+    const header = await page.$('th[data-key=srf] button');
+    await header!.click();
+    expect(await page.$eval('th[data-key=srf]', (th) => th.getAttribute('aria-sort'))).toBe('ascending');
+    const up = (await srfs()).filter((v) => v !== '').map(Number);
+    expect(up).toEqual([...up].sort((a, b) => a - b));
+    await header!.click();
+    const down = (await srfs()).filter((v) => v !== '').map(Number);
+    expect(down).toEqual([...down].sort((a, b) => b - a));
+    await page.screenshot({ path: join(ARTIFACTS, 'index-sorted.png') });
+    await page.close();
+  });
+
+  it('is complete and readable with script off', async () => {
+    const page = await open('index.html', false);
+    expect(await page.$$eval('table.parts-index tbody tr', (rows) => rows.length)).toBe(library.parts.length);
+    expect(await page.$eval('form[data-filters]', (f) => (f as HTMLFormElement).hidden)).toBe(true);
+    await page.close();
+  });
+});
+
+describe('pages', () => {
+  it('a part page, reached from the index, shows its four charts and the schematic', async () => {
+    const page = await open('index.html');
+    const id = library.parts.find((p) => p.kind === 'capacitor')!.id;
+    await Promise.all([page.waitForNavigation({ waitUntil: 'load' }), page.click(`a[href="parts/${id}/index.html"]`)]);
+    expect(await page.$eval('h1.part-id', (h) => h.textContent)).toBe(id);
+    const boxes = await page.$$eval('figure.chart svg, .schematic-figure svg', (svgs) => svgs.map((s) => s.getBoundingClientRect()).map((r) => [r.width, r.height]));
+    expect(boxes).toHaveLength(5);
+    for (const [w, h] of boxes) expect(w * h).toBeGreaterThan(10_000);
+    await page.screenshot({ path: join(ARTIFACTS, 'part-page.png'), fullPage: true });
+    await page.close();
+  });
+
+  it('every kind of part page opens cleanly', async () => {
+    for (const kind of ['inductor', 'resistor', 'bead', 'network'] as const) {
+      const part = library.parts.find((p) => p.kind === kind)!;
+      const page = await open(`parts/${part.id}/index.html`);
+      // Four charts, and three more for each measurement the part has.
+      expect(await page.$$eval('figure.chart svg', (s) => s.length)).toBe(4 + 3 * part.measurements.length);
+      await page.screenshot({ path: join(ARTIFACTS, `part-${kind}.png`), fullPage: true });
+      await page.close();
+    }
+  });
+
+  it('a comparison page overlays the parts on one chart', async () => {
+    // The demo's inductors are one family of every inductor.
+    const page = await open('comparisons/family-inductor/index.html');
+    const box = await page.$eval('figure.chart svg', (s) => s.getBoundingClientRect().width);
+    expect(box).toBeGreaterThan(300);
+    const rows = await page.$$eval('table.grid tbody tr', (r) => r.length);
+    expect(rows).toBe(library.parts.filter((p) => p.kind === 'inductor').length);
+    await page.screenshot({ path: join(ARTIFACTS, 'comparison.png'), fullPage: true });
+    await page.close();
+  });
+
+  it('raised no console error, no failed request and no request outside the site', () => {
+    expect(problems).toEqual([]);
+  });
+});

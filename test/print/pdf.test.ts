@@ -1,0 +1,214 @@
+// PDFs of the demo folio, printed by the system Chromium and read back with poppler's pdftotext and pdfinfo
+// (Debian poppler-utils): searchable text, the SRF as the HTML page states it, page x of y, metadata, and a
+// review pack whose contents list points at the pages its sections really start on.
+
+import { execFileSync } from 'node:child_process';
+import { copyFileSync, existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { buildFolio, type BuildResult } from '../../src/build/build.js';
+import { main } from '../../src/cli/main.js';
+import { loadLibrary } from '../../src/model/library.js';
+import { read, REPO, tempDir, copyLibrary } from '../site-helpers.js';
+import { measurePdf, nearlyEmptyPages } from '../../bench/print-legibility.js';
+
+const DATE = new Date('2026-12-01T12:00:00Z');
+const CAPACITOR = 'ORV-C-0402-100N-X7R';
+const INDUCTOR = 'ORV-L-PWR-4U7-3A';
+const BEAD = 'ORV-FB-0402-120R-2A';
+const library = loadLibrary(REPO).library!;
+let result: BuildResult;
+let site: string;
+
+const pdftotext = (file: string, first?: number, last?: number) =>
+  execFileSync('pdftotext', [...(first ? ['-f', String(first), '-l', String(last ?? first)] : []), '-layout', file, '-'], { encoding: 'utf8' });
+const pdfinfo = (file: string) => Object.fromEntries(execFileSync('pdfinfo', [file], { encoding: 'utf8' }).split('\n').filter(Boolean).map((l) => [l.slice(0, l.indexOf(':')), l.slice(l.indexOf(':') + 1).trim()]));
+
+beforeAll(async () => {
+  site = join(tempDir('pdf'), '_site');
+  result = await buildFolio({
+    libraryRoot: REPO,
+    outDir: site,
+    pdf: { env: process.env, date: DATE, select: { parts: new Set([CAPACITOR, INDUCTOR, BEAD]) } },
+  });
+  if (result.pdfProblem) throw new Error(`PDF tests need Chromium: ${result.pdfProblem}`);
+}, 300_000);
+
+describe('part datasheets', () => {
+  it('are written for the parts asked for, and linked from their pages', () => {
+    const files = result.pdfs.map((p) => p.pdfFile).sort();
+    expect(files).toEqual([`pdf/parts/${CAPACITOR}.pdf`, `pdf/parts/${INDUCTOR}.pdf`, `pdf/parts/${BEAD}.pdf`, 'pdf/reviews/dl3-power-integrity.pdf'].sort());
+    expect(read(site, `parts/${CAPACITOR}/index.html`)).toContain(`href="../../pdf/parts/${CAPACITOR}.pdf"`);
+  });
+
+  it.each([CAPACITOR, INDUCTOR])('%s: searchable text with its id, its SRF as the HTML page prints it, and page furniture', (id) => {
+    const file = join(site, 'pdf', 'parts', `${id}.pdf`);
+    const text = pdftotext(file);
+    const srf = /<dd class="srf">([^<]+)<\/dd>/.exec(read(site, `parts/${id}/index.html`))![1];
+    expect(text).toContain(id);
+    expect(text).toContain(srf);
+    const pages = Number(pdfinfo(file).Pages);
+    expect(pages).toBeGreaterThanOrEqual(2);
+    for (let n = 1; n <= pages; n++) expect(text).toContain(`page ${n} of ${pages}`);
+    const part = library.partsById.get(id)!;
+    expect(text).toContain(`built 2026-12-01 · ${part.source.path} · sha256:${part.source.hash}`);
+    expect(text).toContain(library.settings.title);
+  });
+
+  it('hold no link to the build\'s own files (they would point into a folder that is gone)', () => {
+    for (const pdf of result.pdfs) expect(readFileSync(join(site, pdf.pdfFile)).includes('file:'), pdf.pdfFile).toBe(false);
+  });
+
+  it('carry title, subject, creator and producer metadata', () => {
+    const info = pdfinfo(join(site, 'pdf', 'parts', `${CAPACITOR}.pdf`));
+    expect(info.Title).toBe(`${CAPACITOR} — ${library.partsById.get(CAPACITOR)!.title}`);
+    expect(info.Subject).toMatch(/^Impedance datasheet of ORV-C-0402-100N-X7R \(capacitor\)/);
+    expect(info.Creator).toMatch(/^zfolio \d+\.\d+\.\d+$/);
+    expect(info.Producer).toMatch(/^zfolio/);
+    expect(info['Page size']).toMatch(/A4/);
+  });
+});
+
+describe('the review pack', () => {
+  const file = () => join(site, 'pdf', 'reviews', 'dl3-power-integrity.pdf');
+  const review = library.reviews[0];
+
+  it('opens with a cover holding the review facts and a sign-off table', () => {
+    const cover = pdftotext(file(), 1);
+    expect(cover).toContain(review.title);
+    expect(cover).toMatch(/Name\s+Role\s+Decision\s+Signature\s+Date/);
+    for (const who of review.reviewers) expect(cover).toContain(who.name);
+  });
+
+  it('states each covered rail\'s verdict on the cover, as the rail\'s plan page does', () => {
+    const cover = pdftotext(file(), 1);
+    for (const plan of review.plans) {
+      const page = read(site, `plans/${plan.rail.replace(/[^A-Za-z0-9._-]+/g, '-')}/index.html`);
+      // The page's first verdict is the nominal one, the corner verdict follows it.
+      const verdict = /\bverdict-(pass|fail)\b/.exec(page)![1].toUpperCase();
+      const corner = /corner-verdict"><span class="verdict-label">Worst corner<\/span> <span class="verdict-(pass|fail)">/.exec(page)![1].toUpperCase();
+      expect(cover).toMatch(new RegExp(`Rail ${plan.rail}: at nominal ${verdict}`));
+      expect(cover).toMatch(new RegExp(`Rail ${plan.rail}: at nominal ${verdict}[^\\n]*\\n\\s*at its corners: ${corner}`));
+    }
+  });
+
+  it('has a contents list whose page numbers are where each section starts, and pages that add up', () => {
+    const contents = pdftotext(file(), 2);
+    expect(contents).toContain('Contents');
+    const entries = [...contents.matchAll(/^\s*(\S.*?)\s{2,}(\d+)\s*$/gm)].map((m) => ({ title: m[1].trim(), page: Number(m[2]) }));
+    // Decisions, every plan, comparison and part, cautions, appendix.
+    expect(entries.length).toBe(3 + review.plans.length + review.comparisons.length + review.parts.length);
+    const pages = Number(pdfinfo(file()).Pages);
+    const starts = entries.map((e) => e.page);
+    expect(starts[0]).toBe(3);
+    expect([...starts].sort((a, b) => a - b)).toEqual(starts);
+    expect(starts[starts.length - 1]).toBeLessThanOrEqual(pages);
+    for (const entry of entries) {
+      const page = pdftotext(file(), entry.page);
+      // The section's own heading is on the page the contents give (ids and titles as printed).
+      const heading = entry.title.replace(/^Rail plan /, '').replace(/^Comparison: /, '').split(' — ')[0];
+      expect(page, `${entry.title} on page ${entry.page}`).toContain(heading);
+      if (entry.page > 1) expect(pdftotext(file(), entry.page - 1)).not.toMatch(new RegExp(`^\\s*${heading.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\s*$`, 'm'));
+    }
+    // Every page carries "page x of N" with the true N.
+    const all = pdftotext(file());
+    for (let n = 1; n <= pages; n++) expect(all).toContain(`page ${n} of ${pages}`);
+    expect(result.pdfs.find((p) => p.pdfFile.endsWith('dl3-power-integrity.pdf'))!.pages).toBe(pages);
+  });
+
+  it('ends with the cautions and an appendix of every source file with its hash', () => {
+    const all = pdftotext(file());
+    expect(all).toContain('Appendix: source files');
+    expect(all).toContain(`${review.source.path}`);
+    for (const part of review.parts) expect(all).toContain(part.source.hash);
+    expect(all).toMatch(/licensed practice/);
+  });
+});
+
+// Paper a reviewer can read: word sizes and words per page read back with pdftotext -bbox (bench/print-legibility.ts).
+describe('legible paper', () => {
+  const files = () => result.pdfs.map((p) => join(site, p.pdfFile));
+
+  it('has no nearly empty page (fewer than 70 words, running head and footer included)', () => {
+    for (const file of files()) expect(nearlyEmptyPages(measurePdf(file)), file).toEqual([]);
+  });
+});
+
+describe('zfolio print', () => {
+  it('prints one datasheet on Letter paper into the folder asked for, leaving the site alone', async () => {
+    const out = tempDir('print');
+    const repoSite = join(REPO, '_site');
+    const siteBefore = existsSync(repoSite) ? statSync(repoSite).mtimeMs : null;
+    const lines: string[] = [];
+    // What a killed print left behind: its scratch folder, named with its (ended) process id.
+    const dead = Number(execFileSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], { encoding: 'utf8' }));
+    const leftover = join(tmpdir(), `zfolio-print-${dead}-Ab12Cd`);
+    mkdirSync(join(leftover, 'site'), { recursive: true });
+    // A PDF zfolio made, under the name print writes: replaced without a word.
+    copyFileSync(join(site, 'pdf', 'parts', `${CAPACITOR}.pdf`), join(out, `${INDUCTOR}.pdf`));
+    const code = await main(['print', INDUCTOR, '--paper', 'letter', '--out', out, '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
+    expect(code).toBe(0);
+    expect(existsSync(leftover)).toBe(false);
+    const file = join(out, `${INDUCTOR}.pdf`);
+    expect(lines.join('')).toMatch(new RegExp(`${INDUCTOR}\\.pdf  \\d+ pages?\\n$`));
+    // US Letter is 612 × 792 pt (ANSI/ASME Y14.1).
+    expect(pdfinfo(file)['Page size']).toMatch(/^612 x 792 pts \(letter\)/);
+    expect(pdftotext(file)).toContain(INDUCTOR);
+    expect(existsSync(repoSite) ? statSync(repoSite).mtimeMs : null).toBe(siteBefore);
+  }, 180_000);
+
+  it('prints a rail plan on its own, named by its rail or its plan file', async () => {
+    const out = tempDir('print-rail');
+    const lines: string[] = [];
+    const code = await main(['print', 'VDD_CORE', 'plans/vdd-3v3.yaml', '--out', out, '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
+    expect(code).toBe(0);
+    expect(lines.join('')).toMatch(/VDD_CORE\.pdf  \d+ pages?\n/);
+    const text = pdftotext(join(out, 'VDD_CORE.pdf'));
+    const page = read(site, 'plans/VDD_CORE/index.html');
+    const verdict = /\bverdict-(pass|fail)\b/.exec(page)![1].toUpperCase();
+    expect(text).toContain('VDD_CORE');
+    expect(text).toContain(`${verdict} — worst margin`);
+    expect(text).toContain('Anti-resonance peaks'.toUpperCase());
+    expect(text).not.toContain('Sign-off'.toUpperCase());
+    expect(text).toContain(`Rail plan VDD_CORE`);
+    const pages = Number(pdfinfo(join(out, 'VDD_CORE.pdf')).Pages);
+    for (let n = 1; n <= pages; n++) expect(text).toContain(`page ${n} of ${pages}`);
+    expect(pdfinfo(join(out, 'VDD_3V3.pdf')).Title).toMatch(/^Rail plan VDD_3V3 — /);
+  }, 180_000);
+
+  it('names what it cannot find', async () => {
+    const err: string[] = [];
+    const code = await main(['print', 'ORV-C-0402-100N-X7X', '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: () => {}, err: (t) => err.push(t) });
+    expect(code).toBe(2);
+    expect(err.join('')).toContain('no part, rail or review called "ORV-C-0402-100N-X7X"; did you mean ORV-C-0402-100N-X7R?');
+  });
+});
+
+describe('without Chromium', () => {
+  it('build --pdf still writes the site, then exits 1 with one line saying how to get PDFs', async () => {
+    const root = copyLibrary(join(REPO, 'test/fixtures/good-library'), 'nochrome');
+    const out: string[] = [];
+    const err: string[] = [];
+    const code = await main(['build', '--pdf', '--library', root, '--chrome', '/nonexistent/chromium', '--workers', '0'], {
+      cwd: root,
+      env: {},
+      isTTY: false,
+      out: (t) => out.push(t),
+      err: (t) => err.push(t),
+    });
+    expect(code).toBe(1);
+    expect(existsSync(join(root, '_site', 'index.html'))).toBe(true);
+    const lines = err.join('').split('\n').filter((l) => l.includes('Chromium'));
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toMatch(/--chrome PATH or ZFOLIO_CHROME=PATH/);
+  }, 120_000);
+
+  it('build without --pdf asks nothing of the browser', async () => {
+    const root = copyLibrary(join(REPO, 'test/fixtures/good-library'), 'nopdf');
+    const err: string[] = [];
+    const code = await main(['build', '--library', root, '--workers', '0'], { cwd: root, env: { ZFOLIO_CHROME: '/nonexistent' }, isTTY: false, out: () => {}, err: (t) => err.push(t) });
+    expect(code).toBe(0);
+    expect(err.join('')).not.toMatch(/Chromium/);
+  }, 120_000);
+});
