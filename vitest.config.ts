@@ -8,5 +8,8 @@ export default defineConfig({
     // Site, browser and PDF tests each build a folio; two cores, so two forks.
     pool: 'forks',
     maxWorkers: 2,
+    // Files in one fork share its modules: vega, eleventy and puppeteer load once a fork, not once a file
+    // (that was most of the suite's time). No test mocks a module or leaves global state behind.
+    isolate: false,
   },
 });

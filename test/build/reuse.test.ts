@@ -1,14 +1,41 @@
 // Rebuilds that carry unchanged part folders over from the last site: after every kind of change the rebuilt
 // site must be byte-for-byte the site a build from nothing makes of the same files (the reference here is
-// a cold build with no cache), and only what changed may be drawn and written again.
+// a cold build with no cache), and only what changed may be drawn and written again. The library is the demo
+// cut down to a part of every kind and the parts its plans, review and one comparison name, so that each of
+// the five cold reference builds costs a third of the whole demo's.
 
-import { existsSync, mkdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio } from '../../src/build/build.js';
 import { linkPartFolders, readRecord, reusableParts, writeRecord } from '../../src/build/reuse.js';
 import { loadLibrary } from '../../src/model/library.js';
-import { copyLibrary, REPO, tempDir, treeHashes } from '../site-helpers.js';
+import { copyLibrary, filesUnder, REPO, tempDir, treeHashes } from '../site-helpers.js';
+
+/** Part files kept: every part the plans, the review and the comparison name, and one of each other kind. */
+const KEPT_PARTS = [
+  'capacitors/mlcc/orv-c-0402-100n-x7r.yaml',
+  'capacitors/mlcc/orv-c-0402-1u-x5r.yaml',
+  'capacitors/mlcc/orv-c-0402-2u2-x6s.yaml',
+  'capacitors/mlcc/orv-c-0805-10u-x5r.yaml',
+  'capacitors/mlcc/orv-c-0805-22u-x6s.yaml',
+  'capacitors/mlcc/orv-c-1206-47u-x5r.yaml',
+  'capacitors/bulk/orv-c-poly-220u-6v3.yaml',
+  'capacitors/safety/orv-c-x2-100n-310v.yaml',
+  'resistors/precision/orv-r-0603-100k-0p1.yaml',
+  'beads/orv-fb-0603-600r-1a.yaml',
+  'inductors/power/orv-l-pwr-10u-2a.yaml',
+  'networks/orv-n-rc-snubber.yaml',
+];
+const KEPT_COMPARISONS = ['decoupling-0402.yaml'];
+
+/** A copy of the demo library holding only the kept parts and comparisons. */
+function demoSubset(): string {
+  const copy = copyLibrary(REPO, 'reuse');
+  for (const file of filesUnder(join(copy, 'parts'))) if (!KEPT_PARTS.includes(file)) rmSync(join(copy, 'parts', file));
+  for (const file of readdirSync(join(copy, 'comparisons'))) if (!KEPT_COMPARISONS.includes(file)) rmSync(join(copy, 'comparisons', file));
+  return copy;
+}
 
 let root: string;
 let out: string;
@@ -42,9 +69,12 @@ function editFile(relative: string, edit: (text: string) => string): void {
 }
 
 beforeAll(async () => {
-  root = copyLibrary(REPO, 'reuse');
+  root = demoSubset();
   out = join(root, '_site');
-  partCount = loadLibrary(root).library!.parts.length;
+  const loaded = loadLibrary(root);
+  expect(loaded.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
+  partCount = loaded.library!.parts.length;
+  expect(partCount).toBe(KEPT_PARTS.length);
   const first = await buildFolio({ libraryRoot: root, outDir: out, workers: 0 });
   expect(first.ok).toBe(true);
   expect(first.reused).toBe(0);

@@ -39,6 +39,8 @@ export function useGitEnv(): () => void {
 
 /** A new empty folder under the tests' temporary base (outside any git repository). */
 export function freshFolder(name: string): string {
+  // Test files share this module within a fork, and each removes the base when it is done.
+  mkdirSync(base, { recursive: true });
   return mkdtempSync(join(base, `${name}-`));
 }
 
