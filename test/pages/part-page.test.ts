@@ -1,0 +1,54 @@
+// The datasheet page's text, without a build: the impedance table and headline figures of a series R-L-C
+// capacitor model (100 nF, ESR 18 mΩ, ESL 0.45 nH, leakage 1 GΩ) against the closed forms worked by hand
+// (Alexander & Sadiku, Fundamentals of Electric Circuits, 6th ed., ch. 9 and 14): X = ωL − 1/(ωC),
+// |Z| = √(R² + X²), phase = atan2(X, R), C_eff = C/(1 − ω²LC), Q = |X|/R, SRF = 1/(2π√(LC)).
+// From 1 MHz up the 1 GΩ leakage adds under 3 nΩ to R: far below the third digit shown.
+
+import { describe, expect, it } from 'vitest';
+import type { Part } from '../../src/model/part.js';
+import { partPageText } from '../../src/pages/part-page.js';
+import { analysed, capacitorPart, resistorPart } from '../charts/fixtures.js';
+
+/** The chart fixtures carry only what the analysis reads; a page also reads the part's ratings. */
+const withRatings = (p: Part): Part => ({ ...p, voltageRatings: [], dcBias: [], tags: [] }) as Part;
+
+describe('a datasheet page of a series R-L-C capacitor', () => {
+  const text = partPageText(analysed(withRatings(capacitorPart)));
+  const row = (frequency: string) => text.impedanceTable.find((r) => r.frequency === frequency);
+
+  it('tabulates Z at each decade as the closed forms give it', () => {
+    expect(text.effectiveHeading).toBe('C_eff');
+    // 1 MHz: X = −1.58872 Ω, |Z| = 1.58882 Ω, phase −89.351°, C_eff = 100.178 nF, Q = 88.26.
+    expect(row('1 MHz')).toEqual({ frequency: '1 MHz', resistance: '18 mΩ', reactance: '−1.59 Ω', magnitude: '1.59 Ω', phase: '−89.4°', effective: '100 nF', q: '88.3' });
+    // 10 MHz: X = −130.88 mΩ, |Z| = 132.11 mΩ, phase −82.169°, C_eff = 121.60 nF, Q = 7.271.
+    expect(row('10 MHz')).toEqual({ frequency: '10 MHz', resistance: '18 mΩ', reactance: '−131 mΩ', magnitude: '132 mΩ', phase: '−82.2°', effective: '122 nF', q: '7.27' });
+    // 100 MHz, above the SRF: X = +266.83 mΩ, |Z| = 267.43 mΩ, phase +86.141°, Q = 14.82; no capacitance to state.
+    expect(row('100 MHz')).toEqual({ frequency: '100 MHz', resistance: '18 mΩ', reactance: '267 mΩ', magnitude: '267 mΩ', phase: '86.1°', effective: '', q: '14.8' });
+  });
+
+  it('states the SRF (23.7254 MHz) and the ESR there (R = 18 mΩ, where X = 0)', () => {
+    expect(text.srfText).toBe('23.7 MHz');
+    expect(text.figures.find((r) => r.label === 'Self-resonant frequency')).toMatchObject({ value: '23.7 MHz', note: 'series resonance' });
+    expect(text.figures.find((r) => r.label === 'ESR at SRF')?.value).toBe('18 mΩ');
+  });
+
+  it('lists every leaf of the model with its value, in drawing order', () => {
+    expect(text.parameters.map((r) => [r.label, r.value])).toEqual([
+      ['R1', '18 mΩ'],
+      ['L1', '450 pH'],
+      ['C1', '100 nF'],
+      ['R2', '1 GΩ'],
+    ]);
+  });
+});
+
+describe('a datasheet page of a resistor', () => {
+  it('heads the effective column with the deviation of |Z| from R', () => {
+    const text = partPageText(analysed(withRatings(resistorPart)));
+    expect(text.effectiveHeading).toBe('|Z|/R − 1');
+    // 1 kΩ + j·ωL (0.6 nH), across it 0.08 pF: at 1 kHz |Z|/R − 1 = −1.2423e-13 (worked with complex numbers:
+    // Z = (R + jωL)/(1 + jωC(R + jωL))), shown as a percentage to three digits.
+    expect(text.impedanceTable[0]).toMatchObject({ frequency: '1 kHz', magnitude: '1 kΩ' });
+    expect(Number(text.impedanceTable[0].effective.replace(/%$/, ''))).toBeCloseTo(-1.24e-11, 13);
+  });
+});
