@@ -1,12 +1,14 @@
 // Reading the fields of one YAML mapping, with a message at the right place for everything that is wrong.
 
-import { isMap, isScalar, isSeq, type Node, type Pair, type YAMLMap, type YAMLSeq } from 'yaml';
-import { parseQuantity, parseRatio, expectation } from '../units/parse.js';
+import { isMap, isSeq, type Node, type Pair, type YAMLMap, type YAMLSeq } from 'yaml';
+import { expectation, parseQuantity, parseRatio } from '../units/parse.js';
 import { DIMENSIONS, type Dimension } from '../units/quantity.js';
 import { inRange, rangeText } from '../units/ranges.js';
 import { quote, type DiagnosticList, type SourcePosition } from './diagnostics.js';
 import { positionOf, type SourceFile } from './source.js';
-import { closest } from './suggest.js';
+import { describeNode, expectationInBrackets, nearMiss, scalarText } from './found-text.js';
+
+export { describeNode, expectationInBrackets, missingTarget, nearMiss, scalarText } from './found-text.js';
 
 export interface ReadContext {
   source: SourceFile;
@@ -16,14 +18,6 @@ export interface ReadContext {
    * not "no such part" (with a misleading "did you mean") but a pointer to the file to fix.
    */
   unreadable?: Readonly<Partial<Record<'parts' | 'plans' | 'comparisons', ReadonlyMap<string, string>>>>;
-}
-
-/** What to say about a reference to `name` that names nothing the library could read. */
-export function missingTarget(ctx: ReadContext, kind: 'parts' | 'plans' | 'comparisons', noun: string, name: string, candidates: Iterable<string>): string {
-  const file = ctx.unreadable?.[kind]?.get(name);
-  if (file !== undefined) return `${noun} ${quote(name)} is defined in ${quote(file)}, which has errors (listed there); fix them first`;
-  const guess = closest(name, candidates);
-  return `no ${noun} ${quote(name)} in the library${guess ? `; did you mean "${guess}"?` : ''}`;
 }
 
 export interface QuantityOptions {
@@ -48,54 +42,12 @@ export interface TextOptions {
   suggest?: boolean;
 }
 
-/** What a found value looks like in a message. */
-export function describeNode(node: Node | null | undefined): string {
-  if (node === null || node === undefined) return 'nothing';
-  if (isScalar(node)) {
-    // A quoted "" was written on purpose: show it; an empty plain value is nothing at all.
-    const quoted = node.type === 'QUOTE_DOUBLE' || node.type === 'QUOTE_SINGLE';
-    return node.value === null || (node.value === '' && !quoted) ? 'nothing' : quote(String(node.value));
-  }
-  if (isMap(node)) return node.items.length === 0 ? 'an empty mapping' : 'a mapping';
-  if (isSeq(node)) return node.items.length === 0 ? 'an empty list' : 'a list';
-  return 'an alias';
-}
-
-export function scalarText(node: Node | null | undefined): string | undefined {
-  if (!isScalar(node)) return undefined;
-  return node.value === null ? undefined : String(node.value);
-}
-
-/**
- * A "did you mean" candidate for a misspelt word. One-letter words get none unless only their case differs:
- * every one-letter word is one edit from "r", "l" and "c", so a guess would be noise.
- */
-export function nearMiss(word: string, candidates: readonly string[]): string | undefined {
-  // Two swapped neighbours ("titel") are one slip of the fingers but two edits to Levenshtein.
-  const guess = closest(word, candidates) ?? candidates.find((c) => isTransposition(word.toLowerCase(), c.toLowerCase()));
-  if (guess === undefined) return undefined;
-  if ([...word].length <= 1 && guess.toLowerCase() !== word.toLowerCase()) return undefined;
-  return guess;
-}
-
-function isTransposition(a: string, b: string): boolean {
-  if (a.length !== b.length || a === b) return false;
-  let i = 0;
-  while (a[i] === b[i]) i++;
-  return a[i] === b[i + 1] && a[i + 1] === b[i] && a.slice(i + 2) === b.slice(i + 2);
-}
-
 /** Ratios below this are no tolerance or criterion a part is made to; they only feed rounding noise. */
 const MIN_RATIO = 1e-6;
 
 function formatNumberPercent(ratio: number): string {
   const percent = ratio * 100;
   return percent <= 1e9 ? `${Number(percent.toPrecision(6))}%` : 'far more than 100%';
-}
-
-/** "an inductance in H, e.g. 0.45n or 0.45 nH": the expectation without nested brackets, for "(...)". */
-export function expectationInBrackets(dim: Dimension): string {
-  return expectation(dim).replace(' (e.g. ', ', e.g. ').replace(/\)$/, '');
 }
 
 export class Fields {
