@@ -3,6 +3,7 @@
 // a spread), evaluated by rail-corners.ts, and the worst corner named part by part.
 
 import type { Element } from '../circuit/element.js';
+import type { Part } from '../model/part.js';
 import type { Placement, Plan } from '../model/plan.js';
 import type { TemperatureRange } from '../model/spread.js';
 import { biasFraction, scaleCapacitance } from './dc-bias.js';
@@ -55,6 +56,12 @@ function placedElement(model: Element, fraction: number, mountingH: number): Ele
     byKey.set(key, element);
   }
   return element;
+}
+
+/** A part as a rail's corner places it: its factors (spreadFactors) at the ends `high` gives, at the rail's DC bias, with its mounting. */
+export function cornerElement(part: Part, factors: ReturnType<typeof spreadFactors>, high: readonly boolean[], voltageV: number, mountingH: number): Element {
+  const fraction = biasFraction(part.dcBias, voltageV).fraction;
+  return placedElement(factors.length === 0 ? part.network : spreadModel(part, factors, high), fraction, mountingH);
 }
 
 /** The rail of `plan` with `placements` at its corners; `nominal` is its nominal evaluation. */

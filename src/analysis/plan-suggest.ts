@@ -11,6 +11,8 @@ import type { Placement, Plan } from '../model/plan.js';
 import { analysePlan, fixedBranches, placedModel, planSweep, planTargetOhm, type PlanFigures } from './plan-figures.js';
 import { closestSet } from './planner-closest.js';
 import { planDecoupling, type PlannerProblem, type PlannerResult } from './planner.js';
+import { planAtCorners, type CornerRounds } from './plan-suggest-corners.js';
+import type { TemperatureRange } from '../model/spread.js';
 
 export interface SuggestOptions {
   /** Each candidate is placed 0..maxCount times. */
@@ -19,6 +21,8 @@ export interface SuggestOptions {
   marginDb?: number;
   perDecade: number;
   nodeLimit?: number;
+  /** Plan for the worst corner of the chosen parts' spreads over these temperatures (plan-suggest-corners.ts). */
+  corners?: TemperatureRange;
 }
 
 export interface Suggestion {
@@ -40,6 +44,8 @@ export interface Suggestion {
   figures: PlanFigures | null;
   /** When no set was found: the set that came closest (best found by local search, not proven best), in full. */
   closest: { placements: Placement[]; figures: PlanFigures } | null;
+  /** Planning for the worst corner (--corners): the rounds it took and why they stopped; null otherwise. */
+  cornerRounds: CornerRounds | null;
 }
 
 /** Warnings about suggested placements (a rail above a part's DC-bias table), once per part, at its id. */
@@ -67,17 +73,23 @@ export function suggestPlacements(plan: Plan, selection: CandidateSelection, opt
     objective,
     nodeLimit: options.nodeLimit,
   };
-  const result = planDecoupling(problem);
   const placementsOf = (counts: readonly number[]): Placement[] =>
     counts.flatMap((count, i) => {
       const c = candidates[i];
       return count > 0 ? [{ part: c.part, count, mountingH: c.mountingH, mountingFrom: c.mountingFrom, at: plan.at }] : [];
     });
-  const analysed = (placements: Placement[]) => analysePlan(plan, options.perDecade, placements, placementWarnings(candidates, placements));
+  const atCorners = options.corners ? planAtCorners(plan, candidates, problem, options.corners, marginDb, options.perDecade, placementsOf) : null;
+  // A set that holds at nominal but not at its corners (the rounds stopped first) is no answer to --corners,
+  // and nothing was proven about the sets that would hold.
+  const stopped = atCorners !== null && (atCorners.rounds.stop === 'repeat' || atCorners.rounds.stop === 'rounds');
+  const result = atCorners ? { ...atCorners.result, ...(stopped ? { counts: null, status: 'unproven' as const } : {}) } : planDecoupling(problem);
+  const analysed = (placements: Placement[]) =>
+    analysePlan(plan, options.perDecade, placements, placementWarnings(candidates, placements), options.corners ? { operating: options.corners } : {});
   const placements = result.counts ? placementsOf(result.counts) : [];
   let closest: Suggestion['closest'] = null;
   if (!result.counts) {
-    const near = placementsOf(closestSet(problem).counts);
+    // At corners, the set the last round chose holds at nominal and is the one to show; else the local search's.
+    const near = atCorners?.result.counts ? placementsOf(atCorners.result.counts) : placementsOf(closestSet(problem).counts);
     closest = { placements: near, figures: analysed(near) };
   }
   return {
@@ -93,5 +105,6 @@ export function suggestPlacements(plan: Plan, selection: CandidateSelection, opt
     placements,
     figures: result.counts ? analysed(placements) : null,
     closest,
+    cornerRounds: atCorners?.rounds ?? null,
   };
 }

@@ -1,5 +1,8 @@
-// The planner's working grid: the fixed admittance and each candidate's admittance at every frequency the
+// The planner's working grid: the fixed admittance and each candidate's admittance at every point the
 // search checks (the band's sweep, then any cuts), and the arithmetic the search and its starting set share.
+// With scenarios (the parts at other ends of their spreads, plan-suggest-corners.ts), every frequency is a
+// point once per scenario: a set must hold the target in each, and each point's inequality stays linear in
+// the counts, so the search's bounds hold unchanged.
 
 import type { Element } from '../circuit/element.js';
 import { addAdmittance, admittanceInto } from '../circuit/admittance.js';
@@ -27,6 +30,19 @@ export interface PlannerProblem {
   objective: 'count' | 'cost';
   /** Search nodes before giving up on a proof (deterministic, unlike a time limit). */
   nodeLimit?: number;
+  /** Other sets of models the chosen counts must also hold the target with (besides `fixed`/`candidates`). */
+  scenarios?: readonly PlannerScenario[];
+}
+
+/** The fixed branches and every candidate's model (in candidate order) as they are in one scenario. */
+export interface PlannerScenario {
+  fixed: readonly RailBranch[];
+  elements: readonly Element[];
+}
+
+/** Every scenario the counts are judged in: the problem's own models first. */
+export function scenariosOf(problem: PlannerProblem): PlannerScenario[] {
+  return [{ fixed: problem.fixed, elements: problem.candidates.map((c) => c.element) }, ...(problem.scenarios ?? [])];
 }
 
 export interface Grid {
@@ -40,32 +56,41 @@ export interface Grid {
   /** The same, point-major (index k·m + i), for loops over candidates at one point. */
   tRe: Float64Array;
   tIm: Float64Array;
-  /** Points are in sweep order up to `sorted`; cuts follow. */
+  /** Points are in sweep order up to `sorted` (one sweep after another with scenarios); cuts follow. */
   sorted: number;
 }
 
 export function buildGrid(problem: PlannerProblem, cuts: readonly number[]): Grid {
-  const f = new Float64Array(problem.frequencies.length + cuts.length);
+  const scenarios = scenariosOf(problem);
+  const S = scenarios.length;
+  const n = problem.frequencies.length;
+  const f = new Float64Array(n + cuts.length);
   f.set(problem.frequencies);
-  f.set(cuts, problem.frequencies.length);
-  const size = f.length;
+  f.set(cuts, n);
+  const per = f.length;
+  // Points: each scenario's sweep in turn, then each scenario's cuts.
+  const size = per * S;
   const aRe = new Float64Array(size);
   const aIm = new Float64Array(size);
-  for (const b of problem.fixed) {
-    const z = impedanceSweep(b.element, f);
-    addAdmittance(z.re, z.im, b.count, aRe, aIm);
-  }
-  const yRe: Float64Array[] = [];
-  const yIm: Float64Array[] = [];
-  for (const c of problem.candidates) {
-    const z = impedanceSweep(c.element, f);
-    const re = new Float64Array(size);
-    const im = new Float64Array(size);
-    admittanceInto(z.re, z.im, re, im);
-    yRe.push(re);
-    yIm.push(im);
-  }
   const m = problem.candidates.length;
+  const yRe = Array.from({ length: m }, () => new Float64Array(size));
+  const yIm = Array.from({ length: m }, () => new Float64Array(size));
+  // Scenario s's points: its sweep at s·n, its cuts at S·n + s·(cuts).
+  const c = cuts.length;
+  const parts = (s: number) => [
+    { from: 0, to: n, at: s * n },
+    { from: n, to: per, at: S * n + s * c },
+  ];
+  scenarios.forEach((scenario, s) => {
+    for (const b of scenario.fixed) {
+      const z = impedanceSweep(b.element, f);
+      for (const p of parts(s)) addAdmittance(z.re.subarray(p.from, p.to), z.im.subarray(p.from, p.to), b.count, aRe.subarray(p.at), aIm.subarray(p.at));
+    }
+    scenario.elements.forEach((element, i) => {
+      const z = impedanceSweep(element, f);
+      for (const p of parts(s)) admittanceInto(z.re.subarray(p.from, p.to), z.im.subarray(p.from, p.to), yRe[i].subarray(p.at), yIm[i].subarray(p.at));
+    });
+  });
   const tRe = new Float64Array(size * m);
   const tIm = new Float64Array(size * m);
   for (let i = 0; i < m; i++) {
@@ -74,7 +99,7 @@ export function buildGrid(problem: PlannerProblem, cuts: readonly number[]): Gri
       tIm[k * m + i] = yIm[i][k];
     }
   }
-  return { size, aRe, aIm, yRe, yIm, tRe, tIm, sorted: problem.frequencies.length };
+  return { size, aRe, aIm, yRe, yIm, tRe, tIm, sorted: n * S };
 }
 
 /** Least t ≥ 0 with |P + t·y|² ≥ T², for |P| < T: the positive root of |y|²t² + 2Re(P̄y)t + |P|² − T² (stable form). */

@@ -21,18 +21,19 @@
 // * Feasibility is judged on the band's sweep plus "cuts": a set that passes the sweep is evaluated in full
 //   (refined peaks, src/analysis/rail.ts); if a refined peak between sweep points breaks the target, that
 //   frequency joins the sweep and the search restarts with the incumbent kept. Only fully evaluated sets
-//   are ever reported as passing.
+//   are ever reported as passing. With scenarios (planner-grid.ts: the candidates' models at other ends of
+//   their spreads) every point stands once per scenario and a set is evaluated in full in each.
 // * A greedy start (planner-start.ts) gives the first incumbent. The search has a node budget; when it
 //   runs out the result says "unproven": the set returned passes, but a better one was not ruled out.
 //   The relaxation is per frequency and cannot see that capacitors with different SRFs cancel each other
 //   between their resonances, so on large candidate lists a proof by count can need more nodes than the
 //   budget, while a proof by cost (where weights differ) usually fits.
 
-import { buildGrid, reachMultiplier, type PlannerProblem } from './planner-grid.js';
+import { buildGrid, reachMultiplier, scenariosOf, type PlannerProblem, type PlannerScenario } from './planner-grid.js';
 import { greedySet, improveSet } from './planner-start.js';
 import { evaluateRail, type RailBranch, type RailEvaluation } from './rail.js';
 
-export type { PlannerCandidate, PlannerProblem } from './planner-grid.js';
+export type { PlannerCandidate, PlannerProblem, PlannerScenario } from './planner-grid.js';
 
 export type PlannerStatus = 'optimal' | 'unmeetable' | 'unproven';
 
@@ -96,10 +97,11 @@ export function planDecoupling(problem: PlannerProblem): PlannerResult {
     return { budget: best.objective * (1 - SLACK) - objective, weighted: true };
   };
 
-  const evaluate = (counts: readonly number[]): RailEvaluation => {
-    const branches: RailBranch[] = [...problem.fixed];
+  const scenarios = scenariosOf(problem);
+  const evaluate = (counts: readonly number[], scenario: PlannerScenario = scenarios[0]): RailEvaluation => {
+    const branches: RailBranch[] = [...scenario.fixed];
     counts.forEach((n, i) => {
-      if (n > 0) branches.push({ kind: 'capacitor', label: problem.candidates[i].label, element: problem.candidates[i].element, count: n });
+      if (n > 0) branches.push({ kind: 'capacitor', label: problem.candidates[i].label, element: scenario.elements[i], count: n });
     });
     return evaluateRail(branches, problem.targetOhm, problem.frequencies, { branchCurves: false });
   };
@@ -116,7 +118,7 @@ export function planDecoupling(problem: PlannerProblem): PlannerResult {
     const allowed = new Uint8Array(m);
     const load = new Float64Array(m);
     const rows: Float64Array[] = [];
-    const maxSamples = MAX_SAMPLES * 2 + cuts.length + 2;
+    const maxSamples = MAX_SAMPLES * 2 + (F - grid.sorted) + 2;
     const samples = new Int32Array(maxSamples);
     const need = new Float64Array(maxSamples);
     const tBuf = new Float64Array(maxSamples * m);
@@ -289,11 +291,13 @@ export function planDecoupling(problem: PlannerProblem): PlannerResult {
     function leaf(objective: number): boolean {
       if (best && !(objective <= best.objective * (1 - SLACK) && (byCost || objective < best.objective))) return true;
       const evaluation = evaluate(counts);
-      if (evaluation.pass) {
+      // In every scenario too: the first that fails gives the cuts (a cut is a point in every scenario).
+      const failed = evaluation.pass ? scenarios.slice(1).map((sc) => evaluate(counts, sc)).find((e) => !e.pass) : evaluation;
+      if (!failed) {
         best = { counts: [...counts], objective, evaluation };
         return true;
       }
-      const failing = [evaluation.worst.frequencyHz, ...evaluation.peaks.filter((p) => p.impedanceOhm > problem.targetOhm).map((p) => p.frequencyHz)];
+      const failing = [failed.worst.frequencyHz, ...failed.peaks.filter((p) => p.impedanceOhm > problem.targetOhm).map((p) => p.frequencyHz)];
       const fresh = [...new Set(failing)].filter((f) => !problem.frequencies.includes(f) && !cuts.includes(f));
       // A failure exactly at a point the grid already holds can only be rounding (the grid is stricter by
       // 1e-12); the set is rejected, and there is nothing to add.

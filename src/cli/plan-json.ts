@@ -26,6 +26,8 @@ export function suggestionJson(plan: Plan, s: Suggestion): Record<string, unknow
     yaml: s.figures ? capacitorsYaml(s.placements).join('\n') + '\n' : null,
     plan: s.figures ? planJson(s.figures) : null,
     marginDb: s.marginDb,
+    /** Planning for the worst corner (--corners): searches run, corners added, why it stopped; null without. */
+    cornerRounds: s.cornerRounds ? { rounds: s.cornerRounds.rounds, scenarios: s.cornerRounds.scenarios, stop: s.cornerRounds.stop } : null,
     /** When no set was found: the closest set found by local search (not proven closest), analysed in full. */
     closest: s.closest
       ? {

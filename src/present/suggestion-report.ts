@@ -3,6 +3,7 @@
 
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { Suggestion } from '../analysis/plan-suggest.js';
+import type { CornerRounds } from '../analysis/plan-suggest-corners.js';
 import { formatDiagnostic } from '../model/diagnostics.js';
 import type { SkippedPart } from '../model/plan-candidates.js';
 import type { Plan } from '../model/plan.js';
@@ -27,7 +28,7 @@ function statusLine(s: Suggestion, request: SuggestRequest): string {
     case 'optimal':
       return `optimal, proven by search (${s.nodes} nodes)`;
     case 'unmeetable':
-      return `cannot be met: no choice of ${of} keeps |Z| ${underTarget(s)} across the band (proven, ${s.nodes} nodes)`;
+      return `cannot be met: no choice of ${of} keeps |Z| ${underTarget(s)} across the band${s.cornerRounds ? ' at nominal and at the corners added' : ''} (proven, ${s.nodes} nodes)`;
     case 'unproven':
       return s.placements.length > 0
         ? `best found in ${s.nodes} nodes; a better set has not been ruled out (--nodes raises the budget)`
@@ -48,6 +49,21 @@ function skippedText(k: SkippedPart): string {
   }
 }
 
+/** How planning for the worst corner went. */
+function cornerRoundsText(r: CornerRounds): string {
+  const runs = `${r.rounds} search${r.rounds === 1 ? '' : 'es'}, ${r.scenarios} corner${r.scenarios === 1 ? '' : 's'} added`;
+  switch (r.stop) {
+    case 'held':
+      return `planned for the worst corner: the set holds at every corner evaluated (${runs})`;
+    case 'no-set':
+      return `planned for the worst corner: no set holds at the corners added (${runs})`;
+    case 'repeat':
+      return `planned for the worst corner: stopped, the worst corner was one already added (${runs}); the set below holds at nominal only`;
+    case 'rounds':
+      return `planned for the worst corner: stopped after ${runs}; the set below holds at nominal only`;
+  }
+}
+
 /** "2 × A + 4 × B", or "no capacitors". */
 function setText(f: PlanFigures): string {
   return f.placements.length === 0 ? 'no capacitors' : f.placements.map((p) => `${p.count} × ${p.partId}`).join(' + ');
@@ -59,6 +75,7 @@ export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRe
   const margin = s.marginDb !== 0 ? `, ${formatDecibels(s.marginDb)} margin required` : '';
   const lines = [`${plan.rail}: suggested capacitors (${goal}${margin}; ${s.candidateIds.length} candidates${request.only.length ? ` named ${request.only.join(' or ')}` : ''})`];
   lines.push(`  status     ${statusLine(s, request)}`);
+  if (s.cornerRounds) lines.push(`  corners    ${cornerRoundsText(s.cornerRounds)}`);
   if (s.skipped.length > 0) {
     lines.push(`  left out   ${s.skipped.map((k) => `${k.partId} (${skippedText(k)})`).join(', ')}`);
     const flags = [
@@ -88,6 +105,7 @@ export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRe
     lines.push(`  target     ${targetLine(f)}`);
     lines.push(`  closest    worst margin ${formatDecibels(f.worstMarginDb)} at ${formatEng(f.worstFrequencyHz, 'Hz')} (|Z| ${formatEng(f.worstImpedanceOhm, 'Ω')}) with ${setText(f)}`);
     lines.push('             (the closest set a local search found, not proven the closest possible)');
+    if (s.cornerRounds) lines.push(...verdictLines(f));
     describeSet(f);
   }
   return lines.join('\n') + '\n';

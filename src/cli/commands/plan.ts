@@ -23,7 +23,7 @@ import { planJson, suggestionJson } from '../plan-json.js';
 export const DEFAULT_MAX_COUNT = 16;
 
 export const planHelp = `Usage: zfolio plan [RAIL|FILE ...] [--json] [--library DIR]
-       zfolio plan RAIL|FILE --suggest [--margin DB] [--max-count N] [--only LIST]
+       zfolio plan RAIL|FILE --suggest [--corners] [--margin DB] [--max-count N] [--only LIST]
                   [--allow-safety-class] [--allow-bias-extrapolation] [--nodes N] [--json]
 
 Checks a rail plan (plans/*.yaml) against its target impedance Z_t = V·ripple/ΔI
@@ -51,6 +51,9 @@ is weighed at the mounting it is printed with: a part the plan lists at that
 entry's mounting, any other at its default as above. The chosen set is printed
 as plan YAML with every entry's mounting. When no set meets the target, the
 closest set found is shown: its worst margin, where, and the set.
+With --corners, the set must also hold at every corner of the chosen parts'
+spreads (as plan --corners checks them): each corner the chosen set misses at
+is added to the search, which runs again, until a set holds at its corners.
 
 Which parts are candidates: every capacitor, or those --only names. Never a
 part rated below the rail voltage or above the derating limit (folio.yaml
@@ -61,7 +64,9 @@ ends below the rail voltage (its capacitance there would be extrapolated).
 Options:
   --json              print JSON (SI units); one object for one plan, else an array
   --corners           hold the rail to its corners: a corner that misses the
-                      target fails the check (exit 3)
+                      target fails the check (exit 3); with --suggest, choose
+                      the set for the worst corner: it holds the target (and
+                      the margin) at nominal and at every corner evaluated
   --suggest           choose the capacitors instead of checking the listed ones
   --margin DB         margin required under the target, in dB (default 0);
                       a negative margin is written --margin=-1
@@ -106,7 +111,6 @@ export function plan(args: string[], io: CommandIO): number {
     io.out(planHelp);
     return EXIT_OK;
   }
-  if (values.suggest && values.corners) throw new UsageError('--corners goes with checking a plan, not with --suggest');
   if (!values.suggest) {
     for (const name of SUGGEST_ONLY) if (values[name] !== undefined) throw new UsageError(`--${name} goes with --suggest`);
   } else if (positionals.length !== 1) throw new UsageError(`--suggest takes exactly one plan (a rail name or file), found ${positionals.length}`);
@@ -134,7 +138,8 @@ export function plan(args: string[], io: CommandIO): number {
       allowBiasExtrapolation: values['allow-bias-extrapolation'] === true,
       derating: library.settings.derating,
     });
-    const suggestion = suggestPlacements(plans[0], candidates, { maxCount, marginDb, perDecade, nodeLimit });
+    const corners = values.corners ? library.settings.temperature : undefined;
+    const suggestion = suggestPlacements(plans[0], candidates, { maxCount, marginDb, perDecade, nodeLimit, corners });
     io.out(values.json ? JSON.stringify(suggestionJson(plans[0], suggestion), null, 2) + '\n' : describeSuggestion(plans[0], suggestion, { maxCount, only }));
     // A set was found only if it holds the margin asked for (a negative margin allows that much over).
     return suggestion.figures ? EXIT_OK : EXIT_TARGET_MISSED;
