@@ -32,19 +32,35 @@ export interface PdfLegibility {
 
 const WORD = /<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)<\/word>/;
 
+interface Box {
+  x0: number;
+  y0: number;
+  x1: number;
+  y1: number;
+}
+
 /**
- * Text turned a quarter (a chart's vertical axis title) gives a box taller than wide: its size is its width.
- * A box is taken as turned when it is more than 12 pt high and under half as wide as high, which no upright
- * word of a folio is (the largest upright text, the part id, is about 17 pt and many letters wide).
+ * Text turned a quarter (a chart's vertical axis title) gives boxes whose width is the font's height and
+ * whose height is the word's length: its size is its width. A word is taken as turned when a neighbour in
+ * reading order has exactly its left and right edges and sits just above or below it, a word space apart
+ * (less than half the box's width; rows of a table column are further apart than that), or when it stands
+ * alone more than 12 pt high and under half as wide as high, which no upright word of a folio is (the largest
+ * upright text, the part id, is about 17 pt and many letters wide).
  */
-function sizeOf(width: number, height: number): number {
-  const turned = height > 12 * BOX_PER_EM && width < height / 2;
-  return (turned ? width : height) / BOX_PER_EM;
+function turned(b: Box, neighbours: (Box | undefined)[]): boolean {
+  const w = b.x1 - b.x0;
+  const h = b.y1 - b.y0;
+  const stacked = neighbours.some((n) => {
+    if (!n || Math.abs(n.x0 - b.x0) > 0.01 || Math.abs(n.x1 - b.x1) > 0.01) return false;
+    const gap = Math.max(n.y0 - b.y1, b.y0 - n.y1);
+    return gap > 0 && gap < w / 2;
+  });
+  return stacked || (h > 12 * BOX_PER_EM && w < h / 2);
 }
 
 export function measurePdf(file: string): PdfLegibility {
   const html = execFileSync('pdftotext', ['-bbox', file, '-'], { encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
-  const words: PrintedWord[] = [];
+  const read: { page: number; text: string; box: Box }[] = [];
   const wordsPerPage: number[] = [];
   for (const line of html.split('\n')) {
     if (line.includes('<page ')) {
@@ -54,9 +70,14 @@ export function measurePdf(file: string): PdfLegibility {
     const m = WORD.exec(line);
     if (!m) continue;
     const [x0, y0, x1, y1] = [m[1], m[2], m[3], m[4]].map(Number);
-    words.push({ page: wordsPerPage.length, text: m[5], sizePt: sizeOf(x1 - x0, y1 - y0) });
+    read.push({ page: wordsPerPage.length, text: m[5], box: { x0, y0, x1, y1 } });
     wordsPerPage[wordsPerPage.length - 1]++;
   }
+  const words = read.map(({ page, text, box }, i): PrintedWord => {
+    const around = [read[i - 1], read[i + 1]].map((n) => (n?.page === page ? n.box : undefined));
+    const size = turned(box, around) ? box.x1 - box.x0 : box.y1 - box.y0;
+    return { page, text, sizePt: size / BOX_PER_EM };
+  });
   return { file, pages: wordsPerPage.length, words, wordsPerPage };
 }
 

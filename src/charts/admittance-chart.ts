@@ -6,7 +6,7 @@
 import { AXIS_TITLE, KEY_TEXT } from '../present/chart-words.js';
 import { MAX_DECADES, logValueAxis, sweepAxis } from './axes.js';
 import { curveObstacle, curveRows, mergeCurve, toPlot, type Curve } from './curves.js';
-import { frame, PLOT_WIDTH } from './frame.js';
+import { halfFrame } from './frame.js';
 import { ABOVE_FIRST, BELOW_FIRST } from './labels.js';
 import { placeMarkLabels, shown } from './mark-labels.js';
 import { PART_SERIES } from './palette.js';
@@ -20,7 +20,7 @@ const SERIES: SeriesScale = {
   keys: ['g', 'bc', 'bl'],
   styles: [PART_SERIES.conductance, PART_SERIES.susceptanceCapacitive, PART_SERIES.susceptanceInductive],
 };
-const FRAME = frame(PLOT_WIDTH, 250, 28, 42);
+const FRAME = halfFrame(160);
 const LABEL_ROOM = 10 ** 0.5;
 
 /** Split a curve into runs of one sign; zeros and gaps end a run. Values become magnitudes. */

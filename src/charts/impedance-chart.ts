@@ -3,7 +3,7 @@
 import { AXIS_TITLE, KEY_TEXT, partSpreadKeyText, ratedKeyText, resistanceKeyText } from '../present/chart-words.js';
 import { MAX_DECADES, logValueAxis, sweepAxis } from './axes.js';
 import { curveObstacle, curveRows, envelopeRows, mergeCurve, toPlot } from './curves.js';
-import { frame, PLOT_WIDTH } from './frame.js';
+import { halfFrame } from './frame.js';
 import { ABOVE_FIRST, BELOW_FIRST } from './labels.js';
 import { placeMarkLabels, shown } from './mark-labels.js';
 import { PART_SERIES, RATED_MARK, RESONANCE_MARK } from './palette.js';
@@ -13,7 +13,7 @@ import { curveLayer, envelopeLayer, placedLabelLayer, pointLayer, seriesEncoding
 import { xyChart } from './xy-chart.js';
 
 const SERIES: SeriesScale = { keys: ['mag', 'res'], styles: [PART_SERIES.magnitude, PART_SERIES.resistance] };
-const FRAME = frame(PLOT_WIDTH, 250, 28, 42);
+const FRAME = halfFrame(160);
 /** Half a decade of headroom beside a resonance, for its label. */
 const LABEL_ROOM = 10 ** 0.5;
 

@@ -38,32 +38,55 @@ const BELOW = 12;
 export function layoutKey(items: readonly KeyItem[], width: number, columns?: number): KeyLayout {
   const datasets: KeyLayout['datasets'] = { keyBands: [], keySpread: [], keyLines: [], keyPoints: [], keyText: [] };
   const size = FONT_SIZE.legend;
-  const widths = items.map((it) => SYMBOL + SYMBOL_GAP + textWidth(it.text, size));
+  // An entry longer than the key is wide (a band's rule and range on a half-column chart) wraps at its spaces,
+  // its lines under one another beside the symbol.
+  const lines = items.map((it) => wrapText(cleanText(it.text), width - SYMBOL - SYMBOL_GAP, size));
+  const widths = lines.map((ls) => SYMBOL + SYMBOL_GAP + Math.max(...ls.map((l) => textWidth(l, size))));
   const columnWidth = columns ? width / columns : 0;
-  const placed: { item: KeyItem; x: number; row: number }[] = [];
+  const placed: { item: KeyItem; lines: string[]; x: number; row: number }[] = [];
   let x = 0;
   let row = 0;
+  /** Rows taken by the tallest entry of the current row. */
+  let rowSpan = 1;
   items.forEach((item, i) => {
     const w = columns ? columnWidth : widths[i];
     if (x > 0 && x + w > width + 0.5) {
-      row++;
+      row += rowSpan;
+      rowSpan = 1;
       x = 0;
     }
-    placed.push({ item, x, row });
+    placed.push({ item, lines: lines[i], x, row });
+    rowSpan = Math.max(rowSpan, lines[i].length);
     x += columns ? columnWidth : w + ITEM_GAP;
   });
-  const rows = items.length === 0 ? 0 : row + 1;
+  const rows = items.length === 0 ? 0 : row + rowSpan;
   const topPadding = rows === 0 ? 14 : rows * ROW_HEIGHT + BELOW;
-  for (const { item, x: x0, row: r } of placed) {
+  for (const { item, lines: textLines, x: x0, row: r } of placed) {
     // Rows count upwards from the plot: the last row sits just above it.
     const y = -topPadding + 3 + r * ROW_HEIGHT + ROW_HEIGHT / 2;
     if (item.kind === 'line') datasets.keyLines.push({ x0, x1: x0 + SYMBOL, y, ...item.style });
     else if (item.kind === 'band') datasets.keyBands.push({ x0, x1: x0 + SYMBOL, y0: y - 5, y1: y + 5 });
     else if (item.kind === 'spread') datasets.keySpread.push({ x0, x1: x0 + SYMBOL, y0: y - 5, y1: y + 5 });
     else datasets.keyPoints.push({ x: x0 + SYMBOL / 2, y, c: item.color, sh: item.shape ?? 'circle' });
-    datasets.keyText.push({ x: x0 + SYMBOL + SYMBOL_GAP, y, t: cleanText(item.text) });
+    textLines.forEach((t, k) => datasets.keyText.push({ x: x0 + SYMBOL + SYMBOL_GAP, y: y + k * ROW_HEIGHT, t }));
   }
   return { datasets, rows, topPadding };
+}
+
+/** `text` in lines no wider than `width` px, broken at spaces (a single word longer than that stays whole). */
+export function wrapText(text: string, width: number, size: number): string[] {
+  if (textWidth(text, size) <= width) return [text];
+  const out: string[] = [];
+  let line = '';
+  for (const word of text.split(' ')) {
+    const next = line ? `${line} ${word}` : word;
+    if (line && textWidth(next, size) > width) {
+      out.push(line);
+      line = word;
+    } else line = next;
+  }
+  if (line) out.push(line);
+  return out;
 }
 
 /** Columns for a key of many entries of similar length: as many of the widest entry as fit, 1 to 4. */

@@ -4,7 +4,7 @@
 import { AXIS_TITLE, KEY_TEXT, SIGN_NOTE, degreesLabel } from '../present/chart-words.js';
 import { sweepAxis } from './axes.js';
 import { curveObstacle, curveRows, mergeCurve, toPlot } from './curves.js';
-import { frame, PLOT_WIDTH } from './frame.js';
+import { halfFrame } from './frame.js';
 import type { Placement } from './labels.js';
 import { placeMarkLabels, shown } from './mark-labels.js';
 import { FONT_SIZE, INK_SOFT, PART_SERIES, RESONANCE_MARK, ZERO_LINE } from './palette.js';
@@ -14,7 +14,7 @@ import { curveLayer, pixelTextLayer, placedLabelLayer, pointLayer, seriesEncodin
 import { xyChart } from './xy-chart.js';
 
 const SERIES: SeriesScale = { keys: ['phase'], styles: [PART_SERIES.phase] };
-const FRAME = frame(PLOT_WIDTH, 220, 28, 42);
+const FRAME = halfFrame(120);
 /** ±90° plus a margin, so a curve at ±90° is not hidden under the plot's outline. */
 const DOMAIN: [number, number] = [-99, 99];
 
@@ -75,12 +75,12 @@ const BESIDE_CROSSING: Placement[] = [
 
 const NOTE_ABOVE: Placement[] = [
   { dx: 6, dy: -4, align: 'left', baseline: 'bottom' },
-  { dx: PLOT_WIDTH - 6, dy: -4, align: 'right', baseline: 'bottom' },
-  { dx: PLOT_WIDTH / 2, dy: -4, align: 'center', baseline: 'bottom' },
+  { dx: FRAME.width - 6, dy: -4, align: 'right', baseline: 'bottom' },
+  { dx: FRAME.width / 2, dy: -4, align: 'center', baseline: 'bottom' },
 ];
 
 const NOTE_BELOW: Placement[] = [
   { dx: 6, dy: 4, align: 'left', baseline: 'top' },
-  { dx: PLOT_WIDTH - 6, dy: 4, align: 'right', baseline: 'top' },
-  { dx: PLOT_WIDTH / 2, dy: 4, align: 'center', baseline: 'top' },
+  { dx: FRAME.width - 6, dy: 4, align: 'right', baseline: 'top' },
+  { dx: FRAME.width / 2, dy: 4, align: 'center', baseline: 'top' },
 ];

@@ -8,7 +8,7 @@
 import { impedanceAt } from '../circuit/impedance.js';
 import { AXIS_TITLE, KEY_TEXT, SIGN_NOTE, decadeMarkText } from '../present/chart-words.js';
 import { levelObstacle, mergeCurve } from './curves.js';
-import { frame, PLOT_WIDTH } from './frame.js';
+import { halfFrame } from './frame.js';
 import type { Placement } from './labels.js';
 import { placeMarkLabels, shown, type MarkLabel } from './mark-labels.js';
 import { FONT_SIZE, INK, INK_SOFT, PART_SERIES, RESONANCE_MARK, ZERO_LINE } from './palette.js';
@@ -21,7 +21,7 @@ import { curveLayer, pixelTextLayer, placedLabelLayer, pointLayer, seriesEncodin
 import { xyChart } from './xy-chart.js';
 
 const SERIES: SeriesScale = { keys: ['path'], styles: [PART_SERIES.path] };
-const FRAME = frame(PLOT_WIDTH, 300, 28, 42);
+const FRAME = halfFrame(170);
 /** Decade marks closer than this (px) share a label. */
 const SAME_SPOT_PX = 4;
 
@@ -158,12 +158,19 @@ const DECADE_PLACES: Placement[] = [
   { dx: -6, dy: 5, align: 'right', baseline: 'top' },
 ];
 
-const NOTE_ABOVE: Placement[] = [
-  { dx: -6, dy: -4, align: 'right', baseline: 'bottom' },
-  { dx: -PLOT_WIDTH + 6, dy: -4, align: 'left', baseline: 'bottom' },
-];
+/**
+ * Where the sign notes may go, anchored at the right end of the zero line: beside the line at its right or
+ * left end or in the middle, then further from it, so that a path hugging the line at one end (an inductor's,
+ * a bead's) still leaves them a place.
+ */
+function notePlaces(side: -1 | 1): Placement[] {
+  const baseline = side < 0 ? 'bottom' : 'top';
+  return [4, 18, 32].flatMap((d): Placement[] => [
+    { dx: -6, dy: side * d, align: 'right', baseline },
+    { dx: -FRAME.width + 6, dy: side * d, align: 'left', baseline },
+    { dx: -FRAME.width / 2, dy: side * d, align: 'center', baseline },
+  ]);
+}
 
-const NOTE_BELOW: Placement[] = [
-  { dx: -6, dy: 4, align: 'right', baseline: 'top' },
-  { dx: -PLOT_WIDTH + 6, dy: 4, align: 'left', baseline: 'top' },
-];
+const NOTE_ABOVE = notePlaces(-1);
+const NOTE_BELOW = notePlaces(1);

@@ -20,7 +20,7 @@ export function bandRuleText(behavesAs: string | null | undefined, within: numbe
 
 /** What the band is, in a few words, for a chart's key and its description. */
 export function bandCaption(behavesAs: string | undefined, within: number | undefined): string {
-  if (behavesAs === 'bead') return 'absorbing band (R − R_DC ≥ |X|)';
+  if (behavesAs === 'bead') return 'absorbing band (R − Rdc ≥ |X|)';
   if (behavesAs === 'resistor' && within !== undefined) return `usable band (|Z − R|/R ≤ ${formatPercent(within)})`;
   if (within !== undefined) return `usable band (±${formatPercent(within)})`;
   return 'usable band';

@@ -6,8 +6,8 @@ import { formatEng } from '../units/format.js';
 export const AXIS_TITLE = {
   frequency: 'Frequency',
   impedance: 'Impedance |Z|',
-  impedanceAndResistance: 'Impedance |Z|, resistance R',
-  admittance: 'Conductance G, susceptance |B|',
+  impedanceAndResistance: '|Z| and R',
+  admittance: 'G and |B|',
   phase: 'Phase of Z',
   planeResistance: 'Resistance R (signed-log scale)',
   planeReactance: 'Reactance X (signed-log)',

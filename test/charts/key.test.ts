@@ -40,3 +40,23 @@ describe('chart key', () => {
     expect(k.datasets.keyText[0].t).toBe('ab');
   });
 });
+
+describe('chart key: entries longer than the key is wide', () => {
+  it('wrap at spaces beside their symbol, each line within the width, and the frame grows by the extra row', async () => {
+    const { textWidth } = await import('../../src/charts/text-width.js');
+    const long: KeyItem = { kind: 'band', text: 'absorbing band (R − Rdc ≥ |X|): 110 MHz – 1.51 GHz' };
+    const k = layoutKey([{ kind: 'line', style: { s: 'mag' }, text: '|Z|' }, long], 240);
+    const texts = k.datasets.keyText.filter((t) => t.t !== '|Z|');
+    expect(texts.length).toBeGreaterThan(1);
+    expect(texts.map((t) => t.t).join(' ')).toBe(long.text);
+    for (const t of texts) {
+      expect(t.x).toBe(26 + 5);
+      expect((t.x as number) + textWidth(t.t as string, 10.5)).toBeLessThanOrEqual(240);
+    }
+    // One row for |Z| and the first line? No: the long entry does not fit beside |Z|, so it starts a row.
+    expect(k.rows).toBe(1 + texts.length);
+    expect(k.topPadding).toBe(k.rows * 16 + 12);
+    // Lines of one entry sit one row apart, below its symbol's row.
+    expect((texts[1].y as number) - (texts[0].y as number)).toBe(16);
+  });
+});

@@ -16,7 +16,7 @@ describe('phase chart', () => {
     expect(rows.some((r) => r.f === a.selfResonance!.frequencyHz && r.v === 0)).toBe(true);
     // The SRF dot sits on the zero line: the middle of a 220 px plot spanning −99°…99°.
     const dots = [...out.svg.matchAll(new RegExp(`<path transform="translate\\(([-\\d.]+),([-\\d.]+)\\)"[^>]*fill="${RESONANCE_MARK}"`, 'g'))].map((m) => Number(m[2])).filter((y) => y >= 0);
-    expect(dots).toEqual([110]);
+    expect(dots).toEqual([60]); // the middle of a 120 px plot
   });
 
   it('describes the ends of the phase curve: a capacitor starts near −90°, an inductor near +90°', async () => {

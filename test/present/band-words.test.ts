@@ -10,7 +10,7 @@ describe('a chart key and caption', () => {
   it('name the rule the band was found by', () => {
     const c = analysed(capacitorPart);
     expect(bandCaption(c.part.behavesAs, c.within)).toBe('usable band (±10%)');
-    expect(bandCaption('bead', analysed(beadPart).within)).toBe('absorbing band (R − R_DC ≥ |X|)');
+    expect(bandCaption('bead', analysed(beadPart).within)).toBe('absorbing band (R − Rdc ≥ |X|)');
     expect(bandCaption('resistor', analysed(resistorPart).within)).toBe('usable band (|Z − R|/R ≤ 10%)');
     expect(bandCaption(undefined, undefined)).toBe('usable band');
   });

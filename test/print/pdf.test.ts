@@ -11,7 +11,7 @@ import { buildFolio, type BuildResult } from '../../src/build/build.js';
 import { main } from '../../src/cli/main.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { read, REPO, tempDir, copyLibrary } from '../site-helpers.js';
-import { measurePdf, nearlyEmptyPages } from '../../bench/print-legibility.js';
+import { measurePdf, nearlyEmptyPages, shareUnder } from '../../bench/print-legibility.js';
 
 const DATE = new Date('2026-12-01T12:00:00Z');
 const CAPACITOR = 'ORV-C-0402-100N-X7R';
@@ -129,6 +129,25 @@ describe('the review pack', () => {
 // Paper a reviewer can read: word sizes and words per page read back with pdftotext -bbox (bench/print-legibility.ts).
 describe('legible paper', () => {
   const files = () => result.pdfs.map((p) => join(site, p.pdfFile));
+
+  it('prints at most 1% of its words under 6.5 pt, and almost none under 7 pt (charts are drawn for their printed size)', () => {
+    for (const file of files()) {
+      const { words } = measurePdf(file);
+      expect(words.length, file).toBeGreaterThan(300);
+      expect(shareUnder(words, 6.5), file).toBeLessThanOrEqual(0.01);
+      expect(shareUnder(words, 7), file).toBeLessThanOrEqual(0.01);
+    }
+  });
+
+  it('sets body text at 9 to 10 pt: the commonest word size of every PDF', () => {
+    for (const file of files()) {
+      const counts = new Map<number, number>();
+      for (const w of measurePdf(file).words) counts.set(Math.round(w.sizePt * 2) / 2, (counts.get(Math.round(w.sizePt * 2) / 2) ?? 0) + 1);
+      const commonest = [...counts].sort((a, b) => b[1] - a[1])[0][0];
+      expect(commonest, file).toBeGreaterThanOrEqual(9);
+      expect(commonest, file).toBeLessThanOrEqual(10);
+    }
+  });
 
   it('has no nearly empty page (fewer than 70 words, running head and footer included)', () => {
     for (const file of files()) expect(nearlyEmptyPages(measurePdf(file)), file).toEqual([]);
