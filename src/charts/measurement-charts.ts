@@ -6,7 +6,7 @@ import { measurementChartText } from '../present/measurement-chart-descriptions.
 import { AXIS_TITLE, degreesLabel } from '../present/chart-words.js';
 import { MAX_DECADES, sweepAxis, Y_TICK_SPACING } from './axes.js';
 import { curveRows, plainCurve } from './curves.js';
-import { frame, PLOT_WIDTH } from './frame.js';
+import { halfFrame } from './frame.js';
 import type { KeyItem } from './key.js';
 import { PART_SERIES, ZERO_LINE, type SeriesStyle } from './palette.js';
 import { renderChart, type ChartOutput, type Row } from './render.js';
@@ -33,8 +33,8 @@ const MEASURED: SeriesStyle = { color: '#b5520b', dash: [], width: 1.1 };
 const MODEL: SeriesStyle = PART_SERIES.magnitude;
 const PAIR: SeriesScale = { keys: ['model', 'measured'], styles: [MODEL, MEASURED] };
 const RESIDUAL: SeriesScale = { keys: ['db', 'deg'], styles: [{ color: '#1f3d73', dash: [], width: 1.3 }, { color: '#b5520b', dash: [5, 3], width: 1.3 }] };
-const FRAME = frame(PLOT_WIDTH, 230, 28, 42);
-const RESIDUAL_FRAME = frame(PLOT_WIDTH, 200, 28, 42);
+const FRAME = halfFrame(160);
+const RESIDUAL_FRAME = halfFrame(140);
 const DEG = 180 / Math.PI;
 
 const X: AxisSpec = { name: 'f', field: 'f', scale: 'log', title: AXIS_TITLE.frequency };
