@@ -1,4 +1,5 @@
-// A part's sweep as columns, for CSV and JSON downloads (SI base units, full precision).
+// A part's sweep as columns, for CSV and JSON downloads (SI base units; full precision unless a CSV asks
+// for fewer digits).
 
 import type { PartAnalysis } from './part-figures.js';
 
@@ -22,18 +23,26 @@ export function sweepColumns(a: PartAnalysis): SweepColumns {
   return a.columns;
 }
 
-/** Numbers as JavaScript prints them (shortest exact form); empty where undefined (NaN). */
-function cell(value: number): string {
+/**
+ * A number rounded to `digits` significant digits (all of them when undefined), in the shorter of plain and
+ * exponent form ("15915.5", "6.28319e-5"); empty where undefined (NaN).
+ */
+export function csvCell(value: number, digits?: number): string {
   if (Number.isNaN(value)) return '';
   if (!Number.isFinite(value)) return value > 0 ? 'inf' : '-inf';
-  return String(value);
+  if (digits === undefined) return String(value);
+  const rounded = Number(value.toPrecision(digits));
+  const plain = String(rounded);
+  const exponent = rounded.toExponential().replace('e+', 'e');
+  return exponent.length < plain.length ? exponent : plain;
 }
 
-export function sweepCsv(a: PartAnalysis): string {
+/** The sweep as CSV, one row per point; `digits` rounds every value to that many significant digits. */
+export function sweepCsv(a: PartAnalysis, digits?: number): string {
   const columns = sweepColumns(a);
   const lines = [SWEEP_COLUMNS.map(([header]) => header).join(',')];
   for (let i = 0; i < a.frequencies.length; i++) {
-    lines.push(SWEEP_COLUMNS.map(([, key]) => cell(columns[key][i])).join(','));
+    lines.push(SWEEP_COLUMNS.map(([, key]) => csvCell(columns[key][i], digits)).join(','));
   }
   return lines.join('\n') + '\n';
 }

@@ -23,6 +23,7 @@ import { comparisonSlug } from '../present/slugs.js';
 import { comparisonIndex } from '../pages/comparison-index.js';
 import { partList, writeIndexRows } from '../pages/part-list.js';
 import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
+import { downloadSpec, SWEEP_CSV, SWEEP_CSV_DIGITS } from '../pages/spec-download.js';
 import { writeFileDeep } from './output.js';
 import { planPageData, type PlanPageData } from '../pages/plan-page.js';
 import type { Progress } from './progress.js';
@@ -65,10 +66,14 @@ function timedWrite(timings: AssembleTimings | undefined, path: string, content:
   if (timings) timings.downloads += (performance.now() - started) / 1000;
 }
 
-/** Write a chart's spec beside its page and say where it is, relative to the page. */
-function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimings): ChartOnPage {
+/**
+ * Write a chart's spec beside its page and say where it is, relative to the page. Specs are written compact
+ * (any vega-lite tool lays them out); a part chart's curves point at the part's sweep.csv (spec-download.ts).
+ */
+function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimings, beside?: 'sweep'): ChartOnPage {
   const page = chartOnPage(chart);
-  timedWrite(timings, join(folder, page.specFile), () => jsonFile(chart.spec));
+  const spec = beside === 'sweep' ? downloadSpec(chart.key, chart.spec) : chart.spec;
+  timedWrite(timings, join(folder, page.specFile), () => escapeJsonMarkup(JSON.stringify(spec)) + '\n');
   return page;
 }
 
@@ -154,10 +159,10 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
       } else {
         const drawn = await charts.partCharts(a);
         const folder = join(siteDir, 'parts', part.id);
-        timedWrite(timings, join(folder, 'sweep.csv'), () => sweepCsv(a));
+        timedWrite(timings, join(folder, SWEEP_CSV), () => sweepCsv(a, SWEEP_CSV_DIGITS));
         timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(partSummary(a)));
         writeModelFiles(part, folder, library.settings.sweep, timings);
-        page = partPageData(a, drawn.map((c) => placeChart(c, folder, timings)));
+        page = partPageData(a, drawn.map((c) => placeChart(c, folder, timings, 'sweep')));
         page.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
       }
       progress.tick();

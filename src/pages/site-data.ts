@@ -13,6 +13,7 @@ import type { ComparisonIndex } from './comparison-index.js';
 import { KIND_ORDER, partFamilies, type PartFamily } from './families.js';
 import type { PartList } from './part-list.js';
 import { partPageText, type PartPageText } from './part-page.js';
+import { SWEEP_CSV_DIGITS } from './spec-download.js';
 import { schematicSvg } from './schematic.js';
 import type { PlanPageData } from './plan-page.js';
 import type { ReviewPageData } from './review-page.js';
@@ -78,6 +79,8 @@ export interface FolioData extends ComparisonIndex {
   /** folio.yaml's notice line, shown under the index title. */
   notice?: string;
   sweepText: string;
+  /** Significant digits of the values in each part's sweep.csv. */
+  sweepCsvDigits: number;
   withinText: string;
   kindCounts: { kind: PartKind; label: string; count: number }[];
   /** The index's legend for mains marks, when the library holds a mains part. */
@@ -149,6 +152,7 @@ export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partLi
     notice: s.notice,
     version: VERSION,
     sweepText: sweepText(s.sweep),
+    sweepCsvDigits: SWEEP_CSV_DIGITS,
     withinText: formatPercent(s.within),
     kindCounts: kindCounts(library),
     mainsLegend: library.parts.some((p) => p.safetyClass) ? MAINS_LEGEND : undefined,

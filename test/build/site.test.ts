@@ -58,6 +58,22 @@ describe('the demo folio', () => {
     const csv = read(siteA, `parts/${part.id}/sweep.csv`).trim().split('\n');
     expect(csv[0]).toBe('frequency_Hz,R_ohm,X_ohm,Zmag_ohm,phase_deg,G_S,B_S,Ymag_S,Q,Ceff_F,Leff_H');
     expect(csv.length - 1).toBe(801); // 100 Hz to 10 GHz at 100 per decade, both ends
+    // Every value to at most 6 significant digits, as the part page says: the digits between the first and
+    // the last that is not zero ("1023290" is 1.02329e6).
+    for (const cell of csv.slice(1).flatMap((line) => line.split(',')).filter((c) => c !== '' && !c.endsWith('inf'))) {
+      expect(cell.replace(/^-/, '').replace(/e.*$/, '').replace('.', '').replace(/^0+/, '').replace(/0+$/, '').length, cell).toBeLessThanOrEqual(6);
+    }
+    expect(read(siteA, `parts/${part.id}/index.html`)).toContain('rounded to 6 significant digits');
+  });
+
+  it('keeps each part\'s sweep once: the impedance, phase and admittance specs read their curves from sweep.csv', () => {
+    for (const part of library.parts) {
+      for (const key of ['impedance', 'phase', 'admittance']) {
+        const spec = JSON.parse(read(siteA, `parts/${part.id}/${key}.vl.json`));
+        expect(Object.keys(spec.datasets), `${part.id} ${key}`).not.toContain('curves');
+        expect(JSON.stringify(spec.layer)).toContain('"url":"sweep.csv"');
+      }
+    }
   });
 
   it('offers the model as a one-port Touchstone file and a SPICE subcircuit, linked from every part page', () => {
