@@ -1,15 +1,5 @@
 // The zfolio command: dispatch, help, and exit codes (0 ok, 1 bad input or a failure, 2 misuse; 3 from plan).
 
-import { check, checkHelp } from './commands/check.js';
-import { figures, figuresHelp } from './commands/figures.js';
-import { sweep, sweepHelp } from './commands/sweep.js';
-import { plan, planHelp } from './commands/plan.js';
-import { build, buildHelp } from './commands/build.js';
-import { print, printHelp } from './commands/print.js';
-import { serve, serveHelp } from './commands/serve.js';
-import { diff, diffHelp } from './commands/diff.js';
-import { fit, fitHelp } from './commands/fit.js';
-import { exportCommand, exportHelp } from './commands/export.js';
 import { DEBUG_ENV, EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
 import { failureDetails, failureLine } from './failure.js';
 import { OutputRefused } from '../build/output-guard.js';
@@ -18,24 +8,27 @@ import { VERSION } from '../version.js';
 type Command = (args: string[], io: CommandIO) => number | Promise<number>;
 
 interface CommandEntry {
-  run: Command;
-  help: string;
+  /**
+   * The command and its help, from its own module, loaded on first use: a command loads only what it needs
+   * (check, figures, sweep and plan never load vega, eleventy or Chromium's driver), so each starts sooner.
+   */
+  load(): Promise<{ run: Command; help: string }>;
   summary: string;
   /** The command handles SIGINT and SIGTERM itself (see process.ts). */
   ownsSignals?: boolean;
 }
 
 export const COMMANDS: Record<string, CommandEntry> = {
-  check: { run: check, help: checkHelp, summary: 'validate the library and list every problem' },
-  figures: { run: figures, help: figuresHelp, summary: 'resonances, SRF and usable band of parts' },
-  sweep: { run: sweep, help: sweepHelp, summary: "a part's impedance at every sweep point" },
-  plan: { run: plan, help: planHelp, summary: 'check a rail plan against its target impedance, or --suggest its capacitors' },
-  build: { run: build, help: buildHelp, summary: 'build the folio: static site, and PDFs with --pdf' },
-  serve: { run: serve, help: serveHelp, summary: 'build, serve on this machine, and rebuild on every change', ownsSignals: true },
-  print: { run: print, help: printHelp, summary: 'PDFs of chosen parts and review packs' },
-  diff: { run: diff, help: diffHelp, summary: 'what changed since a git revision, and which verdicts it moved' },
-  fit: { run: fit, help: fitHelp, summary: "fit a kind's model to a measured Touchstone file" },
-  export: { run: exportCommand, help: exportHelp, summary: "parts' models as Touchstone (.s1p) or SPICE (.subckt) files" },
+  check: { load: () => import('./commands/check.js').then((m) => ({ run: m.check, help: m.checkHelp })), summary: 'validate the library and list every problem' },
+  figures: { load: () => import('./commands/figures.js').then((m) => ({ run: m.figures, help: m.figuresHelp })), summary: 'resonances, SRF and usable band of parts' },
+  sweep: { load: () => import('./commands/sweep.js').then((m) => ({ run: m.sweep, help: m.sweepHelp })), summary: "a part's impedance at every sweep point" },
+  plan: { load: () => import('./commands/plan.js').then((m) => ({ run: m.plan, help: m.planHelp })), summary: 'check a rail plan against its target impedance, or --suggest its capacitors' },
+  build: { load: () => import('./commands/build.js').then((m) => ({ run: m.build, help: m.buildHelp })), summary: 'build the folio: static site, and PDFs with --pdf' },
+  serve: { load: () => import('./commands/serve.js').then((m) => ({ run: m.serve, help: m.serveHelp })), summary: 'build, serve on this machine, and rebuild on every change', ownsSignals: true },
+  print: { load: () => import('./commands/print.js').then((m) => ({ run: m.print, help: m.printHelp })), summary: 'PDFs of chosen parts and review packs' },
+  diff: { load: () => import('./commands/diff.js').then((m) => ({ run: m.diff, help: m.diffHelp })), summary: 'what changed since a git revision, and which verdicts it moved' },
+  fit: { load: () => import('./commands/fit.js').then((m) => ({ run: m.fit, help: m.fitHelp })), summary: "fit a kind's model to a measured Touchstone file" },
+  export: { load: () => import('./commands/export.js').then((m) => ({ run: m.exportCommand, help: m.exportHelp })), summary: "parts' models as Touchstone (.s1p) or SPICE (.subckt) files" },
 };
 
 export function mainHelp(): string {
@@ -60,7 +53,7 @@ export async function main(argv: string[], io: CommandIO): Promise<number> {
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     const topic = name === 'help' ? rest[0] : undefined;
-    const text = topic && Object.hasOwn(COMMANDS, topic) ? COMMANDS[topic].help : mainHelp();
+    const text = topic && Object.hasOwn(COMMANDS, topic) ? (await COMMANDS[topic].load()).help : mainHelp();
     // With no command at all the help is an answer to misuse: stderr and exit 2.
     if (name === undefined) io.err(text);
     else io.out(text);
@@ -77,7 +70,8 @@ export async function main(argv: string[], io: CommandIO): Promise<number> {
     return EXIT_MISUSE;
   }
   try {
-    return await command.run(rest, io);
+    const { run } = await command.load();
+    return await run(rest, io);
   } catch (error) {
     if (error instanceof UsageError) {
       io.err(`zfolio ${name}: ${error.message}\nRun "zfolio ${name} --help" for usage.\n`);

@@ -77,13 +77,13 @@ describe('zfolio', () => {
   describe.each(['check', 'figures', 'sweep'])('%s --help', (name) => {
     it('prints the usage of the command on stdout and exits 0', async () => {
       const r = await run([name, '--help']);
-      expect(r).toEqual({ code: 0, out: COMMANDS[name].help, err: '' });
+      expect(r).toEqual({ code: 0, out: (await COMMANDS[name].load()).help, err: '' });
       expect(r.out.startsWith(`Usage: zfolio ${name}`)).toBe(true);
       expect(r.out).toContain('--library DIR');
     });
 
     it('is also reachable as "zfolio help COMMAND"', async () => {
-      expect((await run(['help', name])).out).toBe(COMMANDS[name].help);
+      expect((await run(['help', name])).out).toBe((await COMMANDS[name].load()).help);
     });
   });
 
@@ -94,7 +94,7 @@ describe('zfolio', () => {
 
 describe('a failure no command expected', () => {
   const failing = (error: unknown) => {
-    COMMANDS.failing = { run: () => Promise.reject(error), help: '', summary: '' };
+    COMMANDS.failing = { load: async () => ({ run: () => Promise.reject(error), help: '' }), summary: '' };
   };
   afterEach(() => {
     delete COMMANDS.failing;
