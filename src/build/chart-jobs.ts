@@ -5,7 +5,7 @@ import { renderComparisonChart } from '../charts/comparison-chart.js';
 import { describeComparison } from '../present/chart-descriptions.js';
 import { PART_CHART_KINDS, renderPartCharts, type PartChartInput } from '../charts/part-charts.js';
 import { renderRailChart, type RailChartData } from '../charts/rail-chart.js';
-import { renderLoadStepCharts, type LoadStepChartData } from '../charts/load-step-chart.js';
+import { loadStepChartInput, renderLoadStepCharts, type LoadStepChartData } from '../charts/load-step-chart.js';
 import { renderChangeChart, type ChangeChartData } from '../charts/change-chart.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact } from './chart-maker.js';
@@ -76,16 +76,5 @@ export function railChartData(f: PlanFigures): RailChartData {
 export function loadStepChartData(f: PlanFigures): LoadStepChartData | null {
   const t = f.transient;
   if (!t || !t.resolved) return null;
-  return {
-    rail: f.rail,
-    timesS: t.curves.timesS,
-    voltageV: t.curves.voltageV,
-    budgetV: t.budgetV,
-    finalV: t.finalV,
-    riseS: t.riseS,
-    stepA: t.stepA,
-    droop: { atS: t.atS, droopV: t.droopV },
-    settleS: t.settleS,
-    branches: f.branches.map((b, i) => ({ label: b.label, share: t.curves.shares[i] })),
-  };
+  return loadStepChartInput(f.rail, t, f.branches.map((b) => b.label));
 }

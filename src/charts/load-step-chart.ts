@@ -4,6 +4,7 @@
 // branch's share of the load current over time, in the rail chart's branch styles, so one sees which
 // capacitors carry the step and when the regulator takes over.
 
+import type { LoadStepFigures } from '../analysis/load-step.js';
 import { AXIS_TITLE, KEY_TEXT, dipLabel, loadStepKey } from '../present/chart-words.js';
 import { describeLoadStep } from '../present/plan-chart-descriptions.js';
 import { linearValueAxis, logRangeAxis } from './axes.js';
@@ -33,6 +34,22 @@ export interface LoadStepChartData {
   settleS: number | null;
   /** Each branch's share of the load current at each time. */
   branches: readonly { label: string; share: ArrayLike<number> }[];
+}
+
+/** What the charts draw of a rail's load step, its branches named by `labels` (in the analysis's order). */
+export function loadStepChartInput(rail: string, t: LoadStepFigures, labels: readonly string[]): LoadStepChartData {
+  return {
+    rail,
+    timesS: t.curves.timesS,
+    voltageV: t.curves.voltageV,
+    budgetV: t.budgetV,
+    finalV: t.finalV,
+    riseS: t.riseS,
+    stepA: t.stepA,
+    droop: { atS: t.atS, droopV: t.droopV },
+    settleS: t.settleS,
+    branches: labels.map((label, i) => ({ label, share: t.curves.shares[i] })),
+  };
 }
 
 const SERIES: SeriesScale = { keys: ['voltage', 'budget', 'final'], styles: [RAIL_TOTAL, TARGET_LINE, { color: ZERO_LINE, dash: [2, 3], width: 1.2 }] };

@@ -3,7 +3,7 @@ import { analyseLoadStep } from '../../src/analysis/load-step.js';
 import { capacitor, inductor, resistor, series } from '../../src/circuit/element.js';
 import { describeLoadStep } from '../../src/present/plan-chart-descriptions.js';
 import { niceStep } from '../../src/charts/axes.js';
-import { loadShareChart, loadStepChart, renderLoadStepCharts, type LoadStepChartData } from '../../src/charts/load-step-chart.js';
+import { loadShareChart, loadStepChart, loadStepChartInput, renderLoadStepCharts, type LoadStepChartData } from '../../src/charts/load-step-chart.js';
 import { formatEng } from '../../src/units/format.js';
 import { svgTexts } from './svg-text.js';
 
@@ -16,18 +16,7 @@ const branches = [
   { kind: 'capacitor' as const, label: '8 × small', element: series(resistor(20e-3), inductor(0.4e-9), capacitor(1e-6)), count: 8 },
 ];
 const t = analyseLoadStep({ voltageV: 1, target: { kind: 'ripple', ripple: 0.03, stepA: 2 }, band: { fromHz: 1e5, toHz: 5e7 }, riseS: undefined, durationS: undefined }, branches)!;
-const data: LoadStepChartData = {
-  rail: 'VDD_X',
-  timesS: t.curves.timesS,
-  voltageV: t.curves.voltageV,
-  budgetV: t.budgetV,
-  finalV: t.finalV,
-  riseS: t.riseS,
-  stepA: t.stepA,
-  droop: { atS: t.atS, droopV: t.droopV },
-  settleS: t.settleS,
-  branches: branches.map((b, i) => ({ label: b.label, share: t.curves.shares[i] })),
-};
+const data: LoadStepChartData = loadStepChartInput('VDD_X', t, branches.map((b) => b.label));
 
 describe('load-step charts', () => {
   it('draw v(t) with the budget either way, the final offset, the ramp and the deepest dip labelled', async () => {

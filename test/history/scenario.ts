@@ -2,7 +2,7 @@
 // practice; no real product): the library lives in lib/ of a repository, so the tests also cover a library
 // below the repository's top.
 
-import type { TestRepo } from './git-repo.js';
+import { makeRepo, type TestRepo } from './git-repo.js';
 
 export const FOLIO = `title: History test library (invented)
 sweep: {from: 1k, to: 1G, per-decade: 50}
@@ -73,4 +73,14 @@ export function writeRevisionTwo(repo: TestRepo): void {
 export function writeWorkTreeEdits(repo: TestRepo): void {
   repo.write('lib/parts/c-10n.yaml', capacitor('TC-10N', '10n', '60m', '0.25n'));
   repo.write('lib/parts/c-wt.yaml', capacitor('TC-WT', '22n', '30m', '0.3n'));
+}
+
+/** A new repository holding revision one, committed and tagged v1, and revision two written but not committed. */
+export function scenarioAtRevisionTwo(name: string): TestRepo {
+  const repo = makeRepo(name);
+  writeRevisionOne(repo);
+  repo.commit('revision one');
+  repo.git('tag', 'v1');
+  writeRevisionTwo(repo);
+  return repo;
 }

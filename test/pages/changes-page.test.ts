@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { run } from '../cli/fake-io.js';
 import { freshFolder, makeRepo, removeTestRepos, useGitEnv, type TestRepo } from '../history/git-repo.js';
-import { REVIEW, writeRevisionOne, writeRevisionTwo, writeWorkTreeEdits } from '../history/scenario.js';
+import { REVIEW, scenarioAtRevisionTwo, writeRevisionOne, writeWorkTreeEdits } from '../history/scenario.js';
 import { svgTexts } from '../charts/svg-text.js';
 
 let restore: () => void;
@@ -16,11 +16,7 @@ let lib: string;
 
 beforeAll(() => {
   restore = useGitEnv();
-  repo = makeRepo('changes');
-  writeRevisionOne(repo);
-  repo.commit('revision one');
-  repo.git('tag', 'v1');
-  writeRevisionTwo(repo);
+  repo = scenarioAtRevisionTwo('changes');
   // The second review was held on revision two and names the first as the one signed before.
   repo.write('lib/reviews/second.yaml', `${REVIEW('Second review')}since: v1\n`);
   repo.commit('revision two');

@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { run } from '../fake-io.js';
 import { GIT_ENV, freshFolder, makeRepo, removeTestRepos, useGitEnv, type TestRepo } from '../../history/git-repo.js';
-import { capacitor, writeRevisionOne, writeRevisionTwo, writeWorkTreeEdits } from '../../history/scenario.js';
+import { capacitor, scenarioAtRevisionTwo, writeWorkTreeEdits } from '../../history/scenario.js';
 import { denseSweep, railMagnitude, worstOverBand, type RefBranch } from '../../analysis/rail-reference.js';
 import type { PartSummary } from '../../../src/analysis/summary.js';
 
@@ -19,11 +19,7 @@ let lib: string;
 
 beforeAll(() => {
   restore = useGitEnv();
-  repo = makeRepo('diff');
-  writeRevisionOne(repo);
-  repo.commit('revision one');
-  repo.git('tag', 'v1');
-  writeRevisionTwo(repo);
+  repo = scenarioAtRevisionTwo('diff');
   repo.commit('revision two');
   writeWorkTreeEdits(repo);
   lib = join(repo.dir, 'lib');
