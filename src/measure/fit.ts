@@ -4,10 +4,9 @@
 // relative errors weigh alike. A parameter the data cannot determine is left out of the model (a series
 // element shorted, a parallel one open) and the fit is redone; the reason is kept for the report.
 
-import { VALUE_RANGES } from '../units/ranges.js';
-import { FIT_PARAMETERS, MODELS, type FitKind } from './fit-models.js';
+import { FIT_PARAMETERS, type FitKind } from './fit-models.js';
 import { startingValues, type Sweep } from './fit-start.js';
-import { levenbergMarquardt, type LeastSquaresSolution } from './levenberg-marquardt.js';
+import { activeIndices, ModelFit, NEEDED_CHI2, TRIAL_ITERATIONS, type Solved } from './model-fit.js';
 import { parameterStatistics } from './fit-statistics.js';
 
 export interface FitWindow {
@@ -60,13 +59,7 @@ export type FitOutcome = { ok: true; fit: FitResult } | { ok: false; message: st
 export const NO_EFFECT = 1e-3;
 /** A parameter known only within a factor of two (standard error of ln p above ln 2) is not determined. */
 export const TOO_UNCERTAIN = Math.LN2;
-/**
- * A parameter is needed when leaving it out raises ‖r‖² by more than this many times the noise variance
- * σ² = ‖r‖²/(m − n): the 0.1% point of χ² with one degree of freedom (the F-test of nested least-squares
- * models, e.g. Press et al., Numerical Recipes, 3rd ed., 2007, §14.2 and §15.6). Below it, the gain is
- * what fitting the noise would give.
- */
-export const NEEDED_CHI2 = 10.83;
+export { NEEDED_CHI2 } from './model-fit.js';
 
 const DB_PER_NEPER = 20 / Math.LN10;
 const DEGREES = 180 / Math.PI;
@@ -127,9 +120,6 @@ export function fitImpedance(kind: FitKind, measured: Sweep, window: FitWindow =
   };
 }
 
-/** Steps allowed a trial fit without one parameter, when judging whether it is needed. */
-const TRIAL_ITERATIONS = 40;
-
 /** Points of the thinned sweep for the first, rough fit of a long sweep. */
 const COARSE_POINTS = 400;
 
@@ -189,10 +179,6 @@ function thinned(sweep: Sweep, count: number): Sweep {
   return { frequencies: Float64Array.from(pick, (i) => sweep.frequencies[i]), re: Float64Array.from(pick, (i) => sweep.re[i]), im: Float64Array.from(pick, (i) => sweep.im[i]) };
 }
 
-function activeIndices(on: readonly boolean[]): number[] {
-  return on.flatMap((o, i) => (o ? [i] : []));
-}
-
 /** rms and max |Z| error in dB and rms phase error in degrees, from the residual [ln-ratio re…, im…]. */
 export function residualOf(r: Float64Array, points: number): FitResidual {
   let db2 = 0;
@@ -206,98 +192,4 @@ export function residualOf(r: Float64Array, points: number): FitResidual {
     maxDb = Math.max(maxDb, Math.abs(db));
   }
   return { rmsDb: Math.sqrt(db2 / points), maxDb, rmsDeg: Math.sqrt(deg2 / points) };
-}
-
-interface Solved {
-  values: Float64Array;
-  solution: LeastSquaresSolution;
-  iterations: number;
-}
-
-/** The least-squares problem of one kind and one sweep, for any set of active parameters. */
-class ModelFit {
-  readonly points: number;
-  private readonly omega: Float64Array;
-  // 1/Z_measured, so the ratio Z_model/Z_measured is one complex product.
-  private readonly inverseRe: Float64Array;
-  private readonly inverseIm: Float64Array;
-
-  constructor(
-    readonly kind: FitKind,
-    sweep: Sweep,
-  ) {
-    this.points = sweep.frequencies.length;
-    this.omega = Float64Array.from(sweep.frequencies, (f) => 2 * Math.PI * f);
-    this.inverseRe = new Float64Array(this.points);
-    this.inverseIm = new Float64Array(this.points);
-    for (let i = 0; i < this.points; i++) {
-      const d = sweep.re[i] * sweep.re[i] + sweep.im[i] * sweep.im[i];
-      this.inverseRe[i] = sweep.re[i] / d;
-      this.inverseIm[i] = -sweep.im[i] / d;
-    }
-  }
-
-  /** Whether this sweep's fit with `on` is significantly better than with `without` (the χ² test above). */
-  neededOn(on: readonly boolean[], without: readonly boolean[], values: Float64Array): boolean {
-    const full = this.solveFromStarts(on, [values]);
-    const reduced = this.solveFromStarts(without, [values], TRIAL_ITERATIONS);
-    const variance = (2 * full.solution.cost) / (2 * this.points - activeIndices(on).length);
-    return (2 * (reduced.solution.cost - full.solution.cost)) / variance >= NEEDED_CHI2;
-  }
-
-  /** The best of the fits from each start (lowest cost), with `on` choosing the parameters that take part. */
-  solveFromStarts(on: readonly boolean[], starts: readonly Float64Array[], maxIterations?: number): Solved {
-    let best: Solved | undefined;
-    for (const start of starts) {
-      const solved = this.solve(on, start, maxIterations);
-      if (!best || solved.solution.cost < best.solution.cost) best = solved;
-    }
-    return best!;
-  }
-
-  private solve(on: readonly boolean[], start: Float64Array, maxIterations?: number): Solved {
-    const specs = FIT_PARAMETERS[this.kind];
-    const active = activeIndices(on);
-    const values = Float64Array.from(start);
-    const lower = Float64Array.from(active, (i) => Math.log(VALUE_RANGES[specs[i].dimension]!.min));
-    const upper = Float64Array.from(active, (i) => Math.log(VALUE_RANGES[specs[i].dimension]!.max));
-    const model = MODELS[this.kind];
-    const m = this.points;
-    const z = new Float64Array(2);
-    const dz = new Float64Array(2 * specs.length);
-    const solution = levenbergMarquardt(
-      {
-        parameters: active.length,
-        residuals: 2 * m,
-        lower,
-        upper,
-        evaluate: (x, r, jac) => {
-          active.forEach((index, j) => (values[index] = Math.exp(x[j])));
-          for (let i = 0; i < m; i++) {
-            model(this.omega[i], values, on, z, jac ? dz : null);
-            // ratio = Z_model/Z_measured; r = ln ratio = ln|ratio| + j·arg ratio
-            const qr = z[0] * this.inverseRe[i] - z[1] * this.inverseIm[i];
-            const qi = z[0] * this.inverseIm[i] + z[1] * this.inverseRe[i];
-            r[i] = 0.5 * Math.log(qr * qr + qi * qi);
-            r[m + i] = Math.atan2(qi, qr);
-            if (!jac) continue;
-            // ∂r/∂ln p = (∂Z/∂ln p)/Z_model
-            const d = z[0] * z[0] + z[1] * z[1];
-            const ur = z[0] / d;
-            const ui = -z[1] / d;
-            for (let j = 0; j < active.length; j++) {
-              const ar = dz[2 * active[j]];
-              const ai = dz[2 * active[j] + 1];
-              jac[j * 2 * m + i] = ar * ur - ai * ui;
-              jac[j * 2 * m + m + i] = ar * ui + ai * ur;
-            }
-          }
-        },
-      },
-      Float64Array.from(active, (i) => Math.log(start[i])),
-      { maxIterations },
-    );
-    active.forEach((index, j) => (values[index] = Math.exp(solution.x[j])));
-    return { values, solution, iterations: solution.iterations };
-  }
 }
