@@ -27,6 +27,17 @@ export interface DescribedPart {
   selfResonance?: Resonance;
   usableBand: UsableBand | null;
   within?: number;
+  /** The range of |Z| over the part's spread, when it has one. */
+  spread?: { min: ArrayLike<number>; max: ArrayLike<number> } | null;
+}
+
+/** The tinted band of the |Z| chart in words, or nothing. */
+function spreadText(input: DescribedPart): string {
+  const s = input.spread;
+  if (!s || s.min.length === 0) return '';
+  let widest = 0;
+  for (let i = 0; i < s.min.length; i++) if (s.min[i] > 0 && s.max[i] / s.min[i] > widest) widest = s.max[i] / s.min[i];
+  return ` A tinted band behind the curves is the range of |Z| over the part's spread (tolerance, temperature and parasitic spreads); where it is widest, its greatest |Z| is ${Number(widest.toPrecision(3))} times its least.`;
 }
 
 function sweepText(input: DescribedPart): string {
@@ -76,7 +87,7 @@ export function describePartChart(kind: PartChartKind, input: DescribedPart, pla
           `|Z| is ${formatEng(m(0), 'Ω')} at ${at(0)} and ${formatEng(m(n - 1), 'Ω')} at ${at(n - 1)}; ` +
           `least ${formatEng(e.min, 'Ω')} near ${at(e.minAt)}, greatest ${formatEng(e.max, 'Ω')} near ${at(e.maxAt)}. ` +
           `R is ${formatEng(re[0], 'Ω')} at ${at(0)} and ${formatEng(re[n - 1], 'Ω')} at ${at(n - 1)}. ` +
-          `${resonanceText(input)} ${bandText(input)}`,
+          `${resonanceText(input)} ${bandText(input)}${spreadText(input)}`,
       };
     }
     case 'phase': {

@@ -99,6 +99,8 @@ describe('impedance chart', () => {
     const max = frequencies.map((f) => Math.max(z(f, C * 0.9), z(f, C * 1.1)));
     const out = await renderPartChart('impedance', { ...a, spread: { frequencies, min, max, corners: 2 } });
     expect(svgTexts(out.svg)).toContain('range of |Z| over the spread');
+    const widest = Math.max(...Array.from(frequencies, (_, i) => max[i] / min[i]));
+    expect(out.description).toContain(`where it is widest, its greatest |Z| is ${Number(widest.toPrecision(3))} times its least.`);
     const layers = (PART_CHARTS.impedance.spec() as { layer: { data?: { name?: string } }[] }).layer.map((l) => l.data?.name);
     expect(layers.indexOf('spread')).toBeGreaterThan(-1);
     expect(layers.indexOf('spread')).toBeLessThan(layers.indexOf('curves'));

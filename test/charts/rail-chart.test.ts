@@ -51,6 +51,8 @@ describe('rail chart', () => {
     const max = Array.from(data.totalOhm, (z) => z * 1.25);
     const out = await renderRailChart({ ...data, envelope: { minOhm: min, maxOhm: max, corners: 1024 } });
     expect(svgTexts(out.svg)).toContain('range of rail |Z| over nominal and 1,024 corners');
+    const top = max.indexOf(Math.max(...max));
+    expect(out.description).toContain(`A tinted band behind the curves is the range of the rail's |Z| over nominal and 1,024 corners of its parts' spreads; its highest point on the sweep is ${formatEng(max[top], 'Ω')} at ${formatEng(data.frequencies[top], 'Hz')}.`);
     const layers = (railChart.spec() as { layer: { data?: { name?: string } }[] }).layer.map((l) => l.data?.name);
     expect(layers.indexOf('spread')).toBeGreaterThan(-1);
     for (const drawnLater of ['branches', 'curves', 'peaks']) expect(layers.indexOf('spread')).toBeLessThan(layers.indexOf(drawnLater));
@@ -61,5 +63,6 @@ describe('rail chart', () => {
     const plain = await renderRailChart(data);
     expect((plain.spec as { datasets: Rows }).datasets.spread).toEqual([]);
     expect(svgTexts(plain.svg).some((t) => t.startsWith('range of'))).toBe(false);
+    expect(plain.description).not.toContain('tinted');
   });
 });
