@@ -1,0 +1,12 @@
+// One build of a library in a process of its own, for the scale bench: prints one JSON line with the
+// build's seconds, the process's peak RSS and how many parts were carried over.
+// Usage: node --import tsx bench/scale-build.ts LIBRARY OUT
+
+import { buildFolio } from '../src/build/build.js';
+
+const [libraryRoot, outDir] = process.argv.slice(2);
+const started = performance.now();
+const result = await buildFolio({ libraryRoot, outDir });
+const seconds = (performance.now() - started) / 1000;
+// maxRSS is in kilobytes (getrusage).
+console.log(JSON.stringify({ ok: result.ok, seconds, peakRssBytes: process.resourceUsage().maxRSS * 1024, reused: result.reused, pages: result.pages, error: result.diagnostics.find((d) => d.severity === 'error')?.message }));

@@ -1,0 +1,120 @@
+// The folio at scale (opt-in: `npm run bench -- scale`): generated libraries of 1,000 and 10,000 invented
+// parts, each built cold, rebuilt after one part file is edited and rebuilt with nothing changed, every
+// build in a process of its own so its peak RSS is its own; then the site's size, its files and its largest
+// page. Each 10,000-part figure is also given as a ratio to the 1,000-part one measured in this run.
+// ZFOLIO_BENCH_SCALE=N1,N2 builds other sizes (e.g. 200,2000 for a quick look).
+
+import { execFileSync } from 'node:child_process';
+import { lstatSync, readdirSync, readFileSync, realpathSync, rmSync, writeFileSync } from 'node:fs';
+import { loadavg } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { writeGeneratedLibrary } from './generate.js';
+import type { BenchSection } from './measure.js';
+
+const HERE = dirname(fileURLToPath(import.meta.url));
+const SIZES = (process.env.ZFOLIO_BENCH_SCALE ?? '1000,10000').split(',').map(Number);
+
+interface Build {
+  ok: boolean;
+  seconds: number;
+  peakRssBytes: number;
+  reused: number;
+  pages: number;
+  error?: string;
+}
+
+interface SiteSize {
+  bytes: number;
+  files: number;
+  largestPage: { file: string; bytes: number };
+}
+
+interface Run {
+  parts: number;
+  cold: Build;
+  edited: Build;
+  unchanged: Build;
+  site: SiteSize;
+  partFolderBytes: number;
+}
+
+function build(library: string, out: string): Build {
+  const text = execFileSync(process.execPath, ['--import', 'tsx', join(HERE, 'scale-build.ts'), library, out], { encoding: 'utf8', maxBuffer: 1 << 20 });
+  const result = JSON.parse(text.trim().split('\n').pop()!) as Build;
+  if (!result.ok) throw new Error(`scale bench: a build of ${library} failed: ${result.error}`);
+  return result;
+}
+
+/** Bytes and files of a site (through its link), and its largest HTML page. */
+function siteSize(site: string): SiteSize {
+  const root = realpathSync(site);
+  const size: SiteSize = { bytes: 0, files: 0, largestPage: { file: '', bytes: 0 } };
+  const walk = (dir: string) => {
+    for (const entry of readdirSync(dir, { withFileTypes: true })) {
+      const path = join(dir, entry.name);
+      if (entry.isDirectory()) walk(path);
+      else {
+        const bytes = lstatSync(path).size;
+        size.bytes += bytes;
+        size.files++;
+        if (entry.name.endsWith('.html') && bytes > size.largestPage.bytes) size.largestPage = { file: path.slice(root.length + 1), bytes };
+      }
+    }
+  };
+  walk(root);
+  return size;
+}
+
+function folderBytes(dir: string): number {
+  return readdirSync(dir, { withFileTypes: true }).reduce((n, e) => n + (e.isDirectory() ? folderBytes(join(dir, e.name)) : lstatSync(join(dir, e.name)).size), 0);
+}
+
+function runAt(parts: number): Run {
+  const root = writeGeneratedLibrary(parts, 1);
+  const out = join(root, '_site');
+  const target = join(root, 'parts', 'group-0', 'gen-0.yaml');
+  try {
+    const cold = build(root, out);
+    const site = siteSize(out);
+    const partFolderBytes = folderBytes(join(realpathSync(out), 'parts')) / parts;
+    const original = readFileSync(target, 'utf8');
+    writeFileSync(target, original.replace(/esr: [^,}]+/, 'esr: 0.0123'));
+    const edited = build(root, out);
+    const unchanged = build(root, out);
+    return { parts, cold, edited, unchanged, site, partFolderBytes };
+  } finally {
+    rmSync(root, { recursive: true, force: true });
+  }
+}
+
+const s = (x: number) => `${x.toFixed(x < 10 ? 2 : 1)} s`;
+const mb = (bytes: number) => `${(bytes / 1e6).toFixed(bytes < 1e7 ? 2 : 0)} MB`;
+const kb = (bytes: number) => `${(bytes / 1e3).toFixed(0)} KB`;
+const n = (x: number) => x.toLocaleString('en-US');
+const ratio = (a: number, b: number) => `${(a / b).toFixed(2)}×`;
+
+export const scaleBench: BenchSection = {
+  name: 'scale',
+  async run() {
+    const lines = [`load average before: ${loadavg().map((x) => x.toFixed(2)).join(' ')}; each build in a process of its own`];
+    const runs: Run[] = [];
+    for (const parts of SIZES) {
+      const r = runAt(parts);
+      runs.push(r);
+      lines.push(
+        `${n(parts)} parts: cold ${s(r.cold.seconds)} (${n(r.cold.pages)} pages), one part edited ${s(r.edited.seconds)} (${n(r.edited.reused)} part folders carried over), nothing changed ${s(r.unchanged.seconds)}; ` +
+          `peak RSS ${mb(r.cold.peakRssBytes)} cold, ${mb(r.edited.peakRssBytes)} edited; site ${mb(r.site.bytes)} in ${n(r.site.files)} files, ${kb(r.partFolderBytes)} a part folder, largest page ${kb(r.site.largestPage.bytes)} (${r.site.largestPage.file})`,
+      );
+    }
+    const [base, ...larger] = runs;
+    for (const r of larger) {
+      lines.push(
+        `${n(r.parts)} parts as ratios to ${n(base.parts)} (${ratio(r.parts, base.parts)} the parts): cold ${ratio(r.cold.seconds, base.cold.seconds)}, one edit ${ratio(r.edited.seconds, base.edited.seconds)}, ` +
+          `nothing changed ${ratio(r.unchanged.seconds, base.unchanged.seconds)}, peak RSS ${ratio(r.cold.peakRssBytes, base.cold.peakRssBytes)}, site size ${ratio(r.site.bytes, base.site.bytes)}, files ${ratio(r.site.files, base.site.files)}`,
+      );
+    }
+    lines.push(`load average after: ${loadavg().map((x) => x.toFixed(2)).join(' ')}`);
+    return lines;
+  },
+};
