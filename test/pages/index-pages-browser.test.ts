@@ -4,20 +4,18 @@
 // 2,000 parts, shown a page at a time. Charts are not what this test looks at, so the build draws none
 // (a chart maker that returns empty charts); every page and the index's row scripts are the real ones.
 
-import { mkdirSync, rmSync, statSync } from 'node:fs';
+import { rmSync, statSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { Browser, Page } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { writeGeneratedLibrary } from '../../bench/generate.js';
-import { findChrome, launchChrome } from '../../src/print/browser.js';
 import { buildFolio } from '../../src/build/build.js';
 import type { ChartArtifact, ChartMaker } from '../../src/build/chart-maker.js';
 import { loadLibrary, type Library } from '../../src/model/library.js';
-import { REPO } from '../site-helpers.js';
+import { ARTIFACTS, siteTabs, startChrome } from '../print/site-tabs.js';
 
 const PARTS = 2000;
-const ARTIFACTS = join(REPO, 'test', '.artifacts');
 let root: string;
 let site: string;
 let library: Library;
@@ -40,10 +38,7 @@ beforeAll(async () => {
   library = loadLibrary(root).library!;
   const result = await buildFolio({ libraryRoot: root, outDir: site, cache: false, charts: noCharts });
   expect(result.ok).toBe(true);
-  const chrome = findChrome(undefined, process.env);
-  if (!('path' in chrome)) throw new Error(`browser tests need Chromium: ${chrome.problem}`);
-  browser = await launchChrome(chrome.path);
-  mkdirSync(ARTIFACTS, { recursive: true });
+  browser = await startChrome();
 }, 300_000);
 
 afterAll(async () => {
@@ -51,19 +46,7 @@ afterAll(async () => {
   if (root) rmSync(root, { recursive: true, force: true });
 });
 
-async function open(file: string, javascript = true): Promise<Page> {
-  const page = await browser.newPage();
-  await page.setJavaScriptEnabled(javascript);
-  await page.setViewport({ width: 1280, height: 900 });
-  const siteUrl = pathToFileURL(site).href;
-  page.on('console', (m) => {
-    if (m.type() === 'error' || m.type() === 'warn') problems.push(`${file}: console ${m.type()}: ${m.text()}`);
-  });
-  page.on('pageerror', (e) => problems.push(`${file}: page error: ${(e as Error).message}`));
-  page.on('requestfailed', (r) => problems.push(`${file}: request failed: ${r.url()}`));
-  await page.goto(`${siteUrl}/${file}`, { waitUntil: 'load' });
-  return page;
-}
+const open = siteTabs(() => browser, () => site, problems);
 
 const ids = (page: Page) => page.$$eval('table.parts-index tbody tr', (rows) => rows.filter((r) => !(r as HTMLElement).hidden).map((r) => r.querySelector('a')!.textContent!.trim()));
 const count = (page: Page) => page.$eval('output[name=count]', (o) => (o as HTMLOutputElement).value);

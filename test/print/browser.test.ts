@@ -2,17 +2,14 @@
 // filters and sorts, part and comparison pages show their charts, nothing is fetched from outside and no
 // error reaches the console. Screenshots go to test/.artifacts/ for people to look at.
 
-import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { pathToFileURL } from 'node:url';
 import type { Browser, Page } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { findChrome, launchChrome } from '../../src/print/browser.js';
 import { buildFolio } from '../../src/build/build.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { REPO, tempDir } from '../site-helpers.js';
+import { ARTIFACTS, siteTabs, startChrome } from './site-tabs.js';
 
-const ARTIFACTS = join(REPO, 'test', '.artifacts');
 const library = loadLibrary(REPO).library!;
 let site: string;
 let browser: Browser;
@@ -22,34 +19,14 @@ beforeAll(async () => {
   site = join(tempDir('browser'), '_site');
   const result = await buildFolio({ libraryRoot: REPO, outDir: site, cache: false });
   expect(result.ok).toBe(true);
-  const chrome = findChrome(undefined, process.env);
-  // CI installs Debian's chromium; a machine without it fails here rather than skipping.
-  if (!('path' in chrome)) throw new Error(`browser tests need Chromium: ${chrome.problem}`);
-  browser = await launchChrome(chrome.path);
-  mkdirSync(ARTIFACTS, { recursive: true });
+  browser = await startChrome();
 }, 240_000);
 
 afterAll(async () => {
   await browser?.close();
 });
 
-/** A tab that records console errors, page errors, failed requests and any request outside the site. */
-async function open(file: string, javascript = true): Promise<Page> {
-  const page = await browser.newPage();
-  await page.setJavaScriptEnabled(javascript);
-  await page.setViewport({ width: 1280, height: 900 });
-  const siteUrl = pathToFileURL(site).href;
-  page.on('console', (m) => {
-    if (m.type() === 'error' || m.type() === 'warn') problems.push(`${file}: console ${m.type()}: ${m.text()}`);
-  });
-  page.on('pageerror', (e) => problems.push(`${file}: page error: ${(e as Error).message}`));
-  page.on('requestfailed', (r) => problems.push(`${file}: request failed: ${r.url()}`));
-  page.on('request', (r) => {
-    if (!r.url().startsWith(siteUrl + '/') && !r.url().startsWith('data:')) problems.push(`${file}: outside request: ${r.url()}`);
-  });
-  await page.goto(`${siteUrl}/${file}`, { waitUntil: 'load' });
-  return page;
-}
+const open = siteTabs(() => browser, () => site, problems);
 
 const visibleIds = (page: Page) =>
   page.$$eval('table.parts-index tbody tr', (rows) => rows.filter((r) => !(r as HTMLElement).hidden).map((r) => r.querySelector('a')!.textContent!.trim()));
