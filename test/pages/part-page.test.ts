@@ -26,6 +26,12 @@ describe('a datasheet page of a series R-L-C capacitor', () => {
     expect(row('100 MHz')).toEqual({ frequency: '100 MHz', resistance: '18 mΩ', reactance: '267 mΩ', magnitude: '267 mΩ', phase: '86.1°', effective: '', q: '14.8' });
   });
 
+  it('says that the part states no spread, so every figure is nominal', () => {
+    // The fixture states no tolerance, temperature characteristic or parasitic spread.
+    expect(text.figures.find((r) => r.label === 'Spread')).toEqual({ label: 'Spread', value: 'none stated', note: 'no tolerance, temperature characteristic or parasitic spread in the part file: every figure is nominal' });
+    expect(text.spreadNote).toBe('');
+  });
+
   it('states the SRF (23.7254 MHz) and the ESR there (R = 18 mΩ, where X = 0)', () => {
     expect(text.srfText).toBe('23.7 MHz');
     expect(text.figures.find((r) => r.label === 'Self-resonant frequency')).toMatchObject({ value: '23.7 MHz', note: 'series resonance' });
