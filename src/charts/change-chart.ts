@@ -11,7 +11,7 @@ import { curveRows, mergeCurve } from './curves.js';
 import { frame, PLOT_WIDTH } from './frame.js';
 import type { KeyItem } from './key.js';
 import { TARGET_LINE, type SeriesStyle } from './palette.js';
-import { rangeBand } from './part-marks.js';
+import { bandWithin, rangeBand } from './part-marks.js';
 import { renderChart, type ChartOutput, type Row } from './render.js';
 import { positiveExtent } from './scales.js';
 import { colouredPointLayer, curveLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
@@ -92,8 +92,10 @@ export const changeChart = xyChart<ChangeChartData>({
       key.push({ kind: 'line', style: { s: 'target' }, text: changeKey.target(targetNow, t?.after === null ? data.since : undefined) });
     }
     if (marks.length > 0) key.push({ kind: 'point', color: '#6d6d6d', text: data.markName });
-    if (data.band) key.push({ kind: 'band', text: bandKeyText(data.band) });
-    return { x, y, band: rangeBand(data.band), datasets: { curves: rows, marks }, key, keyGrid: true };
+    // A rail's curves span exactly its band: no shading then, it would tint the whole plot.
+    const band = bandWithin(data.band, from, to);
+    if (band) key.push({ kind: 'band', text: bandKeyText(band) });
+    return { x, y, band: rangeBand(band), datasets: { curves: rows, marks }, key, keyGrid: true };
   },
 });
 

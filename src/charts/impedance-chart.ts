@@ -16,6 +16,8 @@ const SERIES: SeriesScale = { keys: ['mag', 'res'], styles: [PART_SERIES.magnitu
 const FRAME = halfFrame(160);
 /** Half a decade of headroom beside a resonance, for its label. */
 const LABEL_ROOM = 10 ** 0.5;
+/** At least this much room (px) between a dip or peak and the plot's edge: a label's height and its gap. */
+const LABEL_ROOM_PX = 20;
 
 export const impedanceChart = xyChart<PartChartInput>({
   name: 'impedance',
@@ -39,10 +41,24 @@ export const impedanceChart = xyChart<PartChartInput>({
     const rated = ratedPoint(input);
     const spread = input.spread ? [input.spread.min, input.spread.max] : [];
     let [lo, hi] = positiveExtent([input.resonances.map((r) => r.impedanceOhm), magnitudeOhm, re, rated ? [rated.v] : [], ...spread], MAX_DECADES);
-    // Room for resonance labels: below a dip, above a peak.
-    if (input.resonances.some((r) => r.type === 'series')) lo /= LABEL_ROOM;
-    if (input.resonances.some((r) => r.type === 'parallel')) hi *= LABEL_ROOM;
-    const y = logValueAxis(lo, hi, FRAME.height, 'Ω');
+    // Room for resonance labels: below a dip, above a peak; half a decade, or more where the axis spans so
+    // many decades that half a decade is less than a label's height.
+    const dips = input.resonances.filter((r) => r.type === 'series').map((r) => r.impedanceOhm);
+    const peaks = input.resonances.filter((r) => r.type === 'parallel').map((r) => r.impedanceOhm);
+    if (dips.length) lo /= LABEL_ROOM;
+    if (peaks.length) hi *= LABEL_ROOM;
+    let y = logValueAxis(lo, hi, FRAME.height, 'Ω');
+    for (let round = 0; round < 3; round++) {
+      const pxPerDecade = FRAME.height / Math.log10(y.domain[1] / y.domain[0]);
+      const room = 10 ** (LABEL_ROOM_PX / pxPerDecade);
+      const lowDip = Math.min(...dips);
+      const highPeak = Math.max(...peaks);
+      const short = (dips.length > 0 && lowDip / y.domain[0] < room) || (peaks.length > 0 && y.domain[1] / highPeak < room);
+      if (!short) break;
+      if (dips.length) lo = Math.min(lo, lowDip / room);
+      if (peaks.length) hi = Math.max(hi, highPeak * room);
+      y = logValueAxis(lo, hi, FRAME.height, 'Ω');
+    }
 
     // At a resonance X = 0, so |Z| = R = the resonance's impedance: both curves pass through it exactly.
     const exact = input.resonances.map((r) => ({ f: r.frequencyHz, v: r.impedanceOhm }));

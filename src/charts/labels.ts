@@ -127,7 +127,14 @@ export function segmentHitsBox(ax: number, ay: number, bx: number, by: number, b
   return true;
 }
 
-function hitsObstacles(box: Box, obstacles: readonly Obstacle[]): number {
+/**
+ * Room kept between a label and a line, px: a box that merely touches a line reads as struck through once
+ * the glyphs' own overhang and the line's width are drawn.
+ */
+const CLEARANCE = 2.5;
+
+function hitsObstacles(tight: Box, obstacles: readonly Obstacle[]): number {
+  const box = { x0: tight.x0 - CLEARANCE, y0: tight.y0 - CLEARANCE, x1: tight.x1 + CLEARANCE, y1: tight.y1 + CLEARANCE };
   let hits = 0;
   for (const o of obstacles) {
     for (let i = 1; i < o.xs.length; i++) {

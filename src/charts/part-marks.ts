@@ -70,6 +70,16 @@ export function bandData(input: Pick<PartChartInput, 'usableBand' | 'within'> & 
 }
 
 /** A frequency band drawn in full, both edges marked (a rail's band). */
+/**
+ * The band when it is narrower than the axis `[fromHz, toHz]`; null when it covers the whole axis (a rail
+ * chart drawn over exactly its band), where shading would tint the whole plot and say nothing.
+ */
+export function bandWithin(band: { fromHz: number; toHz: number } | null | undefined, fromHz: number, toHz: number): { fromHz: number; toHz: number } | null {
+  if (!band) return null;
+  const inside = band.fromHz > fromHz * (1 + 1e-6) || band.toHz < toHz * (1 - 1e-6);
+  return inside ? band : null;
+}
+
 export function rangeBand(band: { fromHz: number; toHz: number } | null | undefined): { band: Row[]; bandEdges: Row[] } {
   return band ? { band: [{ f: band.fromHz, f2: band.toHz }], bandEdges: [{ f: band.fromHz }, { f: band.toHz }] } : { band: [], bandEdges: [] };
 }

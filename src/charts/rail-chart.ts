@@ -14,7 +14,7 @@ import { ABOVE_FIRST } from './labels.js';
 import { placeMarkLabels, shown } from './mark-labels.js';
 import { overlayEncoding, overlayStyle } from './overlay.js';
 import { INK, RAIL_TOTAL, TARGET_LINE } from './palette.js';
-import { rangeBand } from './part-marks.js';
+import { bandWithin, rangeBand } from './part-marks.js';
 import { renderChart, type ChartOutput, type Row } from './render.js';
 import { positiveExtent } from './scales.js';
 import { colouredPointLayer, curveLayer, envelopeLayer, keyLayers, placedLabelLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
@@ -91,19 +91,23 @@ export const railChart = xyChart<RailChartData>({
       required: k === 0,
       candidates: ABOVE_FIRST,
     }));
-    const placed = placeMarkLabels(requests, FRAME, [total, targetCurve].map((c) => curveObstacle(c, x.map, y.map)));
+    // Labels keep clear of the rail, its target and every branch curve.
+    const branchCurves = data.branches.map((b) => mergeCurve(f, (i) => b.ohm[i], [], true));
+    const placed = placeMarkLabels(requests, FRAME, [total, targetCurve, ...branchCurves].map((c) => curveObstacle(c, x.map, y.map)));
+    // A rail is drawn over exactly its band: shading it would tint the whole plot.
+    const band = bandWithin(data.band, f[0], f[n - 1]);
     const key: KeyItem[] = [
       { kind: 'line', style: { s: 'total' }, text: KEY_TEXT.railMagnitude },
       { kind: 'line', style: { s: 'target' }, text: targetKeyText(typeof data.target === 'number' ? data.target : undefined) },
       ...peakKey(peaks, targetNear),
-      ...(data.band ? [{ kind: 'band' as const, text: bandKeyText(data.band) }] : []),
+      ...(band ? [{ kind: 'band' as const, text: bandKeyText(band) }] : []),
       ...(data.envelope ? [{ kind: 'spread' as const, text: railSpreadKeyText(data.envelope.corners) }] : []),
       ...data.branches.map((b, k) => ({ kind: 'line' as const, style: { ...overlayStyle(k), branch: true }, text: b.label })),
     ];
     return {
       x,
       y,
-      band: rangeBand(data.band),
+      band: rangeBand(band),
       datasets: {
         branches,
         spread: data.envelope ? envelopeRows(f, data.envelope.minOhm, data.envelope.maxOhm) : [],

@@ -60,6 +60,10 @@ describe('complex-plane chart', () => {
       expect(Math.abs(x - exact[k][0])).toBeLessThan(1e-3);
       expect(Math.abs(v - exact[k][1])).toBeLessThan(1e-3);
     });
-    expect(svgTexts((await renderChart(planeChart, blind, { title: 't', description: 'd' })).svg)).toContain('100 MHz');
+    // And the same decades are labelled (those that find a free place beside their mark), '10 MHz' among them.
+    const labelled = (texts: string[]) => texts.filter((t) => /^\d+ [kMG]?Hz/.test(t)).sort();
+    const withModel = labelled(svgTexts((await renderChart(planeChart, a, { title: 't', description: 'd' })).svg));
+    expect(withModel).toContain('10 MHz');
+    expect(labelled(svgTexts((await renderChart(planeChart, blind, { title: 't', description: 'd' })).svg))).toEqual(withModel);
   });
 });
