@@ -1,7 +1,9 @@
 // The four charts of a part's datasheet page, rendered together from one analysis.
 
 import { admittanceChart } from './admittance-chart.js';
-import { describePartChart, type PartChartKind } from '../present/chart-descriptions.js';
+import { admittanceCircleChart } from './admittance-circle-chart.js';
+import { halfPowerFrequencies } from '../analysis/half-power.js';
+import { describeAdmittanceCircle, describePartChart, type PartChartKind } from '../present/chart-descriptions.js';
 import { impedanceChart } from './impedance-chart.js';
 import type { PartChartInput } from './part-marks.js';
 import { phaseChart } from './phase-chart.js';
@@ -14,8 +16,25 @@ export type { PartChartKind } from '../present/chart-descriptions.js';
 
 export type PartCharts = Record<PartChartKind, ChartOutput>;
 
+/**
+ * A capacitor's complex plane is drawn as its admittance circle (admittance-circle-chart.ts says why): its
+ * impedance path, with a constant ESR, would be a vertical line. Other kinds keep the impedance plane.
+ */
+function drawsAdmittanceCircle(input: PartChartInput): boolean {
+  return input.part.kind === 'capacitor';
+}
+
+/** The chart definition of one of a part's charts. */
+function chartOf(kind: PartChartKind, input: PartChartInput): ChartDefinition<PartChartInput> {
+  return kind === 'plane' && drawsAdmittanceCircle(input) ? admittanceCircleChart : PART_CHARTS[kind];
+}
+
 /** A chart's title and description, written from the analysis (the complex plane's with its scale). */
 function describe(kind: PartChartKind, input: PartChartInput): ChartText {
+  if (kind === 'plane' && drawsAdmittanceCircle(input)) {
+    const srf = input.selfResonance;
+    return describeAdmittanceCircle(input, srf ? halfPowerFrequencies({ frequencies: input.frequencies, z: input.z, network: input.part.network }, srf.frequencyHz) : null);
+  }
   return describePartChart(kind, input, kind === 'plane' ? partPlaneConstant(input) : undefined);
 }
 
@@ -34,12 +53,12 @@ export const PART_CHART_KINDS: readonly PartChartKind[] = ['impedance', 'phase',
  */
 export async function renderPartCharts(input: PartChartInput, text: Partial<Record<PartChartKind, ChartText>> = {}): Promise<PartCharts> {
   const outputs = await Promise.all(
-    PART_CHART_KINDS.map((kind) => renderChart(PART_CHARTS[kind], input, text[kind] ?? describe(kind, input))),
+    PART_CHART_KINDS.map((kind) => renderChart(chartOf(kind, input), input, text[kind] ?? describe(kind, input))),
   );
   return Object.fromEntries(PART_CHART_KINDS.map((kind, i) => [kind, outputs[i]])) as PartCharts;
 }
 
 /** One of a part's charts. */
 export function renderPartChart(kind: PartChartKind, input: PartChartInput, text?: ChartText): Promise<ChartOutput> {
-  return renderChart(PART_CHARTS[kind], input, text ?? describe(kind, input));
+  return renderChart(chartOf(kind, input), input, text ?? describe(kind, input));
 }

@@ -140,3 +140,29 @@ export function describeComparison(parts: readonly Pick<DescribedPart, 'part' | 
       `each part has its own colour and dash pattern, its self-resonance marked by a dot. Parts: ${each.join('; ')}.`,
   };
 }
+
+/**
+ * Title and text alternative of a capacitor's complex-plane chart, drawn as its admittance circle; `halfPower`
+ * is [f1, f2] around the SRF when the sweep holds both.
+ */
+export function describeAdmittanceCircle(input: DescribedPart, halfPower: [number, number] | null): ChartText {
+  const id = input.part.id;
+  const srf = input.selfResonance;
+  const circle = srf
+    ? `At the SRF, ${formatEng(srf.frequencyHz, 'Hz')}, it reaches the circle's rightmost point, G = 1/ESR = ${formatEng(1 / srf.impedanceOhm, 'S')} (ESR ${formatEng(srf.impedanceOhm, 'Ω')}), the circle's diameter. `
+    : 'The sweep holds no self-resonance, so the path is an arc of the circle. ';
+  const q = srf && halfPower
+    ? `The half-power points, where |X| = R and so |B| = G (the top and bottom of the circle), are at ${formatEng(halfPower[0], 'Hz')} and ${formatEng(halfPower[1], 'Hz')}: Q = f0/(f2 − f1) = ${formatNumber3(srf.frequencyHz / (halfPower[1] - halfPower[0]))}. `
+    : '';
+  return {
+    title: `${id}: admittance Y = G + jB in the complex plane (the resonance circle)`,
+    description:
+      `Complex-plane path of the admittance Y = 1/Z = G + jB of ${id} as frequency rises from ${sweepText(input)}: conductance G across, susceptance B up, both linear. ` +
+      `A capacitor's model is a series resonance with a nearly constant ESR, so its impedance path would be a vertical line; its admittance traces a circle through the origin instead, ` +
+      `from near the origin above the axis (capacitive, B > 0) clockwise round to the origin below it (inductive, B < 0). ${circle}${q}Dots mark each decade of frequency.`,
+  };
+}
+
+function formatNumber3(x: number): string {
+  return Number(x.toPrecision(3)).toString();
+}

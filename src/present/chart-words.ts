@@ -11,6 +11,8 @@ export const AXIS_TITLE = {
   phase: 'Phase of Z',
   planeResistance: 'Resistance R (signed-log scale)',
   planeReactance: 'Reactance X (signed-log)',
+  circleConductance: 'Conductance G',
+  circleSusceptance: 'Susceptance B',
   time: 'Time after the load step begins (log scale)',
   deviation: 'Deviation from the DC voltage',
   share: 'Share of the load current',
@@ -26,6 +28,9 @@ export const KEY_TEXT = {
   phaseResonance: 'resonance (0°)',
   path: 'Z = R + jX (arrows: rising f)',
   decade: 'decade of frequency',
+  admittancePath: 'Y = G + jB, clockwise as f rises',
+  resonanceAdmittance: 'SRF: G = 1/ESR',
+  halfPower: 'half power, |X| = R',
   selfResonance: 'self-resonance (SRF)',
   railMagnitude: 'rail |Z|',
   peak: 'peak',
@@ -41,7 +46,14 @@ export const SIGN_NOTE = {
   phaseCapacitive: '↓ capacitive (X < 0)',
   planeInductive: 'inductive (X > 0) ↑',
   planeCapacitive: 'capacitive (X < 0) ↓',
+  circleCapacitive: 'capacitive (B > 0) ↑',
+  circleInductive: 'inductive (B < 0) ↓',
 } as const;
+
+/** A half-power point on the admittance circle: its frequency. */
+export function halfPowerLabel(frequencyHz: number): string {
+  return formatEng(frequencyHz, 'Hz');
+}
 
 /** The resistance curve's key entry: a capacitor's R is its ESR. */
 export function resistanceKeyText(behavesAs: string | undefined): string {

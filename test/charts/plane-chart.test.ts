@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { planeChart } from '../../src/charts/plane-chart.js';
 import { renderPartChart } from '../../src/charts/part-charts.js';
+import { partPlaneConstant } from '../../src/charts/plane-scale.js';
+import { describePartChart } from '../../src/present/chart-descriptions.js';
 import { renderChart } from '../../src/charts/render.js';
 import { analysed, beadPart, capacitorPart, resistorPart } from './fixtures.js';
 import { svgTexts } from './svg-text.js';
@@ -8,9 +10,14 @@ import { svgTexts } from './svg-text.js';
 type Rows = Record<string, Record<string, unknown>[]>;
 const DECADES = ['1 kHz', '10 kHz', '100 kHz', '1 MHz', '10 MHz', '100 MHz', '1 GHz', '10 GHz'];
 
+/** The impedance plane of a part, whatever plane its page draws (a capacitor's page draws its admittance circle). */
+function impedancePlane(input: ReturnType<typeof analysed>) {
+  return renderChart(planeChart, input, describePartChart('plane', input, partPlaneConstant(input)));
+}
+
 describe('complex-plane chart', () => {
   it('labels every decade of the sweep on the path and names its scale', async () => {
-    const out = await renderPartChart('plane', analysed(capacitorPart));
+    const out = await impedancePlane(analysed(capacitorPart));
     const texts = svgTexts(out.svg);
     for (const d of DECADES) expect(texts).toContain(d);
     expect(texts).toContain('SRF 23.7 MHz');
@@ -20,7 +27,7 @@ describe('complex-plane chart', () => {
 
   it('points its arrows upwards for a series R-L-C: X rises with frequency, R stays put', async () => {
     // Foster's reactance theorem: dX/dω > 0 for a lossless one-port; with constant ESR the path is vertical.
-    const out = await renderPartChart('plane', analysed(capacitorPart));
+    const out = await impedancePlane(analysed(capacitorPart));
     const arrows = (out.spec as { datasets: Rows }).datasets.arrows;
     expect(arrows).toHaveLength(7);
     // The first one, at 3.16 kHz, leans slightly: the 1 GΩ leakage still adds a little R there.

@@ -1,0 +1,80 @@
+import { Complex } from 'complex.js';
+import { describe, expect, it } from 'vitest';
+import { renderPartChart } from '../../src/charts/part-charts.js';
+import { formatEng } from '../../src/units/format.js';
+import { referenceZAt } from '../reference/impedance.js';
+import { analysed, capacitorPart, inductorPart, networkPart } from './fixtures.js';
+import { svgTexts } from './svg-text.js';
+
+type Rows = Record<string, Record<string, number>[]>;
+
+// The fixture capacitor: ESR 18 mΩ + ESL 0.45 nH + (100 nF ‖ 1 GΩ). Series R-L-C closed forms (any
+// circuit-analysis text on series resonance): f0 = 1/(2π√(LC)), Q = √(L/C)/R,
+// f1,2 = f0·(√(1 + 1/(4Q²)) ∓ 1/(2Q)); Y = 1/(R + jX) lies on the circle |Y − 1/(2R)| = 1/(2R).
+const R = 0.018;
+const L = 0.45e-9;
+const C = 100e-9;
+const f0 = 1 / (2 * Math.PI * Math.sqrt(L * C));
+const Q = Math.sqrt(L / C) / R;
+const root = Math.sqrt(1 + 1 / (4 * Q * Q));
+const [f1, f2] = [f0 * (root - 1 / (2 * Q)), f0 * (root + 1 / (2 * Q))];
+
+describe('a capacitor\'s complex plane: the admittance circle', () => {
+  const a = analysed(capacitorPart);
+
+  it('draws Y = G + jB on the circle of diameter 1/ESR through the origin', async () => {
+    const out = await renderPartChart('plane', a);
+    const c = 1 / (2 * R);
+    const rows = (out.spec as { datasets: Rows }).datasets.curves;
+    expect(rows.length).toBeGreaterThan(20);
+    // (G − c)² + B² = c²; the 1 GΩ leakage moves points by far less than this tolerance.
+    for (const r of rows) expect(Math.abs((r.x - c) ** 2 + r.v ** 2 - c * c)).toBeLessThan(1e-6 * c * c);
+    // Some points go round the far side of the circle: it is not a line.
+    expect(Math.max(...rows.map((r) => r.x))).toBeGreaterThan(1.9 * c);
+    expect(Math.max(...rows.map((r) => r.v))).toBeGreaterThan(0.9 * c);
+    expect(Math.min(...rows.map((r) => r.v))).toBeLessThan(-0.9 * c);
+  });
+
+  it('marks the SRF at G = 1/ESR, B = 0, as complex.js gives at the closed-form f0', async () => {
+    const out = await renderPartChart('plane', a);
+    const [p] = (out.spec as { datasets: Rows }).datasets.points;
+    const y = new Complex(1, 0).div(referenceZAt(capacitorPart.network!, f0));
+    expect(p.x / y.re - 1).toBeCloseTo(0, 6);
+    expect(p.v).toBe(0);
+    expect(Math.abs(y.im)).toBeLessThan(1e-6 * y.re);
+    expect(svgTexts(out.svg)).toContain('SRF 23.7 MHz');
+  });
+
+  it('marks the half-power points at the closed-form f1 and f2, at the top and bottom of the circle', async () => {
+    const out = await renderPartChart('plane', a);
+    const half = (out.spec as { datasets: Rows }).datasets.halfPower;
+    expect(half).toHaveLength(2);
+    for (const [k, f] of [f1, f2].entries()) {
+      const y = new Complex(1, 0).div(referenceZAt(capacitorPart.network!, f));
+      expect(half[k].x / y.re - 1).toBeCloseTo(0, 5);
+      expect(half[k].v / y.im - 1).toBeCloseTo(0, 5);
+      // |B| = G there: the top (below the SRF, capacitive) and the bottom (above it).
+      expect(Math.abs(half[k].v) / half[k].x - 1).toBeCloseTo(0, 5);
+      expect(Math.sign(half[k].v)).toBe(k === 0 ? 1 : -1);
+    }
+    const texts = svgTexts(out.svg);
+    expect(texts).toContain(formatEng(f1, 'Hz'));
+    expect(texts).toContain(formatEng(f2, 'Hz'));
+    expect(out.description).toContain(`Q = f0/(f2 − f1) = ${Number((f0 / (f2 - f1)).toPrecision(3))}`);
+    // Q from the closed form, √(L/C)/R = 3.73.
+    expect(Number((f0 / (f2 - f1)).toPrecision(3))).toBeCloseTo(Number(Q.toPrecision(3)), 2);
+  });
+
+  it('says in words which side is which, and names its axes', async () => {
+    const texts = svgTexts((await renderPartChart('plane', a)).svg);
+    for (const t of ['capacitive (B > 0) ↑', 'inductive (B < 0) ↓', 'Conductance G', 'Susceptance B', 'half power, |X| = R']) expect(texts).toContain(t);
+  });
+
+  it('is for capacitors only: an inductor and a network keep the impedance plane', async () => {
+    for (const p of [inductorPart, networkPart]) {
+      const texts = svgTexts((await renderPartChart('plane', analysed(p))).svg);
+      expect(texts).toContain('Resistance R (signed-log scale)');
+      expect(texts).not.toContain('Conductance G');
+    }
+  });
+});
