@@ -8,7 +8,7 @@ import { bandRuleText, bandText } from '../present/band-words.js';
 import { cautionsFor, storedEnergyText } from '../present/cautions.js';
 import { kindLabel } from '../present/kinds.js';
 import { mainsBanner, type MainsBanner } from '../present/mains.js';
-import { parameterMeaning } from '../present/model-words.js';
+import { networkLeafMeaning, parameterMeaning } from '../present/model-words.js';
 import { nominalText, signedPercent } from '../present/part-words.js';
 import { extremumNote, resonanceNote } from '../present/resonance-words.js';
 import type { Row } from '../present/row.js';
@@ -141,19 +141,26 @@ function impedanceTable(a: PartAnalysis): { heading: string; rows: ImpedanceRow[
 
 /** Every leaf of the model with its role and value, in drawing order. */
 function parameters(network: Element, kind: string): Row[] {
-  const rows: Row[] = [];
+  // Names first (R1, L1, C2 … where the file gives none), so that a leaf's meaning can name its neighbours.
+  const names = new Map<Element, string>();
   const counters: Record<string, number> = {};
-  const walk = (e: Element) => {
-    if (e.type === 'series' || e.type === 'parallel') {
-      e.parts.forEach(walk);
-      return;
-    }
+  const name = (e: Element) => {
+    if (e.type === 'series' || e.type === 'parallel') return e.parts.forEach(name);
     counters[e.type] = (counters[e.type] ?? 0) + 1;
-    const name = e.name ?? `${e.type}${counters[e.type]}`;
-    const value = e.type === 'R' ? formatEng(e.ohms, 'resistance') : e.type === 'L' ? formatEng(e.henries, 'inductance') : formatEng(e.farads, 'capacitance');
-    rows.push({ label: name, value, note: parameterMeaning(name, kind) });
+    names.set(e, e.name ?? `${e.type}${counters[e.type]}`);
   };
-  walk(network);
+  name(network);
+  const rows: Row[] = [];
+  const walk = (e: Element, parent: Element | undefined) => {
+    if (e.type === 'series' || e.type === 'parallel') return e.parts.forEach((p) => walk(p, e));
+    const label = names.get(e)!;
+    const value = e.type === 'R' ? formatEng(e.ohms, 'resistance') : e.type === 'L' ? formatEng(e.henries, 'inductance') : formatEng(e.farads, 'capacitance');
+    const meaning = parameterMeaning(label, kind);
+    const others = parent && (parent.type === 'series' || parent.type === 'parallel') ? parent.parts.filter((p) => p !== e).map((p) => names.get(p) ?? (p.type === 'series' ? 'a series branch' : 'a parallel group')) : [];
+    const note = meaning || networkLeafMeaning(e.type, parent?.type === 'parallel' ? 'parallel' : 'series', others);
+    rows.push({ label, value, note });
+  };
+  walk(network, undefined);
   return rows;
 }
 

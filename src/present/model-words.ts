@@ -35,3 +35,15 @@ export function parameterMeaning(name: string, kind: string): string {
   // A bead's R, L and C are its core's.
   return kind === 'bead' && (name === 'R' || name === 'L' || name === 'C') ? `core ${meaning}` : meaning;
 }
+
+const LEAF_WORD: Readonly<Record<'R' | 'L' | 'C', string>> = { R: 'resistance', L: 'inductance', C: 'capacitance' };
+
+/**
+ * What an unnamed element of a network stands for, by its kind and its place: "resistance, in series with L1
+ * and C1", "capacitance, in parallel with R2 and a series branch"; alone, just "resistance".
+ */
+export function networkLeafMeaning(type: 'R' | 'L' | 'C', group: 'series' | 'parallel', others: readonly string[]): string {
+  if (others.length === 0) return LEAF_WORD[type];
+  const list = others.length === 1 ? others[0] : `${others.slice(0, -1).join(', ')} and ${others[others.length - 1]}`;
+  return `${LEAF_WORD[type]}, in ${group} with ${list}`;
+}

@@ -58,3 +58,21 @@ describe('a datasheet page of a resistor', () => {
     expect(Number(text.impedanceTable[0].effective.replace(/%$/, ''))).toBeCloseTo(-1.24e-11, 13);
   });
 });
+
+describe('a network\'s model table', () => {
+  it('fills the meaning of every element with its kind and its place in the tree', async () => {
+    const { partPageText } = await import('../../src/pages/part-page.js');
+    const { analysePart } = await import('../../src/analysis/part-figures.js');
+    const { capacitor, inductor, parallel, resistor, series } = await import('../../src/circuit/element.js');
+    // An invented RC snubber with its lead inductance, and a resistor across the capacitor.
+    const network = series(resistor(4.7), inductor(1.5e-9), parallel(capacitor(470e-12), resistor(1e6)));
+    const part = { id: 'DEMO-N-SNUB', kind: 'network', behavesAs: undefined, title: 'snubber', network, parameters: {}, dcBias: [], tags: [], voltageRatings: [] } as never;
+    const text = partPageText(analysePart(part, { fromHz: 1e3, toHz: 1e9, perDecade: 20 }, 0.1));
+    expect(text.parameters.map((r) => [r.label, r.note])).toEqual([
+      ['R1', 'resistance, in series with L1 and a parallel group'],
+      ['L1', 'inductance, in series with R1 and a parallel group'],
+      ['C1', 'capacitance, in parallel with R2'],
+      ['R2', 'resistance, in parallel with C1'],
+    ]);
+  });
+});
