@@ -17,6 +17,8 @@ const DATE = new Date('2026-12-01T12:00:00Z');
 const CAPACITOR = 'ORV-C-0402-100N-X7R';
 const INDUCTOR = 'ORV-L-PWR-4U7-3A';
 const BEAD = 'ORV-FB-0402-120R-2A';
+/** A network part: its schematic is the widest drawing a sheet holds. */
+const NETWORK = 'ORV-N-L-PWR-2U2-SKIN';
 const library = loadLibrary(REPO).library!;
 let result: BuildResult;
 let site: string;
@@ -30,7 +32,7 @@ beforeAll(async () => {
   result = await buildFolio({
     libraryRoot: REPO,
     outDir: site,
-    pdf: { env: process.env, date: DATE, select: { parts: new Set([CAPACITOR, INDUCTOR, BEAD]) } },
+    pdf: { env: process.env, date: DATE, select: { parts: new Set([CAPACITOR, INDUCTOR, BEAD, NETWORK]) } },
   });
   if (result.pdfProblem) throw new Error(`PDF tests need Chromium: ${result.pdfProblem}`);
 }, 300_000);
@@ -38,7 +40,7 @@ beforeAll(async () => {
 describe('part datasheets', () => {
   it('are written for the parts asked for, and linked from their pages', () => {
     const files = result.pdfs.map((p) => p.pdfFile).sort();
-    expect(files).toEqual([`pdf/parts/${CAPACITOR}.pdf`, `pdf/parts/${INDUCTOR}.pdf`, `pdf/parts/${BEAD}.pdf`, 'pdf/reviews/dl3-power-integrity.pdf'].sort());
+    expect(files).toEqual([`pdf/parts/${CAPACITOR}.pdf`, `pdf/parts/${INDUCTOR}.pdf`, `pdf/parts/${BEAD}.pdf`, `pdf/parts/${NETWORK}.pdf`, 'pdf/reviews/dl3-power-integrity.pdf'].sort());
     expect(read(site, `parts/${CAPACITOR}/index.html`)).toContain(`href="../../pdf/parts/${CAPACITOR}.pdf"`);
   });
 
