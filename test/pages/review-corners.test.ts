@@ -10,7 +10,9 @@ import { execFileSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { analysePlan } from '../../src/analysis/plan-figures.js';
 import { buildFolio, type BuildResult } from '../../src/build/build.js';
+import { loadLibrary } from '../../src/model/library.js';
 import { formatDecibels } from '../../src/units/format.js';
 import { run } from '../cli/fake-io.js';
 import { read, tempDir } from '../site-helpers.js';
@@ -100,5 +102,21 @@ describe('a rail passing at nominal and failing at a corner', () => {
     // 1 µF ±20% with no temperature characteristic: 0.8 µF to 1.2 µF.
     expect(text).toContain('1 µF ±20%: 800 nF to 1.2 µF');
     expect(text).toContain(AGEING);
+  });
+
+  it('the rail chart\'s range holds the nominal curve: near 5 MHz |Z| is least at nominal, between its corners\' SRFs', () => {
+    // SRF 1/(2π√(LC)): 5.03 MHz at C, 4.59 MHz at 1.2·C, 5.63 MHz at 0.8·C; at the nominal SRF both corners
+    // sit above the ESR the nominal part reaches (series R-L-C closed form, as above).
+    const library = loadLibrary(root).library!;
+    const f = analysePlan(library.plans[0], library.settings.sweep.perDecade, undefined, undefined, { operating: library.settings.temperature });
+    const { minOhm, maxOhm } = f.corners!.envelope!;
+    f.frequenciesHz.forEach((hz, i) => {
+      const corners = [seriesRlc(hz, 0.8e-6), seriesRlc(hz, 1.2e-6)];
+      expect(minOhm[i] / Math.min(seriesRlc(hz, 1e-6), ...corners) - 1).toBeCloseTo(0, 6);
+      expect(maxOhm[i] / Math.max(seriesRlc(hz, 1e-6), ...corners) - 1).toBeCloseTo(0, 6);
+    });
+    const near = f.frequenciesHz.reduce((best, hz, i) => (Math.abs(Math.log(hz / 5.03e6)) < Math.abs(Math.log(f.frequenciesHz[best] / 5.03e6)) ? i : best), 0);
+    // About 10 mΩ against 11.3 mΩ and 12.7 mΩ at the corners.
+    expect(minOhm[near]).toBeLessThan(0.95 * Math.min(seriesRlc(f.frequenciesHz[near], 0.8e-6), seriesRlc(f.frequenciesHz[near], 1.2e-6)));
   });
 });
