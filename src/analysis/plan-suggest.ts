@@ -42,7 +42,7 @@ export interface Suggestion {
   placements: Placement[];
   /** The plan with the suggested placements, analysed in full; null when no set was found. */
   figures: PlanFigures | null;
-  /** When no set was found: the set that came closest (best found by local search, not proven best), in full. */
+  /** When no set was found: the set that came closest (best found by local search, not proven best), in full but for its load step (transient null). */
   closest: { placements: Placement[]; figures: PlanFigures } | null;
   /** Planning for the worst corner (--corners): the rounds it took and why they stopped; null otherwise. */
   cornerRounds: CornerRounds | null;
@@ -83,14 +83,16 @@ export function suggestPlacements(plan: Plan, selection: CandidateSelection, opt
   // and nothing was proven about the sets that would hold.
   const stopped = atCorners !== null && (atCorners.rounds.stop === 'repeat' || atCorners.rounds.stop === 'rounds');
   const result = atCorners ? { ...atCorners.result, ...(stopped ? { counts: null, status: 'unproven' as const } : {}) } : planDecoupling(problem);
-  const analysed = (placements: Placement[]) =>
-    analysePlan(plan, options.perDecade, placements, placementWarnings(candidates, placements), options.corners ? { operating: options.corners } : {});
+  const analysed = (placements: Placement[], loadStep = true) =>
+    analysePlan(plan, options.perDecade, placements, placementWarnings(candidates, placements), { loadStep, ...(options.corners ? { operating: options.corners } : {}) });
   const placements = result.counts ? placementsOf(result.counts) : [];
   let closest: Suggestion['closest'] = null;
   if (!result.counts) {
     // At corners, the set the last round chose holds at nominal and is the one to show; else the local search's.
     const near = atCorners?.result.counts ? placementsOf(atCorners.result.counts) : placementsOf(closestSet(problem).counts);
-    closest = { placements: near, figures: analysed(near) };
+    // The closest set misses the target, so its load step is not asked for (transient: null): on a rail of
+    // hundreds of distinct parts the poles of that network would cost many times the search itself.
+    closest = { placements: near, figures: analysed(near, false) };
   }
   return {
     objective,

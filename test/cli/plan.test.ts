@@ -226,6 +226,9 @@ describe('zfolio plan --suggest: margin, selection and the closest set', () => {
     writeFileSync(file, `rail: CLOSE\nvoltage: 1.0V\nripple: 5%\nstep: 2A\nband: {from: 100k, to: 100M}\nmounting: 0.3nH\nregulator: {r: 3m, l: 5nH}\nplane: {c: 10nF, r: 3m}\ncapacitors:${entries ? '\n' + entries : ' []\n'}`);
     const again = JSON.parse((await run(['plan', file, '--json'])).out);
     expect(Math.abs(again.worstMarginDb - json.closest.worstMarginDb)).toBeLessThanOrEqual(1e-9);
+    // A set that misses its target gets no load step from --suggest; checked as a plan, it does.
+    expect(json.closest.plan.transient).toBeNull();
+    expect(again.transient.budgetV).toBeGreaterThan(0);
   });
 });
 
