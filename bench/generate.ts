@@ -3,18 +3,10 @@
 import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { seededRandom } from '../src/analysis/rail-corners.js';
 
 /** Deterministic pseudo-random numbers (mulberry32), so every run generates the same library. */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export const mulberry32 = seededRandom;
 
 const E6 = [1, 1.5, 2.2, 3.3, 4.7, 6.8];
 

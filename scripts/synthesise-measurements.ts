@@ -13,6 +13,7 @@ import { fileURLToPath } from 'node:url';
 import { capacitor as C, inductor as L, parallel, resistor as R, series, type Element } from '../src/circuit/element.js';
 import { impedanceSweep } from '../src/circuit/impedance.js';
 import { logSweep } from '../src/circuit/sweep.js';
+import { seededRandom } from '../src/analysis/rail-corners.js';
 import type { Fixture } from '../src/measure/fixtures.js';
 import type { DataFormat, FrequencyUnit } from '../src/measure/network-data.js';
 import { writeTouchstone } from '../src/measure/touchstone-write.js';
@@ -83,16 +84,9 @@ export const DEMO_MEASUREMENTS: readonly DemoMeasurement[] = [
   },
 ];
 
-/** Deterministic uniforms (mulberry32) and normals by Box–Muller (Ann. Math. Statist. 29, 1958). */
+/** Deterministic uniforms (mulberry32, the generator corner sampling uses) and normals by Box–Muller (Ann. Math. Statist. 29, 1958). */
 function seededNormal(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const uniform = seededRandom(seed);
   return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
 }
 

@@ -2,7 +2,7 @@
 // Math. 2, 1944; D. W. Marquardt, J. SIAM 11, 1963) with the damping update of K. Madsen, H. B. Nielsen,
 // O. Tingleff, "Methods for Non-Linear Least Squares Problems", 2nd ed., 2004, §3.2, and Moré's scaling by
 // the largest column norms seen (J. J. Moré, "The Levenberg–Marquardt algorithm: implementation and
-// theory", Lecture Notes in Mathematics 630, 1978). Each step solves the damped problem
+// theory", in G. A. Watson (ed.), Numerical Analysis, Springer LNM 630, 1978). Each step solves the damped problem
 // min ‖J·h + r‖² + μ·Σ d_j·h_j² without forming JᵀJ, so the step keeps the accuracy of J itself: J = QR
 // once per accepted point, then each damping tried is a small least-squares problem [R; √(μ·d)]·h ≈ [−Qᵀr; 0]
 // (the arrangement of MINPACK's lmpar). Parameters are kept inside a box.
