@@ -3,7 +3,7 @@
 
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { Part } from '../model/part.js';
-import { formatDegrees, formatEng, formatNumber, formatPercent } from '../units/format.js';
+import { formatDegrees, formatEng, formatNumber, formatPercent, formatDeviation } from '../units/format.js';
 import { bandRuleText, bandText } from '../present/band-words.js';
 import { cautionsFor, storedEnergyText } from '../present/cautions.js';
 import { kindLabel } from '../present/kinds.js';
@@ -125,7 +125,7 @@ function impedanceTable(a: PartAnalysis): { heading: string; rows: ImpedanceRow[
   const d = a.decades;
   const rows = Array.from(d.frequencyHz, (f, i) => {
     const value = a.decadeEffective[i];
-    const effective = Number.isNaN(value) ? '' : behavesAs === 'resistor' ? formatPercent(value) : formatEng(value, unit);
+    const effective = Number.isNaN(value) ? '' : behavesAs === 'resistor' ? formatDeviation(value) : formatEng(value, unit);
     return {
       frequency: formatEng(f, 'frequency'),
       resistance: formatEng(d.resistanceOhm[i], 'resistance'),

@@ -70,7 +70,20 @@ function trimZeros(text: string): string {
 /** A ratio as a percentage: 0.1 -> "10%". */
 export function formatPercent(ratio: number, digits = 3): string {
   if (!Number.isFinite(ratio)) return '—';
-  return `${trimZeros(String(Number((ratio * 100).toPrecision(digits))))}%`;
+  return `${formatNumber(ratio * 100, digits)}%`;
+}
+
+/**
+ * A small signed deviation in percent at a fixed resolution of 0.001 % (finer than the tightest
+ * resistor tolerance sold, 0.01 %; common practice): "+0.012%", "−3.40%" … "0.000%" for what rounds to
+ * nothing, so a value of 1e−13 from rounding in the sweep does not print as a number.
+ */
+export function formatDeviation(ratio: number): string {
+  if (!Number.isFinite(ratio)) return '—';
+  const percent = ratio * 100;
+  if (Math.abs(percent) < 0.0005) return '0.000%';
+  const text = Math.abs(percent) >= 100 ? formatNumber(Math.abs(percent)) : Math.abs(percent).toFixed(3);
+  return `${percent < 0 ? '−' : '+'}${text}%`;
 }
 
 /** A phase angle in degrees with one decimal: "−89.9°". */

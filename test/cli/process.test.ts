@@ -96,8 +96,12 @@ describe('a Chromium that does not start', () => {
   }, 60_000);
 
   it('print: one line, exit 1', async () => {
+    // A copy: print draws the part's charts first and keeps them in the library's chart cache, which must
+    // not be written into the repository's fixtures.
+    const lib = tempDir('chrome-false-lib');
+    cpSync(GOOD_LIBRARY, lib, { recursive: true });
     const out = tempDir('chrome-false');
-    const r = await run(['print', 'CAP-TEST-100N', '--out', out, '--chrome', '/bin/false'], GOOD_LIBRARY);
+    const r = await run(['print', 'CAP-TEST-100N', '--out', out, '--chrome', '/bin/false'], lib);
     expect(r.code).toBe(1);
     expect(r.err.trimEnd().split('\n').filter((l) => !/^(charts|pages) /.test(l))).toEqual([
       'zfolio print: /bin/false did not start as Chromium (it exited at once with status 1); give a working one with --chrome PATH or ZFOLIO_CHROME=PATH',

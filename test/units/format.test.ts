@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatDegrees, formatEng, formatNumber, formatPercent } from '../../src/units/format.js';
+import { formatDegrees, formatDeviation, formatEng, formatNumber, formatPercent } from '../../src/units/format.js';
 import { parseQuantity } from '../../src/units/parse.js';
 
 describe('engineering notation at the edges', () => {
@@ -33,8 +33,19 @@ describe('engineering notation at the edges', () => {
 
   it('formats percentages, degrees and plain numbers', () => {
     expect(formatPercent(0.1)).toBe('10%');
+    expect(formatPercent(-0.025)).toBe('−2.5%'); // a minus sign, as every other formatter writes it
     expect(formatDegrees(-89.94)).toBe('−89.9°');
     expect(formatNumber(42.123)).toBe('42.1');
     expect(formatNumber(NaN)).toBe('—');
+  });
+
+  it('writes a resistor\'s deviation at 0.001 % resolution, signed, and nothing for rounding noise', () => {
+    // |Z|/R − 1 of a resistor: a value of order 1e−13 is float rounding in R + jX, not a figure (common practice:
+    // the tightest resistor tolerance sold is 0.01 %, so 0.001 % resolution loses nothing a reader can use).
+    expect(formatDeviation(-1.24e-13)).toBe('0.000%');
+    expect(formatDeviation(1.2e-4)).toBe('+0.012%');
+    expect(formatDeviation(-0.034)).toBe('−3.400%');
+    expect(formatDeviation(2.5)).toBe('+250%');
+    expect(formatDeviation(NaN)).toBe('—');
   });
 });
