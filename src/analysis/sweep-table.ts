@@ -2,6 +2,7 @@
 // for fewer digits).
 
 import type { PartAnalysis } from './part-figures.js';
+import { shortSignificantText } from '../units/digits-text.js';
 
 export const SWEEP_COLUMNS = [
   ['frequency_Hz', 'frequencyHz'],
@@ -31,20 +32,20 @@ export function csvCell(value: number, digits?: number): string {
   if (Number.isNaN(value)) return '';
   if (!Number.isFinite(value)) return value > 0 ? 'inf' : '-inf';
   if (digits === undefined) return String(value);
-  const rounded = Number(value.toPrecision(digits));
-  const plain = String(rounded);
-  const exponent = rounded.toExponential().replace('e+', 'e');
-  return exponent.length < plain.length ? exponent : plain;
+  return shortSignificantText(value, digits);
 }
 
 /** The sweep as CSV, one row per point; `digits` rounds every value to that many significant digits. */
 export function sweepCsv(a: PartAnalysis, digits?: number): string {
   const columns = sweepColumns(a);
-  const lines = [SWEEP_COLUMNS.map(([header]) => header).join(',')];
+  const arrays = SWEEP_COLUMNS.map(([, key]) => columns[key]);
+  let text = SWEEP_COLUMNS.map(([header]) => header).join(',') + '\n';
   for (let i = 0; i < a.frequencies.length; i++) {
-    lines.push(SWEEP_COLUMNS.map(([, key]) => csvCell(columns[key][i], digits)).join(','));
+    let line = csvCell(arrays[0][i], digits);
+    for (let c = 1; c < arrays.length; c++) line += ',' + csvCell(arrays[c][i], digits);
+    text += line + '\n';
   }
-  return lines.join('\n') + '\n';
+  return text;
 }
 
 export function sweepJson(a: PartAnalysis): object {

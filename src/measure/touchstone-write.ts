@@ -3,6 +3,7 @@
 // parameter and format. Numbers are written in full (the shortest text that reads back to the same double)
 // unless fewer digits are asked for.
 
+import { significantText } from '../units/digits-text.js';
 import { FREQUENCY_SCALE, type DataFormat, type FrequencyUnit, type NetworkParameter } from './network-data.js';
 
 export interface TouchstoneWriteInput {
@@ -32,7 +33,7 @@ export function writeTouchstone(input: TouchstoneWriteInput): string {
   const n2 = ports * ports;
   const count = input.frequencies.length;
   if (input.re.length !== count * n2 || input.im.length !== count * n2) throw new RangeError('writeTouchstone: value arrays do not match ports × frequencies');
-  const num = (v: number) => (input.digits ? String(Number(v.toPrecision(input.digits))) : String(v));
+  const num = (v: number) => (input.digits ? significantText(v, input.digits) : String(v));
   const lines: string[] = (input.comments ?? []).map((c) => `! ${c}`.trimEnd());
   const option = `# ${input.unit} ${input.parameter} ${input.format} R ${num(input.reference)}`;
   const order = version === 1 ? '21_12' : (input.twoPortOrder ?? '12_21');
