@@ -4,16 +4,27 @@
 import type { Row } from './render.js';
 import type { AxisMap } from './scales.js';
 import type { Obstacle } from './labels.js';
-import { simplifyPolyline } from './simplify.js';
+import { simplifyPolyline, simplifyPolylines } from './simplify.js';
 
-/** Rows of an envelope (min and max at each frequency, rows {f, v, v2, i}) with both ends on the plot. */
-export function envelopeRows(frequencies: ArrayLike<number>, min: ArrayLike<number>, max: ArrayLike<number>): Row[] {
-  const rows: Row[] = [];
-  for (let i = 0; i < frequencies.length; i++) {
-    if (min[i] > 0 && Number.isFinite(max[i])) rows.push({ f: frequencies[i], v: min[i], v2: max[i], i });
-  }
-  return rows;
+/**
+ * Rows of an envelope (min and max at each frequency, rows {f, v, v2, i}) with both ends on the plot,
+ * thinned in screen space as the curves are (both edges within the tolerance of simplify.ts), each value to
+ * 6 significant digits as in the sweep CSV: a part's envelope spans its whole sweep, and at every point it
+ * cost the page and the downloadable spec bytes nobody can see.
+ */
+export function envelopeRows(frequencies: ArrayLike<number>, min: ArrayLike<number>, max: ArrayLike<number>, xMap: AxisMap, yMap: AxisMap): Row[] {
+  const at: number[] = [];
+  for (let i = 0; i < frequencies.length; i++) if (min[i] > 0 && Number.isFinite(max[i])) at.push(i);
+  const xs = at.map((i) => xMap.toPx(frequencies[i]));
+  const lower = at.map((i) => yMap.toPx(min[i]));
+  const upper = at.map((i) => yMap.toPx(max[i]));
+  return simplifyPolylines(xs, [lower, upper]).map((k) => {
+    const i = at[k];
+    return { f: round6(frequencies[i]), v: round6(min[i]), v2: round6(max[i]), i };
+  });
 }
+
+const round6 = (x: number) => Number(x.toPrecision(6));
 
 /** A curve with some exact points inserted; `keep` marks points down-sampling must keep. */
 export interface Curve {

@@ -83,7 +83,7 @@ export const impedanceChart = xyChart<PartChartInput>({
         curves: [...curveRows(mag, x.map, y.map, 'mag'), ...curveRows(res, x.map, y.map, 'res')],
         points: input.resonances.map((r) => ({ f: r.frequencyHz, v: r.impedanceOhm })),
         rated: rated ? [rated] : [],
-        spread: input.spread ? envelopeRows(input.spread.frequencies, input.spread.min, input.spread.max) : [],
+        spread: input.spread ? envelopeRows(input.spread.frequencies, input.spread.min, input.spread.max, x.map, y.map) : [],
         labels: shown(placed.labels),
       },
       key: [

@@ -110,7 +110,7 @@ export const railChart = xyChart<RailChartData>({
       band: rangeBand(band),
       datasets: {
         branches,
-        spread: data.envelope ? envelopeRows(f, data.envelope.minOhm, data.envelope.maxOhm) : [],
+        spread: data.envelope ? envelopeRows(f, data.envelope.minOhm, data.envelope.maxOhm, x.map, y.map) : [],
         curves: [...curveRows(total, x.map, y.map, 'total'), ...curveRows(targetCurve, x.map, y.map, 'target')],
         peaks: peaks.map((p) => ({ f: p.frequencyHz, v: p.impedanceOhm, color: peakColor(p, targetNear) })),
         labels: shown(placed.labels),

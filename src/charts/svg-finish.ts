@@ -10,6 +10,7 @@
 import { createHash } from 'node:crypto';
 import type { ChartText } from '../present/chart-descriptions.js';
 import { escapeXml } from '../present/escape.js';
+import { slimSvgBody } from './svg-slim.js';
 
 export type { ChartText } from '../present/chart-descriptions.js';
 
@@ -33,12 +34,10 @@ export function finishSvg(raw: string, text: ChartText, size: { width: number; h
   if (!root || !raw.endsWith('</svg>')) throw new Error('vega produced no SVG document');
   // Text content cannot hold '<' or '>' (vega escapes them), so every match of TAG is markup: attributes
   // are edited and checked there only, and text from a library file is never touched or misread.
+  const slim = slimSvgBody(raw.slice(root[0].length, -'</svg>'.length).replace(TAG, (tag) => roundNumbers(tag.replace(VEGA_ATTRIBUTES, ''))));
+  let body = slim.body;
   const ids = new Map<string, string>();
-  let body = raw.slice(root[0].length, -'</svg>'.length).replace(TAG, (tag) => {
-    const edited = roundNumbers(tag.replace(VEGA_ATTRIBUTES, ''));
-    for (const m of edited.matchAll(ID)) if (!ids.has(m[1])) ids.set(m[1], '');
-    return edited;
-  });
+  for (const tag of body.match(TAG) ?? []) for (const m of tag.matchAll(ID)) if (!ids.has(m[1])) ids.set(m[1], '');
   assertInert(body.replace(TEXT_CONTENT, '><'));
 
   // vega's ids count across the process; number them in order of appearance before anything depends on them.
@@ -63,7 +62,7 @@ export function finishSvg(raw: string, text: ChartText, size: { width: number; h
   const titleId = `${prefix}-title`;
   const descId = `${prefix}-desc`;
   return (
-    `<svg xmlns="http://www.w3.org/2000/svg" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}" role="img" aria-labelledby="${titleId} ${descId}">` +
+    `<svg xmlns="http://www.w3.org/2000/svg" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}" role="img" aria-labelledby="${titleId} ${descId}"${slim.fontFamily === undefined ? '' : ` font-family="${slim.fontFamily}"`}>` +
     `<title id="${titleId}">${escapeXml(text.title)}</title>` +
     `<desc id="${descId}">${escapeXml(text.description)}</desc>` +
     body +
@@ -81,12 +80,13 @@ export function assertInert(markup: string): void {
 }
 
 /**
- * Coordinates to 2 decimals (1/100 px is about 3 µm on a printed A4 column): vega writes some with 15, which
- * costs bytes and nothing else.
+ * Coordinates to 1 decimal: a tenth of a px is 0.075 pt (26 µm) on paper and 0.15 device px where a chart
+ * is shown largest (a 332 px chart at 500 px), below what either shows; curves are already thinned to
+ * 0.15 px (simplify.ts). vega writes some numbers with 15 decimals, which costs bytes and nothing else.
  */
 function roundNumbers(tag: string): string {
-  return tag.replace(/(-?\d+\.\d{3,})/g, (n) => {
-    const r = Number(Number(n).toFixed(2));
+  return tag.replace(/(-?\d+\.\d{2,})/g, (n) => {
+    const r = Number(Number(n).toFixed(1));
     return String(Object.is(r, -0) ? 0 : r);
   });
 }

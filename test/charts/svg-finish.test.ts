@@ -33,11 +33,11 @@ describe('finishing vega’s SVG', () => {
     expect(/<clipPath id="([^"]+)"/.exec(c)![1]).not.toBe(id);
   });
 
-  it('rounds coordinates to 1/100 px and leaves text content alone', () => {
+  it('rounds coordinates to 1/10 px and leaves text content alone', () => {
     const label = 'R = 0.123456 Ω id="clip1" url(#clip1) href=x @1@';
     const svg = finishSvg(raw('clip1', label.replace(/&/g, '&amp;')), text, { width: 640, height: 320 });
-    expect(svg).toContain('d="M0.3,1.23L0,2"');
-    expect(svg).toContain('width="540.12"');
+    expect(svg).toContain('d="M0.3,1.2L0,2"');
+    expect(svg).toContain('width="540.1"');
     expect(svg).toContain(`>${label}</text>`);
   });
 
