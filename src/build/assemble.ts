@@ -201,11 +201,12 @@ async function measurementSections(part: Part, found: readonly PartMeasurement[]
 }
 
 /**
- * The model for simulators, beside the page: a one-port Touchstone file over the library's sweep (12
- * significant digits, a quarter shorter than in full) and a SPICE subcircuit.
+ * The model for simulators, beside the page: a one-port Touchstone file over the library's sweep (S11 with
+ * the decimals that keep the impedance read back from it to 6 significant digits, as sweep.csv keeps R and
+ * X) and a SPICE subcircuit.
  */
 function writeModelFiles(part: Part, folder: string, sweep: Library['settings']['sweep'], timings?: AssembleTimings): void {
-  timedWrite(timings, join(folder, modelFileNames(part.id).touchstone), () => partTouchstone(part, logSweep(sweep), sweepText(sweep), 12));
+  timedWrite(timings, join(folder, modelFileNames(part.id).touchstone), () => partTouchstone(part, logSweep(sweep), sweepText(sweep), SWEEP_CSV_DIGITS));
   timedWrite(timings, join(folder, modelFileNames(part.id).spice), () => partSubcircuit(part));
 }
 

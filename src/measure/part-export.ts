@@ -65,15 +65,35 @@ function header(part: ExportablePart, what: string): string[] {
 
 /**
  * A version 1 one-port file: the model's S11 re 50 Ω, RI, at each frequency of `frequencies` (Hz), each
- * number in full or to `digits` significant digits.
+ * number in full, or with `impedanceDigits` the fewest decimals that keep the impedance read back from it
+ * to that many significant digits (see `impedanceDecimals`).
  */
-export function partTouchstone(part: ExportablePart, frequencies: Float64Array, sweepText: string, digits?: number): string {
+export function partTouchstone(part: ExportablePart, frequencies: Float64Array, sweepText: string, impedanceDigits?: number): string {
   const z = impedanceSweep(part.network, frequencies);
   const re = new Float64Array(frequencies.length);
   const im = new Float64Array(frequencies.length);
-  for (let k = 0; k < frequencies.length; k++) [re[k], im[k]] = reflectionOf(z.re[k], z.im[k], EXPORT_REFERENCE_OHM);
+  for (let k = 0; k < frequencies.length; k++) {
+    const [sr, si] = reflectionOf(z.re[k], z.im[k], EXPORT_REFERENCE_OHM);
+    const d = impedanceDigits === undefined ? undefined : impedanceDecimals(sr, si, impedanceDigits);
+    [re[k], im[k]] = d === undefined ? [sr, si] : [Number(sr.toFixed(d)), Number(si.toFixed(d))];
+  }
   const comments = [TOUCHSTONE_MARK, ...header(part, `one-port S-parameters of the model, reference ${EXPORT_REFERENCE_OHM} ohm, ${ascii(sweepText)}`)];
-  return writeTouchstone({ version: 1, ports: 1, parameter: 'S', format: 'RI', unit: 'Hz', reference: EXPORT_REFERENCE_OHM, frequencies, re, im, comments, digits });
+  return writeTouchstone({ version: 1, ports: 1, parameter: 'S', format: 'RI', unit: 'Hz', reference: EXPORT_REFERENCE_OHM, frequencies, re, im, comments });
+}
+
+/**
+ * Decimals of S = sr + j·si that keep Z = Z0 (1 + S)/(1 − S) to `digits` significant digits. An error δ in
+ * S moves Z by dZ = 2 Z0 δ/(1 − S)², so |dZ|/|Z| = 2|δ|/|1 − S²|; rounding both parts to d decimals makes
+ * |δ| at most 10^-d/√2, and |dZ| stays within half a unit of the last digit, 10^(1-digits)/2 · |Z|, when
+ * 10^-d ≤ 10^(1-digits) |1 − S²| / (2√2). Near |Z| = Z0 that is `digits` decimals; far from it (S near
+ * ±1, where 1 − S² is small) more, up to the 17 a double holds. Shorter than a fixed count of significant
+ * digits where |Z| is near Z0, and never less faithful where it is far.
+ */
+export function impedanceDecimals(sr: number, si: number, digits: number): number {
+  // |1 − S²| = |1 − S|·|1 + S|, each factor without cancellation.
+  const gap = Math.hypot(1 - sr, si) * Math.hypot(1 + sr, si);
+  const d = Math.ceil(digits - 1 + Math.log10((2 * Math.SQRT2) / gap));
+  return Number.isFinite(d) ? Math.min(17, Math.max(0, d)) : 17;
 }
 
 /** A SPICE subcircuit of the part's element tree, pins 1 and 2. */

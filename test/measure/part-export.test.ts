@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { capacitor, inductor, parallel, resistor, series } from '../../src/circuit/element.js';
 import { logSweep } from '../../src/circuit/sweep.js';
 import { impedanceFromNetwork } from '../../src/measure/fixtures.js';
-import { partSubcircuit, partTouchstone, treeFormula } from '../../src/measure/part-export.js';
+import { impedanceDecimals, partSubcircuit, partTouchstone, treeFormula } from '../../src/measure/part-export.js';
 import { readTouchstone } from '../../src/measure/touchstone-read.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { referenceZAt } from '../reference/impedance.js';
@@ -34,6 +34,37 @@ describe('partTouchstone', () => {
       // Γ near 1 (|Z| ≫ 50 Ω, up to 2e7 Ω at 100 Hz for 100 pF) loses digits in 1 − Γ: about |Z|/Z0·ε.
       expect(new Complex(z.impedance.re[k], z.impedance.im[k]).sub(reference).abs() / reference.abs()).toBeLessThan(1e-9 + (reference.abs() / 50) * 1e-15);
     });
+  });
+});
+
+describe('partTouchstone at the precision of the site', () => {
+  // The site writes each S11 with the decimals that keep Z to 6 significant digits (impedanceDecimals).
+  // Read back with zfolio's Touchstone reader, Z must match complex.js's impedance of the element tree to
+  // half a unit of the 6th digit (5e-6 of |Z|), plus the double's own loss in 1 − Γ where |Z| ≫ Z0 (above).
+  const dense = logSweep({ fromHz: 100, toHz: 1e10, perDecade: 100 });
+  it.each(library!.parts.map((p) => [p.id, p] as const))('%s: Z read back to 6 significant digits, in fewer bytes than in full', (_, part) => {
+    const text = partTouchstone(part, dense, '100 Hz to 10 GHz, 100 points per decade', 6);
+    const read = readTouchstone(text, `${part.id}.s1p`);
+    expect(read.ok).toBe(true);
+    if (!read.ok) return;
+    const z = impedanceFromNetwork(read.data, 'reflection');
+    expect(z.ok).toBe(true);
+    if (!z.ok) return;
+    let worst = 0;
+    dense.forEach((f, k) => {
+      const reference = referenceZAt(part.network, f);
+      const miss = new Complex(z.impedance.re[k], z.impedance.im[k]).sub(reference).abs() / reference.abs();
+      worst = Math.max(worst, miss - (reference.abs() / 50) * 1e-15);
+    });
+    expect(worst).toBeLessThan(5e-6);
+    expect(text.length).toBeLessThan(0.75 * partTouchstone(part, dense, '100 Hz to 10 GHz, 100 points per decade').length);
+  });
+
+  it('uses as many decimals as digits where |Z| is Z0 and more as S approaches ±1', () => {
+    expect(impedanceDecimals(0, 0, 6)).toBe(6);
+    // |Z| = 5 kΩ: S = 99/101, 1 − S² ≈ 0.0396.
+    expect(impedanceDecimals(99 / 101, 0, 6)).toBe(7);
+    expect(impedanceDecimals(1, 0, 6)).toBe(17);
   });
 });
 
