@@ -4,6 +4,7 @@
 import type { Element } from '../circuit/element.js';
 import { formatEng } from '../units/format.js';
 import { escapeXml } from '../present/escape.js';
+import { textWidth } from '../charts/text-width.js';
 
 interface Drawing {
   /** Wires and symbols (stroked). */
@@ -27,7 +28,13 @@ const SYMBOL_WIDTH = 36;
 const WIRE = 10;
 const RAIL_MARGIN = 10;
 const STACK_GAP = 6;
-const CHAR_WIDTH = 5.6; // 10 px sans-serif, a generous average so labels never collide
+const FONT_SIZE = 10;
+/** Room a value label keeps on each side, within its element's width. */
+const LABEL_SIDE = 5;
+/** The label's baseline, from the top of its element's row; its text's descent ends 2.4 units below it. */
+const LABEL_BASELINE = 9;
+/** Half the height of a capacitor's plates: their top stays 2.6 units below the label above them. */
+const PLATE_HALF = 8;
 /** Drawn at 1.5× its user units, so 10-unit labels read as 15 px text. */
 const SCALE = 1.5;
 
@@ -44,7 +51,7 @@ function symbol(type: Element['type'], cx: number, cy: number): string {
       return `${line(cx - half, cy, cx - 12, cy)}<path d="M${r(cx - 12)} ${r(cy)}${arcs}"/>${line(cx + 12, cy, cx + half, cy)}`;
     }
     case 'C':
-      return `${line(cx - half, cy, cx - 3, cy)}<path d="M${r(cx - 3)} ${r(cy - 9)}V${r(cy + 9)}M${r(cx + 3)} ${r(cy - 9)}V${r(cy + 9)}"/>${line(cx + 3, cy, cx + half, cy)}`;
+      return `${line(cx - half, cy, cx - 3, cy)}<path d="M${r(cx - 3)} ${r(cy - PLATE_HALF)}V${r(cy + PLATE_HALF)}M${r(cx + 3)} ${r(cy - PLATE_HALF)}V${r(cy + PLATE_HALF)}"/>${line(cx + 3, cy, cx + half, cy)}`;
     default:
       return '';
   }
@@ -55,7 +62,8 @@ const UNIT = { R: 'resistance', L: 'inductance', C: 'capacitance' } as const;
 function leaf(element: Element & { type: 'R' | 'L' | 'C' }, name: string): Block {
   const value = element.type === 'R' ? element.ohms : element.type === 'L' ? element.henries : element.farads;
   const label = `${name} ${formatEng(value, UNIT[element.type])}`;
-  const width = Math.max(SYMBOL_WIDTH + 2 * WIRE, label.length * CHAR_WIDTH + 8);
+  // textWidth errs wide for the sans-serif fonts pages use, so the label clears the rails beside it.
+  const width = Math.max(SYMBOL_WIDTH + 2 * WIRE, textWidth(label, FONT_SIZE) + 2 * LABEL_SIDE);
   return {
     width,
     height: LEAF_HEIGHT,
@@ -64,7 +72,7 @@ function leaf(element: Element & { type: 'R' | 'L' | 'C' }, name: string): Block
       const cx = x + width / 2;
       return {
         geometry: `${line(x, cy, cx - SYMBOL_WIDTH / 2, cy)}${symbol(element.type, cx, cy)}${line(cx + SYMBOL_WIDTH / 2, cy, x + width, cy)}`,
-        labels: `<text x="${r(cx)}" y="${r(y + 10)}">${escapeXml(label)}</text>`,
+        labels: `<text x="${r(cx)}" y="${r(y + LABEL_BASELINE)}">${escapeXml(label)}</text>`,
       };
     },
   };
@@ -150,7 +158,7 @@ export function schematicSvg(element: Element, title: string): string {
     `<svg xmlns="http://www.w3.org/2000/svg" class="schematic" role="img" viewBox="0 0 ${r(width)} ${r(height)}" width="${r(width * SCALE)}" height="${r(height * SCALE)}">` +
     `<title>${escapeXml(title)}</title>` +
     `<g fill="none" stroke="currentColor" stroke-width="1.2">${line(4, mid, pad, mid)}${line(pad + block.width, mid, width - 4, mid)}${geometry}</g>` +
-    `<g fill="currentColor" font-family="sans-serif" font-size="10" text-anchor="middle">${labels}</g>` +
+    `<g fill="currentColor" font-family="sans-serif" font-size="${FONT_SIZE}" text-anchor="middle">${labels}</g>` +
     `<circle cx="4" cy="${r(mid)}" r="2.5" fill="#fff" stroke="currentColor"/><circle cx="${r(width - 4)}" cy="${r(mid)}" r="2.5" fill="#fff" stroke="currentColor"/>` +
     `</svg>`
   );

@@ -1,5 +1,6 @@
 // The charts of the built demo folio as Chromium lays them out: no two words of a chart overlap, and no
-// word (a resonance or peak label, a note, a key entry, a tick label) lies on a curve. The geometry is
+// word (a resonance or peak label, a note, a key entry, a tick label) lies on a curve; no label of a part's
+// schematic crosses a wire, a symbol or another label. The geometry is
 // Chromium's own (getBoundingClientRect of each text, points along each curve's path), not zfolio's
 // estimate of it, so a label placed by a wrong idea of a font's width or baseline is caught here.
 
@@ -84,6 +85,58 @@ async function chartProblems(file: string): Promise<string[]> {
   await page.close();
   return problems.map((p) => `${file} ${p}`);
 }
+
+/** What a part's schematic breaks: a value label crossing a wire or a symbol, or another label. */
+async function schematicProblems(file: string): Promise<string[]> {
+  const page = await browser.newPage();
+  await page.setViewport({ width: 1280, height: 900, deviceScaleFactor: 1 });
+  await page.goto(`${pathToFileURL(site).href}/${file}`, { waitUntil: 'load' });
+  const problems = await page.$$eval('svg.schematic', (svgs) => {
+    /** A label keeps this far (px, on screen where a schematic is drawn at 1.5 times its units) from every stroke and label. */
+    const SLACK = 2;
+    const out: string[] = [];
+    for (const svg of svgs) {
+      const texts = Array.from(svg.querySelectorAll('text')).map((t) => ({ text: (t.textContent ?? '').trim(), box: t.getBoundingClientRect() }));
+      for (let i = 0; i < texts.length; i++) {
+        for (let j = i + 1; j < texts.length; j++) {
+          const a = texts[i].box;
+          const b = texts[j].box;
+          const w = Math.min(a.right, b.right) - Math.max(a.left, b.left);
+          const h = Math.min(a.bottom, b.bottom) - Math.max(a.top, b.top);
+          if (w > -SLACK && h > -SLACK) out.push(`"${texts[i].text}" is within ${SLACK} px of "${texts[j].text}"`);
+        }
+      }
+      // Wires, symbols and terminals: every stroked shape, walked along its outline in Chromium's own geometry.
+      for (const shape of Array.from(svg.querySelectorAll<SVGGeometryElement>('path, rect, circle, line'))) {
+        const matrix = shape.getScreenCTM();
+        if (!matrix) continue;
+        const length = shape.getTotalLength();
+        for (const t of texts) {
+          const b = t.box;
+          let crossing = 0;
+          for (let s = 0; s <= length; s += 0.5) {
+            const p = shape.getPointAtLength(s);
+            const x = matrix.a * p.x + matrix.c * p.y + matrix.e;
+            const y = matrix.b * p.x + matrix.d * p.y + matrix.f;
+            if (x > b.left - SLACK && x < b.right + SLACK && y > b.top - SLACK && y < b.bottom + SLACK) crossing++;
+          }
+          if (crossing > 0) out.push(`"${t.text}" is within ${SLACK} px of a ${shape.tagName} (${(crossing / 2).toFixed(1)} px of it)`);
+        }
+      }
+    }
+    return out;
+  });
+  await page.close();
+  return problems.map((p) => `${file}: ${p}`);
+}
+
+describe('schematics in the browser', () => {
+  it('every part page: every value label keeps clear of the wires, the symbols and the other labels', async () => {
+    const problems: string[] = [];
+    for (const part of library.parts) problems.push(...(await schematicProblems(`parts/${part.id}/index.html`)));
+    expect(problems).toEqual([]);
+  }, 240_000);
+});
 
 describe('chart geometry in the browser', () => {
   it('every part page: no word of a chart overlaps another or lies on a curve', async () => {
