@@ -2,7 +2,9 @@
 // nothing; rather than dropping the PDFs an earlier `build --pdf` printed, it keeps each one whose inputs are
 // unchanged and links it from its page as that build did. A part's datasheet depends on the code, the
 // library's settings and the part file (the same key as its folder, reuse.ts); a review pack prints sheets of
-// parts, plans and comparisons, so its key covers every file of the library. A PDF is kept only when its key
+// parts, plans and comparisons, so its key covers every file of the library, and its cover states the git
+// revision of the files it draws on, so its key holds that revision too (a commit changes no file's content,
+// yet a kept pack would name the commit before it). A PDF is kept only when its key
 // matches the one recorded when it was printed and the file is the one that build wrote (size, mtime, inode).
 // The others are removed with the old site, and the build says how many.
 
@@ -13,6 +15,8 @@ import type { Library } from '../model/library.js';
 import { measurementInputs } from '../model/measurement-entry.js';
 import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
 import { reviewSlug } from '../present/slugs.js';
+import { libraryRevision } from '../history/library-revision.js';
+import { reviewSources } from '../pages/review-page.js';
 
 /** A printed PDF as the build record keeps it: its key, and the file's size, mtime and inode. */
 export interface PdfStamp {
@@ -31,8 +35,14 @@ export function pdfKeys(library: Library, site: string, reviewInputs: (slug: str
   const everything = [...library.sources.map((s) => `${s.path} ${s.hash}`), ...library.parts.map((p) => measurementInputs(p.measurements))].join('\n');
   return new Map([
     ...library.parts.map((p): [string, string] => [partPdfPath(p.id), hash('part', p.source.path, p.source.hash, measurementInputs(p.measurements))]),
-    ...library.reviews.map((r): [string, string] => [reviewPdfPath(reviewSlug(r)), hash('review', reviewSlug(r), everything, ...[reviewInputs(reviewSlug(r))].filter(Boolean))]),
+    ...library.reviews.map((r): [string, string] => [reviewPdfPath(reviewSlug(r)), hash('review', reviewSlug(r), everything, revisionText(library, r), ...[reviewInputs(reviewSlug(r))].filter(Boolean))]),
   ]);
+}
+
+/** The git revision a review's cover states (commit, date, files changed since), as text; empty outside git. */
+function revisionText(library: Library, review: Library['reviews'][number]): string {
+  const revision = libraryRevision(library.root, reviewSources(review, library).map((s) => s.file));
+  return revision ? `git ${revision.commit} ${revision.date} ${revision.uncommitted}` : '';
 }
 
 /** The PDFs in a built site, by site-relative path. */

@@ -56,6 +56,27 @@ export interface ReviewPageData {
   changes?: ChangesData;
 }
 
+/** The parts a review draws on: its own, and those of its comparisons and plans. */
+function involvedParts(review: LibraryReview) {
+  return [...new Set([...review.parts, ...review.comparisons.flatMap((c) => c.parts), ...review.plans.flatMap((p) => p.placements.map((x) => x.part))])];
+}
+
+/**
+ * The files a review's pack is made from, by path, with their hashes: the review, folio.yaml, and every part,
+ * comparison and plan it draws on. Its appendix lists them, and its cover states their content hash and git revision.
+ */
+export function reviewSources(review: LibraryReview, library: Library): { file: string; hash: string }[] {
+  const files = new Map<string, string>();
+  const add = (file: string, hash: string) => files.set(file, hash);
+  add(review.source.path, review.source.hash);
+  const folio = library.sources.find((s) => s.path === 'folio.yaml');
+  if (folio) add(folio.path, folio.hash);
+  for (const p of involvedParts(review)) add(p.source.path, p.source.hash);
+  for (const c of review.comparisons) add(c.source.path, c.source.hash);
+  for (const p of review.plans) add(p.source.path, p.source.hash);
+  return [...files].map(([file, hash]) => ({ file, hash })).sort((a, b) => (a.file < b.file ? -1 : 1));
+}
+
 function count(n: number, one: string, many: string): string {
   return `${n} ${n === 1 ? one : many}`;
 }
@@ -79,17 +100,7 @@ export function reviewPageData(
   ];
 
   // Every part the review draws on, directly or through a plan or comparison, brings its cautions.
-  const involved = new Set([...review.parts, ...review.comparisons.flatMap((c) => c.parts), ...review.plans.flatMap((p) => p.placements.map((x) => x.part))]);
-  const cautions = groupedCautions([...involved]);
-
-  const files = new Map<string, string>();
-  const add = (file: string, hash: string) => files.set(file, hash);
-  add(review.source.path, review.source.hash);
-  const folio = library.sources.find((s) => s.path === 'folio.yaml');
-  if (folio) add(folio.path, folio.hash);
-  for (const p of involved) add(p.source.path, p.source.hash);
-  for (const c of review.comparisons) add(c.source.path, c.source.hash);
-  for (const p of review.plans) add(p.source.path, p.source.hash);
+  const cautions = groupedCautions(involvedParts(review));
 
   // Statements that accept a rail failing its target, shown beside the statement (and warned by check/build).
   const statements = reviewStatements(review);
@@ -102,7 +113,7 @@ export function reviewPageData(
     parts.length ? count(parts.length, 'part', 'parts') : '',
   ].filter(Boolean);
 
-  const sources = [...files].map(([file, hash]) => ({ file, hash })).sort((a, b) => (a.file < b.file ? -1 : 1));
+  const sources = reviewSources(review, library);
   return {
     slug: reviewSlug(review),
     title: review.title,

@@ -1,6 +1,7 @@
 // A build without --pdf after one with it: the PDFs whose inputs are unchanged are kept (the very files, and
 // the pages link them as before); the others are removed and the build says so in one line.
 
+import { execFileSync } from 'node:child_process';
 import { existsSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -10,6 +11,7 @@ import { siteKey } from '../../src/build/reuse.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { run } from '../cli/fake-io.js';
 import { copyLibrary, read, REPO, tempDir } from '../site-helpers.js';
+import { GIT_ENV, useGitEnv } from '../history/git-repo.js';
 
 const GOOD = join(REPO, 'test/fixtures/good-library');
 const IDS = ['BEAD-TEST-600R', 'CAP-TEST-100N', 'IND-TEST-10U', 'NET-TEST-BULK', 'RES-TEST-4K7'];
@@ -40,6 +42,41 @@ describe('the key of a PDF', () => {
   it('changes everywhere with the library settings', () => {
     const afterSettings = keysAfter((root) => writeFileSync(join(root, 'folio.yaml'), readFileSync(join(root, 'folio.yaml'), 'utf8').replace(/^title: .*$/m, 'title: Another title (invented)')));
     expect(changed(afterSettings).length).toBe(base.size);
+  });
+});
+
+describe('the key of a review pack', () => {
+  it('holds the git revision its cover states: committing the library, or a commit that leaves its files as they were, changes it and no datasheet\'s', () => {
+    const restore = useGitEnv();
+    try {
+      const root = copyLibrary(REPO, 'pdf-key-revision');
+      const git = (...args: string[]) => execFileSync('git', ['-c', 'init.defaultBranch=main', ...args], { cwd: root, env: { ...process.env, ...GIT_ENV }, stdio: ['ignore', 'pipe', 'pipe'] });
+      const keys = () => {
+        const library = loadLibrary(root).library!;
+        return pdfKeys(library, siteKey(library));
+      };
+      const pack = 'pdf/reviews/dl3-power-integrity.pdf';
+      const datasheets = (k: Map<string, string>) => [...k].filter(([path]) => path.startsWith('pdf/parts/'));
+      git('init', '-q');
+      const uncommitted = keys();
+      git('add', '-A');
+      git('commit', '-q', '-m', 'library');
+      const committed = keys();
+      expect(committed.get(pack)).not.toBe(uncommitted.get(pack));
+      expect(datasheets(committed)).toEqual(datasheets(uncommitted));
+      // An edit and its undoing, each committed: every file as it was, the last commit touching a plan another.
+      const plan = join(root, 'plans', 'vdd-core.yaml');
+      const text = readFileSync(plan, 'utf8');
+      writeFileSync(plan, `${text}# edited\n`);
+      git('commit', '-q', '-am', 'edit');
+      writeFileSync(plan, text);
+      git('commit', '-q', '-am', 'undo');
+      const again = keys();
+      expect(again.get(pack)).not.toBe(committed.get(pack));
+      expect(datasheets(again)).toEqual(datasheets(committed));
+    } finally {
+      restore();
+    }
   });
 });
 
