@@ -20,6 +20,8 @@ export interface PrintedWord {
   text: string;
   /** Font size on paper, in points. */
   sizePt: number;
+  /** The bottom of its box, in points from the top of the page. */
+  bottomPt: number;
 }
 
 export interface PdfLegibility {
@@ -28,6 +30,8 @@ export interface PdfLegibility {
   words: PrintedWord[];
   /** Words on each page (1-based page i at index i - 1). */
   wordsPerPage: number[];
+  /** Height of each page, in points. */
+  pageHeightsPt: number[];
 }
 
 const WORD = /<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)<\/word>/;
@@ -62,9 +66,11 @@ export function measurePdf(file: string): PdfLegibility {
   const html = execFileSync('pdftotext', ['-bbox', file, '-'], { encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
   const read: { page: number; text: string; box: Box }[] = [];
   const wordsPerPage: number[] = [];
+  const pageHeightsPt: number[] = [];
   for (const line of html.split('\n')) {
     if (line.includes('<page ')) {
       wordsPerPage.push(0);
+      pageHeightsPt.push(Number(/height="([\d.]+)"/.exec(line)?.[1] ?? NaN));
       continue;
     }
     const m = WORD.exec(line);
@@ -76,9 +82,9 @@ export function measurePdf(file: string): PdfLegibility {
   const words = read.map(({ page, text, box }, i): PrintedWord => {
     const around = [read[i - 1], read[i + 1]].map((n) => (n?.page === page ? n.box : undefined));
     const size = turned(box, around) ? box.x1 - box.x0 : box.y1 - box.y0;
-    return { page, text, sizePt: size / BOX_PER_EM };
+    return { page, text, sizePt: size / BOX_PER_EM, bottomPt: box.y1 };
   });
-  return { file, pages: wordsPerPage.length, words, wordsPerPage };
+  return { file, pages: wordsPerPage.length, words, wordsPerPage, pageHeightsPt };
 }
 
 /** Share of words under `pt` points. */

@@ -178,6 +178,6 @@ export function partPageText(a: PartAnalysis): PartPageText {
     mainsBanner: mainsBanner(a.part, storedEnergyText(a.part)),
     srfText: a.selfResonance ? formatEng(a.selfResonance.frequencyHz, 'frequency') : '—',
     bandText: a.bandRule ? bandText(a.usableBand) : '—',
-    spreadNote: a.corners ? partCornerSentence(a.corners.operating) : '',
+    spreadNote: a.corners ? partCornerSentence(a.corners.operating, a.part) : '',
   };
 }

@@ -4,6 +4,7 @@
 import type { CornerFigures } from '../analysis/plan-corners.js';
 import type { SpreadSummary } from '../analysis/summary.js';
 import type { Part } from '../model/part.js';
+import { isClass2Dielectric } from '../model/dielectric.js';
 import { formatDecibels, formatEng, formatEngRange, formatPercent } from '../units/format.js';
 import { NOMINAL_DIMENSION } from '../units/quantity.js';
 import { formatCelsius } from '../units/temperature.js';
@@ -13,9 +14,16 @@ export function railCornerSentence(temperature: { fromC: number; toC: number }):
   return `A corner puts every placed part at the low or the high end of its spread at once — its tolerance, its temperature change over ${celsiusSpan(temperature)} and its DC bias at the rail voltage — and leaves out ageing, which the maker's data must cover (class 2 ceramics lose a few percent of their capacitance per decade of hours, common practice).`;
 }
 
-/** What a part's corners are and what they leave out (one sentence). */
-export function partCornerSentence(temperature: { fromC: number; toC: number }): string {
-  return `The spread is the model evaluated at every combination of the low and high end of each quantity that moves — tolerance and temperature change over ${celsiusSpan(temperature)} multiplied, and each parasitic's stated spread — without DC bias (a rail plan applies it at its voltage) and without ageing, which the maker's data must cover (class 2 ceramics lose a few percent of their capacitance per decade of hours, common practice).`;
+/**
+ * What a part's corners are and what they leave out (one sentence), in the terms that apply to it: DC bias
+ * only for a part whose value a rail plan moves with its voltage (a DC-bias table or a class 2 dielectric),
+ * and the usual ageing of class 2 ceramics only for one.
+ */
+export function partCornerSentence(temperature: { fromC: number; toC: number }, part: Pick<Part, 'dielectric' | 'dcBias'>): string {
+  const class2 = part.dielectric !== undefined && isClass2Dielectric(part.dielectric);
+  const leftOut = class2 || part.dcBias.length > 0 ? 'without DC bias (a rail plan applies it at its voltage) and without ageing' : 'without ageing';
+  const ageing = class2 ? ' (class 2 ceramics lose a few percent of their capacitance per decade of hours, common practice)' : '';
+  return `The spread is the model evaluated at every combination of the low and high end of each quantity that moves — tolerance and temperature change over ${celsiusSpan(temperature)} multiplied, and each parasitic's stated spread — ${leftOut}, which the maker's data must cover${ageing}.`;
 }
 
 export function celsiusSpan(t: { fromC: number; toC: number }): string {

@@ -23,7 +23,7 @@ export interface PageFurniture {
 }
 
 // Margins leave room for the furniture Chromium draws inside them.
-const MARGIN = { top: '18mm', bottom: '17mm', left: '15mm', right: '15mm' };
+const MARGIN = { top: '14mm', bottom: '13mm', left: '15mm', right: '15mm' };
 
 const furnitureStyle = 'font-family: DejaVu Sans, Liberation Sans, Helvetica, Arial, sans-serif; font-size: 7.5pt; color: #4a515c; width: 100%; margin: 0 15mm; display: flex; justify-content: space-between;';
 

@@ -47,12 +47,27 @@ describe('a part\'s value over its spread, in plain words', () => {
 });
 
 describe('what a corner is and what it leaves out, in one sentence', () => {
+  const x7r = part('id: C\nkind: capacitor\nnominal: 10u\ntolerance: 10%\ndielectric: X7R\nparasitics: {esr: 5m, esl: 0.5n}\n');
   it.each([
-    ['part', partCornerSentence({ fromC: -40, toC: 85 })],
+    ['part', partCornerSentence({ fromC: -40, toC: 85 }, x7r)],
     ['rail', railCornerSentence({ fromC: -40, toC: 85 })],
   ])('%s: one sentence naming ageing and its usual size', (_, sentence) => {
     expect(sentence.match(/[.!?](\s|$)/g)).toHaveLength(1);
     expect(sentence).toMatch(/ageing, which the maker's data must cover \(class 2 ceramics lose a few percent of their capacitance per decade of hours, common practice\)\.$/);
     expect(sentence).toContain('−40 °C to 85 °C');
+  });
+
+  it('a class 2 ceramic\'s spread leaves out DC bias, which a rail plan applies', () => {
+    expect(partCornerSentence({ fromC: -40, toC: 85 }, x7r)).toContain('without DC bias (a rail plan applies it at its voltage) and without ageing');
+  });
+
+  it.each([
+    ['a resistor', 'id: R\nkind: resistor\nnominal: 10k\ntolerance: 1%\nparasitics: {ls: 0.4n, cp: 0.15p}\n'],
+    ['a C0G capacitor', 'id: C\nkind: capacitor\nnominal: 100p\ntolerance: 5%\ndielectric: C0G\nparasitics: {esr: 50m, esl: 0.4n}\n'],
+  ])('%s: neither DC bias nor the ageing of class 2 ceramics, which are not its own', (_, yaml) => {
+    const sentence = partCornerSentence({ fromC: -40, toC: 85 }, part(yaml));
+    expect(sentence.match(/[.!?](\s|$)/g)).toHaveLength(1);
+    expect(sentence).not.toMatch(/DC bias|class 2/);
+    expect(sentence).toMatch(/ — without ageing, which the maker's data must cover\.$/);
   });
 });
