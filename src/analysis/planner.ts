@@ -29,7 +29,8 @@
 //   between their resonances, so on large candidate lists a proof by count can need more nodes than the
 //   budget, while a proof by cost (where weights differ) usually fits.
 
-import { buildGrid, reachMultiplier, scenariosOf, type PlannerProblem, type PlannerScenario } from './planner-grid.js';
+import { buildGrid, scenariosOf, type PlannerProblem, type PlannerScenario } from './planner-grid.js';
+import { boundNode, MAX_SAMPLES, SLACK, sortByKey, violatedSamples } from './planner-bound.js';
 import { greedySet, improveSet } from './planner-start.js';
 import { evaluateRail, type RailBranch, type RailEvaluation } from './rail.js';
 
@@ -64,9 +65,6 @@ export function defaultNodeLimit(candidates: number): number {
 // The search holds |Y| ≥ Y_t·(1 + 1e-12) at its grid, a hair stricter than the full evaluation, so that
 // rounding (~1e-15) never lets the grid accept what the full evaluation rejects at the same point.
 const STRICT = 1 + 1e-12;
-// Bounds and helpfulness are compared with this slack, in favour of keeping a branch.
-const SLACK = 1e-9;
-const MAX_SAMPLES = 24;
 // Each pass adds at least one cut; a rail that needs more than this many is reported as not proven.
 const MAX_PASSES = 200;
 
@@ -144,27 +142,7 @@ export function planDecoupling(problem: PlannerProblem): PlannerResult {
       }
       const Pr = pRe[depth];
       const Pi = pIm[depth];
-      // Violated points to bound and branch on: the worst of each violated run of the sweep, every
-      // stride-th violated sweep point, and every violated cut.
-      let s = 0;
-      let runWorst = -1;
-      let runWorstValue = Infinity;
-      for (let k = 0; k <= grid.sorted; k++) {
-        const v = k < grid.sorted ? Pr[k] * Pr[k] + Pi[k] * Pi[k] : Infinity;
-        if (v < t2) {
-          if (v < runWorstValue) {
-            runWorstValue = v;
-            runWorst = k;
-          }
-          if (k % stride === 0 && s < MAX_SAMPLES) samples[s++] = k;
-        } else if (runWorst >= 0) {
-          if (s === 0 || samples[s - 1] !== runWorst) samples[s++] = runWorst;
-          runWorst = -1;
-          runWorstValue = Infinity;
-        }
-        if (s >= MAX_SAMPLES * 2) break;
-      }
-      for (let k = grid.sorted; k < F; k++) if (Pr[k] * Pr[k] + Pi[k] * Pi[k] < t2) samples[s++] = k;
+      const s = violatedSamples(grid, Pr, Pi, t2, stride, samples);
       if (s === 0) return leaf(objective);
 
       let { budget, weighted } = budgetOf(placed, objective, capacity);
@@ -175,59 +153,8 @@ export function planDecoupling(problem: PlannerProblem): PlannerResult {
       const lim = limit();
       for (let i = 0; i < m; i++) allowed[i] = excluded[i] || counts[i] >= N ? 0 : 1;
 
-      // t for every sample and allowed candidate, the least weight needed per sample, and the sample with
-      // the fewest helpful candidates to branch on.
-      let branchAt = -1;
-      let branchHelpful = Infinity;
-      let sumNeed = 0;
-      let largestNeed = 0;
-      for (let j = 0; j < s; j++) {
-        const k = samples[j];
-        const pr = Pr[k];
-        const pi = Pi[k];
-        const base = k * m;
-        let least = Infinity;
-        let helpful = 0;
-        for (let i = 0; i < m; i++) {
-          const at = j * m + i;
-          if (allowed[i] === 0) {
-            tBuf[at] = Infinity;
-            continue;
-          }
-          // Whatever is added includes at least one whole placement, hence max(1, t) (see the header).
-          const t = Math.max(1, reachMultiplier(pr, pi, grid.tRe[base + i], grid.tIm[base + i], t2));
-          tBuf[at] = t;
-          const w = weighted ? weights[i] * t : t;
-          if (w < least) least = w;
-          if (w <= lim) helpful++;
-        }
-        if (helpful === 0) return true;
-        need[j] = least;
-        if (helpful < branchHelpful || (helpful === branchHelpful && least > need[branchAt])) {
-          branchAt = j;
-          branchHelpful = helpful;
-        }
-        sumNeed += least;
-        if (least > largestNeed) largestNeed = least;
-      }
-
-      // Dual bound of the covering relaxation (any λ ≥ 0 with Σ_j λ_j/τ_ij ≤ unit_i for every allowed i
-      // bounds the weight still needed): λ_j = α·need_j with α as large as those constraints allow.
-      load.fill(0);
-      for (let j = 0; j < s; j++) {
-        const row = j * m;
-        const nj = need[j];
-        for (let i = 0; i < m; i++) load[i] += nj / tBuf[row + i];
-      }
-      let alpha = Infinity;
-      for (let i = 0; i < m; i++) {
-        if (allowed[i] === 0 || !(load[i] > 0)) continue;
-        const a = (weighted ? weights[i] : 1) / load[i];
-        if (a < alpha) alpha = a;
-      }
-      let bound = Math.max(largestNeed, Number.isFinite(alpha) ? alpha * sumNeed : 0);
-      if (!weighted) bound = Math.ceil(bound - SLACK);
-      if (bound > lim) return true;
+      const branchAt = boundNode({ grid, Pr, Pi, samples, count: s, weights, weighted, allowed, lim, t2, tBuf, need, load });
+      if (branchAt < 0) return true;
 
       // Branch j adds the j-th most effective helpful candidate and excludes the ones before it.
       // (tBuf is shared by every depth: what the loop needs after recursing is copied out first.)
@@ -327,20 +254,4 @@ export function planDecoupling(problem: PlannerProblem): PlannerResult {
     nodes,
     cuts: [...cuts],
   };
-}
-
-/** Sort `items` by ascending `keys` (parallel arrays), ties by item; insertion sort: the lists are short. */
-function sortByKey(items: number[], keys: number[]): void {
-  for (let a = 1; a < items.length; a++) {
-    const item = items[a];
-    const key = keys[a];
-    let b = a - 1;
-    while (b >= 0 && (keys[b] > key || (keys[b] === key && items[b] > item))) {
-      items[b + 1] = items[b];
-      keys[b + 1] = keys[b];
-      b--;
-    }
-    items[b + 1] = item;
-    keys[b + 1] = key;
-  }
 }

@@ -3,20 +3,14 @@
 // frequency over any number of lines, version 1 Z and Y normalised to R, noise data skipped. Every problem
 // is located at its line and column; a file with a problem gives no data at all.
 
-import { DiagnosticList, type Diagnostic, type SourcePosition } from '../model/diagnostics.js';
+import type { Diagnostic, SourcePosition } from '../model/diagnostics.js';
 import { quote } from '../units/quote.js';
-import { GrowableFloat64 } from './growable.js';
 import { FREQUENCY_SCALE, type NetworkData } from './network-data.js';
-import { MAX_PORTS, addReferences, applyKeyword, keywordKey, type Header, type KeywordEffect } from './touchstone-keywords.js';
-import { pairValue as importedPairValue, recordLayout, type RecordLayout } from './touchstone-layout.js';
-import { DEFAULT_OPTIONS, readOptionLine, type OptionLine } from './touchstone-options.js';
-import { isBlank as importedIsBlank, readNumber as importedReadNumber, tokensOf, type Token } from './touchstone-tokens.js';
-
-// The functions of the per-value loops, bound once: under a module loader that turns each imported name
-// into a property read (as tsx does for the benchmarks), a call through the import costs more than the work.
-const isBlank = importedIsBlank;
-const readNumber = importedReadNumber;
-const pairValue = importedPairValue;
+import { MAX_PORTS, addReferences, applyKeyword, keywordKey, type KeywordEffect } from './touchstone-keywords.js';
+import { recordLayout } from './touchstone-layout.js';
+import { readOptionLine } from './touchstone-options.js';
+import { RecordReader } from './touchstone-records.js';
+import type { Token } from './touchstone-tokens.js';
 
 export type TouchstoneResult = { ok: true; data: NetworkData } | { ok: false; errors: Diagnostic[] };
 
@@ -37,72 +31,12 @@ export function readTouchstone(text: string, file: string, options: TouchstoneOp
   return reader.read();
 }
 
-type Mode = 'header' | 'data' | 'v1-noise' | 'noise' | 'information' | 'end';
-
-/** Stop reading after this many problems: the rest of such a file would only repeat them. */
-const ERROR_LIMIT = 200;
-
-class Reader {
-  private readonly problems = new DiagnosticList();
-  private version: 1 | 2 | undefined;
-  private readonly header: Header = { matrix: 'Full', seen: new Set() };
-  private options: OptionLine | undefined;
+/** The header of the file (version, option line, keywords) over the lines and records of RecordReader. */
+class Reader extends RecordReader {
   private optionLine: number | undefined;
-  private mode: Mode = 'header';
   private referenceContinues = false;
-  private stopped = false;
-  private line = 0;
-  private lineStart = 0;
-  // The data, once it begins.
-  private ports = 0;
-  private layout: RecordLayout | undefined;
-  private perRecord = 0;
-  private scale = 1;
-  private normalise = 1;
-  private readonly frequencies = new GrowableFloat64();
-  private readonly recordLines = new GrowableFloat64();
-  private readonly re = new GrowableFloat64(16384);
-  private readonly im = new GrowableFloat64(16384);
-  private pending = new Float64Array(0);
-  private filled = -1;
-  private recordFrequency = 0;
-  private recordLine = 0;
-  private lastNetworkFrequency = -Infinity;
-  private readonly starts: number[] = [];
-  private readonly ends: number[] = [];
-  /** Just after the last field of the file, where "the file ends" messages point. */
-  private lastField = { line: 1, column: 1 };
 
-  constructor(
-    private readonly text: string,
-    private readonly file: string,
-    private readonly given: TouchstoneOptions,
-  ) {}
-
-  read(): TouchstoneResult {
-    const bareCr = bareCarriageReturn(this.text);
-    if (bareCr >= 0) {
-      const before = this.text.slice(0, bareCr);
-      const line = before.split('\n').length;
-      this.error({ line, column: bareCr - before.lastIndexOf('\n') }, 'a line ends with a bare carriage return (CR, as old Mac files do); save the file with LF or CRLF line ends');
-      return this.result();
-    }
-    const text = this.text;
-    const n = text.length;
-    let pos = 0;
-    while (pos <= n && !this.stopped) {
-      let eol = text.indexOf('\n', pos);
-      if (eol < 0) eol = n;
-      this.line++;
-      this.lineStart = pos;
-      this.scanLine(pos, eol > pos && text.charCodeAt(eol - 1) === 13 ? eol - 1 : eol);
-      pos = eol + 1;
-    }
-    if (!this.stopped) this.finish();
-    return this.result();
-  }
-
-  private result(): TouchstoneResult {
+  protected result(): TouchstoneResult {
     if (this.problems.errorCount > 0) return { ok: false, errors: this.problems.sorted() };
     const data: NetworkData = {
       file: this.file,
@@ -121,14 +55,6 @@ class Reader {
     return { ok: true, data };
   }
 
-  private optionsOrDefault(): OptionLine {
-    return this.options ?? DEFAULT_OPTIONS;
-  }
-
-  private position(at: { line: number; column: number }): SourcePosition {
-    return { file: this.file, line: at.line, column: at.column };
-  }
-
   private portsPosition(): SourcePosition {
     return this.position(this.header.portsLine !== undefined ? { line: this.header.portsLine, column: 1 } : { line: 1, column: 1 });
   }
@@ -139,60 +65,7 @@ class Reader {
     return this.position({ line: 1, column: 1 });
   }
 
-  private error(at: { line: number; column: number }, message: string): void {
-    this.problems.error(this.position(at), message);
-    if (this.problems.errorCount >= ERROR_LIMIT) this.stopped = true;
-  }
-
-  private here(column: number, message: string): void {
-    this.error({ line: this.line, column }, message);
-  }
-
-  /** One line without its line end: split into fields up to a "!" comment, then handled by its kind. */
-  private scanLine(from: number, to: number): void {
-    const text = this.text;
-    const starts = this.starts;
-    const ends = this.ends;
-    starts.length = 0;
-    ends.length = 0;
-    let i = from;
-    let end = to;
-    while (i < end) {
-      const c = text.charCodeAt(i);
-      if (c === 33) {
-        end = i;
-        break;
-      }
-      if (isBlank(c)) {
-        i++;
-        continue;
-      }
-      const start = i;
-      while (i < end) {
-        const d = text.charCodeAt(i);
-        if (isBlank(d) || d === 33) break;
-        i++;
-      }
-      starts.push(start);
-      ends.push(i);
-    }
-    if (starts.length === 0) return;
-    this.lastField = { line: this.line, column: this.column(ends[ends.length - 1]) };
-    const first = text.charCodeAt(starts[0]);
-    if (first === 91) this.keywordLine(starts[0], end);
-    else if (first === 35) this.optionLineAt(starts[0], end);
-    else this.dataLine();
-  }
-
-  private fields(from: number, to: number): Token[] {
-    return tokensOf(this.text, from, to, this.lineStart);
-  }
-
-  private column(index: number): number {
-    return index - this.lineStart + 1;
-  }
-
-  private keywordLine(open: number, end: number): void {
+  protected keywordLine(open: number, end: number): void {
     const close = this.text.indexOf(']', open);
     if (close < 0 || close >= end) {
       this.here(this.column(open), `a keyword's closing "]" is missing: found ${quote(this.text.slice(open, end).trim())}`);
@@ -270,7 +143,7 @@ class Reader {
     else if (fields.length > 1) this.here(fields[1].column, `expected only the version after [${written}], found also ${quote(fields[1].text)}`);
   }
 
-  private optionLineAt(hash: number, end: number): void {
+  protected optionLineAt(hash: number, end: number): void {
     if (this.version === undefined) this.beginVersion1();
     if (this.stopped) return;
     const column = this.column(hash);
@@ -338,7 +211,7 @@ class Reader {
     this.normalise = this.version === 1 && options.parameter === 'Z' ? options.reference : this.version === 1 && options.parameter === 'Y' ? 1 / options.reference : 1;
   }
 
-  private dataLine(): void {
+  protected dataLine(): void {
     if (this.version === undefined) this.beginVersion1();
     if (this.stopped) return;
     const starts = this.starts;
@@ -368,132 +241,7 @@ class Reader {
     this.networkLine();
   }
 
-  private networkLine(): void {
-    const text = this.text;
-    const starts = this.starts;
-    const ends = this.ends;
-    const count = starts.length;
-    let k = 0;
-    if (this.filled < 0) {
-      const f = readNumber(text, starts[0], ends[0]) * this.scale;
-      const records = this.frequencies.length;
-      // A version 1 two-port file may end with noise parameters: they begin where the frequency falls back.
-      if (this.version === 1 && this.ports === 2 && records > 0 && f <= this.lastNetworkFrequency) {
-        this.mode = 'v1-noise';
-        this.noiseLine();
-        return;
-      }
-      if (this.version === 2 && this.header.frequencies !== undefined && records === this.header.frequencies) {
-        this.here(this.column(starts[0]), `more network data than [Number of Frequencies] ${this.header.frequencies} (line ${this.header.frequenciesLine}) says`);
-        this.stopped = true;
-        return;
-      }
-      this.checkFrequency(f, 0);
-      this.filled = 0;
-      this.recordFrequency = f;
-      this.recordLine = this.line;
-      k = 1;
-    }
-    const need = this.perRecord;
-    const pending = this.pending;
-    for (; k < count; k++) {
-      if (this.filled === need) {
-        this.tooMany(k);
-        break;
-      }
-      const value = readNumber(text, starts[k], ends[k]);
-      if (!Number.isFinite(value)) this.notANumber(k, 'a number');
-      pending[this.filled++] = value;
-    }
-    if (this.filled === need) this.commit();
-  }
-
-  private checkFrequency(f: number, field: number): void {
-    const column = this.column(this.starts[field]);
-    const written = this.text.slice(this.starts[field], this.ends[field]);
-    if (!Number.isFinite(f)) this.notANumber(field, 'a frequency');
-    else if (f < 0) this.here(column, `expected a frequency of zero or more, found ${quote(written)}`);
-    else if (this.frequencies.length > 0 && !(f > this.lastNetworkFrequency)) {
-      this.here(column, `frequencies must increase: ${written} ${this.unit()} follows ${this.inUnit(this.lastNetworkFrequency)}`);
-    }
-  }
-
-  private unit(): string {
-    return this.optionsOrDefault().unit;
-  }
-
-  /** A frequency in the file's own unit, as its lines write it. */
-  private inUnit(hz: number): string {
-    if (!Number.isFinite(hz)) return 'an unreadable frequency';
-    return `${Number((hz / this.scale).toPrecision(12))} ${this.unit()}`;
-  }
-
-  private notANumber(field: number, what: string): void {
-    const written = this.text.slice(this.starts[field], this.ends[field]);
-    const value = Number(written);
-    const why = /^[+-]?(\d|\.\d)/.test(written) && /^[+-]?[\d.]+[eE][+-]?\d+$/.test(written) && !Number.isFinite(value) ? ' (too large for a number)' : '';
-    this.here(this.column(this.starts[field]), `expected ${what}, found ${quote(written)}${why}`);
-  }
-
-  private tooMany(field: number): void {
-    const column = this.column(this.starts[field]);
-    const extra = this.starts.length - field;
-    if (this.recordLine === this.line) {
-      const total = this.starts.length - 1;
-      const ports = Math.round(Math.sqrt(total / 2));
-      const hint = this.version === 1 && ports !== this.ports && 2 * ports * ports === total ? `; ${total} values a line is a ${ports}-port file: name it .s${ports}p` : '';
-      this.here(column, `expected ${this.perRecord} values after the frequency (a ${this.ports}-port file), found ${total}${hint}`);
-    } else {
-      this.here(column, `the frequency of line ${this.recordLine} has ${this.perRecord} values, and ${extra} more follow on this line; a frequency's values may go over several lines, but each new frequency begins a line`);
-    }
-  }
-
-  private commit(): void {
-    const layout = this.layout!;
-    const { slots, mirrors } = layout;
-    const format = this.optionsOrDefault().format;
-    const n2 = this.ports * this.ports;
-    const base = this.re.extend(n2);
-    this.im.extend(n2);
-    const scale = this.normalise;
-    const pending = this.pending;
-    for (let p = 0; p < slots.length; p++) {
-      const a = pending[2 * p];
-      const b = pending[2 * p + 1];
-      let re = a;
-      let im = b;
-      if (format !== 'RI') {
-        [re, im] = pairValue(format, a, b);
-      }
-      this.re.set(base + slots[p], re * scale);
-      this.im.set(base + slots[p], im * scale);
-      if (mirrors[p] >= 0) {
-        this.re.set(base + mirrors[p], re * scale);
-        this.im.set(base + mirrors[p], im * scale);
-      }
-    }
-    this.frequencies.push(this.recordFrequency);
-    this.recordLines.push(this.recordLine);
-    this.lastNetworkFrequency = this.recordFrequency;
-    this.filled = -1;
-  }
-
-  /** Version 1 noise parameters: frequency, NFmin, |Γopt|, ∠Γopt, Rn — five numbers a line, skipped. */
-  private noiseLine(): void {
-    const count = this.starts.length;
-    for (let k = 0; k < count; k++) {
-      if (!Number.isFinite(readNumber(this.text, this.starts[k], this.ends[k]))) this.notANumber(k, 'a number (noise data)');
-    }
-    if (count !== 5) this.here(this.column(this.starts[Math.min(count, 5) - 1]), `expected 5 noise values a line (frequency, NFmin, |Γopt|, ∠Γopt, Rn), found ${count}`);
-  }
-
-  private endRecordAtKeyword(written: string): void {
-    if (this.filled < 0) return;
-    this.here(1, `expected ${this.perRecord} values for the frequency of line ${this.recordLine}, found ${this.filled} before [${written}]`);
-    this.filled = -1;
-  }
-
-  private finish(): void {
+  protected finish(): void {
     const lastLine = this.lastField;
     this.closeReference();
     if (this.mode === 'information') this.error(lastLine, 'the file ends inside [Begin Information]; expected [End Information]');
@@ -511,12 +259,4 @@ class Reader {
       this.error({ line: this.header.frequenciesLine ?? 1, column: 1 }, `[Number of Frequencies] says ${expected}, but the network data hold ${records}`);
     }
   }
-}
-
-/** Index of the first CR not followed by LF, or −1. */
-function bareCarriageReturn(text: string): number {
-  for (let i = text.indexOf('\r'); i >= 0; i = text.indexOf('\r', i + 1)) {
-    if (text.charCodeAt(i + 1) !== 10) return i;
-  }
-  return -1;
 }
