@@ -3,6 +3,8 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['test/**/*.test.ts'],
+    // Once a run: dist/ compiled if stale, and the demo built once for the files that read a built demo.
+    globalSetup: ['test/setup/global.ts'],
     testTimeout: 60_000,
     hookTimeout: 180_000,
     // Site, browser and PDF tests each build a folio; two cores, so two forks.

@@ -155,7 +155,7 @@ describe('a read-only output', () => {
   });
 });
 
-const SCRIPT = fileURLToPath(new URL('./scripts/build-until.ts', import.meta.url));
+const SCRIPT = fileURLToPath(new URL('./scripts/build-until.mjs', import.meta.url));
 const GOOD = join(REPO, 'test/fixtures/good-library');
 
 /** A copy of the good library whose capacitor's title says `title`. */
@@ -188,7 +188,7 @@ describe('a build killed at each step of the swap', () => {
     expect(complete).toContain('parts/CAP-TEST-100N/index.html');
 
     libraryTitled(library, 'New title');
-    const killed = spawnSync(process.execPath, ['--import', 'tsx', SCRIPT, library, site, step], { cwd: REPO, encoding: 'utf8' });
+    const killed = spawnSync(process.execPath, [SCRIPT, library, site, step], { cwd: REPO, encoding: 'utf8' });
     expect(killed.signal).toBe('SIGKILL');
     expect(filesUnder(site)).toEqual(complete);
     expect(capPage(site)).toContain(which === 'old' ? 'Old title' : 'New title');
@@ -212,7 +212,7 @@ describe('builds killed at random moments', () => {
     // Fixed delays spread over a build's life in its own process (start-up, load, charts, pages, swap).
     for (const [round, delayMs] of [700, 1500, 2300, 3100].entries()) {
       libraryTitled(library, `Title ${round + 1}`);
-      const child = spawn(process.execPath, ['--import', 'tsx', SCRIPT, library, site], { cwd: REPO, stdio: 'ignore' });
+      const child = spawn(process.execPath, [SCRIPT, library, site], { cwd: REPO, stdio: 'ignore' });
       const ended = new Promise((done) => child.on('exit', done));
       await new Promise((done) => setTimeout(done, delayMs));
       child.kill('SIGKILL');

@@ -10,6 +10,7 @@ import { buildFolio, type BuildResult } from '../../src/build/build.js';
 import { loadLibrary, type Library } from '../../src/model/library.js';
 import { formatEng } from '../../src/units/format.js';
 import { copyLibrary, filesUnder, read, REPO, tempDir, treeHashes } from '../site-helpers.js';
+import { DEMO_SITE_OPTIONS, demoSite } from '../demo-site.js';
 
 let library: Library;
 let first: BuildResult;
@@ -19,10 +20,11 @@ let siteB: string;
 beforeAll(async () => {
   library = loadLibrary(REPO).library!;
   siteA = join(tempDir('site-a'), '_site');
-  siteB = join(tempDir('site-b'), '_site');
-  // Two cold builds (no chart cache), one drawing charts in this thread and one in worker threads.
+  // Two cold builds (no chart cache), one drawing charts in this thread and one in worker threads: the
+  // second is the run's shared demo site (test/demo-site.ts).
+  expect(DEMO_SITE_OPTIONS).toEqual({ cache: false, workers: 2 });
   first = await buildFolio({ libraryRoot: REPO, outDir: siteA, cache: false, workers: 0 });
-  await buildFolio({ libraryRoot: REPO, outDir: siteB, cache: false, workers: 2 });
+  siteB = await demoSite();
 }, 240_000);
 
 describe('the demo folio', () => {

@@ -1,32 +1,22 @@
 // The installed entry point, end to end: a real process running bin/zfolio.js over the compiled dist/.
 
 import { spawnSync } from 'node:child_process';
-import { existsSync, statSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { GOOD_LIBRARY } from './fake-io.js';
-import { copyLibrary, filesUnder } from '../site-helpers.js';
+import { copyLibrary } from '../site-helpers.js';
+import { compileDist, distIsCurrent } from '../setup/compiled.js';
 
 const PACKAGE = fileURLToPath(new URL('../../', import.meta.url));
 
-/** Whether dist/ holds a compiled file, newer than its source, for every source file. */
-function distIsCurrent(): boolean {
-  return filesUnder(join(PACKAGE, 'src'))
-    .filter((f) => f.endsWith('.ts') && !f.endsWith('.d.ts'))
-    .every((f) => {
-      const built = join(PACKAGE, 'dist', f.replace(/\.ts$/, '.js'));
-      return existsSync(built) && statSync(built).mtimeMs >= statSync(join(PACKAGE, 'src', f)).mtimeMs;
-    });
-}
-
 describe('bin/zfolio.js', () => {
   beforeAll(() => {
-    // Compile dist/ from the sources under test, as `npm ci` does, so a stale dist/ cannot pass for them
-    // (unless every compiled file is already newer than its source, as right after `npm ci`).
-    if (distIsCurrent()) return;
-    const tsc = spawnSync(process.execPath, [`${PACKAGE}node_modules/typescript/bin/tsc`, '-p', 'tsconfig.build.json'], { cwd: PACKAGE, encoding: 'utf8' });
-    expect(tsc.stdout + tsc.stderr).toBe('');
+    // dist/ is compiled from the sources under test before the run (test/setup/global.ts), as `npm ci` does,
+    // so a stale dist/ cannot pass for them; compileDist is a no-op when every compiled file is current.
+    compileDist();
+    expect(distIsCurrent()).toBe(true);
     expect(existsSync(`${PACKAGE}dist/cli/main.js`)).toBe(true);
   }, 120_000);
 

@@ -1,4 +1,5 @@
-// zfolio as a real process (the sources, through tsx): a reader that closes the pipe ends every command quietly
+// zfolio as a real process (bin/zfolio.js over dist/, which test/setup/global.ts compiles from the sources
+// under test before the run when it is stale): a reader that closes the pipe ends every command quietly
 // with 0; Ctrl+C or TERM ends a build with 1 and one line, its staging folder removed, its Chromium stopped;
 // a Chromium that does not start is one line, not a fault.
 
@@ -11,11 +12,11 @@ import { tempDir } from '../site-helpers.js';
 import { GOOD_LIBRARY, run } from './fake-io.js';
 
 const PACKAGE = fileURLToPath(new URL('../../', import.meta.url));
-const ENTRY = "import { runProcess } from './src/cli/process.ts'; runProcess(process.argv.slice(1));";
+const BIN = join(PACKAGE, 'bin', 'zfolio.js');
 
 /** Start `zfolio ...argv` in a process of its own. */
 function start(argv: string[]) {
-  const child = spawn(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', ENTRY, ...argv], {
+  const child = spawn(process.execPath, [BIN, ...argv], {
     cwd: PACKAGE,
     env: { ...process.env, CI: '1', ZFOLIO_DEBUG: '' },
     stdio: ['ignore', 'pipe', 'pipe'],

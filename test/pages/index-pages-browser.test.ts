@@ -1,10 +1,13 @@
 // The parts index of a generated 2,000-part library (invented parts, bench/generate.ts) in the system
 // Chromium, from the file system: the first page opens quickly with 200 rows, every part is reachable
 // through the page links with script off, and with script on the fields filter and the headings sort all
-// 2,000 parts, shown a page at a time. Charts are not what this test looks at, so the build draws none
-// (a chart maker that returns empty charts); every page and the index's row scripts are the real ones.
+// 2,000 parts, shown a page at a time. Charts and sweeps are not what this test looks at, so the build draws
+// no chart (a chart maker that returns empty charts) and sweeps 10 points a decade rather than 100 (the index
+// shows each part's figures, which come from its poles and zeros, not from the plain sweep's points, and
+// every sweep file is written for every part all the same); every page and the index's row scripts are the
+// real ones.
 
-import { rmSync, statSync } from 'node:fs';
+import { rmSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { Browser, Page } from 'puppeteer-core';
@@ -34,6 +37,7 @@ const noCharts: ChartMaker = {
 
 beforeAll(async () => {
   root = writeGeneratedLibrary(PARTS, 3);
+  writeFileSync(join(root, 'folio.yaml'), 'title: Generated library (invented parts)\nsweep: {from: 100, to: 10G, per-decade: 10}\n');
   site = join(root, '_site');
   library = loadLibrary(root).library!;
   const result = await buildFolio({ libraryRoot: root, outDir: site, cache: false, charts: noCharts });

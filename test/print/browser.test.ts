@@ -5,9 +5,9 @@
 import { join } from 'node:path';
 import type { Browser, Page } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildFolio } from '../../src/build/build.js';
 import { loadLibrary } from '../../src/model/library.js';
-import { REPO, tempDir } from '../site-helpers.js';
+import { demoSite } from '../demo-site.js';
+import { REPO } from '../site-helpers.js';
 import { ARTIFACTS, siteTabs, startChrome } from './site-tabs.js';
 
 const library = loadLibrary(REPO).library!;
@@ -16,9 +16,8 @@ let browser: Browser;
 const problems: string[] = [];
 
 beforeAll(async () => {
-  site = join(tempDir('browser'), '_site');
-  const result = await buildFolio({ libraryRoot: REPO, outDir: site, cache: false });
-  expect(result.ok).toBe(true);
+  // The demo built cold, once for the run (test/setup/global.ts).
+  site = await demoSite();
   browser = await startChrome();
 }, 240_000);
 

@@ -10,18 +10,17 @@ import { pathToFileURL } from 'node:url';
 import type { Browser } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { findChrome, launchChrome } from '../../src/print/browser.js';
-import { buildFolio } from '../../src/build/build.js';
 import { loadLibrary } from '../../src/model/library.js';
-import { REPO, tempDir } from '../site-helpers.js';
+import { demoSite } from '../demo-site.js';
+import { REPO } from '../site-helpers.js';
 
 const library = loadLibrary(REPO).library!;
 let site: string;
 let browser: Browser;
 
 beforeAll(async () => {
-  site = join(tempDir('chart-geometry'), '_site');
-  const result = await buildFolio({ libraryRoot: REPO, outDir: site });
-  expect(result.ok).toBe(true);
+  // The demo built cold, once for the run (test/setup/global.ts): every chart drawn by this code.
+  site = await demoSite();
   const chrome = findChrome(undefined, process.env);
   if (!('path' in chrome)) throw new Error(`browser tests need Chromium: ${chrome.problem}`);
   browser = await launchChrome(chrome.path);
