@@ -6,7 +6,7 @@
 
 import type { LoadStepFigures } from '../analysis/load-step.js';
 import { AXIS_TITLE, KEY_TEXT, dipLabel, loadStepKey } from '../present/chart-words.js';
-import { describeLoadStep } from '../present/plan-chart-descriptions.js';
+import { describeLoadStep, type DescribedLoadStep } from '../present/plan-chart-descriptions.js';
 import { linearValueAxis, logRangeAxis } from './axes.js';
 import { curveObstacle, curveRows, levelObstacle, plainCurve } from './curves.js';
 import { frame, PLOT_WIDTH } from './frame.js';
@@ -19,21 +19,10 @@ import { renderChart, type ChartOutput, type Row } from './render.js';
 import { curveLayer, placedLabelLayer, pointLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
 import { xyChart, type AxisSpec } from './xy-chart.js';
 
-/** What the load-step charts draw; SI units (s, V, A/A). */
-export interface LoadStepChartData {
-  rail?: string;
-  /** Ascending times after the step begins, s (all > 0). */
-  timesS: ArrayLike<number>;
+/** What the load-step charts draw; SI units (s, V, A/A): what their descriptions read, and the voltage. */
+export interface LoadStepChartData extends DescribedLoadStep {
+  /** The rail's deviation at each time, V. */
   voltageV: ArrayLike<number>;
-  budgetV: number;
-  /** The settled deviation, V; null when the rail keeps falling. */
-  finalV: number | null;
-  riseS: number;
-  stepA: number;
-  droop: { atS: number; droopV: number };
-  settleS: number | null;
-  /** Each branch's share of the load current at each time. */
-  branches: readonly { label: string; share: ArrayLike<number> }[];
 }
 
 /** What the charts draw of a rail's load step, its branches named by `labels` (in the analysis's order). */

@@ -30,6 +30,20 @@ export interface Parsed {
   positionals: string[];
 }
 
+/**
+ * The options of a command that takes no arguments; undefined when --help was asked for, its usage then
+ * printed. An unknown option or an argument is misuse (exit 2).
+ */
+export function commandOptions(command: string, args: string[], options: Options, help: string, io: CommandIO): Parsed['values'] | undefined {
+  const { values, positionals } = parseCommandLine(args, options, false);
+  if (values.help) {
+    io.out(help);
+    return undefined;
+  }
+  if (positionals.length > 0) throw new UsageError(`${command} takes no arguments, found ${positionals.join(' ')}`);
+  return values;
+}
+
 /** Parse argv strictly: an unknown option is misuse (exit 2), said in plain words. */
 export function parseCommandLine(args: string[], options: Options, allowPositionals: boolean): Parsed {
   try {

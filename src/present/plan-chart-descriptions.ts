@@ -17,16 +17,19 @@ export interface DescribedRail {
   envelope?: { minOhm: ArrayLike<number>; maxOhm: ArrayLike<number>; corners: number } | null;
 }
 
-/** What the load-step charts' descriptions read (their data fits). */
+/** What the load-step charts' descriptions read (the charts' data extends it); SI units (s, V, A/A). */
 export interface DescribedLoadStep {
   rail?: string;
+  /** Ascending times after the step begins, s (all > 0). */
   timesS: ArrayLike<number>;
   budgetV: number;
+  /** The settled deviation, V; null when the rail keeps falling. */
   finalV: number | null;
   riseS: number;
   stepA: number;
   droop: { atS: number; droopV: number };
   settleS: number | null;
+  /** Each branch's share of the load current at each time. */
   branches: readonly { label: string; share: ArrayLike<number> }[];
 }
 

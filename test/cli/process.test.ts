@@ -41,7 +41,7 @@ describe('a reader that stops reading', () => {
     child.stdout.destroy();
     expect(await exit).toEqual({ code: 0, signal: null });
     expect(err()).not.toMatch(/EPIPE|Error|at /);
-  }, 30_000);
+  }, 60_000);
 });
 
 describe('a build stopped by a signal', () => {
@@ -52,19 +52,19 @@ describe('a build stopped by a signal', () => {
     const before = readFileSync(join(lib, '_site', 'index.html'), 'utf8');
     const build = start(['build', '--library', lib, '--workers', '0']);
     // Stopped once it is drawing charts: past loading, before the swap.
-    await vi.waitFor(() => expect(build.err()).toMatch(/charts \d/), { timeout: 30_000, interval: 20 });
+    await vi.waitFor(() => expect(build.err()).toMatch(/charts \d/), { timeout: 120_000, interval: 20 });
     build.child.kill(signal);
     expect(await build.exit).toEqual({ code: 1, signal: null });
     expect(build.err().trimEnd().split('\n').pop()).toBe(`zfolio build: stopped by ${signal}`);
     expect(readFileSync(join(lib, '_site', 'index.html'), 'utf8')).toBe(before);
     expect(readdirSync(join(lib, '._site.zfolio'))).toEqual([readlinkSync(join(lib, '_site')).split('/')[1]]);
-  }, 60_000);
+  }, 240_000);
 
   it('while printing: its Chromium is stopped too', async () => {
     const lib = join(tempDir('signal-pdf'), 'lib');
     cpSync(GOOD_LIBRARY, lib, { recursive: true });
     const build = start(['build', '--library', lib, '--workers', '0', '--pdf']);
-    await vi.waitFor(() => expect(build.err()).toMatch(/pdf \d/), { timeout: 60_000, interval: 20 });
+    await vi.waitFor(() => expect(build.err()).toMatch(/pdf \d/), { timeout: 120_000, interval: 20 });
     const browsers = execFileSync('ps', ['-o', 'pid=', '--ppid', String(build.child.pid)], { encoding: 'utf8' }).split('\n').map(Number).filter(Boolean);
     expect(browsers.length).toBeGreaterThan(0);
     build.child.kill('SIGINT');
@@ -81,7 +81,7 @@ describe('a build stopped by a signal', () => {
     // Nothing was ever put in place, and nothing is left behind.
     expect(existsSync(join(lib, '_site'))).toBe(false);
     expect(readdirSync(join(lib, '._site.zfolio'))).toEqual([]);
-  }, 120_000);
+  }, 240_000);
 });
 
 describe('a Chromium that does not start', () => {

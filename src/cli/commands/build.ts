@@ -4,7 +4,7 @@ import { relative, resolve } from 'node:path';
 import { formatDiagnostic } from '../../model/diagnostics.js';
 import { buildFolio, DEFAULT_OUT_DIR, type BuildResult } from '../../build/build.js';
 import { terminalProgress } from '../../build/progress.js';
-import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
+import { commandOptions, LIBRARY_OPTION, libraryRoot, type Parsed } from '../args.js';
 import { EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { RevisionError } from '../../history/git-revision.js';
 import { plural } from '../report.js';
@@ -80,21 +80,20 @@ export function removedPdfsText(paths: string[]): string {
   return `removed ${plural(paths.length, 'PDF')} of the last build whose inputs changed (${names}); build --pdf prints them again`;
 }
 
+/** Where a build from the command line writes (--out), and the folders it may not replace: build and serve. */
+export function outputOptions(values: Parsed['values'], io: CommandIO): { outDir?: string; cwd: string; home?: string } {
+  return { outDir: typeof values.out === 'string' ? resolve(io.cwd, values.out) : undefined, cwd: io.cwd, home: io.env.HOME };
+}
+
 export async function build(args: string[], io: CommandIO): Promise<number> {
-  const { values, positionals } = parseCommandLine(args, BUILD_OPTIONS, false);
-  if (values.help) {
-    io.out(buildHelp);
-    return EXIT_OK;
-  }
-  if (positionals.length > 0) throw new UsageError(`build takes no arguments, found ${positionals.join(' ')}`);
+  const values = commandOptions('build', args, BUILD_OPTIONS, buildHelp, io);
+  if (!values) return EXIT_OK;
   const root = libraryRoot(values, io);
   let result: BuildResult;
   try {
     result = await buildFolio({
       libraryRoot: root,
-      outDir: typeof values.out === 'string' ? resolve(io.cwd, values.out) : undefined,
-      cwd: io.cwd,
-      home: io.env.HOME,
+      ...outputOptions(values, io),
       workers: workersOption(values.workers),
       progress: terminalProgress((text) => io.err(text), io.isTTY),
       pdf: values.pdf ? { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper: paperOption(values.paper) } : undefined,

@@ -1,16 +1,16 @@
 // zfolio serve: build the folio, serve it on this machine, and rebuild when the library or a template changes.
 
 import { existsSync } from 'node:fs';
-import { relative, resolve } from 'node:path';
+import { relative } from 'node:path';
 import { formatDiagnostic } from '../../model/diagnostics.js';
 import { DEFAULT_OUT_DIR } from '../../build/build.js';
 import { terminalProgress } from '../../build/progress.js';
 import { serveFolio, type BuildReport } from '../../serve/serve.js';
 import { DEFAULT_HOST, DEFAULT_PORT } from '../../serve/static-server.js';
-import { LIBRARY_OPTION, libraryRoot, parseCommandLine } from '../args.js';
+import { commandOptions, LIBRARY_OPTION, libraryRoot } from '../args.js';
 import { EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { plural } from '../report.js';
-import { BUILD_OPTIONS, removedPdfsText, reportBuild, workersOption } from './build.js';
+import { BUILD_OPTIONS, outputOptions, removedPdfsText, reportBuild, workersOption } from './build.js';
 
 export const serveHelp = `Usage: zfolio serve [--library DIR] [--out DIR] [--port N] [--host ADDRESS]
 
@@ -103,12 +103,8 @@ export async function serve(args: string[], io: CommandIO): Promise<number> {
 
 /** The command, stopping when `stop` aborts (tests stop it this way instead of with a signal). */
 export async function serveUntil(args: string[], io: CommandIO, stop: AbortSignal): Promise<number> {
-  const { values, positionals } = parseCommandLine(args, SERVE_OPTIONS, false);
-  if (values.help) {
-    io.out(serveHelp);
-    return EXIT_OK;
-  }
-  if (positionals.length > 0) throw new UsageError(`serve takes no arguments, found ${positionals.join(' ')}`);
+  const values = commandOptions('serve', args, SERVE_OPTIONS, serveHelp, io);
+  if (!values) return EXIT_OK;
   const root = libraryRoot(values, io);
   const port = portOption(values.port);
   const host = hostOption(values.host);
@@ -119,9 +115,7 @@ export async function serveUntil(args: string[], io: CommandIO, stop: AbortSigna
   try {
     folio = await serveFolio({
       libraryRoot: root,
-      outDir: typeof values.out === 'string' ? resolve(io.cwd, values.out) : undefined,
-      cwd: io.cwd,
-      home: io.env.HOME,
+      ...outputOptions(values, io),
       port,
       host,
       workers,
