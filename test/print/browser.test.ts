@@ -16,7 +16,7 @@ let browser: Browser;
 const problems: string[] = [];
 
 beforeAll(async () => {
-  // The demo built cold, once for the run (test/setup/global.ts).
+  // The demo built cold, once for the run (test/demo-site.ts).
   site = await demoSite();
   browser = await startChrome();
 }, 240_000);

@@ -19,7 +19,7 @@ let site: string;
 let browser: Browser;
 
 beforeAll(async () => {
-  // The demo built cold, once for the run (test/setup/global.ts): every chart drawn by this code.
+  // The demo built cold, once for the run (test/demo-site.ts): every chart drawn by this code.
   site = await demoSite();
   const chrome = findChrome(undefined, process.env);
   if (!('path' in chrome)) throw new Error(`browser tests need Chromium: ${chrome.problem}`);
