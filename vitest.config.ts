@@ -3,9 +3,11 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['test/**/*.test.ts'],
-    // Once a run: dist/ compiled if stale, and the demo built once for the files that read a built demo.
+    // Once a run: dist/ compiled if stale, and a folder for the demo build the files share (test/demo-site.ts).
     globalSetup: ['test/setup/global.ts'],
-    testTimeout: 60_000,
+    // Generous: with several suites on two cores a browser test that opens ten pages took over 60 s. A time
+    // limit is not a check of speed; where speed matters, the test states its own bound.
+    testTimeout: 120_000,
     hookTimeout: 180_000,
     // Site, browser and PDF tests each build a folio; two cores, so two forks.
     pool: 'forks',
