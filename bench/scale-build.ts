@@ -9,4 +9,4 @@ const started = performance.now();
 const result = await buildFolio({ libraryRoot, outDir });
 const seconds = (performance.now() - started) / 1000;
 // maxRSS is in kilobytes (getrusage).
-console.log(JSON.stringify({ ok: result.ok, seconds, peakRssBytes: process.resourceUsage().maxRSS * 1024, reused: result.reused, pages: result.pages, error: result.diagnostics.find((d) => d.severity === 'error')?.message }));
+console.log(JSON.stringify({ ok: result.ok, seconds, peakRssBytes: process.resourceUsage().maxRSS * 1024, reused: result.reused, pages: result.pages, work: result.work, unitsKept: result.unitsKept, unitsLinked: result.unitsLinked, error: result.diagnostics.find((d) => d.severity === 'error')?.message }));

@@ -26,16 +26,18 @@ const count = (n: number) => n.toLocaleString('en-US');
 /** The same page data with every chart's inline SVG emptied: what eleventy writes when charts cost nothing. */
 function withoutSvg(folio: FolioData): FolioData {
   const bare = (c: ChartOnPage): ChartOnPage => ({ ...c, svg: '' });
-  const parts = folio.parts.map((p) => ({ ...p, charts: p.charts.map(bare) }));
-  const byId = new Map(parts.map((p) => [p.id, p]));
-  const comparisons = folio.comparisons.map((c) => ({ ...c, parts: c.parts.map((p) => byId.get(p.id)!), chart: c.chart && bare(c.chart) }));
+  const partPages = folio.partPages.map((p) => ({ ...p, charts: p.charts.map(bare) }));
+  const byId = new Map(partPages.map((p) => [p.id, p]));
+  const comparisons = folio.comparisons.map((c) => ({ ...c, chart: c.chart && bare(c.chart) }));
+  const rendered = new Set(folio.comparisonPages.map((c) => c.slug));
   return {
     ...folio,
-    parts,
+    partPages,
     comparisons,
+    comparisonPages: comparisons.filter((c) => rendered.has(c.slug)),
     ...comparisonIndex(comparisons),
     plans: folio.plans.map((p) => ({ ...p, chart: p.chart && bare(p.chart) })),
-    reviews: folio.reviews.map((r) => ({ ...r, parts: r.parts.map((p) => byId.get(p.id)!) })),
+    reviews: folio.reviews.map((r) => ({ ...r, parts: r.parts.map((p) => byId.get(p.id) ?? p) })),
   };
 }
 

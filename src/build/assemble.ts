@@ -16,12 +16,16 @@ import type { Library } from '../model/library.js';
 import type { Part } from '../model/part.js';
 import type { Plan } from '../model/plan.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
+import type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
+
+export type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
 import { escapeJsonMarkup } from '../present/escape.js';
 import { selectionText, sweepText } from '../present/part-words.js';
 import { libraryRevision } from '../history/library-revision.js';
 import { comparisonSlug } from '../present/slugs.js';
 import { comparisonIndex } from '../pages/comparison-index.js';
-import { partList, writeIndexRows } from '../pages/part-list.js';
+import { partList } from '../pages/part-list.js';
+import { listedPart, type ListedPart } from '../pages/listed-part.js';
 import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
 import { downloadSpec, SWEEP_CSV, SWEEP_CSV_DIGITS } from '../pages/spec-download.js';
 import { writeFileDeep } from './output.js';
@@ -77,9 +81,6 @@ function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimi
   return page;
 }
 
-/** A part's page data as a build records it for the next: all but its charts and its PDF link. */
-export type RecordedPage = Omit<PartPageData, 'charts' | 'pdfFile' | 'measurements'>;
-
 /**
  * A part's analysis, made the first time a figure of it is read: a chart maker needs only the part to find
  * its charts in the cache, and draws (reading the sweep) only when they are not there.
@@ -117,16 +118,23 @@ export interface AssembleOptions {
   /** Which parts (by id) and reviews (by slug) link to their PDF. */
   pdfLinks: PdfLinks;
   /**
-   * Parts whose folders (page, downloads) were carried over whole from the last build: nothing is drawn or
+   * Parts whose folders (page, downloads) are carried over whole from the last build: nothing is drawn or
    * written for them; their charts are read from the chart maker only where another page shows them. With
-   * the page data the last build recorded for them (the same, by the key it was carried over with), they
-   * are not even analysed unless a chart of theirs must be drawn again.
+   * the data the last build recorded for them (the same, by the key it was carried over with), they are
+   * not even analysed unless a page that is rendered needs more of them.
    */
-  carried?: ReadonlyMap<string, RecordedPage | undefined>;
+  carried?: ReadonlyMap<string, CarriedPart>;
+  /**
+   * The key of each unit of the site that is rendered from other parts' data (a comparison folder), and
+   * whether the last site's copy of it with that key can be kept; default: nothing is kept.
+   */
+  units?: UnitKeys;
   /** Each measured part against its measurements (src/measure/part-measurements.ts), by part id. */
   measurements?: ReadonlyMap<string, readonly PartMeasurement[]>;
   /** Filled in when given. */
   timings?: AssembleTimings;
+  /** Filled in when given: what the build had to do. */
+  work?: BuildWork;
 }
 
 export interface PdfLinks {
@@ -134,9 +142,10 @@ export interface PdfLinks {
   review(slug: string): boolean;
 }
 
-export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), measurements = new Map(), timings }: AssembleOptions): Promise<FolioData> {
+export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), units = NOTHING_KEPT, measurements = new Map(), timings, work }: AssembleOptions): Promise<FolioData> {
   const analyse = (part: Part) => {
     const started = performance.now();
+    if (work) work.partsAnalysed++;
     const a = analysePart(part, library.settings.sweep, library.settings.within, library.settings.temperature);
     if (timings) timings.analyse += (performance.now() - started) / 1000;
     return a;
@@ -147,45 +156,54 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
 
   progress.stage('charts', library.parts.length);
   // All requests at once: the chart maker spreads them over its workers and answers from its cache.
-  const parts: PartPageData[] = await Promise.all(
-    library.parts.map(async (part) => {
+  const pages = await Promise.all(
+    library.parts.map(async (part): Promise<PartPageData | ListedPart> => {
       const a = byId.get(part.id)!;
-      let page: PartPageData;
-      if (carried.has(part.id)) {
-        const drawn = shownElsewhere.has(part.id) ? (await charts.partCharts(a)).map(chartOnPage) : [];
-        const recorded = carried.get(part.id);
-        page = recorded ? { ...recorded, charts: drawn, measurements: [] } : partPageData(a, drawn);
-        if (shownElsewhere.has(part.id)) page.measurements = await measurementSections(part, measurements.get(part.id), library, charts);
+      let page: PartPageData | ListedPart;
+      const recorded = carried.get(part.id);
+      if (recorded && !shownElsewhere.has(part.id)) {
+        // Its folder is kept and no page rendered here shows more of it than a list does.
+        page = recorded.listed ?? listedPart(partPageData(a, []));
+      } else if (recorded) {
+        const drawn = (await charts.partCharts(a)).map(chartOnPage);
+        const full: PartPageData = recorded.page ? { ...recorded.page, charts: drawn, measurements: [] } : partPageData(a, drawn);
+        full.measurements = await measurementSections(part, measurements.get(part.id), library, charts);
+        page = full;
       } else {
+        if (work) work.partFolders++;
         const drawn = await charts.partCharts(a);
         const folder = join(siteDir, 'parts', part.id);
         timedWrite(timings, join(folder, SWEEP_CSV), () => sweepCsv(a, SWEEP_CSV_DIGITS));
         timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(partSummary(a)));
         writeModelFiles(part, folder, library.settings.sweep, timings);
-        page = partPageData(a, drawn.map((c) => placeChart(c, folder, timings, 'sweep')));
-        page.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
+        const full = partPageData(a, drawn.map((c) => placeChart(c, folder, timings, 'sweep')));
+        full.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
+        page = full;
       }
       progress.tick();
-      if (pdfLinks.part(part.id)) page.pdfFile = partPdfPath(part.id);
+      if (pdfLinks.part(part.id) && 'charts' in page) page.pdfFile = partPdfPath(part.id);
       return page;
     }),
   );
-  const partsById = new Map(parts.map((p) => [p.id, p]));
+  const listedById = new Map(pages.map((p) => [p.id, p]));
+  // Full page data, for part pages and review packs.
+  const fullById = new Map(pages.filter((p): p is PartPageData => 'charts' in p).map((p) => [p.id, p]));
 
-  const { pages: comparisons, byKey } = await comparisonPages(library, byId, partsById, siteDir, charts, timings);
+  const { pages: comparisons, byKey, rendered } = await comparisonPages(library, byId, listedById, siteDir, charts, units, timings, work);
   const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts, timings)));
   const reviews = library.reviews.map((r) => {
-    const page = reviewPageData(r, library, { parts: partsById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
+    const page = reviewPageData(r, library, { parts: fullById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
     if (pdfLinks.review(page.slug)) page.pdfFile = reviewPdfPath(page.slug);
     page.revision = libraryRevision(library.root, page.sources.map((x) => x.file));
     return page;
   });
   // Carried-over parts keep the page the last build wrote; only the others are rendered.
-  const partPages = parts.filter((p) => !carried.has(p.id));
-  const list = partList(parts);
-  writeIndexRows(list, siteDir, (path, text) => timedWrite(timings, path, () => text));
-  return { ...folioHeader(library), parts, partList: list, partPages, comparisons, ...comparisonIndex(comparisons), plans, reviews };
+  const partPages = [...fullById.values()].filter((p) => !carried.has(p.id));
+  const list = partList(pages);
+  return { ...folioHeader(library), parts: pages, partList: list, partPages, comparisons, comparisonPages: rendered, indexPages: list.pages, ...comparisonIndex(comparisons), plans, reviews };
 }
+
+const NOTHING_KEPT: UnitKeys = { comparison: () => '', kept: () => false };
 
 /** A part's measurement sections, their charts placed beside the page by `place` (or only drawn). */
 async function measurementSections(part: Part, found: readonly PartMeasurement[] | undefined, library: Library, charts: ChartMaker, place: (c: ChartArtifact) => ChartOnPage = chartOnPage): Promise<MeasurementPageData[]> {
@@ -224,33 +242,49 @@ async function planPage(plan: Plan, library: Library, siteDir: string, charts: C
 async function comparisonPages(
   library: Library,
   byId: ReadonlyMap<string, PartAnalysis>,
-  pagesById: ReadonlyMap<string, PartPageData>,
+  listedById: ReadonlyMap<string, ListedPart>,
   siteDir: string,
   charts: ChartMaker,
+  units: UnitKeys,
   timings?: AssembleTimings,
-): Promise<{ pages: ComparisonPageData[]; byKey: Map<string, ComparisonPageData> }> {
+  work?: BuildWork,
+): Promise<{ pages: ComparisonPageData[]; byKey: Map<string, ComparisonPageData>; rendered: ComparisonPageData[] }> {
   const pages: ComparisonPageData[] = [];
+  const rendered: ComparisonPageData[] = [];
   const byKey = new Map<string, ComparisonPageData>();
   const slugs = new Set<string>();
-  const add = async (wanted: string, page: Omit<ComparisonPageData, 'slug' | 'parts' | 'chart'>, partIds: string[]) => {
+  // A review pack prints the comparisons it names, chart and all.
+  const inReviews = new Set(library.reviews.flatMap((r) => r.comparisons.map(comparisonKey)));
+  const add = async (wanted: string, page: Omit<ComparisonPageData, 'slug' | 'parts' | 'chart'>, partIds: string[], reviewed = false) => {
     // Two files whose names differ only in characters a folder name cannot hold get distinct folders.
     let slug = wanted;
     for (let n = 2; slugs.has(slug); n++) slug = `${wanted}-${n}`;
     slugs.add(slug);
     const analyses = partIds.map((id) => byId.get(id)!);
     const folder = join(siteDir, 'comparisons', slug);
-    const chart = analyses.length > 0 ? placeChart(await charts.comparisonChart(analyses, page.title), folder, timings) : undefined;
-    const data: ComparisonPageData = { slug, ...page, parts: partIds.map((id) => pagesById.get(id)!), chart };
+    const data: ComparisonPageData = { slug, ...page, parts: partIds.map((id) => listedById.get(id)!) };
+    const kept = units.kept(`comparisons/${slug}`, units.comparison(data));
+    if (analyses.length > 0 && (!kept || reviewed)) {
+      const chart = await charts.comparisonChart(analyses, page.title);
+      data.chart = kept ? chartOnPage(chart) : placeChart(chart, folder, timings);
+    } else if (analyses.length > 0) {
+      // The page is kept (with its chart); the chart stays in the cache unread.
+      units.keepChart?.(analyses, page.title);
+    }
+    if (!kept) {
+      rendered.push(data);
+      if (work) work.comparisons++;
+    }
     pages.push(data);
     return data;
   };
   for (const c of library.comparisons) {
-    const data = await add(comparisonSlug(c), { title: c.title, description: c.description, automatic: false, selection: selectionText(c), sourceFile: c.source.path }, c.parts.map((p) => p.id));
+    const data = await add(comparisonSlug(c), { title: c.title, description: c.description, automatic: false, selection: selectionText(c), sourceFile: c.source.path }, c.parts.map((p) => p.id), inReviews.has(comparisonKey(c)));
     byKey.set(comparisonKey(c), data);
   }
   for (const f of automaticComparisons(library)) {
     const family = { kind: f.kind, packageText: f.packageText, valuesText: f.valuesText, subsetText: f.subsetText };
     await add(f.slug, { title: f.title, automatic: true, selection: f.selection, family }, f.parts.map((p) => p.id));
   }
-  return { pages, byKey };
+  return { pages, byKey, rendered };
 }

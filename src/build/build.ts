@@ -9,20 +9,27 @@ import { loadLibrary, type Library } from '../model/library.js';
 import { railVerdicts } from '../analysis/review-checks.js';
 import { reviewWarnings } from '../model/review-consistency.js';
 import type { PaperSize } from '../model/settings.js';
-import { assembleSite, type AssembleTimings } from './assemble.js';
+import { assembleSite, type BuildWork, type CarriedPart } from './assemble.js';
+import { stageClock, type BuildTimings, type StageTime } from './stage-clock.js';
 import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
 import type { Browser } from 'puppeteer-core';
 import { ChromeStartError, chromeHint, findChrome, launchChrome } from '../print/browser.js';
 import type { ChartMaker } from './chart-maker.js';
 import { ChartPool, type ChartPoolStats } from './chart-pool.js';
 import { renderPages, TEMPLATES_DIR } from './eleventy.js';
-import { checkWritable, stageOutput, type SwapStep } from './output.js';
+import { checkWritable, stageOutput, writeFileDeep, type SwapStep } from './output.js';
 import { guardOutput } from './output-guard.js';
 import type { FolioData } from '../pages/site-data.js';
 import { printJobs, type PrintedFile } from '../print/print.js';
 import { buildDate, printJobsFor, type PrintSelection } from '../print/print-jobs.js';
 import { silentProgress, type Progress } from './progress.js';
-import { dropRecord, linkPartFolders, partKey, readRecord, recordFile, reusableParts, siteKey, writeRecord } from './reuse.js';
+import { codeKey, partKey, siteKey } from './reuse.js';
+import { PartCache } from '../model/part-cache.js';
+import { dropSiteRecord, readSiteRecord, recordDir, writeSiteRecord } from './site-record.js';
+import { SiteUnits } from './carry-over.js';
+import { carriedPart, partData } from './part-record.js';
+import { comparisonPageKey, listPages } from './page-keys.js';
+import type { PartAnalysis } from '../analysis/part-figures.js';
 import { keptPdfs, linkPdfs, pdfKeys, pdfsIn, stampPdfs } from './pdf-reuse.js';
 import { buildHistory, type BuildHistory } from './build-history.js';
 import { addChanges } from '../pages/changes-page.js';
@@ -84,6 +91,12 @@ export interface BuildResult {
   pdfProblem?: string;
   /** Parts whose folders were carried over unchanged from the last build. */
   reused: number;
+  /** Units of the site (part and comparison folders, index pages, row scripts) left as the spare version had them. */
+  unitsKept: number;
+  /** Units hard-linked from the last site. */
+  unitsLinked: number;
+  /** What the build had to do (counts), in proportion to what changed. */
+  work: BuildWork;
   /** Without printing: PDFs of the last build kept because their inputs are unchanged. */
   keptPdfs: number;
   /** Without printing: PDFs of the last build that were not kept (site-relative paths). */
@@ -93,32 +106,7 @@ export interface BuildResult {
   timings: BuildTimings;
 }
 
-/** Wall-clock seconds and CPU seconds of the whole process (every thread) spent in one stage. */
-export interface StageTime {
-  seconds: number;
-  cpuSeconds: number;
-}
-
-export interface BuildTimings {
-  /** Reading and checking the library; finding what the last build left that can be reused. */
-  load: StageTime;
-  /** Analyses, charts and downloads: the site's data. */
-  assemble: StageTime & AssembleTimings;
-  /** Eleventy rendering and writing the pages, the static assets, and linking the carried-over part folders. */
-  pages: StageTime;
-  pdf: StageTime;
-  /** Putting the new site in place of the old, and recording what it holds. */
-  swap: StageTime;
-}
-
-function stageClock(): () => StageTime {
-  const wall = performance.now();
-  const cpu = process.cpuUsage();
-  return () => {
-    const used = process.cpuUsage(cpu);
-    return { seconds: (performance.now() - wall) / 1000, cpuSeconds: (used.user + used.system) / 1e6 };
-  };
-}
+export type { BuildTimings, StageTime } from './stage-clock.js';
 
 export const DEFAULT_OUT_DIR = '_site';
 /** Under the library; listed in .gitignore. */
@@ -135,8 +123,12 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   // Before anything is read or written: a refused output leaves the disk exactly as it was.
   guardOutput(outDir, { libraryRoot, cwd: options.cwd ?? process.cwd(), home: options.home });
   checkWritable(outDir);
-  const { library, diagnostics } = loadLibrary(libraryRoot);
-  const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, keptPdfs: 0, removedPdfs: [], timings };
+  // Part files unchanged since the last build are taken from the cache, not read and parsed again.
+  const partCache = options.cache === false ? undefined : new PartCache(libraryRoot, join(resolve(libraryRoot, options.cache ?? CACHE_DIR), 'parts'), codeKey());
+  const { library, diagnostics } = loadLibrary(libraryRoot, { partCache });
+  partCache?.save();
+  const work = { filesParsed: partCache?.counts.parsed ?? library?.parts.length ?? 0, partsAnalysed: 0, partFolders: 0, comparisons: 0, listFiles: 0, pagesRendered: 0 };
+  const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, unitsKept: 0, unitsLinked: 0, work, keptPdfs: 0, removedPdfs: [], timings };
   if (!library) return result;
   result.library = library;
   // Warnings that need the analysis: a review that accepts a rail failing its target.
@@ -182,13 +174,13 @@ interface Running {
 
 async function buildWith(options: BuildOptions, library: Library, outDir: string, browser: Browser | undefined, result: BuildResult, run: Running): Promise<BuildResult> {
   const { progress } = run;
-  const { timings } = result;
+  const { timings, work } = result;
   let clock = run.clock;
   const cacheRoot = options.cache === false ? undefined : resolve(library.root, options.cache ?? CACHE_DIR);
   const site = siteKey(library);
-  // Part folders can be carried over only when charts come from the cache-keyed pool.
-  const recordAt = cacheRoot && !options.charts ? recordFile(cacheRoot, outDir) : undefined;
-  const record = recordAt ? readRecord(recordAt, outDir) : undefined;
+  // Units can be carried over only when charts come from the cache-keyed pool.
+  const recordAt = cacheRoot && !options.charts ? recordDir(cacheRoot, outDir) : undefined;
+  const record = recordAt ? readSiteRecord(recordAt, outDir) : undefined;
   // PDFs: printed afresh with a browser; without one, the last site's are kept where their inputs are unchanged.
   const keys = pdfKeys(library, site, (slug) => run.history.reviews.get(slug)?.revision.commit ?? '');
   const earlier = browser ? [] : pdfsIn(outDir);
@@ -197,55 +189,77 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     part: (id: string) => Boolean(browser) || kept.has(partPdfPath(id)),
     review: (slug: string) => Boolean(browser) || kept.has(reviewPdfPath(slug)),
   };
-  const partKeys = new Map(recordAt ? library.parts.map((p) => [p.id, partKey(site, p, pdfLinks.part(p.id))]) : []);
   const staging = stageOutput(outDir, { onStep: options.onSwapStep });
   let pool: ChartPool | undefined;
   try {
-    const carried = reusableParts(record, partKeys, outDir);
+    const units = new SiteUnits(recordAt ? record : undefined, record?.spare && staging.claim(record.spare.name), outDir);
+    const partKeys = new Map(library.parts.map((p) => [p.id, partKey(site, p, pdfLinks.part(p.id))]));
+    const partKeyOf = (id: string) => partKeys.get(id) ?? '';
+    const carried = new Map<string, CarriedPart>();
+    for (const part of library.parts) if (recordAt && units.kept(`parts/${part.id}`, partKeys.get(part.id)!)) carried.set(part.id, carriedPart(units.recorded(`parts/${part.id}`)));
     const fresh = library.parts.length - carried.size;
     pool = options.charts ? undefined : chartPoolFor(library, options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), cacheRoot ? join(cacheRoot, 'charts') : false);
     for (const part of library.parts) if (carried.has(part.id)) pool?.keepPartCharts({ part });
     timings.load = clock();
 
     clock = stageClock();
-    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, measurements: result.measurements, timings: timings.assemble });
+    const unitKeys = {
+      comparison: (page: Parameters<typeof comparisonPageKey>[1]) => comparisonPageKey(site, page, partKeyOf),
+      kept: (unit: string, key: string) => Boolean(recordAt) && units.kept(unit, key),
+      keepChart: (analyses: PartAnalysis[], title: string) => pool?.keepComparisonChart(analyses, title),
+    };
+    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, units: unitKeys, measurements: result.measurements, timings: timings.assemble, work });
     await addChanges(folio, run.history, options.charts ?? pool!, staging.dir);
     await pool?.close();
+    work.listFiles = listPages(folio, site, partKeyOf, unitKeys.kept, staging.dir, writeFileDeep);
     Object.assign(timings.assemble, clock());
 
     clock = stageClock();
     progress.stage('pages', 1);
     const written = await renderPages(staging.dir, folio);
+    work.pagesRendered = written;
     progress.tick();
     cpSync(join(TEMPLATES_DIR, 'assets'), join(staging.dir, 'assets'), { recursive: true });
-    // Links into the last site come last, so that nothing is written through them into it.
-    const linked = linkPartFolders(record, carried.keys(), outDir, staging.dir);
-    linkPdfs(kept, outDir, staging.dir);
     timings.pages = clock();
 
     if (browser && options.pdf) {
       clock = stageClock();
+      // Printing reads the whole site: it is made first (the spare updated, or the live site's units linked).
+      units.assemble(staging.dir);
       const paper = options.pdf.paper ?? library.settings.paper;
       const date = options.pdf.date ?? buildDate(options.pdf.env);
-      const printed = await printJobs(browser, printJobsFor(library, folio, staging.dir, date, options.pdf.select), paper, date, progress);
-      result.pdfs = printed.map((p) => ({ ...p, pdfFile: relative(staging.dir, p.pdfFile).split(sep).join('/') }));
+      const siteDir = units.target(staging.dir);
+      const printed = await printJobs(browser, printJobsFor(library, folio, siteDir, date, options.pdf.select), paper, date, progress);
+      result.pdfs = printed.map((p) => ({ ...p, pdfFile: relative(siteDir, p.pdfFile).split(sep).join('/') }));
       timings.pdf = clock();
     }
 
     clock = stageClock();
+    if (!browser) {
+      // Links into the last site come last, so that nothing is written through them into it.
+      linkPdfs(kept, outDir, staging.dir);
+      units.assemble(staging.dir);
+    }
+    const target = units.target(staging.dir);
+    const reviewed = new Set(library.reviews.flatMap((r) => r.parts.map((p) => p.id)));
+    const full = new Map([...folio.reviews.flatMap((r) => r.parts), ...folio.partPages].map((p) => [p.id, p]));
+    for (const p of folio.parts) units.setData(`parts/${p.id}`, partData(full.get(p.id) ?? p, reviewed.has(p.id), units.recorded(`parts/${p.id}`)));
     // The record is dropped before the swap and written after it, so it never describes a site not in place.
-    if (recordAt) dropRecord(recordAt);
-    staging.commit();
+    if (recordAt) dropSiteRecord(recordAt);
+    const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) });
     if (recordAt) {
       const pdfs = stampPdfs(browser ? result.pdfs.map((p) => p.pdfFile) : kept, keys, outDir);
-      writeRecord(recordAt, outDir, partKeys, new Map(folio.parts.map((p) => [p.id, p])), record, linked, pdfs);
+      writeSiteRecord(recordAt, units.nextRecord(target, replaced, pdfs));
     }
     timings.swap = clock();
+    const from = units.counts();
     Object.assign(result, {
       ok: true,
       parts: folio.parts.length,
-      pages: written + carried.size,
+      pages: written + carried.size + (folio.comparisons.length - folio.comparisonPages.length) + (folio.partList.pages.length - folio.indexPages.length),
       reused: carried.size,
+      unitsKept: from.spare,
+      unitsLinked: from.live,
       keptPdfs: kept.size,
       removedPdfs: earlier.filter((p) => !kept.has(p)),
       charts: pool?.stats,

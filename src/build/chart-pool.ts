@@ -86,8 +86,17 @@ export class ChartPool implements ChartMaker {
     this.usedKeys.add(this.key('part', a.part.source.hash));
   }
 
+  /** Keep a comparison's cached chart through this build's pruning without reading it (its page is kept). */
+  keepComparisonChart(analyses: Pick<PartAnalysis, 'part'>[], title: string): void {
+    this.usedKeys.add(this.comparisonKey(analyses, title));
+  }
+
+  private comparisonKey(analyses: Pick<PartAnalysis, 'part'>[], title: string): string {
+    return this.key('comparison', title, ...analyses.map((a) => a.part.source.hash));
+  }
+
   async comparisonChart(analyses: PartAnalysis[], title: string): Promise<ChartArtifact> {
-    const key = this.key('comparison', title, ...analyses.map((a) => a.part.source.hash));
+    const key = this.comparisonKey(analyses, title);
     const [chart] = await this.cached(key, () => this.run({ type: 'comparison', inputs: analyses.map(chartInput), title }));
     return chart;
   }

@@ -23,9 +23,19 @@ export type SwapStep = 'staged' | 'linked' | 'moved-aside' | 'swapped' | 'cleane
 export interface Staging {
   /** Where to write the new site. */
   dir: string;
-  /** Put the new site in place of the old one. */
-  commit(): void;
-  /** Throw the staging folder away. */
+  /**
+   * Take an earlier version in the holding folder, one the site path does not point at, to update in place
+   * into the new site (renamed to a name of this process, so a build killed while changing it leaves it to
+   * be removed as its leftover). Returns its path, or undefined when it is not there (or another build took it).
+   */
+  claim(name: string): string | undefined;
+  /**
+   * Put the new site in place of the old one: `version` (the staging folder, or a claimed version), default
+   * the staging folder. With `keepReplaced`, the version it replaces stays in the holding folder (the next
+   * build updates it); returns that version's name.
+   */
+  commit(options?: { version?: string; keepReplaced?: boolean }): { replaced?: string };
+  /** Throw the staging folder (and a claimed version) away. */
   abandon(): void;
 }
 
@@ -115,20 +125,38 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
   // Written first, so that whatever of this folder ends up at the site path, the next build recognises it.
   writeFileSync(join(dir, SITE_MARKER), MARKER_TEXT);
   let link: string | undefined;
+  let claimed: string | undefined;
   const abandon = () => {
     if (link) rmSync(link, { force: true });
     rmSync(dir, { recursive: true, force: true });
+    if (claimed) rmSync(claimed, { recursive: true, force: true });
   };
   // A process stopped before the swap removes its staging folder on the way out.
   const done = untilDone(abandon);
   return {
     dir,
-    commit() {
+    claim(earlier) {
+      const current = entryKind(sitePath) === 'link' ? readlinkSync(sitePath).split(/[/\\]/).pop() : undefined;
+      if (claimed || !VERSION_NAME.test(earlier) || earlier === current) return undefined;
+      const to = join(holding, `site-${unique()}`);
+      try {
+        renameSync(join(holding, earlier), to);
+      } catch {
+        return undefined;
+      }
+      claimed = to;
+      return to;
+    },
+    commit(options = {}) {
       done();
+      const chosen = options.version ?? dir;
+      if (chosen !== dir && chosen !== claimed) throw new Error(`not a version of this build: ${chosen}`);
+      const chosenName = basename(chosen);
       step('staged');
       link = join(holding, `link-${unique()}`);
+      const current = entryKind(sitePath) === 'link' ? readlinkSync(sitePath).split(/[/\\]/).pop() : undefined;
       try {
-        symlinkSync(`${holdingName(name)}/${version}`, link);
+        symlinkSync(`${holdingName(name)}/${chosenName}`, link);
       } catch {
         link = undefined; // no symbolic links here: the site path stays a real folder
       }
@@ -143,15 +171,19 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
         throw new OutputRefused(`will not write the site to ${sitePath}: it changed during the build and is no longer a site zfolio wrote`);
       }
       try {
-        renameSync(link ?? dir, sitePath);
+        renameSync(link ?? chosen, sitePath);
       } catch (error) {
         if (aside) renameSync(aside, sitePath); // put the old site back
         throw error;
       }
       link = undefined;
+      claimed = undefined;
       step('swapped');
-      removeLeftovers(sitePath);
+      // Only a version the link replaced is kept: a real folder moved aside is not one the record describes.
+      const replaced = options.keepReplaced && !aside && current && VERSION_NAME.test(current) ? current : undefined;
+      removeLeftovers(sitePath, replaced);
       step('cleaned');
+      return { replaced };
     },
     abandon() {
       done();
@@ -165,7 +197,7 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
  * that is gone (a killed build), and the staging and previous folders the two-rename swap of older zfolio
  * versions left beside the site. Best effort: the new site is in place whatever happens here.
  */
-export function removeLeftovers(sitePath: string): void {
+export function removeLeftovers(sitePath: string, keep?: string): void {
   const parent = dirname(sitePath);
   const name = basename(sitePath);
   const holding = join(parent, holdingName(name));
@@ -182,7 +214,7 @@ export function removeLeftovers(sitePath: string): void {
     const pid = Number(owner[1]);
     // Whose first, then whether it is current: a build that is gone cannot make its version current later.
     if (pid !== process.pid && alive(pid)) continue;
-    if (entry === current()) continue;
+    if (entry === current() || entry === keep) continue;
     try {
       rmSync(join(holding, entry), { recursive: true, force: true });
     } catch {

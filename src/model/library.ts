@@ -1,7 +1,8 @@
 // A library folder: folio.yaml and every part file under parts/, read and checked as a whole.
 
 import { isMap, type Node } from 'yaml';
-import { DiagnosticList, formatPosition, quote, type Diagnostic, type SourcePosition } from './diagnostics.js';
+import { DiagnosticList, PER_FILE_LIMIT, formatPosition, quote, type Diagnostic, type SourcePosition } from './diagnostics.js';
+import type { PartCache } from './part-cache.js';
 import { scalarText } from './fields.js';
 import { entryExists, libraryFolder, readLibraryFile, yamlFilesUnder } from './library-files.js';
 import { MAX_ID_LENGTH, fileStem, pageName } from './page-names.js';
@@ -43,15 +44,21 @@ export interface LoadResult {
 /** YAML files under `dir` at any depth, as library-relative paths with forward slashes, sorted. */
 export { yamlFilesUnder } from './library-files.js';
 
-export function loadLibrary(root: string): LoadResult {
+export interface LoadOptions {
+  /** Parts read before (part-cache.ts): a part file unchanged since is not read or parsed again. */
+  partCache?: PartCache;
+}
+
+export function loadLibrary(root: string, options: LoadOptions = {}): LoadResult {
   const diagnostics = new DiagnosticList();
   const sources: SourceFile[] = [];
-  const read = (path: string): SourceFile | undefined => {
-    const text = readLibraryFile(root, path, diagnostics);
-    const source = text === undefined ? undefined : parseYamlSource(path, text, diagnostics);
+  const read = (path: string, into = diagnostics): SourceFile | undefined => {
+    const text = readLibraryFile(root, path, into);
+    const source = text === undefined ? undefined : parseYamlSource(path, text, into);
     if (source) sources.push(source);
     return source;
   };
+  const cache = options.partCache;
   const filesOf = (folder: string) => (libraryFolder(root, folder, diagnostics) === 'folder' ? yamlFilesUnder(root, folder, diagnostics) : []);
 
   let settings: FolioSettings | undefined = { ...DEFAULT_SETTINGS };
@@ -70,15 +77,32 @@ export function loadLibrary(root: string): LoadResult {
   const declared = new Map<string, { id: string; at: SourcePosition }>();
   const unreadableParts = new Map<string, string>();
   for (const path of partsFolder === 'folder' ? yamlFilesUnder(root, 'parts', diagnostics) : []) {
-    const source = read(path);
-    if (!source) continue;
-    const own = declaredId(source);
+    const stamp = cache?.stamp(path);
+    const cached = cache?.lookup(path, stamp);
+    let part: Part | undefined;
+    let own: { id: string; at: SourcePosition } | undefined;
+    if (cached) {
+      ({ part, declared: own } = cached);
+      sources.push(part.source);
+      for (const d of cached.diagnostics) diagnostics.warning(d, d.message);
+    } else {
+      // With a cache, the file's own problems are gathered apart, to be kept with the part.
+      const fileProblems = cache ? new DiagnosticList() : diagnostics;
+      const source = read(path, fileProblems);
+      own = source && declaredId(source);
+      part = source && readPart({ source, diagnostics: fileProblems });
+      if (cache && fileProblems !== diagnostics) {
+        const found = fileProblems.sorted();
+        for (const d of found) (d.severity === 'error' ? diagnostics.error(d, d.message) : diagnostics.warning(d, d.message));
+        if (part && own && fileProblems.errorCount === 0 && found.length <= PER_FILE_LIMIT && found.every((d) => d.file === path)) cache.store(path, stamp, { part, declared: own, diagnostics: found });
+        else cache.parsed(path);
+      }
+    }
     const earlier = own && declared.get(own.id.toLowerCase());
     if (own && earlier) {
       const how = earlier.id === own.id ? `duplicate id ${quote(own.id)}` : `id ${quote(own.id)} differs from ${quote(earlier.id)} only in letter case, and their pages would collide on many file systems`;
       diagnostics.error(own.at, `${how}: already defined at ${formatPosition(earlier.at)}`);
     } else if (own) declared.set(own.id.toLowerCase(), own);
-    const part = readPart({ source, diagnostics });
     if (!part && own && !earlier) unreadableParts.set(own.id, path);
     if (!part || (own && earlier)) continue;
     partsById.set(part.id, part);

@@ -6,7 +6,7 @@
 
 import { join } from 'node:path';
 import { escapeJsonMarkup } from '../present/escape.js';
-import type { PartPageData } from './site-data.js';
+import type { ListedPart } from './listed-part.js';
 
 /** Rows on one page of the index: enough for a screenful of scrolling, little enough to render at once. */
 export const INDEX_PAGE_SIZE = 200;
@@ -23,7 +23,7 @@ export interface IndexPage {
   /** From ... to (1-based) of the whole list. */
   first: number;
   last: number;
-  parts: PartPageData[];
+  parts: ListedPart[];
 }
 
 export interface PartList {
@@ -34,9 +34,9 @@ export interface PartList {
   pageSize: number;
 }
 
-const byId = (a: PartPageData, b: PartPageData) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
+const byId = (a: ListedPart, b: ListedPart) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
 
-export function partList(parts: readonly PartPageData[], pageSize = INDEX_PAGE_SIZE, chunkSize = ROWS_PER_CHUNK): PartList {
+export function partList(parts: readonly ListedPart[], pageSize = INDEX_PAGE_SIZE, chunkSize = ROWS_PER_CHUNK): PartList {
   const sorted = [...parts].sort(byId);
   const count = Math.max(1, Math.ceil(sorted.length / pageSize));
   const pages = Array.from({ length: count }, (_, i) => {
@@ -51,7 +51,7 @@ export function partList(parts: readonly PartPageData[], pageSize = INDEX_PAGE_S
  * One row of the index as the script draws it; the order of fields is the script's (templates/assets/folio.js).
  * Sort values are numbers, or "" where there is none, as the table's data-value attributes.
  */
-export function indexRow(p: PartPageData): (string | number)[] {
+export function indexRow(p: ListedPart): (string | number)[] {
   return [
     p.id,
     p.title,
@@ -73,17 +73,24 @@ export function indexRow(p: PartPageData): (string | number)[] {
   ];
 }
 
-/** The script files of the index's rows, by site-relative path: each hands its rows to the page's script. */
-export function indexRowFiles(list: PartList): Map<string, string> {
-  const files = new Map<string, string>();
-  if (list.chunks.length === 0) return files;
+/** The rows of each script file of the index, by site-relative path. */
+export function indexRowChunks(list: PartList): Map<string, ListedPart[]> {
+  const chunks = new Map<string, ListedPart[]>();
+  if (list.chunks.length === 0) return chunks;
   const sorted = list.pages.flatMap((p) => p.parts);
   const size = Math.ceil(sorted.length / list.chunks.length);
-  list.chunks.forEach((file, i) => {
-    const rows = sorted.slice(i * size, (i + 1) * size).map(indexRow);
-    files.set(file, `zfolioIndexRows(${i}, ${escapeJsonMarkup(JSON.stringify(rows))});\n`);
-  });
-  return files;
+  list.chunks.forEach((file, i) => chunks.set(file, sorted.slice(i * size, (i + 1) * size)));
+  return chunks;
+}
+
+/** A script file of the index's rows: it hands its rows to the page's script. */
+export function indexRowScript(list: PartList, file: string, rows: readonly ListedPart[]): string {
+  return `zfolioIndexRows(${list.chunks.indexOf(file)}, ${escapeJsonMarkup(JSON.stringify(rows.map(indexRow)))});\n`;
+}
+
+/** The script files of the index's rows, by site-relative path. */
+export function indexRowFiles(list: PartList): Map<string, string> {
+  return new Map([...indexRowChunks(list)].map(([file, rows]) => [file, indexRowScript(list, file, rows)]));
 }
 
 /** Write the index's row files into the site. */

@@ -11,6 +11,7 @@ import { VERSION } from '../version.js';
 import { MAINS_LEGEND, mainsMark, type MainsMark } from '../present/mains.js';
 import type { ComparisonIndex } from './comparison-index.js';
 import { KIND_ORDER, partFamilies, type PartFamily } from './families.js';
+import type { ListedPart } from './listed-part.js';
 import type { PartList } from './part-list.js';
 import { partPageText, type PartPageText } from './part-page.js';
 import { SWEEP_CSV_DIGITS } from './spec-download.js';
@@ -65,7 +66,7 @@ export interface ComparisonPageData {
   automatic: boolean;
   selection: string;
   sourceFile?: string;
-  parts: PartPageData[];
+  parts: ListedPart[];
   chart?: ChartOnPage;
   /** An automatic comparison's place among the part families (families.ts). */
   family?: { kind: PartKind; packageText: string; valuesText: string; subsetText: string };
@@ -85,12 +86,17 @@ export interface FolioData extends ComparisonIndex {
   kindCounts: { kind: PartKind; label: string; count: number }[];
   /** The index's legend for mains marks, when the library holds a mains part. */
   mainsLegend?: string;
-  parts: PartPageData[];
+  /** Every part, as the pages that list parts show it. */
+  parts: ListedPart[];
   /** The parts index in pages (part-list.ts). */
   partList: PartList;
   /** The parts whose pages this build renders (all but those carried over from the last build). */
   partPages: PartPageData[];
   comparisons: ComparisonPageData[];
+  /** The comparisons whose pages this build renders (all but those carried over). */
+  comparisonPages: ComparisonPageData[];
+  /** The index pages this build renders (all but those carried over). */
+  indexPages: PartList['pages'];
   plans: PlanPageData[];
   reviews: ReviewPageData[];
 }
@@ -144,7 +150,7 @@ export function kindCounts(library: Library): FolioData['kindCounts'] {
     .filter((k) => k.count > 0);
 }
 
-export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partList' | 'partPages' | 'comparisons' | 'plans' | 'reviews' | keyof ComparisonIndex> {
+export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partList' | 'partPages' | 'comparisons' | 'comparisonPages' | 'indexPages' | 'plans' | 'reviews' | keyof ComparisonIndex> {
   const s = library.settings;
   return {
     title: s.title,

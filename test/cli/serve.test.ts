@@ -153,7 +153,7 @@ describe('zfolio serve: a real process', () => {
     child.stdout.on('data', (chunk) => (out += chunk));
     const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
     try {
-      await vi.waitFor(() => expect(out).toContain('press Ctrl+C to stop'), { timeout: 30_000, interval: 50 });
+      await vi.waitFor(() => expect(out).toContain('press Ctrl+C to stop'), { timeout: 90_000, interval: 50 });
       const url = /at (http:\/\/127\.0\.0\.1:\d+\/)/.exec(out)![1];
       expect((await fetch(url)).status).toBe(200);
       child.kill(signal);
@@ -162,9 +162,15 @@ describe('zfolio serve: a real process', () => {
       await expect(fetch(url)).rejects.toThrow();
       expect(existsSync(join(tmp, 'lib', '_site', 'index.html'))).toBe(true);
       expect(readFileSync(join(tmp, 'lib', '_site', 'index.html'), 'utf8')).toContain('CAP-TEST-100N');
-      expect(readdirSync(join(tmp, 'lib', '._site.zfolio'))).toEqual([readlinkSync(join(tmp, 'lib', '_site')).split('/')[1]]);
+      // The current version, and at most the one it replaced (kept as the next build's spare): no staging folder.
+      const versions = readdirSync(join(tmp, 'lib', '._site.zfolio'));
+      const current = readlinkSync(join(tmp, 'lib', '_site')).split('/')[1];
+      expect(versions).toContain(current);
+      expect(versions.length).toBeLessThanOrEqual(2);
+      const recordRoots = readdirSync(join(tmp, 'lib', '.zfolio-cache', 'builds')).map((d) => JSON.parse(readFileSync(join(tmp, 'lib', '.zfolio-cache', 'builds', d, 'root.json'), 'utf8')) as { live?: { name: string }; spare?: { name: string } });
+      expect(versions.filter((v) => v !== current)).toEqual(recordRoots.flatMap((r) => (r.spare ? [r.spare.name] : [])).filter((v) => versions.includes(v)));
     } finally {
       if (child.exitCode === null) child.kill('SIGKILL');
     }
-  }, 60_000);
+  }, 150_000);
 });

@@ -1,0 +1,198 @@
+// What a rebuild carries over, and how the new site is made from the last two. A build writes what it makes
+// afresh into its staging folder; when the record (site-record.ts) names a spare version (the site before the
+// one at the site path), the build takes that version and updates it in place into the new site: it removes
+// the units whose keys changed and the files it no longer has, moves the staging folder's files in, and
+// hard-links the units the last build made (which the spare does not have yet) from the live site. Units the
+// spare already holds with the wanted key are not touched at all, so a rebuild after one edit moves, links
+// and records a handful of files however large the library is. The spare is not served while this happens;
+// the site path still shows the live site until the swap (output.ts), and a build killed on the way leaves
+// the spare under its own name, removed by the next build as a leftover.
+//
+// Without a spare (the first rebuild, or a record lost), the staging folder becomes the new version, and
+// every unit carried over is hard-linked into it from the live site.
+
+import { constants, copyFileSync, linkSync, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmdirSync, rmSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import { sameStamp, unitStamp, VersionRecord, type SiteRecord, type UnitEntry } from './site-record.js';
+
+type Source = 'spare' | 'live' | 'fresh';
+
+interface Wanted {
+  key: string;
+  from: Source;
+  data?: unknown;
+}
+
+/** Part folders and comparison folders are units as a whole; index pages and row scripts are files. */
+export const isFolderUnit = (unit: string) => unit.startsWith('parts/') || (unit.startsWith('comparisons/') && unit !== 'comparisons/index.html');
+
+export class SiteUnits {
+  private readonly wanted = new Map<string, Wanted>();
+  /** The live version's folder, when the record describes the version at the site path. */
+  private readonly liveDir?: string;
+
+  /**
+   * `record`: the last build's; `spareDir`: the spare version this build claimed (see output.ts), if any;
+   * `outDir`: the site path.
+   */
+  constructor(
+    private readonly record: SiteRecord | undefined,
+    private readonly spareDir: string | undefined,
+    private readonly outDir: string,
+  ) {
+    if (record?.live && currentVersion(outDir) === record.live.name) this.liveDir = outDir;
+  }
+
+  /** Where the new site is made: the claimed spare, or (without one) the staging folder. */
+  target(staging: string): string {
+    return this.spareDir ?? staging;
+  }
+
+  /**
+   * Whether the unit with this key can be left as the last sites have it (true), or must be made afresh
+   * into the staging folder (false). Every unit of the new site goes through here once.
+   */
+  kept(unit: string, key: string): boolean {
+    const from = this.source(unit, key);
+    this.wanted.set(unit, { key, from });
+    return from !== 'fresh';
+  }
+
+  /** The data recorded with a unit (a part's listed data), when it is kept. */
+  recorded(unit: string): unknown {
+    const w = this.wanted.get(unit);
+    if (!w || w.from === 'fresh') return undefined;
+    return (w.from === 'spare' ? this.record?.spare : this.record?.live)?.get(unit)?.data;
+  }
+
+  /** Data to record with a unit (kept or made afresh). */
+  setData(unit: string, data: unknown): void {
+    const w = this.wanted.get(unit);
+    if (w) w.data = data;
+  }
+
+  /** Counts by where each unit comes from. */
+  counts(): Record<Source, number> {
+    const counts = { spare: 0, live: 0, fresh: 0 };
+    for (const w of this.wanted.values()) counts[w.from]++;
+    return counts;
+  }
+
+  private source(unit: string, key: string): Source {
+    const folder = isFolderUnit(unit);
+    const spare = this.spareDir ? this.record?.spare?.get(unit) : undefined;
+    if (spare?.key === key && sameStamp(spare.stamp, unitStamp(join(this.spareDir!, unit), folder))) return 'spare';
+    const live = this.liveDir ? this.record?.live?.get(unit) : undefined;
+    if (live?.key === key && sameStamp(live.stamp, unitStamp(join(this.liveDir!, unit), folder))) return 'live';
+    return 'fresh';
+  }
+
+  /**
+   * Make the new site in `target(staging)`: the staging folder's files moved into the spare (when there is
+   * one), then the units from the live site linked. Call once everything is written into the staging
+   * folder, so that nothing is written through a link into the live site.
+   */
+  assemble(staging: string): void {
+    const target = this.target(staging);
+    if (target !== staging) {
+      const keptHere = new Set<string>();
+      for (const [unit] of this.record!.spare!.units()) {
+        if (this.wanted.get(unit)?.from === 'spare') keptHere.add(unit);
+        else rmSync(join(target, unit), { recursive: true, force: true });
+      }
+      removeStale(target, staging, '', keptHere);
+      moveInto(staging, target, '', this.wanted);
+    }
+    for (const [unit, w] of this.wanted) if (w.from === 'live') linkUnit(join(this.liveDir!, unit), join(target, unit));
+  }
+
+  /**
+   * The record of the new site (in `target`, now at the site path) and of the version it replaced, kept
+   * as the next build's spare when `replaced` names it.
+   */
+  nextRecord(target: string, replaced: string | undefined, pdfs: SiteRecord['pdfs']): SiteRecord {
+    const name = basename(target);
+    const base = this.spareDir ? this.record!.spare!.renamed(name) : new VersionRecord(name);
+    if (this.spareDir) for (const [unit] of this.record!.spare!.units()) if (!this.wanted.has(unit)) base.delete(unit);
+    for (const [unit, w] of this.wanted) {
+      const before = this.spareDir ? base.get(unit) : undefined;
+      if (w.from === 'spare' && before && sameData(before, w)) continue;
+      const stamp = w.from === 'spare' && before ? before.stamp : unitStamp(join(target, unit), isFolderUnit(unit));
+      const entry: UnitEntry = { key: w.key, stamp };
+      if (w.data !== undefined) entry.data = w.data;
+      base.set(unit, entry);
+    }
+    const spare = replaced && this.record?.live?.name === replaced && this.liveDir ? this.record.live : undefined;
+    return { outDir: this.outDir, live: base, spare, pdfs };
+  }
+}
+
+/** A kept unit's recorded data is the same object when nothing set it again (and equal when it was). */
+const sameData = (entry: UnitEntry, w: Wanted) => w.data === undefined || entry.data === w.data || JSON.stringify(entry.data) === JSON.stringify(w.data);
+
+/** The name of the version the site path links to. */
+export function currentVersion(sitePath: string): string | undefined {
+  try {
+    return lstatSync(sitePath).isSymbolicLink() ? readlinkSync(sitePath).split(/[/\\]/).pop() : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/** Remove from `target` every file that is not in a kept unit and that the staging folder does not hold. */
+function removeStale(target: string, staging: string, relative: string, kept: ReadonlySet<string>): void {
+  const dir = join(target, relative);
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    const path = relative ? `${relative}/${entry.name}` : entry.name;
+    if (kept.has(path)) continue;
+    if (entry.isDirectory()) {
+      removeStale(target, staging, path, kept);
+      if (readdirSync(join(target, path)).length === 0 && !exists(join(staging, path))) rmdirSync(join(target, path));
+    } else if (!exists(join(staging, path))) rmSync(join(target, path), { force: true });
+  }
+}
+
+/** Move the staging folder's files into `target`: a unit folder in one rename, other files one by one. */
+function moveInto(staging: string, target: string, relative: string, units: ReadonlyMap<string, Wanted>): void {
+  for (const entry of readdirSync(join(staging, relative), { withFileTypes: true })) {
+    const path = relative ? `${relative}/${entry.name}` : entry.name;
+    const from = join(staging, path);
+    const to = join(target, path);
+    if (entry.isDirectory() && !units.has(path)) {
+      mkdirSync(to, { recursive: true });
+      moveInto(staging, target, path, units);
+    } else {
+      if (entry.isDirectory()) rmSync(to, { recursive: true, force: true });
+      mkdirSync(dirname(to), { recursive: true });
+      renameSync(from, to);
+    }
+  }
+}
+
+/** Hard-link a unit (a folder's files, or a file) from the live site; a copy where links cannot be made. */
+function linkUnit(from: string, to: string): void {
+  rmSync(to, { recursive: true, force: true });
+  const one = (a: string, b: string) => {
+    try {
+      linkSync(a, b);
+    } catch {
+      copyFileSync(a, b, constants.COPYFILE_EXCL);
+    }
+  };
+  if (!lstatSync(from).isDirectory()) {
+    mkdirSync(dirname(to), { recursive: true });
+    one(from, to);
+    return;
+  }
+  mkdirSync(to, { recursive: true });
+  for (const name of readdirSync(from)) one(join(from, name), join(to, name));
+}
+
+function exists(path: string): boolean {
+  try {
+    lstatSync(path);
+    return true;
+  } catch {
+    return false;
+  }
+}

@@ -1,0 +1,195 @@
+// The record of the sites a build left: for the version at the site path (live) and for the one it replaced
+// (spare, kept in the holding folder for the next build to update in place), what each unit of the site
+// holds. A unit is a part folder (parts/ID), a comparison folder (comparisons/SLUG), an index page or a row
+// script of the index: something the build can leave as it is when its key is unchanged. Each unit has a key
+// (everything its bytes are made of, hashed), a stamp (size, mtime and inode of what a hand edit would touch)
+// and, for a part, the data the index and the comparisons list of it.
+//
+// The record is sharded so that a build writes what changed, not the library: units go into SHARDS shards
+// by a hash of their path; a shard is a file named by its content's hash, written once and shared by every
+// version that holds it; a version is a list of shard names. A build that changes one part writes one or
+// two shard files and a root file of a few kilobytes. Shards no version names any longer are removed.
+
+import { createHash } from 'node:crypto';
+import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { PdfStamp } from './pdf-reuse.js';
+
+/** Shards of a version's units. */
+export const SHARDS = 64;
+
+export interface UnitEntry {
+  key: string;
+  /** See unitStamp. */
+  stamp: number[];
+  /** A part's data for the index and comparisons (ListedPart), and its full page data when a review shows it. */
+  data?: unknown;
+}
+
+/** One version of the site: its folder's name in the holding folder, and its units by site-relative path. */
+export class VersionRecord {
+  /** The name of each shard's file, as read (undefined: not written yet). */
+  private readonly names: (string | undefined)[];
+  private readonly shards: Map<string, UnitEntry>[];
+  private readonly dirty = new Set<number>();
+
+  constructor(
+    public name: string,
+    shards?: Map<string, UnitEntry>[],
+    names?: (string | undefined)[],
+  ) {
+    this.shards = shards ?? Array.from({ length: SHARDS }, () => new Map());
+    this.names = names ?? Array.from({ length: SHARDS }, () => undefined);
+    if (!names) for (let i = 0; i < SHARDS; i++) this.dirty.add(i);
+  }
+
+  get(unit: string): UnitEntry | undefined {
+    return this.shards[shardOf(unit)].get(unit);
+  }
+
+  set(unit: string, entry: UnitEntry): void {
+    const i = shardOf(unit);
+    this.shards[i].set(unit, entry);
+    this.dirty.add(i);
+  }
+
+  delete(unit: string): void {
+    const i = shardOf(unit);
+    if (this.shards[i].delete(unit)) this.dirty.add(i);
+  }
+
+  *units(): IterableIterator<[string, UnitEntry]> {
+    for (const shard of this.shards) yield* shard;
+  }
+
+  /** A copy under another name, sharing the shard files (entries are not copied: they are never changed in place). */
+  renamed(name: string): VersionRecord {
+    const copy = new VersionRecord(name, this.shards.map((s) => new Map(s)), [...this.names]);
+    for (const i of this.dirty) copy.dirty.add(i);
+    return copy;
+  }
+
+  /** Write the shards changed since reading into `dir`; the names of all shards. */
+  save(dir: string): string[] {
+    for (const i of this.dirty) {
+      const entries = [...this.shards[i]].sort((a, b) => (a[0] < b[0] ? -1 : 1));
+      const text = JSON.stringify(entries);
+      const name = `${createHash('sha256').update(text).digest('hex').slice(0, 24)}.json`;
+      if (!existsSync(join(dir, name))) writeAtomically(join(dir, name), text);
+      this.names[i] = name;
+    }
+    this.dirty.clear();
+    return this.names as string[];
+  }
+}
+
+const shardOf = (unit: string) => createHash('sha1').update(unit).digest().readUInt32BE(0) % SHARDS;
+
+export interface SiteRecord {
+  outDir: string;
+  live?: VersionRecord;
+  spare?: VersionRecord;
+  /** The PDFs in the live site, by site-relative path (pdf-reuse.ts). */
+  pdfs: Record<string, PdfStamp>;
+}
+
+interface RootFile {
+  format: 2;
+  outDir: string;
+  live?: { name: string; shards: string[] };
+  spare?: { name: string; shards: string[] };
+  pdfs: Record<string, PdfStamp>;
+}
+
+/** The folder of an output folder's record under the cache's builds/. */
+export function recordDir(cacheRoot: string, outDir: string): string {
+  return join(cacheRoot, 'builds', createHash('sha256').update(outDir).digest('hex').slice(0, 16));
+}
+
+const ROOT = 'root.json';
+
+function writeAtomically(file: string, text: string): void {
+  const temp = `${file}.${process.pid}.tmp`;
+  writeFileSync(temp, text);
+  renameSync(temp, file);
+}
+
+export function readSiteRecord(dir: string, outDir: string): SiteRecord | undefined {
+  try {
+    const root = JSON.parse(readFileSync(join(dir, ROOT), 'utf8')) as RootFile;
+    if (root.format !== 2 || root.outDir !== outDir) return undefined;
+    const cache = new Map<string, Map<string, UnitEntry>>();
+    const shard = (name: string) => {
+      let map = cache.get(name);
+      if (!map) {
+        map = new Map(JSON.parse(readFileSync(join(dir, 'shards', name), 'utf8')) as [string, UnitEntry][]);
+        cache.set(name, map);
+      }
+      // Each version gets its own maps (they are changed), sharing the entries.
+      return new Map(map);
+    };
+    const version = (v: RootFile['live']) => (v && v.shards.length === SHARDS ? new VersionRecord(v.name, v.shards.map(shard), [...v.shards]) : undefined);
+    return { outDir, live: version(root.live), spare: version(root.spare), pdfs: root.pdfs ?? {} };
+  } catch {
+    return undefined;
+  }
+}
+
+/** Forget the record (before a version it describes is changed or replaced). */
+export function dropSiteRecord(dir: string): void {
+  rmSync(join(dir, ROOT), { force: true });
+}
+
+/** Write the record: the changed shards, then the root; then remove shards neither version names. */
+export function writeSiteRecord(dir: string, record: SiteRecord): void {
+  const shardDir = join(dir, 'shards');
+  mkdirSync(shardDir, { recursive: true });
+  const live = record.live && { name: record.live.name, shards: record.live.save(shardDir) };
+  const spare = record.spare && { name: record.spare.name, shards: record.spare.save(shardDir) };
+  const root: RootFile = { format: 2, outDir: record.outDir, live, spare, pdfs: record.pdfs };
+  writeAtomically(join(dir, ROOT), JSON.stringify(root));
+  const named = new Set([...(live?.shards ?? []), ...(spare?.shards ?? [])]);
+  for (const name of readdirSync(shardDir)) if (!named.has(name)) rmSync(join(shardDir, name), { force: true });
+  pruneRecords(join(dir, '..'));
+}
+
+/** Records of other output folders: the latest few are kept, so switching between two does not rebuild all. */
+const RECORDS_KEPT = 8;
+
+/** Drop records of output folders that are gone (a scratch folder of `zfolio print`, say), older formats, and all but the latest few. */
+function pruneRecords(buildsDir: string): void {
+  const records: { name: string; mtimeMs: number; outDir?: string }[] = [];
+  for (const name of readdirSync(buildsDir)) {
+    const path = join(buildsDir, name);
+    try {
+      const root = JSON.parse(readFileSync(join(path, ROOT), 'utf8')) as RootFile;
+      records.push({ name, mtimeMs: statSync(join(path, ROOT)).mtimeMs, outDir: root.outDir });
+    } catch {
+      // A record of an older format (a .json file), or one being written by another build: the old kind goes.
+      if (name.endsWith('.json')) rmSync(path, { force: true });
+    }
+  }
+  records.sort((a, b) => b.mtimeMs - a.mtimeMs || (a.name < b.name ? -1 : 1));
+  records.forEach(({ name, outDir }, i) => {
+    if (i >= RECORDS_KEPT || outDir === undefined || !existsSync(outDir)) rmSync(join(buildsDir, name), { recursive: true, force: true });
+  });
+}
+
+/**
+ * What a hand edit of a unit would change: for a folder, its own mtime and inode (a file added, removed or
+ * replaced by rename) and its page's size, mtime and inode (the page edited in place); for a file, its size,
+ * mtime and inode. Empty when it is missing.
+ */
+export function unitStamp(path: string, folder: boolean): number[] {
+  try {
+    const s = statSync(path);
+    if (!folder) return s.isFile() ? [s.size, s.mtimeMs, s.ino] : [];
+    if (!s.isDirectory()) return [];
+    const page = statSync(join(path, 'index.html'));
+    return [s.mtimeMs, s.ino, page.size, page.mtimeMs, page.ino];
+  } catch {
+    return [];
+  }
+}
+
+export const sameStamp = (a: readonly number[], b: readonly number[]) => a.length > 0 && a.length === b.length && a.every((x, i) => x === b[i]);

@@ -1,0 +1,78 @@
+// The part cache: a library loaded with it gives the very parts and problems a load without it gives, and
+// reads and parses only the part files that changed since (or that have errors, which are never kept).
+
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { isDeepStrictEqual } from 'node:util';
+import { afterAll, describe, expect, it } from 'vitest';
+import { loadLibrary, type LoadResult } from '../../src/model/library.js';
+import { PartCache } from '../../src/model/part-cache.js';
+import { tempDir } from '../site-helpers.js';
+
+const root = tempDir('part-cache');
+const cacheDir = join(root, '.zfolio-cache', 'parts');
+afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+const capacitor = (id: string, esr: string) => `id: ${id}\nkind: capacitor\ntitle: Test capacitor ${id} (invented)\nnominal: 100n\nparasitics: {esr: ${esr}, esl: 0.5n}\ntags: [test]\n`;
+
+mkdirSync(join(root, 'parts'), { recursive: true });
+for (let i = 0; i < 6; i++) writeFileSync(join(root, 'parts', `c${i}.yaml`), capacitor(`CAP-${i}`, '20m'));
+// A warning the reading gives (a bead whose model misses its rated impedance), which a part from the cache must still give.
+writeFileSync(join(root, 'parts', 'warned.yaml'), 'id: BEAD-W\nkind: bead\ntitle: Test bead (invented)\nnominal: 1000\nat: 100M\nmodel: {rdc: 0.05, r: 100, l: 1e-7, c: 1e-13}\n');
+
+function load(): { result: LoadResult; cache: PartCache } {
+  const cache = new PartCache(root, cacheDir, 'test code');
+  const result = loadLibrary(root, { partCache: cache });
+  cache.save();
+  return { result, cache };
+}
+
+/** The parts as plain data, without their sources (a cached part reads its text only when asked). */
+const partsOf = (r: LoadResult) => r.library?.parts.map(({ source, ...rest }) => ({ ...rest, source: { path: source.path, hash: source.hash } }));
+
+describe('PartCache', () => {
+  it('gives what a load without it gives, parsing only what changed', () => {
+    const plain = loadLibrary(root);
+    expect(plain.diagnostics.map((d) => [d.file, d.severity])).toEqual([['parts/warned.yaml', 'warning']]);
+    const first = load();
+    expect(first.cache.counts).toEqual({ parsed: 7, cached: 0 });
+    const second = load();
+    expect(second.cache.counts).toEqual({ parsed: 0, cached: 7 });
+    for (const r of [first.result, second.result]) {
+      expect(r.diagnostics).toEqual(plain.diagnostics);
+      expect(isDeepStrictEqual(partsOf(r), partsOf(plain))).toBe(true);
+    }
+    // A cached part's source reads its file when asked.
+    expect(second.result.library!.parts[0].source.text).toBe(plain.library!.parts[0].source.text);
+
+    writeFileSync(join(root, 'parts', 'c3.yaml'), capacitor('CAP-3', '33m'));
+    const third = load();
+    expect(third.cache.counts).toEqual({ parsed: 1, cached: 6 });
+    expect(third.result.library!.partsById.get('CAP-3')!.parameters.esr).toBeCloseTo(0.033, 12);
+  });
+
+  it('never keeps a file with errors, and forgets a removed file', () => {
+    writeFileSync(join(root, 'parts', 'bad.yaml'), 'id: CAP-BAD\nkind: capacitor\ntitle: Broken (invented)\nnominal: 10 bananas\n');
+    for (let run = 0; run < 2; run++) {
+      const { result, cache } = load();
+      expect(result.library).toBeUndefined();
+      expect(result.diagnostics.some((d) => d.file === 'parts/bad.yaml' && d.severity === 'error')).toBe(true);
+      expect(cache.counts.parsed).toBe(1);
+    }
+    rmSync(join(root, 'parts', 'bad.yaml'));
+    rmSync(join(root, 'parts', 'c0.yaml'));
+    const { result, cache } = load();
+    expect(result.library!.parts.map((p) => p.id)).not.toContain('CAP-0');
+    expect(cache.counts).toEqual({ parsed: 0, cached: 6 });
+    // A duplicate id is found whether the first file came from the cache or not.
+    writeFileSync(join(root, 'parts', 'dup.yaml'), capacitor('CAP-1', '20m'));
+    const dup = load();
+    expect(dup.result.diagnostics.some((d) => d.file === 'parts/dup.yaml' && /duplicate id/.test(d.message))).toBe(true);
+  });
+
+  it('is ignored when made by other code', () => {
+    const other = new PartCache(root, cacheDir, 'other code');
+    loadLibrary(root, { partCache: other });
+    expect(other.counts.cached).toBe(0);
+  });
+});
