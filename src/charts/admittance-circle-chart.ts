@@ -68,10 +68,13 @@ export const admittanceCircleChart = xyChart<PartChartInput>({
     const y = linearValueAxis(-bMax * 1.3, bMax * 1.3, FRAME.height, 'S', 4);
     const px = (gv: number, bv: number) => ({ x: x.map.toPx(gv), y: FRAME.height - y.map.toPx(bv) });
 
-    const xs = Array.from(g, (v) => x.map.toPx(v));
-    const ys = Array.from(b, (v) => FRAME.height - y.map.toPx(v));
+    // A sharp resonance goes round most of the circle within a few sweep points (a Q of 30 between two points
+    // 2.3% apart): there the path takes extra points from the model, so the circle is drawn round, not a polygon.
+    const { g: pathG, b: pathB } = withPointsNearResonance(input, g, b, admittanceAt, input.selfResonance?.frequencyHz);
+    const xs = Array.from(pathG, (v) => x.map.toPx(v));
+    const ys = Array.from(pathB, (v) => FRAME.height - y.map.toPx(v));
     const kept = simplifyPolyline(xs, ys);
-    const curves: Row[] = kept.map((i, k) => ({ x: g[i], v: b[i], s: 'path', i: k }));
+    const curves: Row[] = kept.map((i, k) => ({ x: pathG[i], v: pathB[i], s: 'path', i: k }));
 
     const f = input.frequencies;
     const decades: { f: number; g: number; b: number }[] = [];
@@ -105,14 +108,16 @@ export const admittanceCircleChart = xyChart<PartChartInput>({
       : [];
     const zeroY = FRAME.height - y.map.toPx(0);
     const notes = [
-      { x: 0, y: zeroY, text: SIGN_NOTE.circleCapacitive, candidates: NOTE_ABOVE },
-      { x: 0, y: zeroY, text: SIGN_NOTE.circleInductive, candidates: NOTE_BELOW },
+      { x: 0, y: zeroY, text: SIGN_NOTE.circleCapacitive, candidates: notePlaces(-1, zeroY) },
+      { x: 0, y: zeroY, text: SIGN_NOTE.circleInductive, candidates: notePlaces(1, zeroY) },
     ];
     const path = { xs: kept.map((i) => xs[i]), ys: kept.map((i) => ys[i]) };
     const zeroLine = { xs: [0, FRAME.width], ys: [zeroY, zeroY] };
     const placed = placeMarkLabels([...resonances, ...halfLabels, ...marks], FRAME, [path, zeroLine], notes);
     const nR = resonances.length;
     const nH = halfLabels.length;
+    // Both halves named on the plot, or, where the circle and its labels leave no room for one, both in the key.
+    const onPlot = placed.notes.length === notes.length;
     return {
       x,
       y,
@@ -124,10 +129,10 @@ export const admittanceCircleChart = xyChart<PartChartInput>({
         labels: shown(placed.labels.slice(0, nR)),
         halfPowerLabels: shown(placed.labels.slice(nR, nR + nH)),
         decadeLabels: shown(placed.labels.slice(nR + nH)),
-        notes: placed.notes,
+        notes: onPlot ? placed.notes : [],
       },
       key: [
-        { kind: 'line', style: { s: 'path' }, text: KEY_TEXT.admittancePath },
+        { kind: 'line', style: { s: 'path' }, text: onPlot ? KEY_TEXT.admittancePath : `${KEY_TEXT.admittancePath}; ${KEY_TEXT.circleHalves}` },
         { kind: 'point', color: INK, text: KEY_TEXT.decade },
         ...(srf ? [{ kind: 'point' as const, color: RESONANCE_MARK, text: KEY_TEXT.resonanceAdmittance }] : []),
         ...(halfPoints.length ? [{ kind: 'point' as const, color: HALF_POWER_MARK, shape: 'diamond', text: KEY_TEXT.halfPower }] : []),
@@ -135,6 +140,33 @@ export const admittanceCircleChart = xyChart<PartChartInput>({
     };
   },
 });
+
+/** Points added within a factor of this of the SRF, and how many a decade. */
+const NEAR_RESONANCE = 1.25;
+const NEAR_PER_DECADE = 4000;
+
+/** The sweep's admittance with the model's at NEAR_PER_DECADE points a decade within NEAR_RESONANCE of `f0`, in frequency order. */
+function withPointsNearResonance(input: PartChartInput, g: ArrayLike<number>, b: ArrayLike<number>, admittanceAt: (input: PartChartInput, f: number) => [number, number], f0: number | undefined): { g: number[]; b: number[] } {
+  const f = input.frequencies;
+  if (f0 === undefined) return { g: Array.from(g), b: Array.from(b) };
+  const [from, to] = [f0 / NEAR_RESONANCE, f0 * NEAR_RESONANCE];
+  const n = Math.ceil(Math.log10(to / from) * NEAR_PER_DECADE);
+  const extra = Array.from({ length: n + 1 }, (_, k) => from * (to / from) ** (k / n));
+  const out = { g: [] as number[], b: [] as number[] };
+  let k = 0;
+  for (let i = 0; i <= f.length; i++) {
+    while (k < extra.length && (i === f.length || extra[k] < f[i])) {
+      const [ge, be] = admittanceAt(input, extra[k++]);
+      out.g.push(ge);
+      out.b.push(be);
+    }
+    if (i < f.length) {
+      out.g.push(g[i]);
+      out.b.push(b[i]);
+    }
+  }
+  return out;
+}
 
 const AROUND_MARK: Placement[] = [
   { dx: -7, dy: 0, align: 'right', baseline: 'middle' },
@@ -167,13 +199,22 @@ const RESONANCE_PLACES: Placement[] = [
   { dx: -8, dy: 0, align: 'right', baseline: 'middle' },
   { dx: -40, dy: -5, align: 'right', baseline: 'bottom' },
 ];
-function notePlaces(side: -1 | 1): Placement[] {
+/**
+ * Where a sign note may go, from the zero line at `zeroY`: beside it, then in the plot's corners on its side,
+ * which the circle leaves empty (it touches the plot's left edge only at the zero line and its top and bottom
+ * are its middle).
+ */
+function notePlaces(side: -1 | 1, zeroY: number): Placement[] {
   const baseline = side < 0 ? 'bottom' : 'top';
-  return [4, 18, 32].flatMap((d): Placement[] => [
-    { dx: FRAME.width / 2, dy: side * d, align: 'center', baseline },
-    { dx: 6, dy: side * d, align: 'left', baseline },
-    { dx: FRAME.width - 6, dy: side * d, align: 'right', baseline },
-  ]);
+  const corner = side < 0 ? -zeroY + 3 : FRAME.height - zeroY - 3;
+  const cornerBaseline = side < 0 ? 'top' : 'bottom';
+  return [
+    ...[4, 18, 32].flatMap((d): Placement[] => [
+      { dx: FRAME.width / 2, dy: side * d, align: 'center', baseline },
+      { dx: 6, dy: side * d, align: 'left', baseline },
+      { dx: FRAME.width - 6, dy: side * d, align: 'right', baseline },
+    ]),
+    { dx: 6, dy: corner, align: 'left', baseline: cornerBaseline },
+    { dx: FRAME.width - 6, dy: corner, align: 'right', baseline: cornerBaseline },
+  ];
 }
-const NOTE_ABOVE = notePlaces(-1);
-const NOTE_BELOW = notePlaces(1);

@@ -29,6 +29,8 @@ export const KEY_TEXT = {
   path: 'Z = R + jX (arrows: rising f)',
   decade: 'decade of frequency',
   admittancePath: 'Y = G + jB, clockwise as f rises',
+  /** Which half of the admittance circle is which, when the plot has no room to say it beside the zero line. */
+  circleHalves: 'upper half capacitive (B > 0), lower inductive',
   resonanceAdmittance: 'SRF: G = 1/ESR',
   halfPower: 'half power, |X| = R',
   selfResonance: 'self-resonance (SRF)',

@@ -5,6 +5,9 @@ import { formatEng } from '../../src/units/format.js';
 import { referenceZAt } from '../reference/impedance.js';
 import { analysed, capacitorPart, inductorPart, networkPart } from './fixtures.js';
 import { svgTexts } from './svg-text.js';
+import { loadLibrary } from '../../src/model/library.js';
+import { analysePart } from '../../src/analysis/part-figures.js';
+import { REPO } from '../site-helpers.js';
 
 type Rows = Record<string, Record<string, number>[]>;
 
@@ -68,6 +71,39 @@ describe('a capacitor\'s complex plane: the admittance circle', () => {
   it('says in words which side is which, and names its axes', async () => {
     const texts = svgTexts((await renderPartChart('plane', a)).svg);
     for (const t of ['capacitive (B > 0) ↑', 'inductive (B < 0) ↓', 'Conductance G', 'Susceptance B', 'half power, |X| = R']) expect(texts).toContain(t);
+  });
+
+  it('names both halves for every capacitor of the demo: on the plot beside the zero line or in a corner, else in the key', async () => {
+    const library = loadLibrary(REPO).library!;
+    const capacitors = library.parts.filter((p) => p.kind === 'capacitor');
+    expect(capacitors.length).toBeGreaterThan(10);
+    let onPlot = 0;
+    for (const part of capacitors) {
+      const texts = svgTexts((await renderPartChart('plane', analysePart(part, library.settings.sweep, library.settings.within, library.settings.temperature))).svg);
+      const notes = ['capacitive (B > 0) ↑', 'inductive (B < 0) ↓'].filter((t) => texts.includes(t));
+      if (notes.length === 2) onPlot++;
+      else expect(texts.join(' '), part.id).toContain('upper half capacitive (B > 0), lower inductive');
+      // Never one half on the plot and the other nowhere.
+      expect(notes.length === 2 || notes.length === 0, part.id).toBe(true);
+    }
+    expect(onPlot, 'capacitors whose plot names both halves').toBeGreaterThan(capacitors.length / 2);
+  });
+
+  it('draws a sharp resonance round: no chord of the path strays more than 1% of the radius inside the circle', async () => {
+    // The demo's X2 capacitor, ESR 60 mΩ + ESL 9 nH + 100 nF (its part file): Q = √(L/C)/R = 5, so between two
+    // sweep points 2.3% apart the path turns by about 4Q × 2.3% = 26° of the circle.
+    const library = loadLibrary(REPO).library!;
+    const part = library.partsById.get('ORV-C-X2-100N-310V')!;
+    const out = await renderPartChart('plane', analysePart(part, library.settings.sweep, library.settings.within, library.settings.temperature));
+    const rows = (out.spec as { datasets: Rows }).datasets.curves;
+    // Circle of diameter 1/ESR through the origin (series resonance, as above); the 30 GΩ leakage is far below this tolerance.
+    const r = 1 / (2 * 0.06);
+    let worst = 0;
+    for (let k = 1; k < rows.length; k++) {
+      const [mx, mv] = [(rows[k - 1].x + rows[k].x) / 2, (rows[k - 1].v + rows[k].v) / 2];
+      worst = Math.max(worst, (r - Math.hypot(mx - r, mv)) / r);
+    }
+    expect(worst).toBeLessThan(0.01);
   });
 
   it('is for capacitors only: an inductor and a network keep the impedance plane', async () => {
