@@ -13,7 +13,7 @@ export function reviewSlug(review: { source: { path: string } }): string {
   return pageName(fileStem(review.source.path, 'reviews'));
 }
 
-/** From its file name; automatic comparisons are "all-<kind>" (src/build/assemble.ts). */
+/** From its file name; automatic comparisons (part families) get "family-<kind>-…" folders from src/pages/families.ts. */
 export function comparisonSlug(c: Comparison): string {
   return pageName(comparisonKey(c));
 }
