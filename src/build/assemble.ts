@@ -19,6 +19,7 @@ import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 import type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
 
 export type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
+import { comparedAnalysis, type ComparedAnalysis } from './chart-jobs.js';
 import { escapeJsonMarkup } from '../present/escape.js';
 import { selectionText, sweepText } from '../present/part-words.js';
 import { libraryRevision } from '../history/library-revision.js';
@@ -151,6 +152,9 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
     return a;
   };
   const byId = new Map(library.parts.map((p) => [p.id, deferredAnalysis(p, () => analyse(p))]));
+  // What the comparisons read of each part. A part whose folder is written keeps only that, so the build
+  // holds a few whole analyses at a time (those the chart workers are drawing), not the library's.
+  const compared = new Map<string, ComparedAnalysis>(byId);
   // Review packs print whole datasheets, charts included.
   const shownElsewhere = new Set(library.reviews.flatMap((r) => r.parts.map((p) => p.id)));
 
@@ -179,6 +183,8 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
         const full = partPageData(a, drawn.map((c) => placeChart(c, folder, timings, 'sweep')));
         full.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
         page = full;
+        compared.set(part.id, comparedAnalysis(a));
+        byId.delete(part.id);
       }
       progress.tick();
       if (pdfLinks.part(part.id) && 'charts' in page) page.pdfFile = partPdfPath(part.id);
@@ -189,7 +195,7 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   // Full page data, for part pages and review packs.
   const fullById = new Map(pages.filter((p): p is PartPageData => 'charts' in p).map((p) => [p.id, p]));
 
-  const { pages: comparisons, byKey, rendered } = await comparisonPages(library, byId, listedById, siteDir, charts, units, timings, work);
+  const { pages: comparisons, byKey, rendered } = await comparisonPages(library, compared, listedById, siteDir, charts, units, timings, work);
   const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts, timings)));
   const reviews = library.reviews.map((r) => {
     const page = reviewPageData(r, library, { parts: fullById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
@@ -241,7 +247,7 @@ async function planPage(plan: Plan, library: Library, siteDir: string, charts: C
 
 async function comparisonPages(
   library: Library,
-  byId: ReadonlyMap<string, PartAnalysis>,
+  byId: ReadonlyMap<string, ComparedAnalysis>,
   listedById: ReadonlyMap<string, ListedPart>,
   siteDir: string,
   charts: ChartMaker,

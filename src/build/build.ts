@@ -206,7 +206,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     const unitKeys = {
       comparison: (page: Parameters<typeof comparisonPageKey>[1]) => comparisonPageKey(site, page, partKeyOf),
       kept: (unit: string, key: string) => Boolean(recordAt) && units.kept(unit, key),
-      keepChart: (analyses: PartAnalysis[], title: string) => pool?.keepComparisonChart(analyses, title),
+      keepChart: (analyses: Pick<PartAnalysis, 'part'>[], title: string) => pool?.keepComparisonChart(analyses, title),
     };
     const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, units: unitKeys, measurements: result.measurements, timings: timings.assemble, work });
     await addChanges(folio, run.history, options.charts ?? pool!, staging.dir);

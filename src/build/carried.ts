@@ -20,7 +20,7 @@ export interface UnitKeys {
   /** True when the last site's unit with this key is kept (so nothing of it is made). */
   kept(unit: string, key: string): boolean;
   /** Keep the cached chart of a comparison whose page is kept (the chart is not read). */
-  keepChart?(analyses: PartAnalysis[], title: string): void;
+  keepChart?(analyses: Pick<PartAnalysis, 'part'>[], title: string): void;
 }
 
 /** Counts of the work a build did, to show that a rebuild does work in proportion to what changed. */

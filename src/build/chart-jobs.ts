@@ -1,7 +1,7 @@
 // Chart work as plain, cloneable jobs, so the same job can run in this thread or a worker thread.
 
 import type { PartAnalysis } from '../analysis/part-figures.js';
-import { renderComparisonChart } from '../charts/comparison-chart.js';
+import { renderComparisonChart, type ComparisonPart } from '../charts/comparison-chart.js';
 import { describeComparison } from '../present/chart-descriptions.js';
 import { PART_CHART_KINDS, renderPartCharts, type PartChartInput } from '../charts/part-charts.js';
 import { renderRailChart, type RailChartData } from '../charts/rail-chart.js';
@@ -13,7 +13,7 @@ import { MEASUREMENT_CHART_KINDS, renderMeasurementCharts, type MeasurementChart
 
 export type ChartJob =
   | { type: 'part'; input: PartChartInput }
-  | { type: 'comparison'; inputs: PartChartInput[]; title: string }
+  | { type: 'comparison'; inputs: ComparisonPart[]; title: string }
   | { type: 'rail'; data: RailChartData }
   | { type: 'load-step'; data: LoadStepChartData }
   | { type: 'change'; data: ChangeChartData }
@@ -34,6 +34,31 @@ export function chartInput(a: PartAnalysis): PartChartInput {
     within: a.within,
     spread: a.corners ? { frequencies: a.frequencies, min: a.corners.envelope.min, max: a.corners.envelope.max, corners: a.corners.corners } : null,
   };
+}
+
+/**
+ * What a comparison needs of an analysed part (ComparedAnalysis): a build keeps only this of each part once
+ * its folder is written, so a library's sweeps are not all held at once.
+ */
+export type ComparedAnalysis = Pick<PartAnalysis, 'part' | 'selfResonance'> & {
+  resolved: Pick<PartAnalysis['resolved'], 'frequencies'>;
+  resolvedColumns: Pick<PartAnalysis['resolvedColumns'], 'magnitudeOhm'>;
+};
+
+/** The part of an analysis a comparison chart reads. */
+export function comparisonInput(a: ComparedAnalysis): ComparisonPart {
+  const { part } = a;
+  return {
+    part: { id: part.id, title: part.title, kind: part.kind, behavesAs: part.behavesAs, network: part.network, nominal: part.nominal, ratedAtHz: part.ratedAtHz },
+    frequencies: a.resolved.frequencies,
+    columns: { magnitudeOhm: a.resolvedColumns.magnitudeOhm },
+    selfResonance: a.selfResonance,
+  };
+}
+
+/** Only what a comparison reads of an analysis, copied out of it so the rest can go. */
+export function comparedAnalysis(a: ComparedAnalysis): ComparedAnalysis {
+  return { part: a.part, selfResonance: a.selfResonance, resolved: { frequencies: a.resolved.frequencies }, resolvedColumns: { magnitudeOhm: a.resolvedColumns.magnitudeOhm } };
 }
 
 export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {

@@ -3,6 +3,7 @@
 
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
+import type { ComparedAnalysis } from './chart-jobs.js';
 import type { ChangeChartData } from '../charts/change-chart.js';
 import type { MeasurementChartData } from '../charts/measurement-charts.js';
 
@@ -19,7 +20,7 @@ export interface ChartArtifact {
 
 export interface ChartMaker {
   partCharts(analysis: PartAnalysis): Promise<ChartArtifact[]>;
-  comparisonChart(analyses: PartAnalysis[], title: string): Promise<ChartArtifact>;
+  comparisonChart(analyses: ComparedAnalysis[], title: string): Promise<ChartArtifact>;
   /** `inputsKey` names everything the plan's figures came from (file hashes), for caching. */
   railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact>;
   /** The load-step charts of a plan (voltage, then branch currents); none when it has no load step. */

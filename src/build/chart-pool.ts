@@ -13,7 +13,7 @@ import { Worker } from 'node:worker_threads';
 import { gunzipSync, gzipSync } from 'node:zlib';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { codeKey } from './reuse.js';
-import { chartInput, loadStepChartData, railChartData, renderChartJob, type ChartJob } from './chart-jobs.js';
+import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 import type { ChangeChartData } from '../charts/change-chart.js';
@@ -65,10 +65,12 @@ export class ChartPool implements ChartMaker {
   private readonly fingerprint = codeKey();
   private readonly workers: Worker[] = [];
   private readonly idle: Worker[] = [];
-  private readonly queue: { id: number; job: ChartJob }[] = [];
+  /** Jobs waiting for a worker; a job is made from its `make` when it is next (see `prepare`). */
+  private readonly queue: { id: number; make: () => ChartJob; job?: ChartJob }[] = [];
   private readonly pending = new Map<number, Pending>();
   private readonly usedKeys = new Set<string>();
   private nextId = 0;
+  private preparing = false;
 
   constructor(private readonly options: ChartPoolOptions) {
     const count = options.workers ?? Math.min(availableParallelism(), 4);
@@ -78,7 +80,8 @@ export class ChartPool implements ChartMaker {
 
   async partCharts(a: PartAnalysis): Promise<ChartArtifact[]> {
     const key = this.key('part', a.part.source.hash);
-    return this.cached(key, () => this.run({ type: 'part', input: chartInput(a) }));
+    // The job is made (and the part analysed) only when a worker is about to take it.
+    return this.cached(key, () => this.run(() => ({ type: 'part', input: chartInput(a) })));
   }
 
   /** Keep a part's cached charts through this build's pruning without reading them (its page is reused). */
@@ -95,34 +98,34 @@ export class ChartPool implements ChartMaker {
     return this.key('comparison', title, ...analyses.map((a) => a.part.source.hash));
   }
 
-  async comparisonChart(analyses: PartAnalysis[], title: string): Promise<ChartArtifact> {
+  async comparisonChart(analyses: ComparedAnalysis[], title: string): Promise<ChartArtifact> {
     const key = this.comparisonKey(analyses, title);
-    const [chart] = await this.cached(key, () => this.run({ type: 'comparison', inputs: analyses.map(chartInput), title }));
+    const [chart] = await this.cached(key, () => this.run(() => ({ type: 'comparison', inputs: analyses.map(comparisonInput), title })));
     return chart;
   }
 
   async railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact> {
     const key = this.key('rail', inputsKey);
-    const [chart] = await this.cached(key, () => this.run({ type: 'rail', data: railChartData(figures) }));
+    const [chart] = await this.cached(key, () => this.run(() => ({ type: 'rail', data: railChartData(figures) })));
     return chart;
   }
 
   async loadStepCharts(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact[]> {
     const data = loadStepChartData(figures);
     if (!data) return [];
-    return this.cached(this.key('load-step', inputsKey), () => this.run({ type: 'load-step', data }));
+    return this.cached(this.key('load-step', inputsKey), () => this.run(() => ({ type: 'load-step', data })));
   }
 
   async changeChart(data: ChangeChartData): Promise<ChartArtifact> {
     // The data holds both revisions' curves, which come from files of two revisions and two settings: the
     // key is the data itself.
     const key = this.key('change', createHash('sha256').update(JSON.stringify(data)).digest('hex'));
-    const [chart] = await this.cached(key, () => this.run({ type: 'change', data }));
+    const [chart] = await this.cached(key, () => this.run(() => ({ type: 'change', data })));
     return chart;
   }
 
   async measurementCharts(data: MeasurementChartData, index: number, inputsKey: string): Promise<ChartArtifact[]> {
-    return this.cached(this.key('measurement', String(index), inputsKey), () => this.run({ type: 'measurement', data, index }));
+    return this.cached(this.key('measurement', String(index), inputsKey), () => this.run(() => ({ type: 'measurement', data, index })));
   }
 
   /** Stop the workers and drop cache entries this build did not use, so the cache never grows stale. */
@@ -160,12 +163,16 @@ export class ChartPool implements ChartMaker {
     return charts;
   }
 
-  private run(job: ChartJob): Promise<ChartArtifact[]> {
-    if (this.workers.length === 0) return renderChartJob(job);
+  /**
+   * A job for a worker. It is given as a function and made only shortly before a worker takes it: a part's
+   * job holds its whole analysis, and a library's thousands of requests arrive at once.
+   */
+  private run(make: () => ChartJob): Promise<ChartArtifact[]> {
+    if (this.workers.length === 0) return renderChartJob(make());
     return new Promise((resolve, reject) => {
       const id = this.nextId++;
       this.pending.set(id, { resolve, reject });
-      this.queue.push({ id, job });
+      this.queue.push({ id, make });
       this.dispatch();
     });
   }
@@ -173,10 +180,18 @@ export class ChartPool implements ChartMaker {
   private dispatch(): void {
     while (this.idle.length > 0 && this.queue.length > 0) {
       const worker = this.idle.pop()!;
-      const message = this.queue.shift()!;
-      const pending = this.pending.get(message.id);
+      const next = this.queue.shift()!;
+      const pending = this.pending.get(next.id);
       if (pending) pending.sentAt = performance.now();
-      worker.postMessage(message);
+      worker.postMessage({ id: next.id, job: next.job ?? next.make() });
+    }
+    // The next few jobs are made while the workers draw, so a worker that finishes finds one ready.
+    if (this.queue.length > 0 && !this.preparing) {
+      this.preparing = true;
+      setImmediate(() => {
+        this.preparing = false;
+        for (let i = 0; i < Math.min(this.queue.length, this.workers.length); i++) this.queue[i].job ??= this.queue[i].make();
+      });
     }
   }
 

@@ -14,8 +14,11 @@ import { positiveExtent } from './scales.js';
 import { colouredPointLayer, curveLayer } from './spec-parts.js';
 import { xyChart } from './xy-chart.js';
 
-/** The parts compared; any PartAnalysis fits. */
-export type ComparisonInput = readonly PartChartInput[];
+/** What a comparison draws of a part: its id, |Z| over its resolved sweep and its self-resonance (a PartChartInput fits). */
+export type ComparisonPart = Pick<PartChartInput, 'part' | 'frequencies' | 'selfResonance'> & { columns: Pick<PartChartInput['columns'], 'magnitudeOhm'> };
+
+/** The parts compared. */
+export type ComparisonInput = readonly ComparisonPart[];
 
 const FRAME = frame(PLOT_WIDTH, 300, 28, 42);
 const LINE_WIDTH = 1.4;

@@ -1,0 +1,43 @@
+// The chart pool makes a part's job (and so reads its analysis) only when a worker is about to take it, so
+// a build's thousands of requests, made at once, hold a few analyses at a time rather than all of them.
+
+import { afterAll, describe, expect, it } from 'vitest';
+import type { PartAnalysis } from '../../src/analysis/part-figures.js';
+import { ChartPool } from '../../src/build/chart-pool.js';
+import type { Part } from '../../src/model/part.js';
+import { analysed, capacitorPart, resistorPart } from '../charts/fixtures.js';
+
+/** An analysis that is made (and counted) the first time any figure of it is read. */
+function counted(part: Part, made: Set<string>): PartAnalysis {
+  let a: PartAnalysis | undefined;
+  return new Proxy({ part } as PartAnalysis, {
+    get(target, key) {
+      if (key === 'part') return part;
+      made.add(part.id);
+      a ??= analysed(part);
+      return a[key as keyof PartAnalysis];
+    },
+  });
+}
+
+describe('chart pool', () => {
+  const pool = new ChartPool({ workers: 1, settingsKey: 'test' });
+  afterAll(() => pool.close());
+
+  it('reads a part only when a worker takes its job (or just before), and draws every part', async () => {
+    const made = new Set<string>();
+    const parts = Array.from({ length: 8 }, (_, i) => ({ ...(i % 2 ? capacitorPart : resistorPart), id: `P-${i}`, source: { path: `p${i}.yaml`, hash: `h${i}` } }) as unknown as Part);
+    const requests = parts.map((p) => pool.partCharts(counted(p, made)));
+    // One job sent to the one worker; the next is made while it draws, no more.
+    expect(made.size).toBe(1);
+    await new Promise((r) => setImmediate(r));
+    expect(made.size).toBeLessThanOrEqual(2);
+    const charts = await Promise.all(requests);
+    expect(made.size).toBe(parts.length);
+    // Each request answered with its own part's four charts.
+    for (const [i, c] of charts.entries()) {
+      expect(c).toHaveLength(4);
+      for (const chart of c) expect(chart.title).toContain(`P-${i}`);
+    }
+  }, 120_000);
+});
