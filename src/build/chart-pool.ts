@@ -5,12 +5,14 @@
 // and folio modules' files), the part file's content hash, and the library's sweep and band settings.
 
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { gunzipSync, gzipSync } from 'node:zlib';
+import { writeFile } from 'node:fs/promises';
+import { promisify } from 'node:util';
+import { gunzipSync, gzip } from 'node:zlib';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { codeKey } from './reuse.js';
 import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
@@ -38,6 +40,8 @@ export interface ChartPoolStats {
   workerSeconds: number;
 }
 
+const gzipAsync = promisify(gzip);
+const ignore = () => undefined;
 const HERE = dirname(fileURLToPath(import.meta.url));
 const RUNNING_TYPESCRIPT = import.meta.url.endsWith('.ts');
 
@@ -71,6 +75,8 @@ export class ChartPool implements ChartMaker {
   private readonly usedKeys = new Set<string>();
   private nextId = 0;
   private preparing = false;
+  /** Cache entries being written. */
+  private readonly writing: Promise<void>[] = [];
 
   constructor(private readonly options: ChartPoolOptions) {
     const count = options.workers ?? Math.min(availableParallelism(), 4);
@@ -131,6 +137,7 @@ export class ChartPool implements ChartMaker {
   /** Stop the workers and drop cache entries this build did not use, so the cache never grows stale. */
   async close(): Promise<void> {
     await Promise.all(this.workers.map((w) => w.terminate()));
+    await Promise.all(this.writing);
     this.workers.length = 0;
     const dir = this.options.cacheDir;
     if (dir && existsSync(dir)) {
@@ -159,7 +166,9 @@ export class ChartPool implements ChartMaker {
     const charts = await render();
     this.stats.rendered++;
     this.stats.drawn += charts.length;
-    if (file) writeFileSync(file, gzipSync(JSON.stringify(charts), { level: 1 }));
+    // Compressed and written on libuv's threads, off the thread that feeds the chart workers; close() waits.
+    // An entry that cannot be written is only a chart drawn again next time (a damaged one is, see above).
+    if (file) this.writing.push(gzipAsync(JSON.stringify(charts), { level: 1 }).then((gz) => writeFile(file, gz)).then(ignore, ignore));
     return charts;
   }
 
