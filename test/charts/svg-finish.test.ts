@@ -38,7 +38,15 @@ describe('finishing vega’s SVG', () => {
     const svg = finishSvg(raw('clip1', label.replace(/&/g, '&amp;')), text, { width: 640, height: 320 });
     expect(svg).toContain('d="M0.3,1.2L0,2"');
     expect(svg).toContain('width="540.1"');
-    expect(svg).toContain(`>${label}</text>`);
+    expect(svg).toContain(`>${label.replace('Ω', '&#937;')}</text>`);
+  });
+
+  it('writes characters beyond Latin-1 as character references, so the string is one byte a character', () => {
+    const svg = finishSvg(raw('clip1', '−90° to 1 kΩ 𝑓'), { title: 'Z → Ω', description: 'D' }, { width: 640, height: 320 });
+    expect(/[^\x00-\xff]/.test(svg)).toBe(false);
+    // Unicode code points: U+2212 minus, U+03A9 omega, U+2192 arrow, U+1D453 italic f (one reference, not two halves).
+    expect(svg).toContain('>&#8722;90° to 1 k&#937; &#119891;</text>');
+    expect(svg).toContain('>Z &#8594; &#937;</title>');
   });
 
   it('refuses markup that could run or load anything', () => {

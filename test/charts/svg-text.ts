@@ -3,7 +3,9 @@
 const ENTITIES: Record<string, string> = { '&lt;': '<', '&gt;': '>', '&amp;': '&', '&quot;': '"', '&#39;': "'" };
 
 export function unescapeXml(text: string): string {
-  return text.replace(/&(?:lt|gt|amp|quot|#39);/g, (e) => ENTITIES[e]);
+  return text.replace(/&(?:lt|gt|amp|quot|#39|#\d+|#x[\da-fA-F]+);/g, (e) =>
+    e.startsWith('&#x') ? String.fromCodePoint(parseInt(e.slice(3, -1), 16)) : e.startsWith('&#') && e !== '&#39;' ? String.fromCodePoint(Number(e.slice(2, -1))) : ENTITIES[e],
+  );
 }
 
 /** Contents of every <text> element. */
