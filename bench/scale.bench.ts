@@ -10,6 +10,8 @@ import { lstatSync, readdirSync, readFileSync, realpathSync, rmSync, writeFileSy
 import { loadavg } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { pathToFileURL } from 'node:url';
+import { findChrome, launchChrome } from '../src/print/browser.js';
 import { writeGeneratedLibrary } from './generate.js';
 import type { BenchSection } from './measure.js';
 
@@ -37,6 +39,8 @@ interface SiteSize {
 
 interface Run {
   parts: number;
+  /** Seconds from opening the index in headless Chromium (from the file system) to its first screenshot; null without Chromium. */
+  indexSeconds: number | null;
   cold: Build;
   /** The first rebuild, nothing changed: no spare version yet, so every unit is linked from the live site. */
   first: Build;
@@ -77,7 +81,24 @@ function folderBytes(dir: string): number {
   return readdirSync(dir, { withFileTypes: true }).reduce((n, e) => n + (e.isDirectory() ? folderBytes(join(dir, e.name)) : lstatSync(join(dir, e.name)).size), 0);
 }
 
-function runAt(parts: number): Run {
+/** The index page opened in headless Chromium from the file system: seconds until its first screenshot. */
+async function firstScreenshot(site: string): Promise<number | null> {
+  const chrome = findChrome(undefined, process.env);
+  if ('problem' in chrome) return null;
+  const browser = await launchChrome(chrome.path);
+  try {
+    const page = await browser.newPage();
+    await page.setViewport({ width: 1280, height: 900 });
+    const started = performance.now();
+    await page.goto(`${pathToFileURL(realpathSync(site)).href}/index.html`, { waitUntil: 'load' });
+    await page.screenshot();
+    return (performance.now() - started) / 1000;
+  } finally {
+    await browser.close();
+  }
+}
+
+async function runAt(parts: number): Promise<Run> {
   const root = writeGeneratedLibrary(parts, 1);
   const out = join(root, '_site');
   const target = join(root, 'parts', 'group-0', 'gen-0.yaml');
@@ -86,11 +107,12 @@ function runAt(parts: number): Run {
     const site = siteSize(out);
     const partFolderBytes = folderBytes(join(realpathSync(out), 'parts')) / parts;
     const first = build(root, out);
+    const indexSeconds = await firstScreenshot(out);
     const original = readFileSync(target, 'utf8');
     writeFileSync(target, original.replace(/esr: [^,}]+/, 'esr: 0.0123'));
     const edited = build(root, out);
     const unchanged = build(root, out);
-    return { parts, cold, first, edited, unchanged, site, partFolderBytes };
+    return { parts, cold, first, edited, unchanged, site, partFolderBytes, indexSeconds };
   } finally {
     rmSync(root, { recursive: true, force: true });
   }
@@ -109,11 +131,11 @@ export const scaleBench: BenchSection = {
     const lines = [`load average before: ${loadavg().map((x) => x.toFixed(2)).join(' ')}; each build in a process of its own`];
     const runs: Run[] = [];
     for (const parts of SIZES) {
-      const r = runAt(parts);
+      const r = await runAt(parts);
       runs.push(r);
       lines.push(
         `${n(parts)} parts: cold ${s(r.cold.seconds)} (${n(r.cold.pages)} pages), first rebuild ${s(r.first.seconds)} (${work(r.first)}), then one part edited ${s(r.edited.seconds)} (${n(r.edited.reused)} part folders carried over; ${work(r.edited)}), nothing changed ${s(r.unchanged.seconds)} (${work(r.unchanged)}); ` +
-          `peak RSS ${mb(r.cold.peakRssBytes)} cold, ${mb(r.edited.peakRssBytes)} edited; site ${mb(r.site.bytes)} in ${n(r.site.files)} files, ${kb(r.partFolderBytes)} a part folder, largest page ${kb(r.site.largestPage.bytes)} (${r.site.largestPage.file})`,
+          `peak RSS ${mb(r.cold.peakRssBytes)} cold, ${mb(r.edited.peakRssBytes)} edited; site ${mb(r.site.bytes)} in ${n(r.site.files)} files, ${kb(r.partFolderBytes)} a part folder, largest page ${kb(r.site.largestPage.bytes)} (${r.site.largestPage.file}); index to first screenshot in Chromium ${r.indexSeconds === null ? 'not measured (no Chromium)' : s(r.indexSeconds)}`,
       );
     }
     const [base, ...larger] = runs;
