@@ -64,6 +64,48 @@ const matching = (words: string[]) =>
     .map((p) => p.id)
     .sort();
 
+/** One page of the index as a reader without script sees it. */
+interface StaticPage {
+  file: string;
+  formHidden: boolean;
+  ids: string[];
+  /** The SRF column's values, as the cells hold them. */
+  srfs: string[];
+}
+
+let walked: Promise<StaticPage[]> | undefined;
+/**
+ * The index with script off, from its first page through each page's link to the next (the link after the
+ * current page's number), in one tab; read once, for the test that walks it and the one that sorts.
+ */
+function walkWithoutScript(): Promise<StaticPage[]> {
+  walked ??= (async () => {
+    const out: StaticPage[] = [];
+    let file: string | undefined = 'index.html';
+    const page = await open(file, false);
+    while (file) {
+      const read = await page.evaluate(() => {
+        const rows = Array.from(document.querySelectorAll<HTMLTableRowElement>('table.parts-index tbody tr'));
+        const current = document.querySelector('nav[data-pager] [aria-current=page]')!;
+        const after = current.nextElementSibling as HTMLAnchorElement | null;
+        return {
+          formHidden: (document.querySelector('form[data-filters]') as HTMLFormElement).hidden,
+          ids: rows.filter((r) => !r.hidden).map((r) => r.querySelector('a')!.textContent!.trim()),
+          srfs: rows.map((r) => r.cells[5].dataset.value ?? ''),
+          next: after ? after.getAttribute('href') : null,
+        };
+      });
+      out.push({ file, formHidden: read.formHidden, ids: read.ids, srfs: read.srfs });
+      // Links are relative to the page: resolve against its folder.
+      file = read.next ? join(dirname(file), read.next).split('\\').join('/') : undefined;
+      if (file) await page.goto(`${pathToFileURL(site).href}/${file}`, { waitUntil: 'load' });
+    }
+    await page.close();
+    return out;
+  })();
+  return walked;
+}
+
 describe(`the index of ${PARTS.toLocaleString('en-GB')} parts`, () => {
   it('shows its first page of 200 parts quickly, from a page far smaller than the whole list', async () => {
     expect(statSync(join(site, 'index.html')).size).toBeLessThan(250_000);
@@ -81,26 +123,10 @@ describe(`the index of ${PARTS.toLocaleString('en-GB')} parts`, () => {
   });
 
   it('reaches every part through its page links with script off', async () => {
-    const seen: string[] = [];
-    let file: string | undefined = 'index.html';
-    const visited: string[] = [];
-    while (file) {
-      visited.push(file);
-      const page = await open(file, false);
-      expect(await page.$eval('form[data-filters]', (f) => (f as HTMLFormElement).hidden)).toBe(true);
-      seen.push(...(await ids(page)));
-      // The next page: the link after the current page's number.
-      const next = await page.$eval('nav[data-pager]', (nav) => {
-        const current = nav.querySelector('[aria-current=page]')!;
-        const after = current.nextElementSibling as HTMLAnchorElement | null;
-        return after ? after.getAttribute('href') : null;
-      });
-      // Links are relative to the page: resolve against its folder.
-      file = next ? join(dirname(file), next).split('\\').join('/') : undefined;
-      await page.close();
-    }
-    expect(visited).toEqual(['index.html', ...Array.from({ length: 9 }, (_, i) => `list/${i + 2}.html`)]);
-    expect(seen).toEqual(library.parts.map((p) => p.id).sort());
+    const walk = await walkWithoutScript();
+    expect(walk.map((p) => p.file)).toEqual(['index.html', ...Array.from({ length: 9 }, (_, i) => `list/${i + 2}.html`)]);
+    expect(walk.every((p) => p.formHidden)).toBe(true);
+    expect(walk.flatMap((p) => p.ids)).toEqual(library.parts.map((p) => p.id).sort());
   });
 
   it('filters all parts from any page and pages through the matches', async () => {
@@ -133,13 +159,8 @@ describe(`the index of ${PARTS.toLocaleString('en-GB')} parts`, () => {
     await page.click('th[data-key=srf] button');
     await page.waitForFunction(() => /shown/.test((document.querySelector('output[name=count]') as HTMLOutputElement).value));
     const srfs = () => page.$$eval('table.parts-index tbody tr', (rows) => rows.map((r) => r.cells[5].dataset.value ?? ''));
-    // Every part's SRF, read back from the no-script pages of the same site.
-    const all: number[] = [];
-    for (let n = 1; n <= 10; n++) {
-      const p = await open(n === 1 ? 'index.html' : `list/${n}.html`, false);
-      all.push(...(await p.$$eval('table.parts-index tbody tr', (rows) => rows.map((r) => r.cells[5].dataset.value ?? ''))).filter((v) => v !== '').map(Number));
-      await p.close();
-    }
+    // Every part's SRF, read back from the no-script pages of the same site (the walk of the test above).
+    const all = (await walkWithoutScript()).flatMap((p) => p.srfs).filter((v) => v !== '').map(Number);
     all.sort((a, b) => a - b);
     expect((await srfs()).map(Number)).toEqual(all.slice(0, 200));
     await page.click('th[data-key=srf] button');

@@ -28,13 +28,15 @@ export function siteTabs(browser: () => Browser, site: () => string, problems: s
     await page.setJavaScriptEnabled(javascript);
     await page.setViewport({ width: 1280, height: 900 });
     const siteUrl = pathToFileURL(site()).href;
+    // The page the tab shows when it happens (a test may go on to another page of the site in the same tab).
+    const where = () => (page.url().startsWith(siteUrl + '/') ? page.url().slice(siteUrl.length + 1) : file);
     page.on('console', (m) => {
-      if (m.type() === 'error' || m.type() === 'warn') problems.push(`${file}: console ${m.type()}: ${m.text()}`);
+      if (m.type() === 'error' || m.type() === 'warn') problems.push(`${where()}: console ${m.type()}: ${m.text()}`);
     });
-    page.on('pageerror', (e) => problems.push(`${file}: page error: ${(e as Error).message}`));
-    page.on('requestfailed', (r) => problems.push(`${file}: request failed: ${r.url()}`));
+    page.on('pageerror', (e) => problems.push(`${where()}: page error: ${(e as Error).message}`));
+    page.on('requestfailed', (r) => problems.push(`${where()}: request failed: ${r.url()}`));
     page.on('request', (r) => {
-      if (!r.url().startsWith(siteUrl + '/') && !r.url().startsWith('data:')) problems.push(`${file}: outside request: ${r.url()}`);
+      if (!r.url().startsWith(siteUrl + '/') && !r.url().startsWith('data:')) problems.push(`${where()}: outside request: ${r.url()}`);
     });
     await page.goto(`${siteUrl}/${file}`, { waitUntil: 'load' });
     return page;
