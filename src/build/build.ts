@@ -13,14 +13,13 @@ import { assembleSite, type BuildWork, type CarriedPart } from './assemble.js';
 import { stageClock, type BuildTimings, type StageTime } from './stage-clock.js';
 import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
 import type { Browser } from 'puppeteer-core';
-import { ChromeStartError, chromeHint, findChrome, launchChrome } from '../print/browser.js';
 import type { ChartMaker } from './chart-maker.js';
 import { ChartPool, type ChartPoolStats } from './chart-pool.js';
 import { renderPages, TEMPLATES_DIR } from './eleventy.js';
 import { checkWritable, stageOutput, writeFileDeep, type SwapStep } from './output.js';
 import { guardOutput } from './output-guard.js';
 import type { FolioData } from '../pages/site-data.js';
-import { printJobs, type PrintedFile } from '../print/print.js';
+import type { PrintedFile } from '../print/print.js';
 import { buildDate, printJobsFor, type PrintSelection } from '../print/print-jobs.js';
 import { silentProgress, type Progress } from './progress.js';
 import { codeKey, partKey, siteKey } from './reuse.js';
@@ -147,6 +146,8 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   // pages then link only the PDFs there are (kept ones, as a build without --pdf).
   let browser: Browser | undefined;
   if (options.pdf) {
+    // Loaded only to print: the browser driver and the PDF library are most of a build's start-up otherwise.
+    const { ChromeStartError, chromeHint, findChrome, launchChrome } = await import('../print/browser.js');
     const chrome = findChrome(options.pdf.chrome, options.pdf.env);
     if ('problem' in chrome) result.pdfProblem = chromeHint(chrome.problem);
     else {
@@ -229,6 +230,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
       const paper = options.pdf.paper ?? library.settings.paper;
       const date = options.pdf.date ?? buildDate(options.pdf.env);
       const siteDir = units.target(staging.dir);
+      const { printJobs } = await import('../print/print.js');
       const printed = await printJobs(browser, printJobsFor(library, folio, siteDir, date, options.pdf.select), paper, date, progress);
       result.pdfs = printed.map((p) => ({ ...p, pdfFile: relative(siteDir, p.pdfFile).split(sep).join('/') }));
       timings.pdf = clock();
