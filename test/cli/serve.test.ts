@@ -142,9 +142,9 @@ describe('zfolio serve: a real process', () => {
   afterAll(() => rmSync(tmp, { recursive: true, force: true }));
 
   it.each(['SIGINT', 'SIGTERM'] as const)('stops cleanly on %s: exit 0, port closed, no staging folder left', async (signal) => {
-    // The sources through tsx, so the test does not depend on a fresh dist/.
-    const entry = "import { main } from './src/cli/main.ts'; import { processIO } from './src/cli/io.ts'; process.exitCode = await main(process.argv.slice(1), processIO());";
-    const child = spawn(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', entry, 'serve', '--library', join(tmp, 'lib'), '--port', '0'], {
+    // The installed entry point over dist/, which test/setup/global.ts compiles from the sources under test
+    // when it is stale: the process starts without compiling the sources (in it and in its chart workers).
+    const child = spawn(process.execPath, [join(PACKAGE, 'bin', 'zfolio.js'), 'serve', '--library', join(tmp, 'lib'), '--port', '0'], {
       cwd: PACKAGE,
       env: { ...process.env, CI: '1' },
       stdio: ['ignore', 'pipe', 'pipe'],
