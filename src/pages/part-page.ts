@@ -56,7 +56,7 @@ function spreadRows(a: PartAnalysis): Row[] {
   if (value) rows.push({ label: 'Value over its spread', value, note: s.tolerance && s.temperatureChange ? 'tolerance × temperature change' : s.tolerance ? 'tolerance' : 'temperature change' });
   const parasitics = parasiticSpreadText(s);
   if (parasitics) rows.push({ label: 'Parasitic spread', value: parasitics });
-  if (texts.srf) rows.push({ label: 'SRF over its spread', value: texts.srf, note: `at ${texts.corners}` });
+  if (texts.srf) rows.push({ label: 'SRF over its spread', value: texts.srf, note: `over ${texts.corners}` });
   if (texts.bandBottom && s.usableBand && s.usableBand.fromHz.max > a.frequencies[0]) rows.push({ label: 'Band bottom over its spread', value: texts.bandBottom });
   if (texts.bandTop) rows.push({ label: 'Band top over its spread', value: texts.bandTop, note: 'each corner judged against its own value' });
   return rows;

@@ -77,7 +77,7 @@ export function parasiticSpreadText(s: SpreadSummary): string | undefined {
 /** "SRF 21.5 MHz to 26.4 MHz", "band top 6.5 MHz to 8 MHz" over the corners. */
 export function spreadFigureTexts(s: SpreadSummary): { srf?: string; bandTop?: string; bandBottom?: string; corners: string } {
   // Figures the spread does not move (a bead's resonance under its rating's spread) print once.
-  const span = (r: { min: number; max: number }) => (Math.abs(r.max / r.min - 1) < 1e-9 ? `${formatEng(r.min, 'Hz')} at every corner` : formatEngRange(r.min, r.max, 'Hz').join(' to '));
+  const span = (r: { min: number; max: number }) => (Math.abs(r.max / r.min - 1) < 1e-9 ? `${formatEng(r.min, 'Hz')}, the same at each corner` : formatEngRange(r.min, r.max, 'Hz').join(' to '));
   const band = s.usableBand;
   return {
     srf: s.srfHz ? span(s.srfHz) : undefined,

@@ -36,7 +36,7 @@ function spreadLines(s: PartSummary): string[] {
   const out = [`  spread       ${value}(${sources})`];
   if (texts.srf) out.push(`               SRF ${texts.srf}`);
   if (texts.bandTop) out.push(`               band top ${texts.bandTop}`);
-  out.push(`               at ${texts.corners}`);
+  out.push(`               over ${texts.corners}`);
   return out;
 }
 

@@ -9,8 +9,8 @@ import { spreadSummary } from '../../src/analysis/summary.js';
 import { DiagnosticList } from '../../src/model/diagnostics.js';
 import { readPart, type Part } from '../../src/model/part.js';
 import { parseYamlSource } from '../../src/model/source.js';
-import { partCornerSentence, railCornerSentence, valueSpreadText } from '../../src/present/corner-words.js';
-import { formatEng } from '../../src/units/format.js';
+import { partCornerSentence, railCornerSentence, spreadFigureTexts, valueSpreadText } from '../../src/present/corner-words.js';
+import { formatEng, formatEngRange } from '../../src/units/format.js';
 
 function part(yaml: string): Part {
   const diagnostics = new DiagnosticList();
@@ -69,5 +69,25 @@ describe('what a corner is and what it leaves out, in one sentence', () => {
     expect(sentence.match(/[.!?](\s|$)/g)).toHaveLength(1);
     expect(sentence).not.toMatch(/DC bias|class 2/);
     expect(sentence).toMatch(/ — without ageing, which the maker's data must cover\.$/);
+  });
+});
+
+describe('figures over the spread, in plain words', () => {
+  it('a bead whose rated |Z| spreads: its SRF does not move, and the words say so once, not "at every corner" beside "at 2 corners"', () => {
+    // A parallel R‖L‖C tank is real at ω = 1/√(LC) whatever R is (closed form), and a series Rdc adds no
+    // reactance: the SRF of this bead is 1/(2π√(1.4 µH · 0.45 pF)) ≈ 200.5 MHz at both ends of its tolerance.
+    const p = part('id: FB\nkind: bead\nnominal: 600 Ω\nat: 100 MHz\ntolerance: 25%\nmodel: {rdc: 150m, r: 700, l: 1.4u, c: 0.45p}\n');
+    const s = spreadSummary(analysePart(p, { fromHz: 1e6, toHz: 3e9, perDecade: 50 }, 0.1, { fromC: 0, toC: 70 }))!;
+    const srf = 1 / (2 * Math.PI * Math.sqrt(1.4e-6 * 0.45e-12));
+    const texts = spreadFigureTexts(s);
+    expect(texts.srf).toBe(`${formatEng(srf, 'Hz')}, the same at each corner`);
+    expect(texts.corners).toBe('2 corners (every combination of the value at its low and high end)');
+  });
+
+  it('a capacitor whose value spreads: its SRF is a range, lowest at the highest value (f = 1/(2π√(LC)))', () => {
+    const p = part('id: C\nkind: capacitor\nnominal: 100n\ntolerance: 10%\nparasitics: {esr: 20m, esl: 0.5n}\n');
+    const s = spreadSummary(analysePart(p, { fromHz: 1e3, toHz: 1e9, perDecade: 50 }, 0.1, { fromC: 0, toC: 70 }))!;
+    const f = (c: number) => 1 / (2 * Math.PI * Math.sqrt(0.5e-9 * c));
+    expect(spreadFigureTexts(s).srf).toBe(formatEngRange(f(110e-9), f(90e-9), 'Hz').join(' to '));
   });
 });
