@@ -23,18 +23,18 @@ export function measurementChartText(kind: MeasurementChartKind, data: Measureme
   switch (kind) {
     case 'measured-impedance':
       return {
-        title: `${data.partId}: |Z| of the model and of the measurement ${data.file}`,
+        title: `${data.partId}: |Z| of the model and as measured (${data.file})`,
         description: `Log-log chart of the model's |Z| and the measured |Z| of ${data.partId}, from ${source}. ${miss}`,
       };
     case 'measured-phase':
       return {
-        title: `${data.partId}: phase of the model and of the measurement ${data.file}`,
+        title: `${data.partId}: phase of the model and as measured (${data.file})`,
         description: `Chart of the phase of Z, model and measured, of ${data.partId} from ${source}. ${miss}`,
       };
     case 'residual': {
       const k = worst(data.errorDb);
       return {
-        title: `${data.partId}: model − measurement ${data.file}, |Z| in dB and phase in degrees`,
+        title: `${data.partId}: model − measured (${data.file}), |Z| in dB and phase in degrees`,
         description: `Chart of the model's error against ${source}: 20·log10(|Z model|/|Z measured|) in dB and the phase difference in degrees. ${miss} The largest |Z| error, ${data.errorDb[k] >= 0 ? '+' : '−'}${Math.abs(data.errorDb[k]).toFixed(2)} dB, is at ${formatEng(data.frequencies[k], 'frequency')}.`,
       };
     }

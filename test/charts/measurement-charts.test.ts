@@ -65,7 +65,8 @@ describe('measurement charts', () => {
   it('renders three charts whose titles and descriptions state the miss', async () => {
     const charts = await renderMeasurementCharts(data());
     expect(Object.keys(charts)).toEqual(['measured-impedance', 'measured-phase', 'residual']);
-    expect(charts.residual.title).toBe('DEMO-C: model − measurement measurements/demo.s2p, |Z| in dB and phase in degrees');
+    expect(charts.residual.title).toBe('DEMO-C: model − measured (measurements/demo.s2p), |Z| in dB and phase in degrees');
+    expect(charts['measured-impedance'].title).toBe('DEMO-C: |Z| of the model and as measured (measurements/demo.s2p)');
     expect(charts.residual.description).toContain('The model misses the measurement by 0.83 dB rms in |Z| (at most 0.83 dB) and 3.00° rms in phase.');
     expect(charts.residual.description).toContain('The largest |Z| error, −0.83 dB, is at 1 kHz.');
     expect(charts['measured-impedance'].description).toContain('shunt-thru fixture, 61 points, 1 kHz to 1 GHz');
