@@ -13,7 +13,7 @@ export interface FieldChange {
 }
 
 /** Fields that name a list item, so an inserted item does not shift every later index. */
-const KEY_FIELDS = ['part', 'id', 'name', 'text'];
+const KEY_FIELDS = ['part', 'id', 'name', 'text', 'file'];
 
 type Plain = Record<string, unknown>;
 
@@ -51,6 +51,10 @@ export function fieldChanges(before: unknown, after: unknown, path = ''): FieldC
     const keys = [...Object.keys(before), ...Object.keys(after).filter((k) => !Object.hasOwn(before, k))];
     return keys.flatMap((k) => fieldChanges(Object.hasOwn(before, k) ? before[k] : null, Object.hasOwn(after, k) ? after[k] : null, join(path, k)));
   }
+  // A keyed list added or removed whole (a part's first measurement) is listed item by item, like an item
+  // added to a list that was there.
+  if (before === null && Array.isArray(after) && keyFieldOf([], after) !== undefined) return fieldChanges([], after, path);
+  if (after === null && Array.isArray(before) && keyFieldOf(before, []) !== undefined) return fieldChanges(before, [], path);
   if (Array.isArray(before) && Array.isArray(after)) {
     const key = keyFieldOf(before, after);
     if (key !== undefined) {

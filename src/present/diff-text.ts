@@ -17,9 +17,18 @@ export interface ChangeLine {
 
 /** "a 0.45n → 0.75n": one field, as written before and after. */
 export function fieldText(f: FieldChange): string {
-  if (f.before === null) return `${f.path} added: ${valueText(f.after)}`;
-  if (f.after === null) return `${f.path} removed (was ${valueText(f.before)})`;
+  if (f.before === null) return `${f.path} added: ${valueText(withoutKey(f.path, f.after))}`;
+  if (f.after === null) return `${f.path} removed (was ${valueText(withoutKey(f.path, f.before))})`;
   return `${f.path} ${valueText(f.before)} → ${valueText(f.after)}`;
+}
+
+/** An item added to or removed from a keyed list, without the key its path already names: "capacitors[P0] added: {count: 1}". */
+function withoutKey(path: string, value: unknown): unknown {
+  const key = /\[([^\]]*)\]$/.exec(path)?.[1];
+  if (key === undefined || typeof value !== 'object' || value === null || Array.isArray(value)) return value;
+  const entries = Object.entries(value);
+  const at = entries.findIndex(([, v]) => v === key);
+  return at < 0 ? value : Object.fromEntries(entries.filter((_, i) => i !== at));
 }
 
 const fieldsText = (fields: readonly FieldChange[]) => fields.map(fieldText).join('; ');
@@ -82,6 +91,11 @@ function loadStepChange(a: RailVerdict, b: RailVerdict): string {
   return `; load step ${status}, dip ${dip} (budget ${budget})`;
 }
 
+function sameLoadStep(a: RailVerdict, b: RailVerdict): boolean {
+  const [x, y] = [a.loadStep, b.loadStep];
+  return x === y || (!!x && !!y && x.status === y.status && x.droopV === y.droopV && x.budgetV === y.budgetV);
+}
+
 export function causeText(c: RailCause, sole = true): string {
   const what = c.kind === 'plan' ? 'the plan' : c.kind === 'part' ? `part ${c.id}` : 'folio.yaml';
   const alone = c.alone && !sole ? `; alone ${c.alone.pass ? 'PASS' : 'FAIL'} ${formatDecibels(c.alone.worstMarginDb)}` : '';
@@ -93,8 +107,13 @@ export function railText(p: PlanChange): string {
   if (p.status === 'removed') return `rail ${p.rail} removed (was ${p.before ? verdictText(p.before) : ''})`;
   const [a, b] = [p.before!, p.after!];
   const verdict = a.pass === b.pass ? (b.pass ? 'PASS' : 'FAIL') : `${a.pass ? 'PASS' : 'FAIL'} → ${b.pass ? 'PASS' : 'FAIL'}`;
-  const margin = `worst margin ${formatDecibels(a.worstMarginDb)} → ${formatDecibels(b.worstMarginDb)}`;
-  const moved = p.causes.length > 0 ? `; moved by ${p.causes.map((c) => causeText(c, p.causes.length === 1)).join(', ')}` : '';
+  const same = a.worstMarginDb === b.worstMarginDb;
+  const margin = same ? `worst margin ${formatDecibels(b.worstMarginDb)} unchanged` : `worst margin ${formatDecibels(a.worstMarginDb)} → ${formatDecibels(b.worstMarginDb)}`;
+  // A change that reaches the rail but moves none of its figures (a part's measurement, cost or notes) is
+  // named as an input that changed, not as what moved the rail.
+  const still = same && a.pass === b.pass && sameLoadStep(a, b);
+  const causes = p.causes.map((c) => causeText(c, p.causes.length === 1)).join(', ');
+  const moved = p.causes.length > 0 ? (still ? `; inputs changed: ${causes}` : `; moved by ${causes}`) : '';
   return `rail ${p.rail}: ${verdict}, ${margin}${loadStepChange(a, b)}${moved}`;
 }
 

@@ -53,3 +53,15 @@ describe('valueText', () => {
     expect(long.endsWith('…')).toBe(true);
   });
 });
+
+describe('a keyed list added or removed whole', () => {
+  it('is listed item by item, measurements by their file', () => {
+    const m = { file: 'measurements/a.s2p', fixture: 'series-thru', date: '2026-01-21' };
+    expect(fieldChanges({ id: 'A' }, { id: 'A', measurements: [m] })).toEqual([{ path: 'measurements[measurements/a.s2p]', before: null, after: m }]);
+    expect(fieldChanges({ id: 'A', measurements: [m] }, { id: 'A' })).toEqual([{ path: 'measurements[measurements/a.s2p]', before: m, after: null }]);
+  });
+
+  it('a list of plain values added whole stays one change', () => {
+    expect(fieldChanges({ id: 'A' }, { id: 'A', tags: ['x'] })).toEqual([{ path: 'tags', before: null, after: ['x'] }]);
+  });
+});
