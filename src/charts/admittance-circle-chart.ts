@@ -102,6 +102,9 @@ export const admittanceCircleChart = xyChart<PartChartInput>({
       const [gh, bh] = admittanceAt(input, fh);
       return { f: fh, g: gh, b: bh };
     });
+    // A decade that falls on a half-power point (within a spot) and would be labelled the same ("1 GHz")
+    // keeps its dot; the half-power label names it, rather than a second "1 GHz" set apart from the first.
+    const decadeLabels = marks.filter((m) => !halfPoints.some((h) => halfPowerLabel(h.f) === m.text && Math.hypot(px(h.g, h.b).x - m.x, px(h.g, h.b).y - m.y) <= SAME_SPOT_PX));
     const halfLabels: MarkLabel[] = halfPoints.map((h) => ({ at: { x: h.g, v: h.b }, ...px(h.g, h.b), text: halfPowerLabel(h.f), required: true, candidates: h.b > 0 ? ABOVE_MARK : BELOW_MARK }));
     const resonances = srf
       ? resonanceLabels({ resonances: [srf], selfResonance: srf }, (r) => ({ at: { x: 1 / r.impedanceOhm, v: 0 }, ...px(1 / r.impedanceOhm, 0) }), () => RESONANCE_PLACES)
@@ -113,7 +116,7 @@ export const admittanceCircleChart = xyChart<PartChartInput>({
     ];
     const path = { xs: kept.map((i) => xs[i]), ys: kept.map((i) => ys[i]) };
     const zeroLine = { xs: [0, FRAME.width], ys: [zeroY, zeroY] };
-    const placed = placeMarkLabels([...resonances, ...halfLabels, ...marks], FRAME, [path, zeroLine], notes);
+    const placed = placeMarkLabels([...resonances, ...halfLabels, ...decadeLabels], FRAME, [path, zeroLine], notes);
     const nR = resonances.length;
     const nH = halfLabels.length;
     // Both halves named on the plot, or, where the circle and its labels leave no room for one, both in the key.

@@ -39,7 +39,8 @@ export const phaseChart = xyChart<PartChartInput>({
     const exact = input.resonances.map((r) => ({ f: r.frequencyHz, v: 0 }));
     const curve = mergeCurve(input.frequencies, (i) => input.columns.phaseDeg[i], exact, false);
     const requests = resonanceLabels(input, (r) => ({ at: { f: r.frequencyHz, v: 0 }, ...toPlot(x.map, yMap, r.frequencyHz, 0) }), () => BESIDE_CROSSING);
-    // Which sign means what, written beside the zero line at whichever end the curve leaves free.
+    // Which sign means what, written beside the zero line where the curve and the labels leave room; where
+    // they leave none for one of them (a bead's curve fills the upper half), both go in the key instead.
     const notes = [
       { x: 0, y: FRAME.height / 2, text: SIGN_NOTE.phaseInductive, candidates: NOTE_ABOVE },
       { x: 0, y: FRAME.height / 2, text: SIGN_NOTE.phaseCapacitive, candidates: NOTE_BELOW },
@@ -47,6 +48,7 @@ export const phaseChart = xyChart<PartChartInput>({
     const placed = placeMarkLabels(requests, FRAME, [curveObstacle(curve, x.map, yMap)], notes);
     const band = bandData(input);
     const ordered = resonancesByImportance(input);
+    const onPlot = placed.notes.length === notes.length;
     return {
       x,
       y: { domain: DOMAIN, ticks: { ...linearTicks([-90, 90], 30, degreesLabel), minor: [-75, -45, -15, 15, 45, 75] } },
@@ -55,10 +57,10 @@ export const phaseChart = xyChart<PartChartInput>({
         curves: curveRows(curve, x.map, yMap, 'phase'),
         points: ordered.map((r) => ({ f: r.frequencyHz, v: 0 })),
         labels: shown(placed.labels),
-        notes: placed.notes,
+        notes: onPlot ? placed.notes : [],
       },
       key: [
-        { kind: 'line', style: { s: 'phase' }, text: KEY_TEXT.phase },
+        { kind: 'line', style: { s: 'phase' }, text: onPlot ? KEY_TEXT.phase : `${KEY_TEXT.phase}; ${KEY_TEXT.phaseSides}` },
         ...(ordered.length > 0 ? [{ kind: 'point' as const, color: RESONANCE_MARK, text: KEY_TEXT.phaseResonance }] : []),
         ...(band.key ? [band.key] : []),
       ],
@@ -73,14 +75,17 @@ const BESIDE_CROSSING: Placement[] = [
   { dx: -6, dy: -4, align: 'right', baseline: 'bottom' },
 ];
 
-const NOTE_ABOVE: Placement[] = [
-  { dx: 6, dy: -4, align: 'left', baseline: 'bottom' },
-  { dx: FRAME.width - 6, dy: -4, align: 'right', baseline: 'bottom' },
-  { dx: FRAME.width / 2, dy: -4, align: 'center', baseline: 'bottom' },
-];
+/**
+ * Where a sign note may go: beside the zero line at the left, the right or the middle, then a line further
+ * from it at each, then two: on its own side of the line, wherever the curve and the resonance labels leave
+ * room (with a label at the SRF and a dip above it, a network's "capacitive" found none beside the line).
+ */
+const noteSpots = (side: 1 | -1): Placement[] =>
+  [4, 20, 36].flatMap((gap) => [
+    { dx: 6, dy: side * gap, align: 'left' as const, baseline: side < 0 ? ('bottom' as const) : ('top' as const) },
+    { dx: FRAME.width - 6, dy: side * gap, align: 'right' as const, baseline: side < 0 ? ('bottom' as const) : ('top' as const) },
+    { dx: FRAME.width / 2, dy: side * gap, align: 'center' as const, baseline: side < 0 ? ('bottom' as const) : ('top' as const) },
+  ]);
 
-const NOTE_BELOW: Placement[] = [
-  { dx: 6, dy: 4, align: 'left', baseline: 'top' },
-  { dx: FRAME.width - 6, dy: 4, align: 'right', baseline: 'top' },
-  { dx: FRAME.width / 2, dy: 4, align: 'center', baseline: 'top' },
-];
+const NOTE_ABOVE = noteSpots(-1);
+const NOTE_BELOW = noteSpots(1);

@@ -26,6 +26,8 @@ export const KEY_TEXT = {
   susceptanceInductive: '|B|, B < 0 inductive',
   phase: 'phase of Z = R + jX',
   phaseResonance: 'resonance (0°)',
+  /** Which side of 0° is which, when the plot has no room to say it beside the zero line. */
+  phaseSides: 'above 0° inductive, below capacitive',
   path: 'Z = R + jX (arrows: rising f)',
   decade: 'decade of frequency',
   admittancePath: 'Y = G + jB, clockwise as f rises',

@@ -11,6 +11,7 @@ import { loadLibrary, type Library } from '../../src/model/library.js';
 import { formatEng } from '../../src/units/format.js';
 import { copyLibrary, filesUnder, read, REPO, tempDir, treeHashes } from '../site-helpers.js';
 import { DEMO_SITE_OPTIONS, demoSite } from '../demo-site.js';
+import { svgTexts } from '../charts/svg-text.js';
 
 let library: Library;
 let first: BuildResult;
@@ -41,6 +42,19 @@ describe('the demo folio', () => {
       expect(charts, part.id).toEqual(['impedance', 'phase', 'plane', 'admittance']);
       // Each chart carries its text alternative.
       expect((html.match(/<svg[^>]*role="img"[\s\S]*?<title[^>]*>[^<]+<\/title>\s*<desc[^>]*>[^<]+<\/desc>/g) ?? []).length).toBeGreaterThanOrEqual(4);
+    }
+  });
+
+  it("says on every part's phase chart which side of 0° is inductive and which capacitive", () => {
+    // X > 0 is inductive and X < 0 capacitive (Z = R + jX, textbook convention): both notes beside the zero
+    // line where the curve and the resonance labels leave room for them, else both in the key.
+    for (const part of library.parts) {
+      const html = read(siteA, `parts/${part.id}/index.html`);
+      const phase = /<figure class="chart" id="chart-phase">([\s\S]*?)<\/svg>/.exec(html)![1];
+      const texts = svgTexts(phase);
+      const onPlot = texts.includes('↑ inductive (X > 0)') && texts.includes('↓ capacitive (X < 0)');
+      const inKey = texts.join(' ').includes('above 0° inductive, below capacitive');
+      expect(onPlot !== inKey, `${part.id}: both notes on the plot, or both in the key`).toBe(true);
     }
   });
 

@@ -106,6 +106,26 @@ describe('a capacitor\'s complex plane: the admittance circle', () => {
     expect(worst).toBeLessThan(0.01);
   });
 
+  it('labels a decade that falls on a half-power point once: the 100 pF C0G of the demo has one "1 GHz", not two', async () => {
+    // Its part file: ESR 300 mΩ + ESL 0.3 nH + 100 pF. Series R-L-C closed forms as above: f0 = 919 MHz,
+    // Q = √(L/C)/R = 5.77, f2 = f0·(√(1 + 1/(4Q²)) + 1/(2Q)) = 1.00 GHz, a hair from the 1 GHz decade.
+    const [r, l, c] = [0.3, 0.3e-9, 100e-12];
+    const w0 = 1 / Math.sqrt(l * c);
+    const q = Math.sqrt(l / c) / r;
+    const upper = (w0 / (2 * Math.PI)) * (Math.sqrt(1 + 1 / (4 * q * q)) + 1 / (2 * q));
+    expect(formatEng(upper, 'Hz')).toBe('1 GHz');
+    const library = loadLibrary(REPO).library!;
+    const part = library.partsById.get('ORV-C-0201-100P-C0G')!;
+    const out = await renderPartChart('plane', analysePart(part, library.settings.sweep, library.settings.within, library.settings.temperature));
+    const texts = svgTexts(out.svg);
+    expect(texts.filter((t) => t === '1 GHz')).toHaveLength(1);
+    // The decade's dot stays: 1 GHz is still marked on the path.
+    const decades = (out.spec as { datasets: Rows }).datasets.decades;
+    const w = 2 * Math.PI * 1e9;
+    const y = new Complex(1, 0).div(new Complex(r, w * l - 1 / (w * c)));
+    expect(decades.some((d) => Math.abs(d.x / y.re - 1) < 1e-3 && Math.abs(d.v / y.im - 1) < 1e-3)).toBe(true);
+  });
+
   it('is for capacitors only: an inductor and a network keep the impedance plane', async () => {
     for (const p of [inductorPart, networkPart]) {
       const texts = svgTexts((await renderPartChart('plane', analysed(p))).svg);

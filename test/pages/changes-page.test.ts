@@ -41,7 +41,7 @@ describe('build --since', () => {
     expect(r.code, r.err).toBe(0);
     const d = await run(['diff', 'v1', '--library', lib], '/');
     diffLines = d.out.trimEnd().split('\n').slice(1);
-  }, 60_000);
+  });
 
   it('adds a page with the summary and every change of `zfolio diff`, in its order, the moved verdict first', () => {
     const page = readFileSync(join(out, 'changes/index.html'), 'utf8');
@@ -94,7 +94,7 @@ describe('a build without --since', () => {
     expect(r.code, r.err).toBe(0);
     expect(existsSync(join(out, 'changes'))).toBe(false);
     expect(readFileSync(join(out, 'index.html'), 'utf8')).not.toContain('changes/index.html');
-  }, 60_000);
+  });
 });
 
 describe('build refuses, writing nothing', () => {
