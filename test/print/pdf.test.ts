@@ -212,8 +212,22 @@ describe('a datasheet\'s length', () => {
   });
 });
 
-describe('zfolio print', () => {
-  it('prints datasheets on Letter paper into the folder asked for, leaving the site alone; a plain part\'s on two pages', async () => {
+/**
+ * One `zfolio print` on Letter paper, run once for the tests below (each print builds the library and starts
+ * Chromium): the inductor's datasheet over a PDF zfolio made, the plain datasheets that reach furthest down
+ * their second A4 page, the review pack, and two rail plans, one named by its rail and one by its plan file.
+ */
+interface LetterPrint {
+  code: number;
+  out: string;
+  lines: string;
+  fullest: string[];
+  leftover: string;
+  siteBefore: number | null;
+}
+let letter: Promise<LetterPrint> | undefined;
+function printOnLetter(): Promise<LetterPrint> {
+  letter ??= (async () => {
     const out = tempDir('print');
     const repoSite = join(REPO, '_site');
     const siteBefore = existsSync(repoSite) ? statSync(repoSite).mtimeMs : null;
@@ -228,25 +242,33 @@ describe('zfolio print', () => {
     // second A4 page are the ones that could spill onto a third.
     const fullest = library.parts.map((p) => p.id).filter((id) => plain(id) && id !== INDUCTOR).sort((a, b) => lastPageFill(measure(sheetFile(b))) - lastPageFill(measure(sheetFile(a)))).slice(0, 3);
     // The review pack too: Letter breaks its pages elsewhere than A4.
-    const code = await main(['print', INDUCTOR, ...fullest, 'dl3-power-integrity', '--paper', 'letter', '--out', out, '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
+    const names = [INDUCTOR, ...fullest, 'dl3-power-integrity', 'VDD_CORE', 'plans/vdd-3v3.yaml'];
+    const code = await main(['print', ...names, '--paper', 'letter', '--out', out, '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
+    return { code, out, lines: lines.join(''), fullest, leftover, siteBefore };
+  })();
+  return letter;
+}
+
+describe('zfolio print', () => {
+  it('prints datasheets on Letter paper into the folder asked for, leaving the site alone; a plain part\'s on two pages', async () => {
+    const { code, out, lines, fullest, leftover, siteBefore } = await printOnLetter();
     expect(code).toBe(0);
     expect(existsSync(leftover)).toBe(false);
     const file = join(out, `${INDUCTOR}.pdf`);
-    expect(lines.join('')).toMatch(new RegExp(`${INDUCTOR}\\.pdf  2 pages\\n`));
+    expect(lines).toMatch(new RegExp(`${INDUCTOR}\\.pdf  2 pages\\n`));
     for (const id of fullest) expect(Number(pdfinfo(join(out, `${id}.pdf`)).Pages), id).toBe(2);
     for (const name of [INDUCTOR, ...fullest, 'dl3-power-integrity']) expect(nearlyEmptyPages(measurePdf(join(out, `${name}.pdf`))), name).toEqual([]);
     // US Letter is 612 × 792 pt (ANSI/ASME Y14.1).
     expect(pdfinfo(file)['Page size']).toMatch(/^612 x 792 pts \(letter\)/);
     expect(pdftotext(file)).toContain(INDUCTOR);
+    const repoSite = join(REPO, '_site');
     expect(existsSync(repoSite) ? statSync(repoSite).mtimeMs : null).toBe(siteBefore);
   }, 300_000);
 
   it('prints a rail plan on its own, named by its rail or its plan file', async () => {
-    const out = tempDir('print-rail');
-    const lines: string[] = [];
-    const code = await main(['print', 'VDD_CORE', 'plans/vdd-3v3.yaml', '--out', out, '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
+    const { code, out, lines } = await printOnLetter();
     expect(code).toBe(0);
-    expect(lines.join('')).toMatch(/VDD_CORE\.pdf  \d+ pages?\n/);
+    expect(lines).toMatch(/VDD_CORE\.pdf  \d+ pages?\n/);
     const text = pdftotext(join(out, 'VDD_CORE.pdf'));
     const page = read(site, 'plans/VDD_CORE/index.html');
     const verdict = /\bverdict-(pass|fail)\b/.exec(page)![1].toUpperCase();
@@ -258,7 +280,7 @@ describe('zfolio print', () => {
     const pages = Number(pdfinfo(join(out, 'VDD_CORE.pdf')).Pages);
     for (let n = 1; n <= pages; n++) expect(text).toContain(`page ${n} of ${pages}`);
     expect(pdfinfo(join(out, 'VDD_3V3.pdf')).Title).toMatch(/^Rail plan VDD_3V3 — /);
-  }, 180_000);
+  }, 300_000);
 
   it('names what it cannot find', async () => {
     const err: string[] = [];
