@@ -52,6 +52,10 @@ interface Compiled {
   datasets: string[];
   /** The spec's parameters with their placeholder values. */
   params: { name: string; value: unknown }[];
+  /** The parameters reset before each render: those whose placeholder is an empty list (see renderChart). */
+  emptied: { name: string; value: unknown }[];
+  /** Data sources holding rows in the View now (the others are empty). */
+  filled: Set<string>;
   /** The last render queued on this View. */
   queue: Promise<unknown>;
 }
@@ -100,7 +104,9 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
     // The specs are fixed: a warning is a defect in a chart definition, found by the chart tests.
     if (warnings.length > 0) throw new Error(`chart "${def.name}": vega-lite warns: ${warnings.join('; ')}`);
     const runtime = parse(vg);
-    c = { spec, runtime, view: new View(runtime, { renderer: 'none' }), datasets: namedData(spec), params: paramsOf(spec), queue: Promise.resolve() };
+    const params = paramsOf(spec);
+    const emptied = params.filter((p) => Array.isArray(p.value) && p.value.length === 0);
+    c = { spec, runtime, view: new View(runtime, { renderer: 'none' }), datasets: namedData(spec), params, emptied, filled: new Set(), queue: Promise.resolve() };
     compiled.set(def.name, c);
     counter(def.name).compiles++;
   }
@@ -149,14 +155,25 @@ export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartTex
     const { view } = c;
     // Empty the View first: vega keeps the scene items of data (and axis ticks) that survive an update and
     // appends new ones after them, so without this the order of elements in the SVG would depend on the
-    // chart drawn before. From empty, every item is created afresh in data order.
-    for (const p of c.params) view.signal(p.name, p.value);
-    for (const name of c.datasets) view.data(name, []);
+    // chart drawn before. From empty, every item is created afresh in data order. Items come from rows and
+    // from the parameters whose placeholder is an empty list (an axis's tick values, and their labels);
+    // the others (domains) make no items and are simply set below, so the empty run does not recompute
+    // every scale and axis twice. Only data sources that hold rows are emptied, and only those with rows
+    // are filled: a source set to empty again still runs everything downstream of it.
+    for (const p of c.emptied) view.signal(p.name, p.value);
+    for (const name of c.filled) view.data(name, []);
     await view.runAsync();
+    c.filled.clear();
     const f = binding.frame ?? def.frame;
     view.width(f.width).height(f.height).padding(f.padding);
     for (const [name, value] of Object.entries(binding.params)) view.signal(name, value);
-    for (const name of c.datasets) view.data(name, binding.datasets[name] ?? []);
+    for (const name of c.datasets) {
+      const rows = binding.datasets[name];
+      if (rows && rows.length > 0) {
+        view.data(name, rows);
+        c.filled.add(name);
+      }
+    }
     await view.runAsync();
     const raw = await view.toSVG();
     counter(def.name).renders++;
