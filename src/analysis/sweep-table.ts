@@ -20,7 +20,7 @@ export const SWEEP_COLUMNS = [
 
 export type SweepColumns = Record<(typeof SWEEP_COLUMNS)[number][1], Float64Array>;
 
-export function sweepColumns(a: PartAnalysis): SweepColumns {
+export function sweepColumns(a: Pick<PartAnalysis, 'columns'>): SweepColumns {
   return a.columns;
 }
 
@@ -36,7 +36,7 @@ export function csvCell(value: number, digits?: number): string {
 }
 
 /** The sweep as CSV, one row per point; `digits` rounds every value to that many significant digits. */
-export function sweepCsv(a: PartAnalysis, digits?: number): string {
+export function sweepCsv(a: Pick<PartAnalysis, 'frequencies' | 'columns'>, digits?: number): string {
   const columns = sweepColumns(a);
   const arrays = SWEEP_COLUMNS.map(([, key]) => columns[key]);
   let text = SWEEP_COLUMNS.map(([header]) => header).join(',') + '\n';

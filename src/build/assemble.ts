@@ -4,10 +4,6 @@
 import { join } from 'node:path';
 import { analysePart, type PartAnalysis } from '../analysis/part-figures.js';
 import { analysePlan, planFiguresWithoutCurves } from '../analysis/plan-figures.js';
-import { partSummary } from '../analysis/summary.js';
-import { sweepCsv } from '../analysis/sweep-table.js';
-import { logSweep } from '../circuit/sweep.js';
-import { partSubcircuit, partTouchstone } from '../measure/part-export.js';
 import type { PartMeasurement } from '../measure/part-measurements.js';
 import { measurementInputs } from '../model/measurement-entry.js';
 import { measurementChartData, measurementPageData, type MeasurementPageData } from '../pages/measurement-page.js';
@@ -20,15 +16,13 @@ import type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.j
 
 export type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
 import { comparedAnalysis, type ComparedAnalysis } from './chart-jobs.js';
-import { escapeJsonMarkup } from '../present/escape.js';
-import { selectionText, sweepText } from '../present/part-words.js';
+import { selectionText } from '../present/part-words.js';
 import { libraryRevision } from '../history/library-revision.js';
 import { comparisonSlug } from '../present/slugs.js';
 import { comparisonIndex } from '../pages/comparison-index.js';
 import { partList } from '../pages/part-list.js';
 import { listedPart, type ListedPart } from '../pages/listed-part.js';
 import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
-import { downloadSpec, SWEEP_CSV, SWEEP_CSV_DIGITS } from '../pages/spec-download.js';
 import { writeFileDeep } from './output.js';
 import { planPageData, type PlanPageData } from '../pages/plan-page.js';
 import type { Progress } from './progress.js';
@@ -37,30 +31,28 @@ import {
   automaticComparisons,
   folioHeader,
   partPageData,
-  modelFileNames,
   type ChartOnPage,
   type ComparisonPageData,
   type FolioData,
   type PartPageData,
 } from '../pages/site-data.js';
 
-/**
- * Pretty JSON with a final newline (downloads are read by people too), with <, > and & written as \u
- * escapes: the same data when parsed, and inert if a file is ever sniffed or pasted as HTML.
- */
-export const jsonFile = (value: unknown) => escapeJsonMarkup(JSON.stringify(value, null, 2)) + '\n';
-
+export { jsonFile } from './part-downloads.js';
+import { jsonFile, specFileName, writeChartSpec } from './part-downloads.js';
 
 /** A chart as its page shows it; its spec is (or was) written beside the page. */
 function chartOnPage(chart: ChartArtifact): ChartOnPage {
-  return { key: chart.key, title: chart.title, description: chart.description, svg: chart.svg, specFile: `${chart.key}.vl.json` };
+  return { key: chart.key, title: chart.title, description: chart.description, svg: chart.svg, specFile: specFileName(chart) };
 }
 
 /** Time spent on parts of the work, in seconds (for benchmarks and a build's breakdown). */
 export interface AssembleTimings {
   /** Analysing every part (sweeps, resonances, bands). */
   analyse: number;
-  /** Writing downloads: sweep CSVs, figures and chart specs (made into text and written). */
+  /**
+   * Writing downloads on this thread: figures and chart specs of plans and comparisons, and a part's
+   * downloads when its charts came from the cache (the chart workers write the others, part-downloads.ts).
+   */
   downloads: number;
 }
 
@@ -71,15 +63,12 @@ function timedWrite(timings: AssembleTimings | undefined, path: string, content:
   if (timings) timings.downloads += (performance.now() - started) / 1000;
 }
 
-/**
- * Write a chart's spec beside its page and say where it is, relative to the page. Specs are written compact
- * (any vega-lite tool lays them out); a part chart's curves point at the part's sweep.csv (spec-download.ts).
- */
-function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimings, beside?: 'sweep'): ChartOnPage {
-  const page = chartOnPage(chart);
-  const spec = beside === 'sweep' ? downloadSpec(chart.key, chart.spec) : chart.spec;
-  timedWrite(timings, join(folder, page.specFile), () => escapeJsonMarkup(JSON.stringify(spec)) + '\n');
-  return page;
+/** Write a chart's spec beside its page (writeChartSpec) and say where it is, relative to the page. */
+function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimings): ChartOnPage {
+  const started = performance.now();
+  writeChartSpec(chart, folder);
+  if (timings) timings.downloads += (performance.now() - started) / 1000;
+  return chartOnPage(chart);
 }
 
 /**
@@ -175,12 +164,10 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
         page = full;
       } else {
         if (work) work.partFolders++;
-        const drawn = await charts.partCharts(a);
         const folder = join(siteDir, 'parts', part.id);
-        timedWrite(timings, join(folder, SWEEP_CSV), () => sweepCsv(a, SWEEP_CSV_DIGITS));
-        timedWrite(timings, join(folder, 'figures.json'), () => jsonFile(partSummary(a)));
-        writeModelFiles(part, folder, library.settings.sweep, timings);
-        const full = partPageData(a, drawn.map((c) => placeChart(c, folder, timings, 'sweep')));
+        // The thread that draws the charts writes the part's downloads and the charts' specs.
+        const drawn = await charts.partCharts(a, { folder, sweep: library.settings.sweep });
+        const full = partPageData(a, drawn.map(chartOnPage));
         full.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
         page = full;
         compared.set(part.id, comparedAnalysis(a));
@@ -222,16 +209,6 @@ async function measurementSections(part: Part, found: readonly PartMeasurement[]
       return measurementPageData(part, m, index, library.settings.measurementWarnDb, drawn.map(place));
     }),
   );
-}
-
-/**
- * The model for simulators, beside the page: a one-port Touchstone file over the library's sweep (S11 with
- * the decimals that keep the impedance read back from it to 6 significant digits, as sweep.csv keeps R and
- * X) and a SPICE subcircuit.
- */
-function writeModelFiles(part: Part, folder: string, sweep: Library['settings']['sweep'], timings?: AssembleTimings): void {
-  timedWrite(timings, join(folder, modelFileNames(part.id).touchstone), () => partTouchstone(part, logSweep(sweep), sweepText(sweep), SWEEP_CSV_DIGITS));
-  timedWrite(timings, join(folder, modelFileNames(part.id).spice), () => partSubcircuit(part));
 }
 
 async function planPage(plan: Plan, library: Library, siteDir: string, charts: ChartMaker, timings?: AssembleTimings): Promise<PlanPageData> {

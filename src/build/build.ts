@@ -270,8 +270,9 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     });
     return result;
   } catch (error) {
-    staging.abandon();
+    // The workers stop first: they write parts' downloads into the staging folder.
     await pool?.close();
+    staging.abandon();
     throw error;
   }
 }

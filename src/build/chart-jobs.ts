@@ -9,10 +9,12 @@ import { loadStepChartInput, renderLoadStepCharts, type LoadStepChartData } from
 import { renderChangeChart, type ChangeChartData } from '../charts/change-chart.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact } from './chart-maker.js';
+import { writePartDownloads, type PartDownloads } from './part-downloads.js';
 import { MEASUREMENT_CHART_KINDS, renderMeasurementCharts, type MeasurementChartData } from '../charts/measurement-charts.js';
 
 export type ChartJob =
-  | { type: 'part'; input: PartChartInput }
+  /** With `downloads`, the part's downloads are written once its charts are drawn (part-downloads.ts). */
+  | { type: 'part'; input: PartChartInput; downloads?: PartDownloads }
   | { type: 'comparison'; inputs: ComparisonPart[]; title: string }
   | { type: 'rail'; data: RailChartData }
   | { type: 'load-step'; data: LoadStepChartData }
@@ -64,7 +66,9 @@ export function comparedAnalysis(a: ComparedAnalysis): ComparedAnalysis {
 export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {
   if (job.type === 'part') {
     const charts = await renderPartCharts(job.input);
-    return PART_CHART_KINDS.map((key) => ({ key, ...charts[key] }));
+    const artifacts = PART_CHART_KINDS.map((key) => ({ key, ...charts[key] }));
+    if (job.downloads) writePartDownloads(job.downloads, artifacts);
+    return artifacts;
   }
   if (job.type === 'measurement') {
     const charts = await renderMeasurementCharts(job.data);

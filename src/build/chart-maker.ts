@@ -6,6 +6,7 @@ import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ComparedAnalysis } from './chart-jobs.js';
 import type { ChangeChartData } from '../charts/change-chart.js';
 import type { MeasurementChartData } from '../charts/measurement-charts.js';
+import type { DownloadPlace } from './part-downloads.js';
 
 export interface ChartArtifact {
   /** File-name-safe key: "impedance", "phase", "plane", "admittance", "overlay". */
@@ -19,7 +20,11 @@ export interface ChartArtifact {
 }
 
 export interface ChartMaker {
-  partCharts(analysis: PartAnalysis): Promise<ChartArtifact[]>;
+  /**
+   * A part's charts; with `downloads`, its downloads and its charts' specs are written into that folder too,
+   * in whichever thread draws them (part-downloads.ts), before the promise is resolved.
+   */
+  partCharts(analysis: PartAnalysis, downloads?: DownloadPlace): Promise<ChartArtifact[]>;
   comparisonChart(analyses: ComparedAnalysis[], title: string): Promise<ChartArtifact>;
   /** `inputsKey` names everything the plan's figures came from (file hashes), for caching. */
   railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact>;

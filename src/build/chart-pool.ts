@@ -18,6 +18,7 @@ import { codeKey } from './reuse.js';
 import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker } from './chart-maker.js';
+import { partDownloads, writePartDownloads, type DownloadPlace } from './part-downloads.js';
 import type { ChangeChartData } from '../charts/change-chart.js';
 import type { MeasurementChartData } from '../charts/measurement-charts.js';
 
@@ -38,6 +39,8 @@ export interface ChartPoolStats {
   drawn: number;
   /** Seconds the worker threads spent on jobs, summed over workers (from sending a job to its answer). */
   workerSeconds: number;
+  /** Seconds this thread spent writing the downloads of parts whose charts came from the cache. */
+  downloadSeconds: number;
 }
 
 const gzipAsync = promisify(gzip);
@@ -63,7 +66,7 @@ interface Pending {
 }
 
 export class ChartPool implements ChartMaker {
-  readonly stats: ChartPoolStats = { rendered: 0, fromCache: 0, drawn: 0, workerSeconds: 0 };
+  readonly stats: ChartPoolStats = { rendered: 0, fromCache: 0, drawn: 0, workerSeconds: 0, downloadSeconds: 0 };
   // Everything that turns a part file into charts besides the file: all of zfolio's code and the rendering
   // packages' versions, so a changed analysis or renderer never serves a stale chart.
   private readonly fingerprint = codeKey();
@@ -84,10 +87,21 @@ export class ChartPool implements ChartMaker {
     if (options.cacheDir) mkdirSync(options.cacheDir, { recursive: true });
   }
 
-  async partCharts(a: PartAnalysis): Promise<ChartArtifact[]> {
+  async partCharts(a: PartAnalysis, downloads?: DownloadPlace): Promise<ChartArtifact[]> {
     const key = this.key('part', a.part.source.hash);
-    // The job is made (and the part analysed) only when a worker is about to take it.
-    return this.cached(key, () => this.run(() => ({ type: 'part', input: chartInput(a) })));
+    // The job is made (and the part analysed) only when a worker is about to take it; the worker that draws
+    // the charts writes the downloads. Charts from the cache have their downloads written here.
+    let drawn = false;
+    const charts = await this.cached(key, () => {
+      drawn = true;
+      return this.run(() => ({ type: 'part', input: chartInput(a), ...(downloads ? { downloads: partDownloads(a, downloads) } : {}) }));
+    });
+    if (downloads && !drawn) {
+      const started = performance.now();
+      writePartDownloads(partDownloads(a, downloads), charts);
+      this.stats.downloadSeconds += (performance.now() - started) / 1000;
+    }
+    return charts;
   }
 
   /** Keep a part's cached charts through this build's pruning without reading them (its page is reused). */
