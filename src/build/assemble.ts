@@ -11,7 +11,7 @@ import { comparisonKey } from '../model/comparison.js';
 import type { Library } from '../model/library.js';
 import type { Part } from '../model/part.js';
 import type { Plan } from '../model/plan.js';
-import type { ChartArtifact, ChartMaker } from './chart-maker.js';
+import type { ChartArtifact, ChartMaker, DrawnChart } from './chart-maker.js';
 import type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
 
 export type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
@@ -41,7 +41,7 @@ export { jsonFile } from './part-downloads.js';
 import { jsonFile, specFileName, writeChartSpec } from './part-downloads.js';
 
 /** A chart as its page shows it; its spec is (or was) written beside the page. */
-function chartOnPage(chart: ChartArtifact): ChartOnPage {
+function chartOnPage(chart: DrawnChart): ChartOnPage {
   return { key: chart.key, title: chart.title, description: chart.description, svg: chart.svg, specFile: specFileName(chart) };
 }
 

@@ -19,12 +19,15 @@ export interface ChartArtifact {
   spec: object;
 }
 
+/** A chart as a page shows it: a part's charts come back without their spec, which is written beside the page. */
+export type DrawnChart = Omit<ChartArtifact, 'spec'>;
+
 export interface ChartMaker {
   /**
    * A part's charts; with `downloads`, its downloads and its charts' specs are written into that folder too,
    * in whichever thread draws them (part-downloads.ts), before the promise is resolved.
    */
-  partCharts(analysis: PartAnalysis, downloads?: DownloadPlace): Promise<ChartArtifact[]>;
+  partCharts(analysis: PartAnalysis, downloads?: DownloadPlace): Promise<DrawnChart[]>;
   comparisonChart(analyses: ComparedAnalysis[], title: string): Promise<ChartArtifact>;
   /** `inputsKey` names everything the plan's figures came from (file hashes), for caching. */
   railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact>;

@@ -5,19 +5,18 @@
 // and folio modules' files), the part file's content hash, and the library's sweep and band settings.
 
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import { writeFile } from 'node:fs/promises';
-import { promisify } from 'node:util';
-import { gunzipSync, gzip } from 'node:zlib';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { codeKey } from './reuse.js';
 import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
-import type { ChartArtifact, ChartMaker } from './chart-maker.js';
+import type { ChartArtifact, ChartMaker, DrawnChart } from './chart-maker.js';
+import { readCacheEntry, writeCacheEntry } from './chart-cache-entry.js';
+import type { WorkerJob } from './chart-worker.js';
 import { partDownloads, writePartDownloads, type DownloadPlace } from './part-downloads.js';
 import type { ChangeChartData } from '../charts/change-chart.js';
 import type { MeasurementChartData } from '../charts/measurement-charts.js';
@@ -43,8 +42,6 @@ export interface ChartPoolStats {
   downloadSeconds: number;
 }
 
-const gzipAsync = promisify(gzip);
-const ignore = () => undefined;
 const HERE = dirname(fileURLToPath(import.meta.url));
 const RUNNING_TYPESCRIPT = import.meta.url.endsWith('.ts');
 
@@ -59,7 +56,7 @@ function typescriptWorker(file: string): Worker {
 }
 
 interface Pending {
-  resolve(charts: ChartArtifact[]): void;
+  resolve(charts: DrawnChart[]): void;
   reject(error: Error): void;
   /** When the job was handed to a worker (performance.now()). */
   sentAt?: number;
@@ -73,13 +70,11 @@ export class ChartPool implements ChartMaker {
   private readonly workers: Worker[] = [];
   private readonly idle: Worker[] = [];
   /** Jobs waiting for a worker; a job is made from its `make` when it is next (see `prepare`). */
-  private readonly queue: { id: number; make: () => ChartJob; job?: ChartJob }[] = [];
+  private readonly queue: { id: number; make: () => ChartJob; job?: ChartJob; cacheFile?: string; slim: boolean }[] = [];
   private readonly pending = new Map<number, Pending>();
   private readonly usedKeys = new Set<string>();
   private nextId = 0;
   private preparing = false;
-  /** Cache entries being written. */
-  private readonly writing: Promise<void>[] = [];
 
   constructor(private readonly options: ChartPoolOptions) {
     const count = options.workers ?? Math.min(availableParallelism(), 4);
@@ -87,21 +82,21 @@ export class ChartPool implements ChartMaker {
     if (options.cacheDir) mkdirSync(options.cacheDir, { recursive: true });
   }
 
-  async partCharts(a: PartAnalysis, downloads?: DownloadPlace): Promise<ChartArtifact[]> {
+  async partCharts(a: PartAnalysis, downloads?: DownloadPlace): Promise<DrawnChart[]> {
     const key = this.key('part', a.part.source.hash);
     // The job is made (and the part analysed) only when a worker is about to take it; the worker that draws
-    // the charts writes the downloads. Charts from the cache have their downloads written here.
-    let drawn = false;
-    const charts = await this.cached(key, () => {
-      drawn = true;
-      return this.run(() => ({ type: 'part', input: chartInput(a), ...(downloads ? { downloads: partDownloads(a, downloads) } : {}) }));
-    });
-    if (downloads && !drawn) {
+    // the charts writes the downloads and answers without the specs. Charts from the cache have their
+    // downloads written here.
+    const found = this.fromCache(key);
+    if (!found.charts) {
+      return this.drawn(this.run(() => ({ type: 'part', input: chartInput(a), ...(downloads ? { downloads: partDownloads(a, downloads) } : {}) }), found.file, true));
+    }
+    if (downloads) {
       const started = performance.now();
-      writePartDownloads(partDownloads(a, downloads), charts);
+      writePartDownloads(partDownloads(a, downloads), found.charts);
       this.stats.downloadSeconds += (performance.now() - started) / 1000;
     }
-    return charts;
+    return found.charts;
   }
 
   /** Keep a part's cached charts through this build's pruning without reading them (its page is reused). */
@@ -120,38 +115,37 @@ export class ChartPool implements ChartMaker {
 
   async comparisonChart(analyses: ComparedAnalysis[], title: string): Promise<ChartArtifact> {
     const key = this.comparisonKey(analyses, title);
-    const [chart] = await this.cached(key, () => this.run(() => ({ type: 'comparison', inputs: analyses.map(comparisonInput), title })));
+    const [chart] = await this.cached(key, () => ({ type: 'comparison', inputs: analyses.map(comparisonInput), title }));
     return chart;
   }
 
   async railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact> {
     const key = this.key('rail', inputsKey);
-    const [chart] = await this.cached(key, () => this.run(() => ({ type: 'rail', data: railChartData(figures) })));
+    const [chart] = await this.cached(key, () => ({ type: 'rail', data: railChartData(figures) }));
     return chart;
   }
 
   async loadStepCharts(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact[]> {
     const data = loadStepChartData(figures);
     if (!data) return [];
-    return this.cached(this.key('load-step', inputsKey), () => this.run(() => ({ type: 'load-step', data })));
+    return this.cached(this.key('load-step', inputsKey), () => ({ type: 'load-step', data }));
   }
 
   async changeChart(data: ChangeChartData): Promise<ChartArtifact> {
     // The data holds both revisions' curves, which come from files of two revisions and two settings: the
     // key is the data itself.
     const key = this.key('change', createHash('sha256').update(JSON.stringify(data)).digest('hex'));
-    const [chart] = await this.cached(key, () => this.run(() => ({ type: 'change', data })));
+    const [chart] = await this.cached(key, () => ({ type: 'change', data }));
     return chart;
   }
 
   async measurementCharts(data: MeasurementChartData, index: number, inputsKey: string): Promise<ChartArtifact[]> {
-    return this.cached(this.key('measurement', String(index), inputsKey), () => this.run(() => ({ type: 'measurement', data, index })));
+    return this.cached(this.key('measurement', String(index), inputsKey), () => ({ type: 'measurement', data, index }));
   }
 
   /** Stop the workers and drop cache entries this build did not use, so the cache never grows stale. */
   async close(): Promise<void> {
     await Promise.all(this.workers.map((w) => w.terminate()));
-    await Promise.all(this.writing);
     this.workers.length = 0;
     const dir = this.options.cacheDir;
     if (dir && existsSync(dir)) {
@@ -165,37 +159,53 @@ export class ChartPool implements ChartMaker {
     return createHash('sha256').update([this.fingerprint, this.options.settingsKey, ...parts].join('\n')).digest('hex').slice(0, 32);
   }
 
-  private async cached(key: string, render: () => Promise<ChartArtifact[]>): Promise<ChartArtifact[]> {
+  /** A request's charts from the cache, or the file they are to be written to when drawn. */
+  private fromCache(key: string): { charts?: ChartArtifact[]; file?: string } {
     this.usedKeys.add(key);
     const file = this.options.cacheDir ? join(this.options.cacheDir, `${key}.json.gz`) : undefined;
     if (file && existsSync(file)) {
       try {
-        const charts = JSON.parse(gunzipSync(readFileSync(file)).toString('utf8')) as ChartArtifact[];
+        const charts = readCacheEntry(file);
         this.stats.fromCache++;
-        return charts;
+        return { charts };
       } catch {
         // A damaged entry is drawn again and rewritten.
       }
     }
-    const charts = await render();
+    return { file };
+  }
+
+  private async drawn<T extends DrawnChart>(render: Promise<T[]>): Promise<T[]> {
+    const charts = await render;
     this.stats.rendered++;
     this.stats.drawn += charts.length;
-    // Compressed and written on libuv's threads, off the thread that feeds the chart workers; close() waits.
-    // An entry that cannot be written is only a chart drawn again next time (a damaged one is, see above).
-    if (file) this.writing.push(gzipAsync(JSON.stringify(charts), { level: 1 }).then((gz) => writeFile(file, gz)).then(ignore, ignore));
     return charts;
   }
 
+  /** Charts with their specs (a comparison's, a rail's …), from the cache or drawn and stored in it. */
+  private cached(key: string, make: () => ChartJob): Promise<ChartArtifact[]> {
+    const found = this.fromCache(key);
+    if (found.charts) return Promise.resolve(found.charts);
+    // A worker answers with the specs unless asked to leave them out (slim), so the answer is whole here.
+    return this.drawn(this.run(make, found.file, false) as Promise<ChartArtifact[]>);
+  }
+
   /**
-   * A job for a worker. It is given as a function and made only shortly before a worker takes it: a part's
-   * job holds its whole analysis, and a library's thousands of requests arrive at once.
+   * A job for a worker, which stores its charts in `cacheFile` and, when `slim`, answers without their
+   * specs. It is given as a function and made only shortly before a worker takes it: a part's job holds its
+   * whole analysis, and a library's thousands of requests arrive at once.
    */
-  private run(make: () => ChartJob): Promise<ChartArtifact[]> {
-    if (this.workers.length === 0) return renderChartJob(make());
+  private run(make: () => ChartJob, cacheFile: string | undefined, slim: boolean): Promise<DrawnChart[]> {
+    if (this.workers.length === 0) {
+      return renderChartJob(make()).then((charts) => {
+        if (cacheFile) writeCacheEntry(cacheFile, charts);
+        return charts;
+      });
+    }
     return new Promise((resolve, reject) => {
       const id = this.nextId++;
       this.pending.set(id, { resolve, reject });
-      this.queue.push({ id, make });
+      this.queue.push({ id, make, cacheFile, slim });
       this.dispatch();
     });
   }
@@ -206,7 +216,8 @@ export class ChartPool implements ChartMaker {
       const next = this.queue.shift()!;
       const pending = this.pending.get(next.id);
       if (pending) pending.sentAt = performance.now();
-      worker.postMessage({ id: next.id, job: next.job ?? next.make() });
+      const message: WorkerJob = { id: next.id, job: next.job ?? next.make(), cacheFile: next.cacheFile, slim: next.slim };
+      worker.postMessage(message);
     }
     // The next few jobs are made while the workers draw, so a worker that finishes finds one ready.
     if (this.queue.length > 0 && !this.preparing) {
@@ -220,7 +231,7 @@ export class ChartPool implements ChartMaker {
 
   private startWorker(): void {
     const worker = RUNNING_TYPESCRIPT ? typescriptWorker(join(HERE, 'chart-worker.ts')) : new Worker(join(HERE, 'chart-worker.js'));
-    worker.on('message', (message: { id: number; charts?: ChartArtifact[]; error?: string }) => {
+    worker.on('message', (message: { id: number; charts?: DrawnChart[]; error?: string }) => {
       const pending = this.pending.get(message.id);
       this.pending.delete(message.id);
       if (pending?.sentAt !== undefined) this.stats.workerSeconds += (performance.now() - pending.sentAt) / 1000;
