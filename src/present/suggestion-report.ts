@@ -23,16 +23,17 @@ function underTarget(s: Suggestion): string {
 }
 
 function statusLine(s: Suggestion, request: SuggestRequest): string {
+  const nodes = `${s.nodes.toLocaleString('en-GB')} node${s.nodes === 1 ? '' : 's'}`;
   const of = `0 to ${request.maxCount} of each of ${s.candidateIds.length} candidate${s.candidateIds.length === 1 ? '' : 's'}`;
   switch (s.status) {
     case 'optimal':
-      return `optimal, proven by search (${s.nodes} nodes)`;
+      return `optimal, proven by search (${nodes})`;
     case 'unmeetable':
-      return `cannot be met: no choice of ${of} keeps |Z| ${underTarget(s)} across the band${s.cornerRounds ? ' at nominal and at the corners added' : ''} (proven, ${s.nodes} nodes)`;
+      return `cannot be met: no choice of ${of} keeps |Z| ${underTarget(s)} across the band${s.cornerRounds && s.cornerRounds.scenarios > 0 ? ' at nominal and at the corners added' : ''} (proven, ${nodes})`;
     case 'unproven':
       return s.placements.length > 0
-        ? `best found in ${s.nodes} nodes; a better set has not been ruled out (--nodes raises the budget)`
-        : `no set keeping |Z| ${underTarget(s)} found in ${s.nodes} nodes, and none ruled out (--nodes raises the budget)`;
+        ? `best found in ${nodes}; a better set has not been ruled out (--nodes raises the budget)`
+        : `no set keeping |Z| ${underTarget(s)} found in ${nodes}, and none ruled out (--nodes raises the budget)`;
   }
 }
 
@@ -56,7 +57,7 @@ function cornerRoundsText(r: CornerRounds): string {
     case 'held':
       return `planned for the worst corner: the set holds at every corner evaluated (${runs})`;
     case 'no-set':
-      return `planned for the worst corner: no set holds at the corners added (${runs})`;
+      return r.scenarios === 0 ? `planned for the worst corner: no set holds even at nominal (${runs})` : `planned for the worst corner: no set holds at the corners added (${runs})`;
     case 'repeat':
       return `planned for the worst corner: stopped, the worst corner was one already added (${runs}); the set below holds at nominal only`;
     case 'rounds':
@@ -73,7 +74,7 @@ function setText(f: PlanFigures): string {
 export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRequest): string {
   const goal = s.objective === 'cost' ? 'lowest total cost' : 'fewest placements';
   const margin = s.marginDb !== 0 ? `, ${formatDecibels(s.marginDb)} margin required` : '';
-  const lines = [`${plan.rail}: suggested capacitors (${goal}${margin}; ${s.candidateIds.length} candidates${request.only.length ? ` named ${request.only.join(' or ')}` : ''})`];
+  const lines = [`${plan.rail}: suggested capacitors (${goal}${margin}; ${s.candidateIds.length} candidate${s.candidateIds.length === 1 ? '' : 's'}${request.only.length ? ` named ${request.only.join(' or ')}` : ''})`];
   lines.push(`  status     ${statusLine(s, request)}`);
   if (s.cornerRounds) lines.push(`  corners    ${cornerRoundsText(s.cornerRounds)}`);
   if (s.skipped.length > 0) {

@@ -58,4 +58,19 @@ describe('plan --suggest --corners', () => {
     expect(r.out).toContain('  closest    worst margin +0.83 dB at 100 kHz');
     expect(r.out).toContain(`  corners    FAIL (1 of 2 corners miss the target)  worst margin ${formatDecibels(marginDb(1, 0.8e-6))} at 100 kHz`);
   });
+
+  it('against a target one part cannot meet even at nominal, it says so rather than blaming corners it never added', async () => {
+    // Half the target the closed form gives one part at its nominal value misses at nominal (margin below 0).
+    const lib = tempDir('suggest-corners-nominal');
+    for (const d of ['parts', 'plans']) mkdirSync(join(lib, d));
+    writeFileSync(join(lib, 'folio.yaml'), 'title: Corner planning test library (invented)\nsweep: {from: 10k, to: 1G, per-decade: 40}\n');
+    writeFileSync(join(lib, 'parts/c.yaml'), 'id: T-C-1U\nkind: capacitor\nnominal: 1u\ntolerance: 20%\nvoltage: 16V\nparasitics: {esr: 10m, esl: 1n}\n');
+    writeFileSync(join(lib, 'plans/edge.yaml'), `rail: RAIL_EDGE\nvoltage: 1V\ntarget: ${TARGET / 2}\nband: {from: 100k, to: 10M}\nmounting: 0nH\ncapacitors: []\n`);
+    expect(marginDb(1, 1e-6) - 20 * Math.log10(2)).toBeLessThan(0);
+    const r = await run(['plan', 'RAIL_EDGE', '--suggest', '--corners', '--max-count', '1', '--library', lib], '/');
+    expect(r.code).toBe(3);
+    expect(r.out).toContain('(fewest placements; 1 candidate)');
+    expect(r.out).toContain('status     cannot be met: no choice of 0 to 1 of each of 1 candidate keeps |Z| under the target across the band (proven, 1 node)');
+    expect(r.out).toContain('planned for the worst corner: no set holds even at nominal (1 search, 0 corners added)');
+  });
 });
