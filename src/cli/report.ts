@@ -1,7 +1,8 @@
 // Loading a library for a command, and telling the user about its problems.
 
-import { formatDiagnostic } from '../model/diagnostics.js';
+import { formatDiagnostic, sortedDiagnostics, type Diagnostic } from '../model/diagnostics.js';
 import { loadLibrary, type Library } from '../model/library.js';
+import type { Part } from '../model/part.js';
 import type { CommandIO } from './io.js';
 
 /**
@@ -9,8 +10,12 @@ import type { CommandIO } from './io.js';
  * are printed by the commands that judge the whole library (check, build); the others print them only
  * alongside errors, so `figures` on one part is not drowned in warnings about a rail plan.
  */
-export function loadReported(root: string, io: CommandIO, options: { warnings?: boolean } = {}): Library | undefined {
-  const { library, diagnostics } = loadLibrary(root);
+export function loadReported(root: string, io: CommandIO, options: { warnings?: boolean; alsoWhenBroken?: (parts: readonly Part[]) => Diagnostic[] } = {}): Library | undefined {
+  const loaded = loadLibrary(root);
+  const { library } = loaded;
+  // When other files have errors, a command that lists every problem (check) adds what it finds in the
+  // parts that did read, so fixing one problem does not reveal the next.
+  const diagnostics = library || !options.alsoWhenBroken ? loaded.diagnostics : sortedDiagnostics([...loaded.diagnostics, ...options.alsoWhenBroken(loaded.readParts)]);
   const errors = diagnostics.filter((d) => d.severity === 'error').length;
   for (const d of diagnostics) if (d.severity === 'error' || options.warnings || errors > 0) io.err(formatDiagnostic(d) + '\n');
   if (errors > 0) {

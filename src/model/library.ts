@@ -39,6 +39,8 @@ export interface LoadResult {
   /** Present when the library has no errors (warnings allowed). */
   library?: Library;
   diagnostics: Diagnostic[];
+  /** The parts that read without errors, also when other files have some. */
+  readParts: Part[];
 }
 
 /** YAML files under `dir` at any depth, as library-relative paths with forward slashes, sorted. */
@@ -151,8 +153,8 @@ export function loadLibrary(root: string, options: LoadOptions = {}): LoadResult
   samePageNames(reviewFiles, 'reviews', 'review', diagnostics);
 
   const sorted = diagnostics.sorted();
-  if (diagnostics.errorCount > 0 || !settings) return { diagnostics: sorted };
-  return { library: { root, settings, parts, partsById, sources, comparisons, plans, reviews }, diagnostics: sorted };
+  if (diagnostics.errorCount > 0 || !settings) return { diagnostics: sorted, readParts: parts };
+  return { library: { root, settings, parts, partsById, sources, comparisons, plans, reviews }, diagnostics: sorted, readParts: parts };
 }
 
 /** A warning at each part whose temperature characteristic is not specified over the library's whole range. */

@@ -8,6 +8,7 @@ import { reviewWarnings } from '../../model/review-consistency.js';
 import { formatDiagnostic, sortedDiagnostics } from '../../model/diagnostics.js';
 import { buildHistory } from '../../build/build-history.js';
 import { libraryMeasurements } from '../../measure/part-measurements.js';
+import type { Part } from '../../model/part.js';
 
 export const checkHelp = `Usage: zfolio check [--library DIR]
 
@@ -26,7 +27,9 @@ export function check(args: string[], io: CommandIO): number {
     io.out(checkHelp);
     return EXIT_OK;
   }
-  const library = loadReported(libraryRoot(values, io), io, { warnings: true });
+  // Measurement files of the parts that read are checked also when other files have errors.
+  const brokenMeasurements = (parts: readonly Part[]) => libraryMeasurements(parts, Infinity).diagnostics;
+  const library = loadReported(libraryRoot(values, io), io, { warnings: true, alsoWhenBroken: brokenMeasurements });
   if (!library) return EXIT_BAD_INPUT;
   // Warnings that need the analysis: a review that accepts a rail failing its target.
   for (const d of reviewWarnings(library.reviews, () => railVerdicts(library))) io.err(formatDiagnostic(d) + '\n');

@@ -1,7 +1,7 @@
 // zfolio check with measurements: a model that misses its measurement is a located warning (exit 0); a
 // measurement file that cannot be read as one is an error (exit 1). Measurements are synthesised in the tests.
 
-import { existsSync } from 'node:fs';
+import { existsSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { measuredLibrary } from '../../measure/measured-library.js';
@@ -32,6 +32,19 @@ describe('zfolio check with measurements', () => {
     const r = await run(['check', '--library', measuredLibrary({ entry: '{file: measurements/none.s1p}' })], '/');
     expect(r.code).toBe(1);
     expect(r.err.split('\n')[0]).toBe('parts/cap.yaml:7:12: measurements[0].file: no file measurements/none.s1p in the library');
+  });
+
+  it('lists a broken measurement file beside an error in another part file, not only once that is fixed', async () => {
+    const lib = measuredLibrary({ measurement: '[Version] 2.0\n# GHz S RI\n[Number of Ports] 2\n' });
+    writeFileSync(join(lib, 'parts/other.yaml'), 'id: OTHER\nkind: capacitor\nnominal: 1u\nparasitics: {esr: 5m, esl: banana}\n');
+    const r = await run(['check', '--library', lib], '/');
+    expect(r.code).toBe(1);
+    expect(r.err.split('\n')).toEqual([
+      'measurements/cap.s2p:3:20: no network data: the file ends before any frequency and its values',
+      'parts/other.yaml:4:28: parasitics.esl: expected an inductance in H (e.g. 0.45n or 0.45 nH), found "banana"',
+      '2 errors in the library; nothing was done',
+      '',
+    ]);
   });
 
   it('build stops on the same error before writing anything', async () => {
