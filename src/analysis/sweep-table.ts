@@ -2,6 +2,8 @@
 // for fewer digits).
 
 import type { PartAnalysis } from './part-figures.js';
+import { impedanceSweep } from '../circuit/impedance.js';
+import { roundedSweep } from '../circuit/sweep.js';
 import { shortSignificantText } from '../units/digits-text.js';
 
 export const SWEEP_COLUMNS = [
@@ -55,4 +57,19 @@ export function sweepJson(a: PartAnalysis): object {
     out[key] = Array.from(columns[key], (v) => (Number.isFinite(v) ? v : null));
   }
   return out;
+}
+
+/**
+ * A part's sweep as a site writes it: the independent columns only (frequency, R and X), every value to
+ * `digits` significant digits, each row the model evaluated at the frequency as written (roundedSweep), so
+ * a row reads back as the model at its own frequency. The other columns of SWEEP_COLUMNS are closed forms
+ * of R and X (|Z| = √(R² + X²), phase = atan2(X, R), G = R/|Z|², B = −X/|Z|², |Y| = 1/|Z|, Q = |X|/R,
+ * C_eff = −1/(ωX), L_eff = X/ω); `zfolio sweep --csv` writes them all.
+ */
+export function sweepPointsCsv(a: { part: Pick<PartAnalysis['part'], 'network'>; sweep: PartAnalysis['sweep'] }, digits: number): string {
+  const f = roundedSweep(a.sweep, digits);
+  const z = impedanceSweep(a.part.network, f);
+  let text = 'frequency_Hz,R_ohm,X_ohm\n';
+  for (let i = 0; i < f.length; i++) text += `${csvCell(f[i], digits)},${csvCell(z.re[i], digits)},${csvCell(z.im[i], digits)}\n`;
+  return text;
 }

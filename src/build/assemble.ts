@@ -16,6 +16,7 @@ import type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.j
 
 export type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
 import { comparedAnalysis, type ComparedAnalysis } from './chart-jobs.js';
+import { drawsAdmittancePlane } from '../charts/part-charts.js';
 import { selectionText } from '../present/part-words.js';
 import { libraryRevision } from '../history/library-revision.js';
 import { comparisonSlug } from '../present/slugs.js';
@@ -23,6 +24,7 @@ import { comparisonIndex } from '../pages/comparison-index.js';
 import { partList } from '../pages/part-list.js';
 import { listedPart, type ListedPart } from '../pages/listed-part.js';
 import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
+import { partSpecPath } from '../pages/spec-download.js';
 import { writeFileDeep } from './output.js';
 import { planPageData, type PlanPageData } from '../pages/plan-page.js';
 import type { Progress } from './progress.js';
@@ -69,6 +71,11 @@ function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimi
   writeChartSpec(chart, folder);
   if (timings) timings.downloads += (performance.now() - started) / 1000;
   return chartOnPage(chart);
+}
+
+/** A part chart on its page: its download is the site's shared spec that draws the sweep.csv beside it (spec-download.ts). */
+function partChartOnPage(part: Part): (chart: DrawnChart) => ChartOnPage {
+  return (chart) => ({ ...chartOnPage(chart), specPath: partSpecPath(chart.key, drawsAdmittancePlane(part)) });
 }
 
 /**
@@ -158,16 +165,16 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
         // Its folder is kept and no page rendered here shows more of it than a list does.
         page = recorded.listed ?? listedPart(partPageData(a, []));
       } else if (recorded) {
-        const drawn = (await charts.partCharts(a)).map(chartOnPage);
+        const drawn = (await charts.partCharts(a)).map(partChartOnPage(part));
         const full: PartPageData = recorded.page ? { ...recorded.page, charts: drawn, measurements: [] } : partPageData(a, drawn);
         full.measurements = await measurementSections(part, measurements.get(part.id), library, charts);
         page = full;
       } else {
         if (work) work.partFolders++;
         const folder = join(siteDir, 'parts', part.id);
-        // The thread that draws the charts writes the part's downloads and the charts' specs.
+        // The thread that draws the charts writes the part's downloads (part-downloads.ts).
         const drawn = await charts.partCharts(a, { folder, sweep: library.settings.sweep });
-        const full = partPageData(a, drawn.map(chartOnPage));
+        const full = partPageData(a, drawn.map(partChartOnPage(part)));
         full.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
         page = full;
         compared.set(part.id, comparedAnalysis(a));

@@ -17,6 +17,8 @@ import type { ChartMaker } from './chart-maker.js';
 import { ChartPool, type ChartPoolStats } from './chart-pool.js';
 import { renderPages, TEMPLATES_DIR } from './eleventy.js';
 import { checkWritable, stageOutput, writeFileDeep, type SwapStep } from './output.js';
+import { SPEC_FOLDER, SWEEP_SPECS } from '../pages/spec-download.js';
+import { escapeJsonMarkup } from '../present/escape.js';
 import { guardOutput } from './output-guard.js';
 import type { FolioData } from '../pages/site-data.js';
 import type { PrintedFile } from '../print/print.js';
@@ -221,6 +223,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     work.pagesRendered = written;
     progress.tick();
     cpSync(join(TEMPLATES_DIR, 'assets'), join(staging.dir, 'assets'), { recursive: true });
+    for (const [file, spec] of Object.entries(SWEEP_SPECS)) writeFileDeep(join(staging.dir, SPEC_FOLDER, file), escapeJsonMarkup(JSON.stringify(spec, null, 2)) + '\n');
     timings.pages = clock();
 
     if (browser && options.pdf) {

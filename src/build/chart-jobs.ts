@@ -67,7 +67,7 @@ export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {
   if (job.type === 'part') {
     const charts = await renderPartCharts(job.input);
     const artifacts = PART_CHART_KINDS.map((key) => ({ key, ...charts[key] }));
-    if (job.downloads) writePartDownloads(job.downloads, artifacts);
+    if (job.downloads) writePartDownloads(job.downloads);
     return artifacts;
   }
   if (job.type === 'measurement') {

@@ -93,7 +93,7 @@ export class ChartPool implements ChartMaker {
     }
     if (downloads) {
       const started = performance.now();
-      writePartDownloads(partDownloads(a, downloads), found.charts);
+      writePartDownloads(partDownloads(a, downloads));
       this.stats.downloadSeconds += (performance.now() - started) / 1000;
     }
     return found.charts;

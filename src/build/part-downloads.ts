@@ -1,4 +1,4 @@
-// A part's downloads (sweep.csv, figures.json, its Touchstone and SPICE files and its charts' specs) as a
+// A part's downloads (sweep.csv, figures.json, its Touchstone and SPICE files) as a
 // plain, cloneable value, written by whichever thread draws the part's charts: a chart worker on a cold
 // build, so that turning numbers into text (about a third of the thread that feeds the workers, CPU
 // profile of a 1,000-part build) is spread over the workers instead of holding them up.
@@ -6,12 +6,12 @@
 import { join } from 'node:path';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { partSummary, type PartSummary } from '../analysis/summary.js';
-import { sweepCsv } from '../analysis/sweep-table.js';
-import { logSweep } from '../circuit/sweep.js';
+import { sweepPointsCsv } from '../analysis/sweep-table.js';
+import { roundedSweep } from '../circuit/sweep.js';
 import { partSubcircuit, partTouchstone, type ExportablePart } from '../measure/part-export.js';
 import type { Library } from '../model/library.js';
 import { modelFileNames } from '../pages/site-data.js';
-import { downloadSpec, SWEEP_CSV, SWEEP_CSV_DIGITS } from '../pages/spec-download.js';
+import { SWEEP_CSV, SWEEP_CSV_DIGITS } from '../pages/spec-download.js';
 import { escapeJsonMarkup } from '../present/escape.js';
 import { sweepText } from '../present/part-words.js';
 import type { ChartArtifact } from './chart-maker.js';
@@ -25,11 +25,9 @@ export interface DownloadPlace {
   sweep: Sweep;
 }
 
-/** Everything a part's downloads are made from: typed arrays and plain objects only. */
+/** Everything a part's downloads are made from: plain objects only (the sweep is evaluated where they are written). */
 export interface PartDownloads extends DownloadPlace {
   part: ExportablePart;
-  frequencies: Float64Array;
-  columns: PartAnalysis['columns'];
   summary: PartSummary;
 }
 
@@ -38,8 +36,6 @@ export function partDownloads(a: PartAnalysis, place: DownloadPlace): PartDownlo
   return {
     ...place,
     part: { id, kind, title, network, source: { path: source.path, hash: source.hash } },
-    frequencies: a.frequencies,
-    columns: a.columns,
     summary: partSummary(a),
   };
 }
@@ -53,25 +49,22 @@ export const jsonFile = (value: unknown) => escapeJsonMarkup(JSON.stringify(valu
 /** The file name of a chart's spec beside its page. */
 export const specFileName = (chart: Pick<ChartArtifact, 'key'>) => `${chart.key}.vl.json`;
 
-/**
- * Write a chart's spec beside its page, compact (any vega-lite tool lays it out); with `beside` 'sweep', a
- * part chart's curves point at the part's sweep.csv (spec-download.ts).
- */
-export function writeChartSpec(chart: ChartArtifact, folder: string, beside?: 'sweep'): void {
-  const spec = beside === 'sweep' ? downloadSpec(chart.key, chart.spec) : chart.spec;
-  writeFileDeep(join(folder, specFileName(chart)), escapeJsonMarkup(JSON.stringify(spec)) + '\n');
+/** Write a chart's spec beside its page, compact (any vega-lite tool lays it out). */
+export function writeChartSpec(chart: ChartArtifact, folder: string): void {
+  writeFileDeep(join(folder, specFileName(chart)), escapeJsonMarkup(JSON.stringify(chart.spec)) + '\n');
 }
 
 /**
- * Write a part's downloads and its charts' specs into its folder. The model files are over the library's
- * sweep: a one-port Touchstone file (S11 with the decimals that keep the impedance read back from it to 6
- * significant digits, as sweep.csv keeps R and X) and a SPICE subcircuit.
+ * Write a part's downloads into its folder: sweep.csv (frequency, R and X at the frequencies as written,
+ * sweepPointsCsv), figures.json, and the model for simulators at the same frequencies: a one-port
+ * Touchstone file (S11 with the decimals that keep the impedance read back from it to 6 significant digits,
+ * as sweep.csv keeps R and X) and a SPICE subcircuit. Its charts' specs are the site's shared ones
+ * (spec-download.ts), not written here.
  */
-export function writePartDownloads(d: PartDownloads, charts: readonly ChartArtifact[]): void {
-  writeFileDeep(join(d.folder, SWEEP_CSV), sweepCsv(d, SWEEP_CSV_DIGITS));
+export function writePartDownloads(d: PartDownloads): void {
+  writeFileDeep(join(d.folder, SWEEP_CSV), sweepPointsCsv(d, SWEEP_CSV_DIGITS));
   writeFileDeep(join(d.folder, 'figures.json'), jsonFile(d.summary));
   const names = modelFileNames(d.part.id);
-  writeFileDeep(join(d.folder, names.touchstone), partTouchstone(d.part, logSweep(d.sweep), sweepText(d.sweep), SWEEP_CSV_DIGITS));
+  writeFileDeep(join(d.folder, names.touchstone), partTouchstone(d.part, roundedSweep(d.sweep, SWEEP_CSV_DIGITS), sweepText(d.sweep), SWEEP_CSV_DIGITS));
   writeFileDeep(join(d.folder, names.spice), partSubcircuit(d.part));
-  for (const chart of charts) writeChartSpec(chart, d.folder, 'sweep');
 }

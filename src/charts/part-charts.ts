@@ -21,7 +21,12 @@ export type PartCharts = Record<PartChartKind, ChartOutput>;
  * impedance path, with a constant ESR, would be a vertical line. Other kinds keep the impedance plane.
  */
 function drawsAdmittanceCircle(input: PartChartInput): boolean {
-  return input.part.kind === 'capacitor';
+  return drawsAdmittancePlane(input.part);
+}
+
+/** Whether a part's complex-plane chart is its admittance circle (else its impedance path). */
+export function drawsAdmittancePlane(part: { kind: string }): boolean {
+  return part.kind === 'capacitor';
 }
 
 /** The chart definition of one of a part's charts. */

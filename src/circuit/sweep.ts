@@ -24,3 +24,12 @@ export function logSweep({ fromHz, toHz, perDecade }: SweepSpec): Float64Array {
   out[steps] = toHz;
   return out;
 }
+
+/**
+ * The points of `logSweep`, each rounded to `digits` significant digits: the frequencies a file written at
+ * that precision names. A model evaluated at these (rather than at the unrounded points) agrees with the
+ * file at every row; the rounding moves a point by at most 5 parts in 10^digits of itself.
+ */
+export function roundedSweep(sweep: SweepSpec, digits: number): Float64Array {
+  return logSweep(sweep).map((f) => Number(f.toPrecision(digits)));
+}

@@ -28,6 +28,8 @@ export interface ChartOnPage {
   svg: string;
   /** Relative to the page's folder. */
   specFile: string;
+  /** A part chart's shared spec, from the site's top (spec-download.ts); other charts' specs are at `specFile`. */
+  specPath?: string;
 }
 
 export interface PartPageData {

@@ -9,6 +9,7 @@ import { ChartPool } from '../../src/build/chart-pool.js';
 import { partDownloads } from '../../src/build/part-downloads.js';
 import type { Part } from '../../src/model/part.js';
 import { analysed, capacitorPart, SWEEP } from '../charts/fixtures.js';
+import { referenceZAt } from '../reference/impedance.js';
 
 const root = mkdtempSync(join(tmpdir(), 'zfolio-downloads-'));
 afterAll(() => rmSync(root, { recursive: true, force: true }));
@@ -22,7 +23,6 @@ describe('part downloads', () => {
     const d = partDownloads(analysed(part), place('clone'));
     const copy = structuredClone(d);
     expect(copy).toEqual(d);
-    expect(copy.columns.magnitudeOhm).toBeInstanceOf(Float64Array);
   });
 
   it('are the same files from a worker thread, from this thread and from the cache', async () => {
@@ -47,22 +47,25 @@ describe('part downloads', () => {
       await again.close();
     }
     const fromWorker = files(join(root, 'worker'));
-    expect([...fromWorker.keys()]).toEqual(['DEMO-C-100N.s1p', 'DEMO-C-100N.subckt', 'admittance.vl.json', 'figures.json', 'impedance.vl.json', 'phase.vl.json', 'plane.vl.json', 'sweep.csv']);
+    // No chart spec: the part charts link the site's shared specs (spec-download.ts).
+    expect([...fromWorker.keys()]).toEqual(['DEMO-C-100N.s1p', 'DEMO-C-100N.subckt', 'figures.json', 'sweep.csv']);
     expect(files(join(root, 'here'))).toEqual(fromWorker);
     expect(files(join(root, 'cached'))).toEqual(fromWorker);
 
-    // sweep.csv holds the analysis' sweep, each value to 6 significant digits (JavaScript's own toPrecision
-    // as the reference), one row per sweep point.
+    // sweep.csv holds frequency, R and X over the analysis' sweep, each frequency to 6 significant digits
+    // (JavaScript's own toPrecision as the reference) and R and X the model there (complex.js, test/reference).
     const rows = fromWorker.get('sweep.csv')!.trim().split('\n');
     expect(rows).toHaveLength(a.frequencies.length + 1);
-    const header = rows[0].split(',');
-    const at = (name: string) => header.indexOf(name);
+    expect(rows[0]).toBe('frequency_Hz,R_ohm,X_ohm');
     for (const k of [0, Math.floor(a.frequencies.length / 2), a.frequencies.length - 1]) {
-      const cells = rows[k + 1].split(',').map(Number);
-      expect(cells[at('frequency_Hz')]).toBe(Number(a.frequencies[k].toPrecision(6)));
-      expect(cells[at('Zmag_ohm')]).toBe(Number(a.columns.magnitudeOhm[k].toPrecision(6)));
+      const [f, r, x] = rows[k + 1].split(',').map(Number);
+      expect(f).toBe(Number(a.frequencies[k].toPrecision(6)));
+      const z = referenceZAt(part.network, f);
+      expect(Math.abs(r - z.re)).toBeLessThanOrEqual(5.0001e-6 * Math.abs(z.re));
+      expect(Math.abs(x - z.im)).toBeLessThanOrEqual(5.0001e-6 * Math.abs(z.im));
     }
-    // The specs read their curves from it rather than carrying them.
-    expect(JSON.parse(fromWorker.get('impedance.vl.json')!).layer.some((l: { data?: { url?: string } }) => l.data?.url === 'sweep.csv')).toBe(true);
+    // The Touchstone file is at the same frequencies.
+    const points = fromWorker.get('DEMO-C-100N.s1p')!.split('\n').filter((l) => /^\d/.test(l));
+    expect(points.map((l) => Number(l.split(' ')[0]))).toEqual(rows.slice(1).map((l) => Number(l.split(',')[0])));
   }, 120_000);
 });

@@ -69,25 +69,32 @@ describe('the demo folio', () => {
     }
   });
 
-  it('offers the sweep as CSV, one row per sweep point', () => {
+  it('offers the sweep as CSV, one row per sweep point: frequency, R and X', () => {
     const part = library.parts[0];
     const csv = read(siteA, `parts/${part.id}/sweep.csv`).trim().split('\n');
-    expect(csv[0]).toBe('frequency_Hz,R_ohm,X_ohm,Zmag_ohm,phase_deg,G_S,B_S,Ymag_S,Q,Ceff_F,Leff_H');
+    expect(csv[0]).toBe('frequency_Hz,R_ohm,X_ohm');
     expect(csv.length - 1).toBe(801); // 100 Hz to 10 GHz at 100 per decade, both ends
     // Every value to at most 6 significant digits, as the part page says: the digits between the first and
     // the last that is not zero ("1023290" is 1.02329e6).
     for (const cell of csv.slice(1).flatMap((line) => line.split(',')).filter((c) => c !== '' && !c.endsWith('inf'))) {
       expect(cell.replace(/^-/, '').replace(/e.*$/, '').replace('.', '').replace(/^0+/, '').replace(/0+$/, '').length, cell).toBeLessThanOrEqual(6);
     }
-    expect(read(siteA, `parts/${part.id}/index.html`)).toContain('rounded to 6 significant digits');
+    expect(read(siteA, `parts/${part.id}/index.html`)).toContain('R and X (Z = R + jX) to 6 significant digits');
   });
 
-  it('keeps each part\'s sweep once: the impedance, phase and admittance specs read their curves from sweep.csv', () => {
+  it('keeps each part\'s sweep once: its chart links go to the site\'s shared specs, which read sweep.csv; no spec is written into a part folder', () => {
+    const files = filesUnder(siteA);
+    for (const name of ['impedance', 'phase', 'admittance', 'plane-admittance', 'plane-impedance']) {
+      const spec = JSON.parse(read(siteA, `assets/specs/${name}.vl.json`));
+      expect(spec.data.url, name).toBe('sweep.csv');
+      expect(spec.datasets, name).toBeUndefined();
+    }
     for (const part of library.parts) {
-      for (const key of ['impedance', 'phase', 'admittance']) {
-        const spec = JSON.parse(read(siteA, `parts/${part.id}/${key}.vl.json`));
-        expect(Object.keys(spec.datasets), `${part.id} ${key}`).not.toContain('curves');
-        expect(JSON.stringify(spec.layer)).toContain('"url":"sweep.csv"');
+      const html = read(siteA, `parts/${part.id}/index.html`);
+      const plane = part.kind === 'capacitor' ? 'plane-admittance' : 'plane-impedance';
+      for (const [chart, spec] of [['impedance', 'impedance'], ['phase', 'phase'], ['admittance', 'admittance'], ['plane', plane]]) {
+        expect(html, `${part.id} ${chart}`).toMatch(new RegExp(`<figure class="chart" id="chart-${chart}">[\\s\\S]*?href="\\.\\./\\.\\./assets/specs/${spec}\\.vl\\.json" download>`));
+        expect(files).not.toContain(`parts/${part.id}/${chart}.vl.json`);
       }
     }
   });
@@ -100,8 +107,10 @@ describe('the demo folio', () => {
       const s1p = read(siteA, `parts/${part.id}/${part.id}.s1p`).split('\n');
       expect(s1p[0]).toBe('! zfolio export');
       expect(s1p[1].startsWith(`! ${part.id}: `) && s1p[1].endsWith(`(${part.kind})`)).toBe(true);
-      // The same sweep as the CSV: 801 points after the header and option line.
-      expect(s1p.filter((l) => /^\d/.test(l))).toHaveLength(801);
+      // The same sweep as the CSV, at the CSV's frequencies: 801 points after the header and option line.
+      const points = s1p.filter((l) => /^\d/.test(l));
+      expect(points).toHaveLength(801);
+      expect(points.map((l) => Number(l.split(' ')[0]))).toEqual(read(siteA, `parts/${part.id}/sweep.csv`).trim().split('\n').slice(1).map((l) => Number(l.split(',')[0])));
       expect(read(siteA, `parts/${part.id}/${part.id}.subckt`)).toContain(`.SUBCKT ${part.id} 1 2\n`);
     }
   });

@@ -2,7 +2,7 @@
 // (the usual log sweep of an impedance analyser; common practice).
 
 import { describe, expect, it } from 'vitest';
-import { logSweep } from '../../src/circuit/sweep.js';
+import { logSweep, roundedSweep } from '../../src/circuit/sweep.js';
 
 describe('logSweep', () => {
   it('100 Hz to 10 GHz at 100 a decade: 8 decades, 801 points, ends exact, each step 10^(1/100)', () => {
@@ -39,5 +39,24 @@ describe('logSweep', () => {
     [{ fromHz: NaN, toHz: 1e3, perDecade: 10 }],
   ])('refuses %j', (spec) => {
     expect(() => logSweep(spec)).toThrow(RangeError);
+  });
+});
+
+describe('roundedSweep', () => {
+  it('is logSweep with each point rounded to the given significant digits (ECMA-262 toPrecision), the ends exact', () => {
+    const spec = { fromHz: 100, toHz: 1e10, perDecade: 100 };
+    const exact = logSweep(spec);
+    const rounded = roundedSweep(spec, 6);
+    expect(rounded).toHaveLength(exact.length);
+    expect(rounded[0]).toBe(100);
+    expect(rounded[rounded.length - 1]).toBe(1e10);
+    // 10^(2 + 1/100) = 102.329299… (a calculator's value), written 102.329.
+    expect(rounded[1]).toBe(102.329);
+    rounded.forEach((f, i) => {
+      // Half a unit in the 6th digit: at most 5e-6 of the value.
+      expect(Math.abs(f - exact[i])).toBeLessThanOrEqual(5e-6 * exact[i]);
+      expect(f.toPrecision(6)).toBe(exact[i].toPrecision(6));
+      if (i > 0) expect(f).toBeGreaterThan(rounded[i - 1]);
+    });
   });
 });
