@@ -101,7 +101,7 @@ export const siteBench: BenchSection = {
       // charts, for the cost of carrying them.
       const scratch = join(root, '_floor');
       const [floorPages, floor] = await timed(() => renderPages(join(scratch, 'bare'), withoutSvg(cold.folio!)));
-      const [, withCharts] = await timed(() => renderPages(join(scratch, 'charts'), cold.folio));
+      const [, withCharts] = await timed(() => renderPages(join(scratch, 'charts'), cold.folio!));
       rmSync(scratch, { recursive: true, force: true });
       lines.push(
         `(b) eleventy's floor (same templates and page data, every chart's inline SVG emptied): ${count(floorPages)} pages in ${s(floor)}; ` +

@@ -48,6 +48,8 @@ export interface BuildOptions {
   charts?: ChartMaker;
   /** Worker threads for charts (default: one per core when many parts need drawing, none for a few). */
   workers?: number;
+  /** Part pages each eleventy run renders (default PART_PAGES_PER_RUN; see eleventy.ts). */
+  partPagesPerRun?: number;
   /** Print PDFs too. */
   pdf?: PdfOptions;
   /**
@@ -219,7 +221,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
 
     clock = stageClock();
     progress.stage('pages', 1);
-    const written = await renderPages(staging.dir, folio);
+    const written = await renderPages(staging.dir, folio, options.partPagesPerRun);
     work.pagesRendered = written;
     progress.tick();
     cpSync(join(TEMPLATES_DIR, 'assets'), join(staging.dir, 'assets'), { recursive: true });

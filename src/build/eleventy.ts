@@ -1,18 +1,45 @@
 // Rendering the site's pages with eleventy from the package's templates/, given the computed data.
 
+import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import Eleventy from '@11ty/eleventy';
 import { PACKAGE_ROOT } from '../version.js';
+import type { FolioData } from '../pages/site-data.js';
 
 export const TEMPLATES_DIR = join(PACKAGE_ROOT, 'templates');
 
+/**
+ * Part pages rendered by one eleventy run. A run holds every page it renders, with its data and its HTML,
+ * until it ends (its result lists them all): all of a 10,000-part library's pages at once took more memory
+ * than the rest of the build. The first run renders every other page too; the runs after it render part
+ * pages only, the other templates ignored.
+ */
+export const PART_PAGES_PER_RUN = 500;
+
+/** The template that makes the part pages (paginated over `folio.partPages`). */
+const PART_TEMPLATE = 'part.njk';
+
 /** Render every template into `outDir` with `folio` as global data. Resolves to the count of pages written. */
-export async function renderPages(outDir: string, folio: unknown): Promise<number> {
+export async function renderPages(outDir: string, folio: FolioData, perRun = PART_PAGES_PER_RUN): Promise<number> {
+  const pages = folio.partPages;
+  let written = await renderRun(outDir, { ...folio, partPages: pages.slice(0, perRun) }, false);
+  for (let i = perRun; i < pages.length; i += perRun) written += await renderRun(outDir, { ...folio, partPages: pages.slice(i, i + perRun) }, true);
+  return written;
+}
+
+/** The page templates at the top of templates/ other than the part page's. */
+function otherTemplates(): string[] {
+  return readdirSync(TEMPLATES_DIR).filter((name) => name.endsWith('.njk') && name !== PART_TEMPLATE);
+}
+
+async function renderRun(outDir: string, folio: FolioData, partPagesOnly: boolean): Promise<number> {
   const eleventy = new Eleventy(TEMPLATES_DIR, outDir, {
     configPath: join(PACKAGE_ROOT, '.eleventy.js'),
     quietMode: true,
     config(config) {
       config.addGlobalData('folio', folio);
+      // A pattern that starts with **/ is taken as it is (others are made relative to the current folder).
+      if (partPagesOnly) for (const name of otherTemplates()) config.ignores.add(`**/${name}`);
     },
   });
   // zfolio reports its own progress and summary.

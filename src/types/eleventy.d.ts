@@ -3,7 +3,7 @@ declare module '@11ty/eleventy' {
   interface EleventyOptions {
     configPath?: string;
     quietMode?: boolean;
-    config?: (config: { addGlobalData(name: string, value: unknown): void }) => void | Promise<void>;
+    config?: (config: { addGlobalData(name: string, value: unknown): void; ignores: { add(glob: string): void } }) => void | Promise<void>;
   }
   export default class Eleventy {
     constructor(input: string, output: string, options?: EleventyOptions);

@@ -1,0 +1,46 @@
+// Part pages are rendered by several eleventy runs of a few hundred pages each (a run holds every page it
+// renders until it ends): the site must not depend on how they are split. A generated library of 30 parts,
+// built with no charts drawn (charts are not what is checked), rendered in runs of 7 part pages and in one
+// run, gives the same files, byte for byte, and every part its page.
+
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { writeGeneratedLibrary } from '../../bench/generate.js';
+import { buildFolio } from '../../src/build/build.js';
+import type { ChartArtifact, ChartMaker } from '../../src/build/chart-maker.js';
+import { PART_PAGES_PER_RUN } from '../../src/build/eleventy.js';
+import { filesUnder, treeHashes } from '../site-helpers.js';
+import { rmSync } from 'node:fs';
+
+const blank = (key: string, title: string): ChartArtifact => ({ key, title, description: title, svg: '<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"></svg>', spec: {} });
+const noCharts: ChartMaker = {
+  partCharts: async () => [],
+  comparisonChart: async (_, title) => blank('overlay', title),
+  railChart: async () => blank('rail', 'rail'),
+  loadStepCharts: async () => [],
+  changeChart: async () => blank('change', 'change'),
+  measurementCharts: async () => [],
+};
+
+const PARTS = 30;
+const root = writeGeneratedLibrary(PARTS, 5);
+writeFileSync(join(root, 'folio.yaml'), 'title: Generated library (invented parts)\nsweep: {from: 100, to: 10G, per-decade: 10}\n');
+afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+describe('part pages rendered in runs', () => {
+  it('gives the same site whether the part pages are rendered 7 to a run or all in one', async () => {
+    expect(PART_PAGES_PER_RUN).toBeGreaterThan(PARTS);
+    const split = await buildFolio({ libraryRoot: root, outDir: join(root, 'split'), cache: false, charts: noCharts, partPagesPerRun: 7 });
+    const whole = await buildFolio({ libraryRoot: root, outDir: join(root, 'whole'), cache: false, charts: noCharts });
+    expect(split.ok && whole.ok).toBe(true);
+    // Every page once: the runs after the first render part pages only.
+    expect(split.pages).toBe(whole.pages);
+    expect(split.work.pagesRendered).toBe(whole.work.pagesRendered);
+    const files = filesUnder(join(root, 'split'));
+    for (let i = 0; i < PARTS; i++) expect(files).toContain(`parts/GEN-${String(i).padStart(5, '0')}/index.html`);
+    expect(files).toContain('index.html');
+    expect(files).toContain('comparisons/index.html');
+    expect(treeHashes(join(root, 'split'))).toEqual(treeHashes(join(root, 'whole')));
+  }, 120_000);
+});
