@@ -3,7 +3,9 @@
 
 import { afterAll, describe, expect, it } from 'vitest';
 import type { PartAnalysis } from '../../src/analysis/part-figures.js';
-import { ChartPool } from '../../src/build/chart-pool.js';
+import { ChartPool, compactCharts } from '../../src/build/chart-pool.js';
+import { serialize } from 'node:v8';
+import { renderPartCharts } from '../../src/charts/part-charts.js';
 import type { Part } from '../../src/model/part.js';
 import { analysed, capacitorPart, resistorPart } from '../charts/fixtures.js';
 
@@ -40,4 +42,30 @@ describe('chart pool', () => {
       for (const chart of c) expect(chart.title).toContain(`P-${i}`);
     }
   }, 120_000);
+});
+
+/**
+ * How V8 holds a string, read from its own serialisation (V8's ValueSerializer, value-serializer.cc: after
+ * the two-byte header, tag '"' for a one-byte string, 'c' for a two-byte one).
+ */
+function storage(text: string): 'one-byte' | 'two-byte' | 'other' {
+  const tag = serialize(text)[2];
+  return tag === 0x22 ? 'one-byte' : tag === 0x63 ? 'two-byte' : 'other';
+}
+
+describe('charts kept one byte a character', () => {
+  it('holds a drawn chart\'s SVG as a one-byte string with the same text; an SVG with a character beyond U+00FF stays as it is', async () => {
+    const charts = await renderPartCharts(analysed(capacitorPart));
+    const artifacts = Object.entries(charts).map(([key, c]) => ({ key, ...c }));
+    // The renderer's strings are two-byte (built from two-byte pieces): what this is for.
+    expect(artifacts.some((c) => storage(c.svg) === 'two-byte')).toBe(true);
+    const compact = compactCharts(artifacts);
+    compact.forEach((c, i) => {
+      expect(c.svg).toBe(artifacts[i].svg);
+      expect(storage(c.svg), c.key).toBe('one-byte');
+      expect(c.spec).toBe(artifacts[i].spec);
+    });
+    const wide = { ...artifacts[0], svg: '<svg><text>10 \u03a9</text></svg>' };
+    expect(compactCharts([wide])[0]).toBe(wide);
+  });
 });
