@@ -246,7 +246,8 @@ class Reader extends RecordReader {
     this.closeReference();
     if (this.mode === 'information') this.error(lastLine, 'the file ends inside [Begin Information]; expected [End Information]');
     if (this.filled >= 0) {
-      this.error(lastLine, `the file ends inside the values of frequency ${this.inUnit(this.recordFrequency)} (line ${this.recordLine}): found ${this.filled} of ${this.perRecord}`);
+      const record = Number.isFinite(this.recordFrequency) ? `frequency ${this.inUnit(this.recordFrequency)} (line ${this.recordLine})` : `the record at line ${this.recordLine} (its frequency unreadable)`;
+      this.error(lastLine, `the file ends inside the values of ${record}: found ${this.filled} of ${this.perRecord}`);
       return;
     }
     const records = this.frequencies.length;
