@@ -21,8 +21,17 @@ export function generatedPartYaml(i: number, random: () => number): string {
       return `id: ${id}\nkind: inductor\ntitle: Generated inductor ${i}\nnominal: ${value(-9, -4)}\ncurrent: 1A\nparasitics: {dcr: ${value(-3, 0)}, cp: ${value(-13, -12)}, rp: ${value(3, 5)}}\ntags: [generated]\n`;
     case 2:
       return `id: ${id}\nkind: resistor\ntitle: Generated resistor ${i}\nnominal: ${value(0, 6)}\npower: 0.1W\nparasitics: {ls: ${value(-10, -9)}, cp: ${value(-14, -13)}}\ntags: [generated]\n`;
-    case 3:
-      return `id: ${id}\nkind: bead\ntitle: Generated bead ${i}\nnominal: ${pick([120, 220, 600, 1000])}\nat: 100M\nmodel: {rdc: ${value(-2, -1)}, r: ${value(2, 3)}, l: ${value(-7, -6)}, c: ${value(-13, -12)}}\ntags: [generated]\n`;
+    case 3: {
+      // The draw of a rated value is kept so every later part of a library stays as it was; the rating
+      // written is what the model gives at 100 MHz (Z = Rdc + 1/(1/R + 1/(jωL) + jωC)), so a generated
+      // bead matches its rating as a librarian's would, instead of drawing a warning.
+      pick([120, 220, 600, 1000]);
+      const [rdc, r, l, c] = [value(-2, -1), value(2, 3), value(-7, -6), value(-13, -12)];
+      const w = 2 * Math.PI * 100e6;
+      const [g, b] = [1 / Number(r), w * Number(c) - 1 / (w * Number(l))];
+      const rated = Math.hypot(Number(rdc) + g / (g * g + b * b), -b / (g * g + b * b));
+      return `id: ${id}\nkind: bead\ntitle: Generated bead ${i}\nnominal: ${Number(rated.toPrecision(3))}\nat: 100M\nmodel: {rdc: ${rdc}, r: ${r}, l: ${l}, c: ${c}}\ntags: [generated]\n`;
+    }
     default:
       return `id: ${id}\nkind: network\ntitle: Generated network ${i}\nbehaves-as: capacitor\nnominal: 10u\nnetwork: {series: [{r: 5m}, {l: 1.1n}, {parallel: [{c: 10u}, {r: 50M}]}]}\ntags: [generated]\n`;
   }
