@@ -3,25 +3,14 @@
 // built with no charts drawn (charts are not what is checked), rendered in runs of 7 part pages and in one
 // run, gives the same files, byte for byte, and every part its page.
 
-import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { writeGeneratedLibrary } from '../../bench/generate.js';
 import { buildFolio } from '../../src/build/build.js';
-import type { ChartArtifact, ChartMaker } from '../../src/build/chart-maker.js';
+import { noCharts } from './no-charts.js';
 import { PART_PAGES_PER_RUN } from '../../src/build/eleventy.js';
 import { filesUnder, treeHashes } from '../site-helpers.js';
-import { rmSync } from 'node:fs';
-
-const blank = (key: string, title: string): ChartArtifact => ({ key, title, description: title, svg: '<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"></svg>', spec: {} });
-const noCharts: ChartMaker = {
-  partCharts: async () => [],
-  comparisonChart: async (_, title) => blank('overlay', title),
-  railChart: async () => blank('rail', 'rail'),
-  loadStepCharts: async () => [],
-  changeChart: async () => blank('change', 'change'),
-  measurementCharts: async () => [],
-};
+import { rmSync, writeFileSync } from 'node:fs';
 
 const PARTS = 30;
 const root = writeGeneratedLibrary(PARTS, 5);

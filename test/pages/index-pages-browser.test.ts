@@ -14,7 +14,7 @@ import type { Browser, Page } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { writeGeneratedLibrary } from '../../bench/generate.js';
 import { buildFolio } from '../../src/build/build.js';
-import type { ChartArtifact, ChartMaker } from '../../src/build/chart-maker.js';
+import { noCharts } from '../build/no-charts.js';
 import { loadLibrary, type Library } from '../../src/model/library.js';
 import { ARTIFACTS, siteTabs, startChrome } from '../print/site-tabs.js';
 
@@ -25,15 +25,6 @@ let library: Library;
 let browser: Browser;
 const problems: string[] = [];
 
-const blank = (key: string, title: string): ChartArtifact => ({ key, title, description: title, svg: '<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"></svg>', spec: {} });
-const noCharts: ChartMaker = {
-  partCharts: async () => [],
-  comparisonChart: async (_, title) => blank('overlay', title),
-  railChart: async () => blank('rail', 'rail'),
-  loadStepCharts: async () => [],
-  changeChart: async () => blank('change', 'change'),
-  measurementCharts: async () => [],
-};
 
 beforeAll(async () => {
   root = writeGeneratedLibrary(PARTS, 3);
