@@ -8,7 +8,7 @@ import { renderRailChart, type RailChartData } from '../charts/rail-chart.js';
 import { loadStepChartInput, renderLoadStepCharts, type LoadStepChartData } from '../charts/load-step-chart.js';
 import { renderChangeChart, type ChangeChartData } from '../charts/change-chart.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
-import type { ChartArtifact } from './chart-maker.js';
+import type { ChartArtifact, DrawnChart } from './chart-maker.js';
 import { writePartDownloads, type PartDownloads } from './part-downloads.js';
 import { MEASUREMENT_CHART_KINDS, renderMeasurementCharts, type MeasurementChartData } from '../charts/measurement-charts.js';
 
@@ -61,6 +61,14 @@ export function comparisonInput(a: ComparedAnalysis): ComparisonPart {
 /** Only what a comparison reads of an analysis, copied out of it so the rest can go. */
 export function comparedAnalysis(a: ComparedAnalysis): ComparedAnalysis {
   return { part: a.part, selfResonance: a.selfResonance, resolved: { frequencies: a.resolved.frequencies }, resolvedColumns: { magnitudeOhm: a.resolvedColumns.magnitudeOhm } };
+}
+
+/**
+ * Charts without their specs: what a part's page needs of its charts, and all its cache entry keeps (a spec
+ * holds the chart's data, several times the SVG's size, and storing it was a tenth of a chart worker's time).
+ */
+export function withoutSpecs(charts: readonly ChartArtifact[]): DrawnChart[] {
+  return charts.map(({ spec: _, ...drawn }) => drawn);
 }
 
 export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {

@@ -12,7 +12,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { codeKey } from './reuse.js';
-import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
+import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, withoutSpecs, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker, DrawnChart } from './chart-maker.js';
 import { readCacheEntry, writeCacheEntry } from './chart-cache-entry.js';
@@ -169,13 +169,16 @@ export class ChartPool implements ChartMaker {
     return createHash('sha256').update([this.fingerprint, this.options.settingsKey, ...parts].join('\n')).digest('hex').slice(0, 32);
   }
 
-  /** A request's charts from the cache, or the file they are to be written to when drawn. */
-  private fromCache(key: string): { charts?: ChartArtifact[]; file?: string } {
+  /**
+   * A request's charts from the cache, or the file they are to be written to when drawn; `T` says whether
+   * its entries hold specs (a part's do not, withoutSpecs).
+   */
+  private fromCache<T extends DrawnChart>(key: string): { charts?: T[]; file?: string } {
     this.usedKeys.add(key);
     const file = this.options.cacheDir ? join(this.options.cacheDir, `${key}.json.gz`) : undefined;
     if (file && existsSync(file)) {
       try {
-        const charts = readCacheEntry(file);
+        const charts = readCacheEntry<T>(file);
         this.stats.fromCache++;
         return { charts: compactCharts(charts) };
       } catch {
@@ -194,7 +197,7 @@ export class ChartPool implements ChartMaker {
 
   /** Charts with their specs (a comparison's, a rail's …), from the cache or drawn and stored in it. */
   private cached(key: string, make: () => ChartJob): Promise<ChartArtifact[]> {
-    const found = this.fromCache(key);
+    const found = this.fromCache<ChartArtifact>(key);
     if (found.charts) return Promise.resolve(found.charts);
     // A worker answers with the specs unless asked to leave them out (slim), so the answer is whole here.
     return this.drawn(this.run(make, found.file, false) as Promise<ChartArtifact[]>);
@@ -208,8 +211,9 @@ export class ChartPool implements ChartMaker {
   private run(make: () => ChartJob, cacheFile: string | undefined, slim: boolean): Promise<DrawnChart[]> {
     if (this.workers.length === 0) {
       return renderChartJob(make()).then((charts) => {
-        if (cacheFile) writeCacheEntry(cacheFile, charts);
-        return charts;
+        const answer = slim ? withoutSpecs(charts) : charts;
+        if (cacheFile) writeCacheEntry(cacheFile, answer);
+        return answer;
       });
     }
     return new Promise((resolve, reject) => {

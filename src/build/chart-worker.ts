@@ -2,7 +2,7 @@
 // part it is sent. Messages: WorkerJob in, {id, charts} or {id, error} out.
 
 import { parentPort } from 'node:worker_threads';
-import { renderChartJob, type ChartJob } from './chart-jobs.js';
+import { renderChartJob, withoutSpecs, type ChartJob } from './chart-jobs.js';
 import { writeCacheEntry } from './chart-cache-entry.js';
 
 if (!parentPort) throw new Error('chart-worker.ts runs as a worker thread only');
@@ -10,8 +10,8 @@ const port = parentPort;
 
 /**
  * A job, with the cache file its charts are stored in (written here: the specs it holds need not be copied
- * to the thread that sent the job), and whether the answer may leave out the specs (`slim`: a part whose
- * downloads this worker wrote, whose page needs only the SVG and the words).
+ * to the thread that sent the job), and whether the answer and the cache entry may leave out the specs
+ * (`slim`: a part's charts, whose page needs only the SVG and the words and offers the site's shared specs).
  */
 export interface WorkerJob {
   id: number;
@@ -23,8 +23,9 @@ export interface WorkerJob {
 port.on('message', (message: WorkerJob) => {
   renderChartJob(message.job).then(
     (charts) => {
-      if (message.cacheFile) writeCacheEntry(message.cacheFile, charts);
-      port.postMessage({ id: message.id, charts: message.slim ? charts.map(({ spec: _, ...drawn }) => drawn) : charts });
+      const answer = message.slim ? withoutSpecs(charts) : charts;
+      if (message.cacheFile) writeCacheEntry(message.cacheFile, answer);
+      port.postMessage({ id: message.id, charts: answer });
     },
     (error: unknown) => port.postMessage({ id: message.id, error: error instanceof Error ? error.stack ?? error.message : String(error) }),
   );
