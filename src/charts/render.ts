@@ -4,16 +4,18 @@
 // Each chart kind is a ChartDefinition: a fixed spec whose data sources are named and empty and whose
 // per-chart settings (domains, ticks, labels) are parameters, and a `bind` function that turns one input into
 // datasets and parameter values. Each kind keeps one vega View, made once from the parsed runtime; a render
-// empties it, then sets every parameter and replaces every dataset (a dataset the binding leaves out stays
-// empty), runs the dataflow and serialises the scene. Renders of one kind queue behind each other on its View; kinds run
-// independently. Since every input of the View is replaced, the output depends on the chart's own input
-// only, never on what was drawn before (checked in test/charts/render.test.ts).
+// clears what the last chart could leave behind (render-order.ts), then sets every parameter and replaces
+// every dataset (a dataset the binding leaves out is empty), runs the dataflow and serialises the scene.
+// Renders of one kind queue behind each other on its View; kinds run independently. The output depends on
+// the chart's own input only, never on what was drawn before (checked in test/charts/render.test.ts and
+// test/charts/render-order.test.ts).
 
 import { parse, View, type Runtime, type Spec as VegaSpec } from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
 import { outerSize, type Frame } from './frame.js';
 import { finishSvg, type ChartText } from './svg-finish.js';
 import { installTextMetrics } from './text-width.js';
+import { keyedSources, type VegaOrderSpec } from './render-order.js';
 
 export type { ChartText } from './svg-finish.js';
 
@@ -54,6 +56,8 @@ interface Compiled {
   params: { name: string; value: unknown }[];
   /** The parameters reset before each render: those whose placeholder is an empty list (see renderChart). */
   emptied: { name: string; value: unknown }[];
+  /** The data sources whose items vega joins by a key of their rows, emptied before each render (render-order.ts). */
+  keyed: ReadonlySet<string>;
   /** Data sources holding rows in the View now (the others are empty). */
   filled: Set<string>;
   /** The last render queued on this View. */
@@ -103,10 +107,12 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
     const vg = compile(spec, { logger: collectingLogger(warnings) }).spec as VegaSpec;
     // The specs are fixed: a warning is a defect in a chart definition, found by the chart tests.
     if (warnings.length > 0) throw new Error(`chart "${def.name}": vega-lite warns: ${warnings.join('; ')}`);
-    const runtime = parse(vg);
+    const datasets = namedData(spec);
     const params = paramsOf(spec);
     const emptied = params.filter((p) => Array.isArray(p.value) && p.value.length === 0);
-    c = { spec, runtime, view: new View(runtime, { renderer: 'none' }), datasets: namedData(spec), params, emptied, filled: new Set(), queue: Promise.resolve() };
+    const keyed = keyedSources(vg as VegaOrderSpec, datasets, emptied.map((p) => p.name), def.name);
+    const runtime = parse(vg);
+    c = { spec, runtime, view: new View(runtime, { renderer: 'none' }), datasets, params, emptied, keyed, filled: new Set(), queue: Promise.resolve() };
     compiled.set(def.name, c);
     counter(def.name).compiles++;
   }
@@ -153,17 +159,21 @@ export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartTex
   if (unknown.length > 0) throw new Error(`chart "${def.name}" has no data source ${unknown.join(', ')}`);
   const run = c.queue.then(async () => {
     const { view } = c;
-    // Empty the View first: vega keeps the scene items of data (and axis ticks) that survive an update and
-    // appends new ones after them, so without this the order of elements in the SVG would depend on the
-    // chart drawn before. From empty, every item is created afresh in data order. Items come from rows and
-    // from the parameters whose placeholder is an empty list (an axis's tick values, and their labels);
-    // the others (domains) make no items and are simply set below, so the empty run does not recompute
-    // every scale and axis twice. Only data sources that hold rows are emptied, and only those with rows
-    // are filled: a source set to empty again still runs everything downstream of it.
+    // vega keeps the scene items whose key survives an update, in their old place, and appends new ones
+    // after them. Most items are keyed by their row, and every row is replaced below, so they are made
+    // afresh in data order. Two kinds are keyed by values that the next chart may share (render-order.ts):
+    // an axis's ticks and labels, by tick value (the parameters whose placeholder is an empty list: tick
+    // values and their labels), and the lines of a faceted source, by series. Those are emptied first, in a
+    // run that touches only the axes and those lines; the others (domains, the other sources) are simply
+    // replaced below. Only sources that hold rows are emptied or filled: a source set to empty again still
+    // runs everything downstream of it.
     for (const p of c.emptied) view.signal(p.name, p.value);
-    for (const name of c.filled) view.data(name, []);
+    for (const name of c.filled) {
+      if (!c.keyed.has(name)) continue;
+      view.data(name, []);
+      c.filled.delete(name);
+    }
     await view.runAsync();
-    c.filled.clear();
     const f = binding.frame ?? def.frame;
     view.width(f.width).height(f.height).padding(f.padding);
     for (const [name, value] of Object.entries(binding.params)) view.signal(name, value);
@@ -172,6 +182,8 @@ export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartTex
       if (rows && rows.length > 0) {
         view.data(name, rows);
         c.filled.add(name);
+      } else if (c.filled.delete(name)) {
+        view.data(name, []);
       }
     }
     await view.runAsync();
