@@ -4,7 +4,7 @@
 // evaluated in local variables at each point, no object per complex number and no intermediate arrays.
 
 import type { Element } from './element.js';
-import { kernelLines } from './kernel.js';
+import { kernelLines, shapeKernel } from './kernel.js';
 
 /** Z = re + j·im at each sweep point, in Ω. */
 export interface ImpedanceArrays {
@@ -63,12 +63,18 @@ function kernelOf(element: Element): Kernel {
   return kernel;
 }
 
-/** The generated source of a tree's sweep kernel body (exported for tests and curiosity). */
+/** The generated source of a tree's sweep kernel body, reading the tree's values from `k` (exported for tests and curiosity). */
 export function kernelSource(element: Element): string {
-  const { lines, result } = kernelLines(element, false);
+  return sweepBody(kernelLines(element, false));
+}
+
+function sweepBody({ lines, result }: ReturnType<typeof kernelLines>): string {
   return ['const n = omega.length;', 'for (let i = 0; i < n; i++) {', '  const w = omega[i];', ...lines.map((l) => '  ' + l), `  re[i] = ${result[0]};`, `  im[i] = ${result[1]};`, '}'].join('\n');
 }
 
 function compileKernel(element: Element): Kernel {
-  return new Function('omega', 're', 'im', kernelSource(element)) as Kernel;
+  const generated = kernelLines(element, false);
+  const run = shapeKernel<(omega: Float64Array, re: Float64Array, im: Float64Array, k: Float64Array) => void>(['omega', 're', 'im'], sweepBody(generated));
+  const k = Float64Array.from(generated.constants);
+  return (omega, re, im) => run(omega, re, im, k);
 }

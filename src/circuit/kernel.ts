@@ -1,8 +1,11 @@
 // Compiled kernels of an element tree: straight-line code evaluating Z, and with `slope` its derivative with
 // respect to angular frequency dZ/dω, in local variables at one angular frequency `w`, generated once per
 // tree. One walk of the tree writes both, so a sweep, a single point and a slope evaluation agree on Z bit
-// for bit. The generated code holds only numbers taken from the (already validated) tree, never text from
-// a file.
+// for bit. The generated code holds no number of the tree: each element value is read from a constants
+// array `k` (the same double as a literal would give, so the same bits), and the code depends only on the
+// tree's shape. Trees of one shape (every part of a series, every tolerance corner of a part) share one
+// compiled function (`shapeKernel`), which the engine compiles and optimises once instead of once a tree.
+// The generated code never holds text from a file.
 //
 // Element laws and their derivatives: Z_R = R (dZ/dω = 0), Z_L = jωL (jL), Z_C = −j/(ωC) (j/(ω²C)); series
 // adds impedances and their slopes; parallel adds admittances Y = 1/Z (leaves directly: G = 1/R,
@@ -17,14 +20,19 @@ import type { Element } from './element.js';
 /** The names (or literals) of Z's real and imaginary parts and, with a slope, of dZ/dω's. */
 type Parts = [re: string, im: string, dRe: string, dIm: string];
 
-/** Statements evaluating `element` at angular frequency `w`, and the names holding the result. */
-export function kernelLines(element: Element, slope: boolean): { lines: string[]; result: Parts } {
+/**
+ * Statements evaluating `element` at angular frequency `w`, the names holding the result, and the element
+ * values the statements read as `k[0]`, `k[1]` … in the order they are listed.
+ */
+export function kernelLines(element: Element, slope: boolean): { lines: string[]; result: Parts; constants: number[] } {
   const lines: string[] = [];
+  const constants: number[] = [];
   let next = 0;
   const fresh = (stem: string) => `${stem}${next++}`;
   const num = (v: number) => {
     if (!Number.isFinite(v)) throw new RangeError(`element value ${v} is not finite`);
-    return `(${String(v)})`;
+    constants.push(v);
+    return `k[${constants.length - 1}]`;
   };
   const emit = (e: Element): Parts => {
     switch (e.type) {
@@ -100,5 +108,24 @@ export function kernelLines(element: Element, slope: boolean): { lines: string[]
     );
     return [re, im, dre, dim];
   };
-  return { lines, result: emit(element) };
+  const result = emit(element);
+  return { lines, result, constants };
+}
+
+/** Compiled kernel bodies by their source: one function per tree shape and kernel kind. */
+const byShape = new Map<string, unknown>();
+
+/**
+ * The function of a kernel body taking `params` and then the constants `k`, compiled once per distinct
+ * body: a body holds only a tree's shape (kernelLines), so every tree of that shape calls the same function
+ * with its own constants.
+ */
+export function shapeKernel<F>(params: readonly string[], body: string): F {
+  const key = `${params.join(',')}\n${body}`;
+  let compiled = byShape.get(key);
+  if (!compiled) {
+    compiled = new Function(...params, 'k', body);
+    byShape.set(key, compiled);
+  }
+  return compiled as F;
 }

@@ -6,7 +6,7 @@
 
 import type { Element } from './element.js';
 import { addAdmittanceSlope } from './admittance.js';
-import { kernelLines } from './kernel.js';
+import { kernelLines, shapeKernel } from './kernel.js';
 
 /** Z = re + j·im (Ω) and dZ/dω = dRe + j·dIm (Ω·s). */
 export interface ImpedanceSlope {
@@ -35,15 +35,21 @@ export function impedanceSlopeInto(element: Element, omega: number, out: Float64
 function slopeKernelOf(element: Element): SlopeKernel {
   let kernel = slopeKernels.get(element);
   if (!kernel) {
-    kernel = new Function('w', 'out', slopeKernelSource(element)) as SlopeKernel;
+    const generated = kernelLines(element, true);
+    const run = shapeKernel<(w: number, out: Float64Array, k: Float64Array) => void>(['w', 'out'], slopeBody(generated));
+    const k = Float64Array.from(generated.constants);
+    kernel = (w, out) => run(w, out, k);
     slopeKernels.set(element, kernel);
   }
   return kernel;
 }
 
-/** The generated body of a tree's slope kernel (exported for tests). */
+/** The generated body of a tree's slope kernel, reading the tree's values from `k` (exported for tests). */
 export function slopeKernelSource(element: Element): string {
-  const { lines, result } = kernelLines(element, true);
+  return slopeBody(kernelLines(element, true));
+}
+
+function slopeBody({ lines, result }: ReturnType<typeof kernelLines>): string {
   return [...lines, ...result.map((v, k) => `out[${k}] = ${v};`)].join('\n');
 }
 

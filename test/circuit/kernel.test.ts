@@ -4,8 +4,8 @@
 import { Complex } from 'complex.js';
 import { describe, expect, it } from 'vitest';
 import { capacitor, inductor, parallel, resistor, series, type Element } from '../../src/circuit/element.js';
-import { impedanceAt } from '../../src/circuit/impedance.js';
-import { kernelLines } from '../../src/circuit/kernel.js';
+import { impedanceAt, impedanceSweep, kernelSource } from '../../src/circuit/impedance.js';
+import { kernelLines, shapeKernel } from '../../src/circuit/kernel.js';
 import { impedanceSlopeAt } from '../../src/circuit/slope.js';
 import { referenceZ } from '../reference/impedance.js';
 
@@ -47,5 +47,37 @@ describe('kernelLines', () => {
       expect(Math.abs(s.dRe - dz.re) / scale).toBeLessThan(1e-6);
       expect(Math.abs(s.dIm - dz.im) / scale).toBeLessThan(1e-6);
     }
+  });
+});
+
+describe('one compiled kernel per tree shape', () => {
+  // The capacitor model of TREES[0] with other values: the same shape.
+  const other = series(resistor(0.005), inductor(1.1e-9), parallel(capacitor(10e-6), resistor(5e7)));
+  const omega = Float64Array.from({ length: 57 }, (_, i) => 2 * Math.PI * 10 ** (3 + i / 8));
+
+  it('writes no element value into the code, so trees of one shape share a body and a function', () => {
+    expect(kernelSource(other)).toBe(kernelSource(TREES[0]));
+    expect(kernelSource(TREES[1])).not.toBe(kernelSource(TREES[0]));
+    expect(kernelSource(TREES[0])).not.toMatch(/\d\.\d|e-\d/);
+    const a = shapeKernel(['omega', 're', 'im'], kernelSource(TREES[0]));
+    expect(shapeKernel(['omega', 're', 'im'], kernelSource(other))).toBe(a);
+    expect(shapeKernel(['w', 'out'], kernelSource(other))).not.toBe(a);
+  });
+
+  it.each([...TREES, other].map((t, i) => [i, t] as const))('tree %i: values read from the constants give the bits the values written as literals give, and complex.js\'s Z within 1e-12', (_, tree) => {
+    const { constants } = kernelLines(tree, false);
+    const literal = new Function('omega', 're', 'im', kernelSource(tree).replace(/k\[(\d+)\]/g, (_, i: string) => `(${String(constants[Number(i)])})`)) as (o: Float64Array, re: Float64Array, im: Float64Array) => void;
+    const want = { re: new Float64Array(omega.length), im: new Float64Array(omega.length) };
+    literal(omega, want.re, want.im);
+    const got = impedanceSweep(tree, omega.map((w) => w / (2 * Math.PI)));
+    for (let i = 0; i < omega.length; i++) {
+      const z = referenceZ(tree, new Complex(0, omega[i]));
+      expect(Math.abs(got.re[i] - z.re) + Math.abs(got.im[i] - z.im)).toBeLessThanOrEqual(1e-12 * z.abs());
+    }
+    // The sweep's own ω is 2π·f again: compared with the literal kernel at that same ω, bit for bit.
+    const own = omega.map((w) => 2 * Math.PI * (w / (2 * Math.PI)));
+    literal(own, want.re, want.im);
+    expect(Array.from(got.re)).toEqual(Array.from(want.re));
+    expect(Array.from(got.im)).toEqual(Array.from(want.im));
   });
 });
