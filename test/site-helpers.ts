@@ -12,10 +12,13 @@ export function tempDir(stem: string): string {
   return mkdtempSync(join(tmpdir(), `zfolio-${stem}-`));
 }
 
+/** What a library folder holds that a build reads: its YAML and measurement files. */
+export const LIBRARY_ENTRIES = ['folio.yaml', 'parts', 'comparisons', 'plans', 'reviews', 'measurements'];
+
 /** A copy of a library folder (its YAML and measurement files; caches and built sites are left behind). */
 export function copyLibrary(from: string, stem: string): string {
   const to = tempDir(stem);
-  for (const entry of ['folio.yaml', 'parts', 'comparisons', 'plans', 'reviews', 'measurements']) {
+  for (const entry of LIBRARY_ENTRIES) {
     try {
       cpSync(join(from, entry), join(to, entry), { recursive: true });
     } catch {
