@@ -10,19 +10,19 @@
 import { rmSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import type { Browser, Page } from 'puppeteer-core';
+import type { BrowserContext, Page } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { writeGeneratedLibrary } from '../../bench/generate.js';
 import { buildFolio } from '../../src/build/build.js';
 import { noCharts } from '../build/no-charts.js';
 import { loadLibrary, type Library } from '../../src/model/library.js';
-import { ARTIFACTS, siteTabs, startChrome } from '../print/site-tabs.js';
+import { ARTIFACTS, siteTabs, startChrome, stopChrome } from '../print/site-tabs.js';
 
 const PARTS = 2000;
 let root: string;
 let site: string;
 let library: Library;
-let browser: Browser;
+let browser: BrowserContext;
 const problems: string[] = [];
 
 
@@ -37,7 +37,7 @@ beforeAll(async () => {
 }, 300_000);
 
 afterAll(async () => {
-  await browser?.close();
+  await stopChrome(browser);
   if (root) rmSync(root, { recursive: true, force: true });
 });
 

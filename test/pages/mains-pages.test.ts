@@ -8,11 +8,11 @@ import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
 import { execFileSync } from 'node:child_process';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import type { Browser } from 'puppeteer-core';
+import type { BrowserContext } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { findChrome, launchChrome } from '../../src/print/browser.js';
 import { buildFolio, type BuildResult } from '../../src/build/build.js';
 import { read, REPO, tempDir } from '../site-helpers.js';
+import { startChrome, stopChrome } from '../print/site-tabs.js';
 
 const X2 = 'ORV-C-X2-100N-310V';
 const Y2 = 'ORV-C-Y2-2N2-300V';
@@ -24,7 +24,7 @@ const COMPARISON_TITLE = `<i>X & Y</i> parts`;
 let root: string;
 let site: string;
 let result: BuildResult;
-let browser: Browser;
+let browser: BrowserContext;
 
 beforeAll(async () => {
   root = tempDir('mains');
@@ -43,13 +43,11 @@ beforeAll(async () => {
   site = join(root, '_site');
   result = await buildFolio({ libraryRoot: root, outDir: site, cache: false, workers: 0, pdf: { env: process.env, select: { parts: new Set([X2]), reviews: new Set() } } });
   if (result.pdfProblem) throw new Error(`these tests need Chromium: ${result.pdfProblem}`);
-  const chrome = findChrome(undefined, process.env);
-  if (!('path' in chrome)) throw new Error(`browser tests need Chromium: ${chrome.problem}`);
-  browser = await launchChrome(chrome.path);
+  browser = await startChrome();
 }, 240_000);
 
 afterAll(async () => {
-  await browser?.close();
+  await stopChrome(browser);
 });
 
 async function tabTitle(file: string): Promise<string> {

@@ -3,16 +3,16 @@
 // error reaches the console. Screenshots go to test/.artifacts/ for people to look at.
 
 import { join } from 'node:path';
-import type { Browser, Page } from 'puppeteer-core';
+import type { BrowserContext, Page } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadLibrary } from '../../src/model/library.js';
 import { demoSite } from '../demo-site.js';
 import { REPO } from '../site-helpers.js';
-import { ARTIFACTS, siteTabs, startChrome } from './site-tabs.js';
+import { ARTIFACTS, siteTabs, startChrome, stopChrome } from './site-tabs.js';
 
 const library = loadLibrary(REPO).library!;
 let site: string;
-let browser: Browser;
+let browser: BrowserContext;
 const problems: string[] = [];
 
 beforeAll(async () => {
@@ -22,7 +22,7 @@ beforeAll(async () => {
 }, 240_000);
 
 afterAll(async () => {
-  await browser?.close();
+  await stopChrome(browser);
 });
 
 const open = siteTabs(() => browser, () => site, problems);

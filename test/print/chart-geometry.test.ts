@@ -8,16 +8,16 @@
 import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import type { Browser, Page } from 'puppeteer-core';
+import type { BrowserContext, Page } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadLibrary } from '../../src/model/library.js';
 import { demoSite } from '../demo-site.js';
 import { REPO } from '../site-helpers.js';
-import { startChrome } from './site-tabs.js';
+import { startChrome, stopChrome } from './site-tabs.js';
 
 const library = loadLibrary(REPO).library!;
 let site: string;
-let browser: Browser;
+let browser: BrowserContext;
 let page: Page;
 
 beforeAll(async () => {
@@ -30,7 +30,7 @@ beforeAll(async () => {
 }, 240_000);
 
 afterAll(async () => {
-  await browser?.close();
+  await stopChrome(browser);
 });
 
 /** What a page's charts break (overlapping words, words on a curve) and what its schematics break. */

@@ -1,28 +1,40 @@
-// Chromium for the browser tests: the system's, started once a file, and tabs on a built site opened from
-// the file system as a reader would, each recording console errors and warnings, page errors, failed
-// requests and any request outside the site into `problems`.
+// Chromium for the browser tests: the system's, one for the whole run (test/setup/shared-chrome.ts), in which
+// each file works in a browser context of its own (its own tabs, storage and cache); and tabs on a built site
+// opened from the file system as a reader would, each recording console errors and warnings, page errors,
+// failed requests and any request outside the site into `problems`.
 
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import type { Browser, Page } from 'puppeteer-core';
-import { findChrome, launchChrome } from '../../src/print/browser.js';
+import puppeteer, { type BrowserContext, type Page } from 'puppeteer-core';
+import { inject } from 'vitest';
+import { chromeEndpoint } from '../setup/shared-chrome.js';
 import { REPO } from '../site-helpers.js';
 
 /** Where browser tests write screenshots for people to look at (ignored by git). */
 export const ARTIFACTS = join(REPO, 'test', '.artifacts');
 
-/** The system Chromium, started; a machine without it fails here rather than skipping. */
-export async function startChrome(): Promise<Browser> {
-  const chrome = findChrome(undefined, process.env);
-  // CI installs Debian's chromium.
-  if (!('path' in chrome)) throw new Error(`browser tests need Chromium: ${chrome.problem}`);
+/**
+ * A context of its own in the run's Chromium (started on the first call of the run); a machine without
+ * Chromium fails here rather than skipping. Close it with `stopChrome`.
+ */
+export async function startChrome(): Promise<BrowserContext> {
   mkdirSync(ARTIFACTS, { recursive: true });
-  return launchChrome(chrome.path);
+  // The viewport zfolio's own launch gives a new tab (src/print/browser.ts).
+  const browser = await puppeteer.connect({ browserWSEndpoint: await chromeEndpoint(inject('chromeSocket')), defaultViewport: { width: 1200, height: 900 } });
+  return browser.createBrowserContext();
+}
+
+/** Closes the file's context with every tab in it, and its connection; the shared Chromium goes on. */
+export async function stopChrome(context: BrowserContext | undefined): Promise<void> {
+  if (!context) return;
+  const browser = context.browser();
+  await context.close();
+  await browser.disconnect();
 }
 
 /** Opens `file` of the site at `site` in a new tab of `browser`, with or without script. */
-export function siteTabs(browser: () => Browser, site: () => string, problems: string[]) {
+export function siteTabs(browser: () => BrowserContext, site: () => string, problems: string[]) {
   return async function open(file: string, javascript = true): Promise<Page> {
     const page = await browser().newPage();
     await page.setJavaScriptEnabled(javascript);

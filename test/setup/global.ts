@@ -5,7 +5,9 @@
 //   the first of them to ask builds it there, the others wait for it; removed after the run;
 // - one temporary folder for the whole run, made the TMPDIR of the test processes and of every process they
 //   start (builds, Chromium profiles), so the folders tests make with os.tmpdir() go with it after the run
-//   instead of piling up in /tmp. ZFOLIO_KEEP_TEST_TMP=1 keeps it (its path is printed) to look into.
+//   instead of piling up in /tmp. ZFOLIO_KEEP_TEST_TMP=1 keeps it (its path is printed) to look into;
+// - one Chromium for the browser test files, started when the first of them asks (test/setup/shared-chrome.ts)
+//   and closed here when the run ends.
 
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -13,11 +15,14 @@ import { join } from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { tempDir } from '../site-helpers.js';
 import { compileDist } from './compiled.js';
+import { serveChrome } from './shared-chrome.js';
 
 declare module 'vitest' {
   export interface ProvidedContext {
     /** Where the run's shared demo site is built (test/demo-site.ts). */
     demoSiteFolder: string;
+    /** The socket that gives the run's shared Chromium (test/setup/shared-chrome.ts). */
+    chromeSocket: string;
   }
 }
 
@@ -29,7 +34,10 @@ export default function setup(project: TestProject) {
   process.env.TMPDIR = run;
   const folder = tempDir('demo-site');
   project.provide('demoSiteFolder', folder);
-  return () => {
+  const chrome = serveChrome(run);
+  project.provide('chromeSocket', chrome.socket);
+  return async () => {
+    await chrome.close();
     if (previous === undefined) delete process.env.TMPDIR;
     else process.env.TMPDIR = previous;
     if (process.env.ZFOLIO_KEEP_TEST_TMP === '1') process.stdout.write(`test files kept in ${run}\n`);
