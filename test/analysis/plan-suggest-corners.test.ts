@@ -6,7 +6,7 @@ import { suggestPlacements } from '../../src/analysis/plan-suggest.js';
 import { selectCandidates } from '../../src/model/plan-candidates.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { mulberry32 } from '../../bench/generate.js';
-import { branchAdmittance, denseSweep, worstOverBand, type RefBranch } from './rail-reference.js';
+import { admittanceTable, countJudge, denseSweep, everyCountVector, type RefBranch, type TabulatedBranch } from './rail-reference.js';
 
 // `plan --suggest --corners` against exhaustive enumeration: every count vector, each judged at nominal
 // and at every corner of the parts it places by the evaluator written in rail-reference.ts (complex.js,
@@ -122,39 +122,19 @@ function writeCase(c: GenCase): void {
 function reference(c: GenCase) {
   const sweep = denseSweep(c.band[0], c.band[1], DENSE_PER_DECADE);
   const fixed: RefBranch[] = [{ r: c.regulator.r, l: c.regulator.l, c: 0, count: 1 }];
-  const admittance = (b: RefBranch) => {
-    const re = new Float64Array(sweep.length);
-    const im = new Float64Array(sweep.length);
-    sweep.forEach((f, k) => {
-      const y = branchAdmittance(b, f);
-      re[k] = y.re;
-      im[k] = y.im;
-    });
-    return { re, im };
-  };
-  const fixedY = fixed.map(admittance);
-  const cache = new Map<string, { re: Float64Array; im: Float64Array }>();
-  const yOf = (i: number, value: -1 | 0 | 1, esr: -1 | 0 | 1) => {
+  const judge = countJudge(sweep, fixed);
+  const cache = new Map<string, TabulatedBranch>();
+  const tabulated = (i: number, value: -1 | 0 | 1, esr: -1 | 0 | 1) => {
     const key = `${i}/${value}/${esr}`;
-    if (!cache.has(key)) cache.set(key, admittance(branchAt(c.parts[i], c.mounting, value, esr)));
+    if (!cache.has(key)) {
+      const branch = branchAt(c.parts[i], c.mounting, value, esr);
+      cache.set(key, { branch, y: admittanceTable(branch, sweep) });
+    }
     return cache.get(key)!;
   };
-  const sampled = new Float64Array(sweep.length);
   /** Worst |Z| of `counts` with part i at ends[i] = [value, esr]. */
-  const worst = (counts: readonly number[], ends: readonly (readonly [-1 | 0 | 1, -1 | 0 | 1])[], refineAbove: number) => {
-    const ys = counts.map((_, i) => yOf(i, ends[i][0], ends[i][1]));
-    for (let k = 0; k < sweep.length; k++) {
-      let re = fixedY[0].re[k];
-      let im = fixedY[0].im[k];
-      counts.forEach((n, i) => {
-        re += n * ys[i].re[k];
-        im += n * ys[i].im[k];
-      });
-      sampled[k] = 1 / Math.hypot(re, im);
-    }
-    const branches = [...fixed, ...counts.map((n, i) => ({ ...branchAt(c.parts[i], c.mounting, ends[i][0], ends[i][1]), count: n }))];
-    return worstOverBand(branches, sweep, sampled, refineAbove).impedanceOhm;
-  };
+  const worst = (counts: readonly number[], ends: readonly (readonly [-1 | 0 | 1, -1 | 0 | 1])[], refineAbove: number) =>
+    judge(counts.map((_, i) => tabulated(i, ends[i][0], ends[i][1])), counts, refineAbove).impedanceOhm;
   const nominalEnds = c.parts.map(() => [0, 0] as const);
   /** Nominal, then every corner of the placed parts' moving quantities (unplaced parts do not matter). */
   const worstOverCorners = (counts: readonly number[], refineAbove = 0) => {
@@ -181,24 +161,19 @@ function enumerate(c: GenCase) {
   const limit = c.targetOhm * 10 ** (-c.marginDb / 20);
   const weight = (i: number) => (ref.byCost ? c.parts[i].cost! : 1);
   const m = c.parts.length;
-  const counts = new Array<number>(m).fill(0);
-  let nominal: number | null = null;
-  let corners: number | null = null;
+  // Set inside the callback below, so typed here rather than narrowed to their first values.
+  let nominal = null as number | null;
+  let corners = null as number | null;
   let nearTie = false;
-  for (let code = 0; code < (c.maxCount + 1) ** m; code++) {
-    let rest = code;
-    for (let i = 0; i < m; i++) {
-      counts[i] = rest % (c.maxCount + 1);
-      rest = Math.floor(rest / (c.maxCount + 1));
-    }
+  everyCountVector(m, c.maxCount, (counts) => {
     const objective = counts.reduce((sum, n, i) => sum + n * weight(i), 0);
     const atNominal = ref.worstAtNominal(counts);
     if (atNominal <= limit && (nominal === null || objective < nominal)) nominal = objective;
-    if (corners !== null && objective >= corners) continue;
+    if (corners !== null && objective >= corners) return;
     const worst = ref.worstOverCorners(counts, limit / 2);
     if (Math.abs(worst / limit - 1) < TIE || Math.abs(atNominal / limit - 1) < TIE) nearTie = true;
     if (worst <= limit) corners = objective;
-  }
+  });
   return { ref, nominal, corners, nearTie, limit, weight };
 }
 

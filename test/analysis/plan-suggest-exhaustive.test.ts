@@ -6,7 +6,7 @@ import { suggestPlacements } from '../../src/analysis/plan-suggest.js';
 import { selectCandidates } from '../../src/model/plan-candidates.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { mulberry32 } from '../../bench/generate.js';
-import { branchAdmittance, denseSweep, worstOverBand, type RefBranch } from './rail-reference.js';
+import { admittanceTable, countJudge, denseSweep, everyCountVector, type RefBranch } from './rail-reference.js';
 
 // `plan --suggest` (candidates, mountings, DC bias, margin, the planner) against exhaustive enumeration of
 // every count vector, each judged by the evaluator written in rail-reference.ts (complex.js element
@@ -177,36 +177,9 @@ function referenceProblem(c: GenCase) {
   const fixed: RefBranch[] = [{ r: c.regulator.r, l: c.regulator.l, c: 0, count: 1 }];
   if (c.plane) fixed.push({ r: c.plane.r, l: 0, c: c.plane.c, count: 1 });
   const sweep = denseSweep(c.band[0], c.band[1], DENSE_PER_DECADE);
-  const admittance = (b: RefBranch) => {
-    const re = new Float64Array(sweep.length);
-    const im = new Float64Array(sweep.length);
-    sweep.forEach((f, k) => {
-      const y = branchAdmittance(b, f);
-      re[k] = y.re;
-      im[k] = y.im;
-    });
-    return { re, im };
-  };
-  const fixedY = fixed.map(admittance);
-  const candidateY = candidates.map((cand) => admittance(cand.branch));
-  const sampled = new Float64Array(sweep.length);
-  const worst = (counts: readonly number[], refineAbove = 0) => {
-    for (let k = 0; k < sweep.length; k++) {
-      let re = 0;
-      let im = 0;
-      for (const y of fixedY) {
-        re += y.re[k];
-        im += y.im[k];
-      }
-      counts.forEach((n, i) => {
-        re += n * candidateY[i].re[k];
-        im += n * candidateY[i].im[k];
-      });
-      sampled[k] = 1 / Math.hypot(re, im);
-    }
-    const branches = [...fixed, ...candidates.map((cand, i) => ({ ...cand.branch, count: counts[i] }))];
-    return worstOverBand(branches, sweep, sampled, refineAbove);
-  };
+  const judge = countJudge(sweep, fixed);
+  const tabulated = candidates.map((cand) => ({ branch: cand.branch, y: admittanceTable(cand.branch, sweep) }));
+  const worst = (counts: readonly number[], refineAbove = 0) => judge(tabulated, counts, refineAbove);
   return { candidates, worst, byCost };
 }
 
@@ -215,24 +188,19 @@ function enumerate(c: GenCase) {
   const ref = referenceProblem(c);
   const m = ref.candidates.length;
   const limit = c.targetOhm * 10 ** (-c.marginDb / 20);
-  const counts = new Array<number>(m).fill(0);
-  let best: { objective: number; counts: number[] } | null = null;
+  // Set inside the callback below, so typed here rather than narrowed to their first values.
+  let best = null as { objective: number; counts: number[] } | null;
   let closest = Infinity;
   let nearTie = false;
-  for (let code = 0; code < (c.maxCount + 1) ** m; code++) {
-    let rest = code;
-    for (let i = 0; i < m; i++) {
-      counts[i] = rest % (c.maxCount + 1);
-      rest = Math.floor(rest / (c.maxCount + 1));
-    }
+  everyCountVector(m, c.maxCount, (counts) => {
     // Peaks far under the target cannot decide anything: refine only those within a factor of two of it.
     const worst = ref.worst(counts, limit / 2).impedanceOhm;
     if (Math.abs(worst / limit - 1) < TIE) nearTie = true;
     closest = Math.min(closest, worst);
-    if (worst > limit) continue;
+    if (worst > limit) return;
     const objective = counts.reduce((sum, n, i) => sum + n * ref.candidates[i].weight, 0);
     if (!best || objective < best.objective) best = { objective, counts: [...counts] };
-  }
+  });
   return { ref, best, closest, nearTie, limit };
 }
 

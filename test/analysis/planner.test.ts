@@ -4,7 +4,7 @@ import { logSweep } from '../../src/circuit/sweep.js';
 import { planDecoupling, type PlannerCandidate, type PlannerProblem } from '../../src/analysis/planner.js';
 import { mulberry32 } from '../../bench/generate.js';
 import { placementElement, regulatorElement, planeElement, type RailBranch } from '../../src/analysis/rail.js';
-import { branchAdmittance, denseSweep, worstOverBand, type RefBranch } from './rail-reference.js';
+import { admittanceTable, countJudge, denseSweep, everyCountVector, type RefBranch } from './rail-reference.js';
 
 // The planner is checked against exhaustive enumeration of every count vector (0..N for each candidate),
 // each judged by the evaluator written in rail-reference.ts (complex.js element impedances, a dense sweep of
@@ -27,59 +27,26 @@ interface RandomCase {
 function referenceJudge(c: RandomCase) {
   const f = c.problem.frequencies;
   const sweep = denseSweep(f[0], f[f.length - 1], 1000);
-  const table = (b: RefBranch) => {
-    const re = new Float64Array(sweep.length);
-    const im = new Float64Array(sweep.length);
-    sweep.forEach((x, k) => {
-      const y = branchAdmittance(b, x);
-      re[k] = y.re;
-      im[k] = y.im;
-    });
-    return { re, im };
-  };
-  const fixedY = c.fixed.map(table);
-  const candidateY = c.candidates.map(table);
-  const sampled = new Float64Array(sweep.length);
-  return (counts: readonly number[], refineAbove = 0): number => {
-    for (let k = 0; k < sweep.length; k++) {
-      let re = 0;
-      let im = 0;
-      for (const y of fixedY) {
-        re += y.re[k];
-        im += y.im[k];
-      }
-      counts.forEach((n, i) => {
-        re += n * candidateY[i].re[k];
-        im += n * candidateY[i].im[k];
-      });
-      sampled[k] = 1 / Math.hypot(re, im);
-    }
-    return worstOverBand([...c.fixed, ...c.candidates.map((b, i) => ({ ...b, count: counts[i] }))], sweep, sampled, refineAbove).impedanceOhm;
-  };
+  const judge = countJudge(sweep, c.fixed);
+  const candidates = c.candidates.map((branch) => ({ branch, y: admittanceTable(branch, sweep) }));
+  return (counts: readonly number[], refineAbove = 0): number => judge(candidates, counts, refineAbove).impedanceOhm;
 }
 
 /** Every count vector in [0..N]^m judged by the reference: the best passing one by the objective. */
 function exhaustive(c: RandomCase): { best: { objective: number; counts: number[] } | null; nearTie: boolean } {
   const { problem } = c;
   const judge = referenceJudge(c);
-  const m = problem.candidates.length;
-  const counts = new Array<number>(m).fill(0);
-  let best: { objective: number; counts: number[] } | null = null;
+  // Set inside the callback below, so typed here rather than narrowed to its first value.
+  let best = null as { objective: number; counts: number[] } | null;
   let nearTie = false;
-  const total = (problem.maxCount + 1) ** m;
-  for (let code = 0; code < total; code++) {
-    let rest = code;
-    for (let i = 0; i < m; i++) {
-      counts[i] = rest % (problem.maxCount + 1);
-      rest = Math.floor(rest / (problem.maxCount + 1));
-    }
+  everyCountVector(problem.candidates.length, problem.maxCount, (counts) => {
     // Peaks under half the target cannot decide anything; only those above are refined.
     const worst = judge(counts, problem.targetOhm / 2);
     if (Math.abs(worst / problem.targetOhm - 1) < TIE) nearTie = true;
-    if (worst > problem.targetOhm) continue;
+    if (worst > problem.targetOhm) return;
     const objective = counts.reduce((sum, n, i) => sum + n * (problem.objective === 'cost' ? problem.candidates[i].weight : 1), 0);
     if (!best || objective < best.objective) best = { objective, counts: [...counts] };
-  }
+  });
   return { best, nearTie };
 }
 

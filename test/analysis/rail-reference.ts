@@ -77,3 +77,66 @@ export function worstOverBand(branches: readonly RefBranch[], sweep: Float64Arra
   }
   return worst;
 }
+
+/** A branch's admittance at every point of a sweep, real and imaginary parts apart. */
+export interface AdmittanceTable {
+  re: Float64Array;
+  im: Float64Array;
+}
+
+export function admittanceTable(b: RefBranch, sweep: Float64Array): AdmittanceTable {
+  const re = new Float64Array(sweep.length);
+  const im = new Float64Array(sweep.length);
+  sweep.forEach((f, k) => {
+    const y = branchAdmittance(b, f);
+    re[k] = y.re;
+    im[k] = y.im;
+  });
+  return { re, im };
+}
+
+/** A branch with its admittance tabulated on the judge's sweep. */
+export interface TabulatedBranch {
+  branch: RefBranch;
+  y: AdmittanceTable;
+}
+
+/**
+ * The worst |Z| over the band of the `fixed` branches in parallel with counts[i] of each candidate, for
+ * judging many count vectors: every branch's admittance is tabulated once on `sweep`, a count vector's |Z| at
+ * each point is the sum of the tables (fixed branches first, then the candidates in order), and
+ * `worstOverBand` refines its maxima.
+ */
+export function countJudge(sweep: Float64Array, fixed: readonly RefBranch[]) {
+  const fixedY = fixed.map((b) => admittanceTable(b, sweep));
+  const sampled = new Float64Array(sweep.length);
+  return (candidates: readonly TabulatedBranch[], counts: readonly number[], refineAbove = 0): { frequencyHz: number; impedanceOhm: number } => {
+    for (let k = 0; k < sweep.length; k++) {
+      let re = 0;
+      let im = 0;
+      for (const y of fixedY) {
+        re += y.re[k];
+        im += y.im[k];
+      }
+      counts.forEach((n, i) => {
+        re += n * candidates[i].y.re[k];
+        im += n * candidates[i].y.im[k];
+      });
+      sampled[k] = 1 / Math.hypot(re, im);
+    }
+    return worstOverBand([...fixed, ...candidates.map((c, i) => ({ ...c.branch, count: counts[i] }))], sweep, sampled, refineAbove);
+  };
+}
+
+/** Calls `visit` with every count vector of `m` counts from 0 to `maxCount` (one array, rewritten each time). */
+export function everyCountVector(m: number, maxCount: number, visit: (counts: readonly number[]) => void): void {
+  const counts = new Array<number>(m).fill(0);
+  for (let code = 0; code < (maxCount + 1) ** m; code++) {
+    let rest = code;
+    for (let i = 0; i < m; i++) {
+      counts[i] = rest % (maxCount + 1);
+      rest = Math.floor(rest / (maxCount + 1));
+    }
+    visit(counts);
+  }
+}
