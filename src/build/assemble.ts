@@ -41,6 +41,7 @@ import {
 
 export { jsonFile } from './part-downloads.js';
 import { jsonFile, specFileName, writeChartSpec } from './part-downloads.js';
+import type { SvgSpill } from './svg-spill.js';
 
 /** A chart as its page shows it; its spec is (or was) written beside the page. */
 function chartOnPage(chart: DrawnChart): ChartOnPage {
@@ -132,6 +133,11 @@ export interface AssembleOptions {
   timings?: AssembleTimings;
   /** Filled in when given: what the build had to do. */
   work?: BuildWork;
+  /**
+   * Where the charts of the part pages to render wait on disk until their eleventy run (svg-spill.ts); by
+   * default they are held in the page data. A part a review shows keeps its charts (its review renders them too).
+   */
+  spill?: SvgSpill;
 }
 
 export interface PdfLinks {
@@ -139,7 +145,7 @@ export interface PdfLinks {
   review(slug: string): boolean;
 }
 
-export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), units = NOTHING_KEPT, measurements = new Map(), timings, work }: AssembleOptions): Promise<FolioData> {
+export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), units = NOTHING_KEPT, measurements = new Map(), timings, work, spill }: AssembleOptions): Promise<FolioData> {
   const analyse = (part: Part) => {
     const started = performance.now();
     if (work) work.partsAnalysed++;
@@ -176,6 +182,7 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
         const drawn = await charts.partCharts(a, { folder, sweep: library.settings.sweep });
         const full = partPageData(a, drawn.map(partChartOnPage(part)));
         full.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
+        if (!shownElsewhere.has(part.id)) spill?.put(full);
         page = full;
         compared.set(part.id, comparedAnalysis(a));
         byId.delete(part.id);

@@ -34,6 +34,7 @@ import type { PartAnalysis } from '../analysis/part-figures.js';
 import { keptPdfs, linkPdfs, pdfKeys, pdfsIn, stampPdfs } from './pdf-reuse.js';
 import { buildHistory, type BuildHistory } from './build-history.js';
 import { addChanges } from '../pages/changes-page.js';
+import { SvgSpill } from './svg-spill.js';
 
 export interface BuildOptions {
   libraryRoot: string;
@@ -213,7 +214,8 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
       kept: (unit: string, key: string) => Boolean(recordAt) && units.kept(unit, key),
       keepChart: (analyses: Pick<PartAnalysis, 'part'>[], title: string) => pool?.keepComparisonChart(analyses, title),
     };
-    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, units: unitKeys, measurements: result.measurements, timings: timings.assemble, work });
+    const spill = new SvgSpill(staging.dir);
+    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, units: unitKeys, measurements: result.measurements, timings: timings.assemble, work, spill });
     await addChanges(folio, run.history, options.charts ?? pool!, staging.dir);
     await pool?.close();
     work.listFiles = listPages(folio, site, partKeyOf, unitKeys.kept, staging.dir, writeFileDeep);
@@ -221,7 +223,8 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
 
     clock = stageClock();
     progress.stage('pages', 1);
-    const written = await renderPages(staging.dir, folio, options.partPagesPerRun);
+    const written = await renderPages(staging.dir, folio, options.partPagesPerRun, spill);
+    spill.remove();
     work.pagesRendered = written;
     progress.tick();
     cpSync(join(TEMPLATES_DIR, 'assets'), join(staging.dir, 'assets'), { recursive: true });

@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import Eleventy from '@11ty/eleventy';
 import { PACKAGE_ROOT } from '../version.js';
 import type { FolioData } from '../pages/site-data.js';
+import type { PageCharts } from './svg-spill.js';
 
 export const TEMPLATES_DIR = join(PACKAGE_ROOT, 'templates');
 
@@ -19,11 +20,22 @@ export const PART_PAGES_PER_RUN = 500;
 /** The template that makes the part pages (paginated over `folio.partPages`). */
 const PART_TEMPLATE = 'part.njk';
 
-/** Render every template into `outDir` with `folio` as global data. Resolves to the count of pages written. */
-export async function renderPages(outDir: string, folio: FolioData, perRun = PART_PAGES_PER_RUN): Promise<number> {
+/**
+ * Render every template into `outDir` with `folio` as global data. Resolves to the count of pages written.
+ * With `charts`, the part pages' charts are loaded for the run that renders them and let go after it.
+ */
+export async function renderPages(outDir: string, folio: FolioData, perRun = PART_PAGES_PER_RUN, charts?: PageCharts): Promise<number> {
   const pages = folio.partPages;
-  let written = await renderRun(outDir, { ...folio, partPages: pages.slice(0, perRun) }, false);
-  for (let i = perRun; i < pages.length; i += perRun) written += await renderRun(outDir, { ...folio, partPages: pages.slice(i, i + perRun) }, true);
+  let written = 0;
+  for (let i = 0; i === 0 || i < pages.length; i += perRun) {
+    const run = pages.slice(i, i + perRun);
+    charts?.load(run);
+    try {
+      written += await renderRun(outDir, { ...folio, partPages: run }, i > 0);
+    } finally {
+      charts?.unload(run);
+    }
+  }
   return written;
 }
 
