@@ -12,7 +12,7 @@
 // On a file system without symbolic links every build does that, as zfolio always did before.
 
 import { randomBytes } from 'node:crypto';
-import { accessSync, constants, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
+import { accessSync, constants, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, statSync, symlinkSync, writeFileSync, type Stats } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { holdingName, isOwnLink, MARKER_TEXT, OutputRefused, SITE_MARKER } from './output-guard.js';
 import { untilDone } from '../on-exit.js';
@@ -73,17 +73,31 @@ function entryKind(path: string): 'none' | 'link' | 'folder' | 'other' {
  * (chmod a-w), which zfolio respects even when run as root.
  */
 function readOnly(path: string): boolean {
+  return writable(path) === undefined;
+}
+
+/** A folder's stats when it is not read-only. */
+function writable(path: string): Stats | undefined {
   try {
     accessSync(path, constants.W_OK | constants.X_OK);
-    return (statSync(path).mode & 0o222) === 0;
+    const stats = statSync(path);
+    return (stats.mode & 0o222) === 0 ? undefined : stats;
   } catch {
-    return true;
+    return undefined;
   }
 }
 
-/** The first read-only folder in a tree (whose entries could then not be removed), if any. */
+/**
+ * The first read-only folder in a tree (whose entries could then not be removed), if any. A folder whose
+ * link count is 2 (its entry in its parent and its own `.`) has no folder inside it on the file systems that
+ * count the links of folders (ext4, XFS, tmpfs: each folder inside adds its `..`), so it is not listed: a
+ * site's part folders hold files only, and a 10,000-part site is checked without listing 10,000 folders.
+ * Where folders' links are not counted (btrfs gives 1), every folder is listed, as before.
+ */
 function readOnlyFolderIn(dir: string): string | undefined {
-  if (readOnly(dir)) return dir;
+  const stats = writable(dir);
+  if (!stats) return dir;
+  if (stats.nlink === 2) return undefined;
   for (const entry of readdirSync(dir, { withFileTypes: true })) {
     if (!entry.isDirectory()) continue;
     const found = readOnlyFolderIn(join(dir, entry.name));

@@ -139,6 +139,13 @@ describe('a read-only output', () => {
     unlockAll();
     lock(join(site, 'parts'));
     expect(refusal(site)).toMatch(/\/parts is read-only/);
+    unlockAll();
+    // Deeper: below a folder that holds a folder (a folder's link count counts the folders in it).
+    mkdirSync(join(site, 'parts', 'P-1', 'deeper'), { recursive: true });
+    writeFileSync(join(site, 'parts', 'P-1', 'index.html'), 'p');
+    expect(refusal(site)).toBe('writable');
+    lock(join(site, 'parts', 'P-1', 'deeper'));
+    expect(refusal(site)).toMatch(/\/parts\/P-1\/deeper is read-only/);
   });
 
   it('stops a build before anything moves: exit-2 error, the disk as it was', async () => {
