@@ -4,8 +4,9 @@
 // Each chart kind is a ChartDefinition: a fixed spec whose data sources are named and empty and whose
 // per-chart settings (domains, ticks, labels) are parameters, and a `bind` function that turns one input into
 // datasets and parameter values. Each kind keeps one vega View, made once from the parsed runtime; a render
-// clears what the last chart could leave behind (render-order.ts), then sets every parameter and replaces
-// every dataset (a dataset the binding leaves out is empty), runs the dataflow and serialises the scene.
+// clears what the last chart could leave behind (render-order.ts), then sets every parameter and dataset
+// that differs from the last chart's (a dataset the binding leaves out is empty), runs the dataflow and
+// serialises the scene.
 // Renders of one kind queue behind each other on its View; kinds run independently. The output depends on
 // the chart's own input only, never on what was drawn before (checked in test/charts/render.test.ts and
 // test/charts/render-order.test.ts).
@@ -15,7 +16,7 @@ import { compile, type TopLevelSpec } from 'vega-lite';
 import { outerSize, type Frame } from './frame.js';
 import { finishSvg, type ChartText } from './svg-finish.js';
 import { installTextMetrics } from './text-width.js';
-import { keyedSources, type VegaOrderSpec } from './render-order.js';
+import { COMPARED_ROWS, keyedItems, sameValue, type AxisKeys, type VegaOrderSpec } from './render-order.js';
 
 export type { ChartText } from './svg-finish.js';
 
@@ -56,10 +57,13 @@ interface Compiled {
   params: { name: string; value: unknown }[];
   /** The parameters reset before each render: those whose placeholder is an empty list (see renderChart). */
   emptied: { name: string; value: unknown }[];
-  /** The data sources whose items vega joins by a key of their rows, emptied before each render (render-order.ts). */
+  /** The data sources whose items vega joins by a key of their rows, and the axes (render-order.ts). */
   keyed: ReadonlySet<string>;
+  axes: readonly AxisKeys[];
   /** Data sources holding rows in the View now (the others are empty). */
   filled: Set<string>;
+  /** What the View holds now: each parameter's value, the frame, and a copy of each small source's rows. */
+  now: { params: Map<string, unknown>; frame?: Frame; rows: Map<string, Row[]> };
   /** The last render queued on this View. */
   queue: Promise<unknown>;
 }
@@ -110,9 +114,10 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
     const datasets = namedData(spec);
     const params = paramsOf(spec);
     const emptied = params.filter((p) => Array.isArray(p.value) && p.value.length === 0);
-    const keyed = keyedSources(vg as VegaOrderSpec, datasets, emptied.map((p) => p.name), def.name);
+    const { sources: keyed, axes } = keyedItems(vg as VegaOrderSpec, datasets, emptied.map((p) => p.name), def.name);
     const runtime = parse(vg);
-    c = { spec, runtime, view: new View(runtime, { renderer: 'none' }), datasets, params, emptied, keyed, filled: new Set(), queue: Promise.resolve() };
+    const now = { params: new Map(params.map((p) => [p.name, p.value])), rows: new Map<string, Row[]>() };
+    c = { spec, runtime, view: new View(runtime, { renderer: 'none' }), datasets, params, emptied, keyed, axes, filled: new Set(), now, queue: Promise.resolve() };
     compiled.set(def.name, c);
     counter(def.name).compiles++;
   }
@@ -158,32 +163,57 @@ export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartTex
   const unknown = Object.keys(binding.datasets).filter((name) => !c.datasets.includes(name));
   if (unknown.length > 0) throw new Error(`chart "${def.name}" has no data source ${unknown.join(', ')}`);
   const run = c.queue.then(async () => {
-    const { view } = c;
+    const { view, now } = c;
+    const f = binding.frame ?? def.frame;
+    // Each parameter as this chart wants it: its binding's value; one the binding leaves out keeps its value,
+    // except a list reset before each render (an axis's ticks and labels), which is empty.
+    const wanted = new Map(c.params.map((p) => [p.name, p.name in binding.params ? binding.params[p.name] : Array.isArray(p.value) && p.value.length === 0 ? p.value : now.params.get(p.name)]));
+    const sameFrame = now.frame !== undefined && sameValue(f, now.frame);
     // vega keeps the scene items whose key survives an update, in their old place, and appends new ones
-    // after them. Most items are keyed by their row, and every row is replaced below, so they are made
-    // afresh in data order. Two kinds are keyed by values that the next chart may share (render-order.ts):
-    // an axis's ticks and labels, by tick value (the parameters whose placeholder is an empty list: tick
-    // values and their labels), and the lines of a faceted source, by series. Those are emptied first, in a
-    // run that touches only the axes and those lines; the others (domains, the other sources) are simply
-    // replaced below. Only sources that hold rows are emptied or filled: a source set to empty again still
-    // runs everything downstream of it.
-    for (const p of c.emptied) view.signal(p.name, p.value);
-    for (const name of c.filled) {
-      if (!c.keyed.has(name)) continue;
+    // after them (render-order.ts). Items keyed by row follow the data's order, since a source whose rows
+    // change is replaced whole. Two kinds are keyed by values the next chart may share: an axis's ticks and
+    // labels, by tick value, and the lines of a faceted source, by series. An axis whose tick values, domain
+    // and frame are all as they were keeps the same ticks in the same order; any other has its tick values
+    // emptied first, and a faceted source whose rows change is emptied first, in a run that touches only
+    // those. Then every parameter and source that differs from what the View holds is set: one that is the
+    // same is left, with its items, as the last chart left it, which is as this chart would make it.
+    let cleared = false;
+    for (const axis of c.axes) {
+      const kept = sameFrame && axis.domain !== undefined && sameValue(wanted.get(axis.ticks), now.params.get(axis.ticks)) && sameValue(wanted.get(axis.domain), now.params.get(axis.domain));
+      if (kept || sameValue(now.params.get(axis.ticks), [])) continue;
+      view.signal(axis.ticks, []);
+      now.params.set(axis.ticks, []);
+      cleared = true;
+    }
+    for (const name of c.keyed) {
+      if (!c.filled.has(name) || sameRows(binding.datasets[name], now.rows.get(name))) continue;
       view.data(name, []);
       c.filled.delete(name);
+      now.rows.delete(name);
+      cleared = true;
     }
-    await view.runAsync();
-    const f = binding.frame ?? def.frame;
-    view.width(f.width).height(f.height).padding(f.padding);
-    for (const [name, value] of Object.entries(binding.params)) view.signal(name, value);
+    if (cleared) await view.runAsync();
+    if (!sameFrame) {
+      view.width(f.width).height(f.height).padding(f.padding);
+      now.frame = f;
+    }
+    for (const [name, value] of wanted) {
+      if (sameValue(value, now.params.get(name))) continue;
+      view.signal(name, value);
+      now.params.set(name, value);
+    }
     for (const name of c.datasets) {
       const rows = binding.datasets[name];
       if (rows && rows.length > 0) {
+        if (c.filled.has(name) && sameRows(rows, now.rows.get(name))) continue;
         view.data(name, rows);
         c.filled.add(name);
+        // vega writes into the rows it is given: a copy is kept to compare with the next chart's.
+        if (rows.length <= COMPARED_ROWS) now.rows.set(name, rows.map((r) => ({ ...r })));
+        else now.rows.delete(name);
       } else if (c.filled.delete(name)) {
         view.data(name, []);
+        now.rows.delete(name);
       }
     }
     await view.runAsync();
@@ -199,6 +229,11 @@ export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartTex
   // A failed render must not block the next one on this View.
   c.queue = run.catch(() => undefined);
   return run;
+}
+
+/** Whether a source's rows are those kept of the last chart (none kept: a large source, taken as changed). */
+function sameRows(rows: Row[] | undefined, kept: Row[] | undefined): boolean {
+  return rows !== undefined && kept !== undefined && sameValue(rows, kept);
 }
 
 /** The spec as drawn: datasets inlined, parameter values set, the text alternative as description and meta. */

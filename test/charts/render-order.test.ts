@@ -20,6 +20,8 @@ import { svgTexts } from './svg-text.js';
 interface Toy {
   series: string[];
   ticks: number[];
+  /** The x domain; [0, 20] when absent. */
+  domain?: [number, number];
 }
 
 const X = position('x', 'x', 'linear', 'x');
@@ -32,9 +34,9 @@ function toyChart(name: string, layer: (x: Json, y: Json) => object = (x, y) => 
     name,
     frame: frame(200, 100),
     spec: () => ({ params: [...axisParams('x'), ...axisParams('y')], layer: [layer(X, Y)] }) as unknown as TopLevelSpec,
-    bind: ({ series, ticks }) => ({
-      params: { ...axisBinding('x', [0, 10], axis(ticks)).params, ...axisBinding('y', [0, 4], axis([0, 4])).params },
-      datasets: { lines: series.flatMap((s, k) => [0, 10].map((x, i) => ({ x, v: k + 1, s, i }))) },
+    bind: ({ series, ticks, domain = [0, 20] }) => ({
+      params: { ...axisBinding('x', domain, axis(ticks)).params, ...axisBinding('y', [0, 4], axis([0, 4])).params },
+      datasets: { lines: series.flatMap((s, k) => [0, 20].map((x, i) => ({ x, v: k + 1, s, i }))) },
     }),
   };
 }
@@ -70,6 +72,18 @@ describe('a chart drawn after another on the same View', () => {
     expect(tickLabels(own)).toEqual(['t1', 't2', 't3', 't5']);
     // Not cleared, the tick kept from before (2) comes first.
     expect(tickLabels(await uncleared(def, [before, after]))).toEqual(['t2', 't1', 't3', 't5']);
+    await renderChart(def, before, text);
+    expect((await renderChart(def, after, text)).svg).toBe(own);
+  });
+
+  it('lists its axis ticks in their own order when its tick values are the last chart\'s but its domain is not', async () => {
+    // vega draws only the ticks inside the domain: 2 is outside the first chart's, inside the second's.
+    const def = toyChart('order-domain');
+    const before: Toy = { series: ['a'], ticks: [2, 8, 12], domain: [5, 20] };
+    const after: Toy = { series: ['a'], ticks: [2, 8, 12], domain: [0, 20] };
+    const own = await freshSvg(await renderChart(def, after, text));
+    expect(tickLabels(own)).toEqual(['t2', 't8', 't12']);
+    expect(tickLabels(await uncleared(def, [before, after]))).toEqual(['t8', 't12', 't2']);
     await renderChart(def, before, text);
     expect((await renderChart(def, after, text)).svg).toBe(own);
   });
