@@ -7,6 +7,7 @@ import { appendFileSync, readFileSync } from 'node:fs';
 import { relative } from 'node:path';
 import { afterAll } from 'vitest';
 
+/** Clock ticks a second in /proc's times (USER_HZ, sysconf(_SC_CLK_TCK), per proc(5)): 100 on x86 and Arm Linux. */
 const TICKS_PER_SECOND = 100;
 
 /** utime + stime + cutime + cstime of this process, in seconds (proc(5): fields 14 to 17 of /proc/self/stat). */
