@@ -15,7 +15,7 @@
 // which is as this chart would make them.
 // Anything else that keys items by value or keeps rows across updates would bring the old order back: a
 // mark with its own key, a legend (keyed by value), a data transform that makes rows of its own (an
-// aggregate's rows live as long as their group does) or a transform on a mark. `keyedSources` refuses a
+// aggregate's rows live as long as their group does) or a transform on a mark. `keyedItems` refuses a
 // spec holding one, so a chart kind that needs one fails its tests instead of drawing in an order that
 // depends on the chart before; test/charts/render-order.test.ts shows each kind of reordering happen on a
 // View that is not cleared, and not happen through renderChart.

@@ -55,8 +55,8 @@ interface Compiled {
   datasets: string[];
   /** The spec's parameters with their placeholder values. */
   params: { name: string; value: unknown }[];
-  /** The parameters reset before each render: those whose placeholder is an empty list (see renderChart). */
-  emptied: { name: string; value: unknown }[];
+  /** The parameters whose placeholder is an empty list (an axis's ticks and labels): empty when a chart leaves one out. */
+  emptied: ReadonlySet<string>;
   /** The data sources whose items vega joins by a key of their rows, and the axes (render-order.ts). */
   keyed: ReadonlySet<string>;
   axes: readonly AxisKeys[];
@@ -113,8 +113,8 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
     if (warnings.length > 0) throw new Error(`chart "${def.name}": vega-lite warns: ${warnings.join('; ')}`);
     const datasets = namedData(spec);
     const params = paramsOf(spec);
-    const emptied = params.filter((p) => Array.isArray(p.value) && p.value.length === 0);
-    const { sources: keyed, axes } = keyedItems(vg as VegaOrderSpec, datasets, emptied.map((p) => p.name), def.name);
+    const emptied = new Set(params.filter((p) => Array.isArray(p.value) && p.value.length === 0).map((p) => p.name));
+    const { sources: keyed, axes } = keyedItems(vg as VegaOrderSpec, datasets, [...emptied], def.name);
     const runtime = parse(vg);
     const now = { params: new Map(params.map((p) => [p.name, p.value])), rows: new Map<string, Row[]>() };
     c = { spec, runtime, view: new View(runtime, { renderer: 'none' }), datasets, params, emptied, keyed, axes, filled: new Set(), now, queue: Promise.resolve() };
@@ -167,7 +167,7 @@ export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartTex
     const f = binding.frame ?? def.frame;
     // Each parameter as this chart wants it: its binding's value; one the binding leaves out keeps its value,
     // except a list reset before each render (an axis's ticks and labels), which is empty.
-    const wanted = new Map(c.params.map((p) => [p.name, p.name in binding.params ? binding.params[p.name] : Array.isArray(p.value) && p.value.length === 0 ? p.value : now.params.get(p.name)]));
+    const wanted = new Map(c.params.map((p) => [p.name, p.name in binding.params ? binding.params[p.name] : c.emptied.has(p.name) ? p.value : now.params.get(p.name)]));
     const sameFrame = now.frame !== undefined && sameValue(f, now.frame);
     // vega keeps the scene items whose key survives an update, in their old place, and appends new ones
     // after them (render-order.ts). Items keyed by row follow the data's order, since a source whose rows
