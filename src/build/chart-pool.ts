@@ -28,18 +28,7 @@ export interface ChartPoolOptions {
   workers?: number;
   /** The sweep and band settings, part of every key. */
   settingsKey: string;
-  /** Jobs a worker draws before it is replaced by a fresh one (default JOBS_PER_WORKER). */
-  jobsPerWorker?: number;
 }
-
-/**
- * Jobs a worker draws before it is stopped and a fresh one started. A worker's heap grows with the parts it
- * has drawn (about 110 MB after 100 parts, 200 MB after 500, measured), garbage V8 does not hurry to collect
- * while the process has memory to spare; a fresh worker costs its start (loading the chart modules, about a
- * second of CPU) and gives all of it back. A heap limit instead (resourceLimits) made the collector run
- * far more often: 64 MB doubled a 200-part build's CPU time.
- */
-export const JOBS_PER_WORKER = 200;
 
 export interface ChartPoolStats {
   /** Requests (a part's charts, a comparison, a rail) drawn, and answered from the cache. */
@@ -51,8 +40,6 @@ export interface ChartPoolStats {
   workerSeconds: number;
   /** Seconds this thread spent writing the downloads of parts whose charts came from the cache. */
   downloadSeconds: number;
-  /** Workers started, those that replaced a worker after its JOBS_PER_WORKER jobs included. */
-  workersStarted: number;
 }
 
 /**
@@ -86,14 +73,12 @@ interface Pending {
 }
 
 export class ChartPool implements ChartMaker {
-  readonly stats: ChartPoolStats = { rendered: 0, fromCache: 0, drawn: 0, workerSeconds: 0, downloadSeconds: 0, workersStarted: 0 };
+  readonly stats: ChartPoolStats = { rendered: 0, fromCache: 0, drawn: 0, workerSeconds: 0, downloadSeconds: 0 };
   // Everything that turns a part file into charts besides the file: all of zfolio's code and the rendering
   // packages' versions, so a changed analysis or renderer never serves a stale chart.
   private readonly fingerprint = codeKey();
   private readonly workers: Worker[] = [];
   private readonly idle: Worker[] = [];
-  /** Jobs each worker has answered. */
-  private readonly answered = new Map<Worker, number>();
   /** Jobs waiting for a worker; a job is made from its `make` when it is next (see `prepare`). */
   private readonly queue: { id: number; make: () => ChartJob; job?: ChartJob; cacheFile?: string; slim: boolean }[] = [];
   private readonly pending = new Map<number, Pending>();
@@ -264,13 +249,7 @@ export class ChartPool implements ChartMaker {
       const pending = this.pending.get(message.id);
       this.pending.delete(message.id);
       if (pending?.sentAt !== undefined) this.stats.workerSeconds += (performance.now() - pending.sentAt) / 1000;
-      const answered = (this.answered.get(worker) ?? 0) + 1;
-      // A worker answers a job once it has written everything of it (cache entry, downloads): it can go.
-      if (answered >= (this.options.jobsPerWorker ?? JOBS_PER_WORKER) && this.queue.length > 0) this.replace(worker);
-      else {
-        this.answered.set(worker, answered);
-        this.idle.push(worker);
-      }
+      this.idle.push(worker);
       this.dispatch();
       if (!pending) return;
       if (message.error !== undefined) pending.reject(new Error(`chart worker: ${message.error}`));
@@ -282,14 +261,5 @@ export class ChartPool implements ChartMaker {
     });
     this.workers.push(worker);
     this.idle.push(worker);
-    this.stats.workersStarted++;
-  }
-
-  /** Stop an idle worker and start a fresh one in its place. */
-  private replace(worker: Worker): void {
-    this.workers.splice(this.workers.indexOf(worker), 1);
-    this.answered.delete(worker);
-    void worker.terminate();
-    this.startWorker();
   }
 }

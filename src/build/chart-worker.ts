@@ -4,6 +4,7 @@
 import { parentPort } from 'node:worker_threads';
 import { renderChartJob, withoutSpecs, type ChartJob } from './chart-jobs.js';
 import { writeCacheEntry } from './chart-cache-entry.js';
+import { collectGarbage } from './collect-garbage.js';
 
 if (!parentPort) throw new Error('chart-worker.ts runs as a worker thread only');
 const port = parentPort;
@@ -20,12 +21,17 @@ export interface WorkerJob {
   slim?: boolean;
 }
 
+/** Jobs between two full garbage collections of this worker (collect-garbage.ts says why). */
+export const JOBS_BETWEEN_COLLECTIONS = 100;
+let jobs = 0;
+
 port.on('message', (message: WorkerJob) => {
   renderChartJob(message.job).then(
     (charts) => {
       const answer = message.slim ? withoutSpecs(charts) : charts;
       if (message.cacheFile) writeCacheEntry(message.cacheFile, answer);
       port.postMessage({ id: message.id, charts: answer });
+      if (++jobs % JOBS_BETWEEN_COLLECTIONS === 0) collectGarbage();
     },
     (error: unknown) => port.postMessage({ id: message.id, error: error instanceof Error ? error.stack ?? error.message : String(error) }),
   );

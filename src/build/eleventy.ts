@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import Eleventy from '@11ty/eleventy';
 import { PACKAGE_ROOT } from '../version.js';
 import type { FolioData } from '../pages/site-data.js';
+import { collectGarbage } from './collect-garbage.js';
 import type { PageCharts } from './svg-spill.js';
 
 export const TEMPLATES_DIR = join(PACKAGE_ROOT, 'templates');
@@ -35,6 +36,8 @@ export async function renderPages(outDir: string, folio: FolioData, perRun = PAR
     } finally {
       charts?.unload(run);
     }
+    // What the run let go of is collected before the next run (collect-garbage.ts says why).
+    if (i + perRun < pages.length) collectGarbage();
   }
   return written;
 }
