@@ -1,8 +1,10 @@
 // One build of a library in a process of its own, for the scale bench: prints one JSON line with the
-// build's seconds, the process's peak RSS and how many parts were carried over.
-// Usage: node --import tsx bench/scale-build.ts LIBRARY OUT
+// build's seconds, the process's peak RSS and how many parts were carried over. It runs the compiled
+// dist/ in plain node, as `zfolio build` does, so the TypeScript loader's memory and start-up (in this thread
+// and in every chart worker) are not counted; the scale bench compiles dist/ first.
+// Usage: node bench/scale-build.mjs LIBRARY OUT
 
-import { buildFolio } from '../src/build/build.js';
+import { buildFolio } from '../dist/build/build.js';
 
 const [libraryRoot, outDir] = process.argv.slice(2);
 const started = performance.now();
