@@ -22,7 +22,7 @@ export interface WorkerJob {
 }
 
 /** Jobs between two full garbage collections of this worker (collect-garbage.ts says why). */
-export const JOBS_BETWEEN_COLLECTIONS = 100;
+const JOBS_BETWEEN_COLLECTIONS = 100;
 let jobs = 0;
 
 port.on('message', (message: WorkerJob) => {
