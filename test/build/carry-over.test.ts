@@ -4,6 +4,10 @@
 // edited library, and the work done (parts analysed, folders written, pages rendered, units linked) is that
 // of the edit, not of the library. Which pages show the part is read from the built HTML itself: every page
 // outside the part's folder that links its page, and every row script of the index that names it.
+// Every build draws its charts in this thread (workers 0): in a test the chart pool's worker threads each
+// load the chart modules again through the TypeScript loader, about 3.5 s of CPU a cold build here, and
+// what is checked here does not depend on where a chart is drawn (site.test.ts compares a site whose charts
+// were drawn in worker threads with one drawn in this thread, byte for byte).
 
 import { readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -19,7 +23,7 @@ let out: string;
 let unchanged: BuildResult;
 
 const build = async () => {
-  const result = await buildFolio({ libraryRoot: root, outDir: out });
+  const result = await buildFolio({ libraryRoot: root, outDir: out, workers: 0 });
   expect(result.diagnostics.filter((d) => d.severity === 'error')).toEqual([]);
   expect(result.ok).toBe(true);
   return result;
@@ -120,7 +124,7 @@ describe(`a rebuild of ${PARTS} generated parts`, () => {
     expect(result.unitsLinked).toBeGreaterThan(0);
 
     const reference = join(tempDir('carry-over-cold'), '_site');
-    expect((await buildFolio({ libraryRoot: root, outDir: reference, cache: false })).ok).toBe(true);
+    expect((await buildFolio({ libraryRoot: root, outDir: reference, cache: false, workers: 0 })).ok).toBe(true);
     expect(changedFiles(treeHashes(reference), treeHashes(out))).toEqual([]);
     rmSync(reference, { recursive: true, force: true });
   }, 900_000);
