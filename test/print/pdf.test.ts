@@ -4,14 +4,15 @@
 // part's datasheet on two pages of A4 and of Letter.
 
 import { execFileSync } from 'node:child_process';
-import { copyFileSync, existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { buildFolio, type BuildResult } from '../../src/build/build.js';
+import { buildFolio, CACHE_DIR, type BuildResult } from '../../src/build/build.js';
 import { main } from '../../src/cli/main.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { read, REPO, tempDir, copyLibrary } from '../site-helpers.js';
+import { demoCache } from '../demo-site.js';
 import { measurePdf, nearlyEmptyPages, shareUnder, type PdfLegibility } from '../../bench/print-legibility.js';
 
 const DATE = new Date('2026-12-01T12:00:00Z');
@@ -35,9 +36,12 @@ const pdfinfo = (file: string) => Object.fromEntries(execFileSync('pdfinfo', [fi
 
 beforeAll(async () => {
   site = join(tempDir('pdf'), '_site');
+  // The charts the run's shared demo build drew (test/demo-site.ts), from a copy of its cache: this build
+  // prints them rather than drawing them again, and writes nothing into the repository's own cache.
   result = await buildFolio({
     libraryRoot: REPO,
     outDir: site,
+    cache: await demoCache(),
     pdf: { env: process.env, date: DATE },
   });
   if (result.pdfProblem) throw new Error(`PDF tests need Chromium: ${result.pdfProblem}`);
@@ -223,14 +227,23 @@ interface LetterPrint {
   lines: string;
   fullest: string[];
   leftover: string;
-  siteBefore: number | null;
+  /** The library's built site before the print: its files and their text. */
+  siteBefore: string;
+  siteAfter: string;
 }
 let letter: Promise<LetterPrint> | undefined;
 function printOnLetter(): Promise<LetterPrint> {
   letter ??= (async () => {
     const out = tempDir('print');
-    const repoSite = join(REPO, '_site');
-    const siteBefore = existsSync(repoSite) ? statSync(repoSite).mtimeMs : null;
+    // A copy of the demo library with the charts the shared demo build drew as its cache (print builds the
+    // library, drawing only charts its cache lacks), and a built site of its own that print must leave alone.
+    const root = copyLibrary(REPO, 'print-library');
+    await demoCache(join(root, CACHE_DIR));
+    const librarySite = join(root, '_site');
+    mkdirSync(librarySite);
+    writeFileSync(join(librarySite, 'index.html'), 'the site built before the print');
+    const siteFiles = () => JSON.stringify(readdirSync(librarySite).map((f) => [f, readFileSync(join(librarySite, f), 'utf8'), statSync(join(librarySite, f)).mtimeMs]));
+    const siteBefore = siteFiles();
     const lines: string[] = [];
     // What a killed print left behind: its scratch folder, named with its (ended) process id.
     const dead = Number(execFileSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], { encoding: 'utf8' }));
@@ -243,15 +256,15 @@ function printOnLetter(): Promise<LetterPrint> {
     const fullest = library.parts.map((p) => p.id).filter((id) => plain(id) && id !== INDUCTOR).sort((a, b) => lastPageFill(measure(sheetFile(b))) - lastPageFill(measure(sheetFile(a)))).slice(0, 3);
     // The review pack too: Letter breaks its pages elsewhere than A4.
     const names = [INDUCTOR, ...fullest, 'dl3-power-integrity', 'VDD_CORE', 'plans/vdd-3v3.yaml'];
-    const code = await main(['print', ...names, '--paper', 'letter', '--out', out, '--library', REPO], { cwd: REPO, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
-    return { code, out, lines: lines.join(''), fullest, leftover, siteBefore };
+    const code = await main(['print', ...names, '--paper', 'letter', '--out', out, '--library', root], { cwd: root, env: process.env, isTTY: false, out: (t) => lines.push(t), err: () => {} });
+    return { code, out, lines: lines.join(''), fullest, leftover, siteBefore, siteAfter: siteFiles() };
   })();
   return letter;
 }
 
 describe('zfolio print', () => {
   it('prints datasheets on Letter paper into the folder asked for, leaving the site alone; a plain part\'s on two pages', async () => {
-    const { code, out, lines, fullest, leftover, siteBefore } = await printOnLetter();
+    const { code, out, lines, fullest, leftover, siteBefore, siteAfter } = await printOnLetter();
     expect(code).toBe(0);
     expect(existsSync(leftover)).toBe(false);
     const file = join(out, `${INDUCTOR}.pdf`);
@@ -261,8 +274,7 @@ describe('zfolio print', () => {
     // US Letter is 612 × 792 pt (ANSI/ASME Y14.1).
     expect(pdfinfo(file)['Page size']).toMatch(/^612 x 792 pts \(letter\)/);
     expect(pdftotext(file)).toContain(INDUCTOR);
-    const repoSite = join(REPO, '_site');
-    expect(existsSync(repoSite) ? statSync(repoSite).mtimeMs : null).toBe(siteBefore);
+    expect(siteAfter).toBe(siteBefore);
   }, 300_000);
 
   it('prints a rail plan on its own, named by its rail or its plan file', async () => {
