@@ -6,21 +6,13 @@
 import { describe, expect, it } from 'vitest';
 import { analysePlan } from '../../src/analysis/plan-figures.js';
 import { cornerCombinations, MAX_ENUMERATED, SAMPLED_CORNERS } from '../../src/analysis/rail-corners.js';
-import { DiagnosticList, formatDiagnostic } from '../../src/model/diagnostics.js';
-import { readPart } from '../../src/model/part.js';
-import { readPlan, type Plan } from '../../src/model/plan.js';
-import { parseYamlSource } from '../../src/model/source.js';
+import type { Plan } from '../../src/model/plan.js';
+import { planFromYaml } from './plan-from-yaml.js';
 import { denseSweep, railMagnitude, worstOverBand, type RefBranch } from './rail-reference.js';
 
 const OPERATING = { fromC: 0, toC: 70 };
 
-function plan(partFiles: string[], planFile: string): Plan {
-  const d = new DiagnosticList();
-  const parts = partFiles.map((t, i) => readPart({ source: parseYamlSource(`parts/${i}.yaml`, t, d)!, diagnostics: d })!);
-  const p = readPlan({ source: parseYamlSource('plans/r.yaml', planFile, d)!, diagnostics: d }, new Map(parts.map((x) => [x.id, x])), 0.8, OPERATING);
-  expect(d.sorted().map(formatDiagnostic)).toEqual([]);
-  return p!;
-}
+const plan = (partFiles: string[], planFile: string): Plan => planFromYaml(partFiles, planFile, OPERATING);
 
 const A = 'id: A\nkind: capacitor\nnominal: 10u\ntolerance: 20%\nvoltage: 6.3V\nparasitics: {esr: 3m, esl: 0.5n}\n';
 const B = 'id: B\nkind: capacitor\nnominal: 100n\ntolerance: 10%\nvoltage: 6.3V\ndielectric: X7R\nparasitics: {esr: 20m, esl: 0.4n}\n';
