@@ -3,7 +3,7 @@
 // read), symbolic links are followed only to places inside the library, and a file's size is bounded, so
 // no entry of the library folder can hang, crash or make zfolio print a file that is not the library's.
 
-import { closeSync, constants, fstatSync, lstatSync, openSync, readdirSync, readSync, realpathSync, statSync, type Stats } from 'node:fs';
+import { closeSync, constants, fstatSync, lstatSync, openSync, readdirSync, readSync, realpathSync, statSync, type Dirent, type Stats } from 'node:fs';
 import { join, relative, sep } from 'node:path';
 import type { DiagnosticList, SourcePosition } from './diagnostics.js';
 import { MAX_FILE_BYTES } from './yaml-limits.js';
@@ -101,22 +101,32 @@ export function yamlFilesUnder(root: string, dir: string, diagnostics?: Diagnost
   } catch {
     return out;
   }
-  const folders = [dir];
+  // Paths are built by joining names onto the folder's library-relative path (readdir never gives "." or
+  // "..", and hidden names are skipped), rather than through path.relative for every entry.
+  const folders = [relative(root, join(root, dir)).split(sep).join('/')];
   while (folders.length > 0) {
     const folder = folders.pop()!;
-    let names: string[];
+    let entries: Dirent[];
     try {
-      names = readdirSync(join(root, folder));
+      entries = readdirSync(join(root, folder), { withFileTypes: true });
     } catch {
       diagnostics?.error(atFile(folder), `${folder}: the folder cannot be read (no permission?)`);
       continue;
     }
-    for (const name of names) {
+    for (const dirent of entries) {
+      const name = dirent.name;
       if (name.startsWith('.')) continue;
-      const path = relative(root, join(root, folder, name)).split(sep).join('/');
+      const path = folder ? `${folder}/${name}` : name;
+      const yamlName = YAML_FILE.test(name);
+      // A regular file is known as one from the listing itself (its type comes with the name): no lstat for
+      // it, which in a library of thousands of parts is most of the walk. Everything else (folders, links,
+      // and entries whose type the file system does not report) is looked at as before.
+      if (dirent.isFile()) {
+        if (yamlName) out.push(path);
+        continue;
+      }
       const entry = resolveEntry(root, path);
       if (entry === undefined) continue;
-      const yamlName = YAML_FILE.test(name);
       if ('problem' in entry) {
         if (yamlName) diagnostics?.error(atFile(path), entry.problem);
         else diagnostics?.warning(atFile(path), `skipped: ${entry.problem}`);

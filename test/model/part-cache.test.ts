@@ -1,7 +1,7 @@
 // The part cache: a library loaded with it gives the very parts and problems a load without it gives, and
 // reads and parses only the part files that changed since (or that have errors, which are never kept).
 
-import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { isDeepStrictEqual } from 'node:util';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -68,6 +68,7 @@ describe('PartCache', () => {
     writeFileSync(join(root, 'parts', 'dup.yaml'), capacitor('CAP-1', '20m'));
     const dup = load();
     expect(dup.result.diagnostics.some((d) => d.file === 'parts/dup.yaml' && /duplicate id/.test(d.message))).toBe(true);
+    rmSync(join(root, 'parts', 'dup.yaml'));
   });
 
   it('is ignored when made by other code', () => {
@@ -75,4 +76,61 @@ describe('PartCache', () => {
     loadLibrary(root, { partCache: other });
     expect(other.counts.cached).toBe(0);
   });
+
+  it('reads a file again when its size changed but its mtime was set back, and when only its ctime says it changed', () => {
+    load();
+    const file = join(root, 'parts', 'c2.yaml');
+    const { atime, mtime } = statSync(file);
+    // Longer text, the modification time put back as it was.
+    writeFileSync(file, capacitor('CAP-2', '47.5m'));
+    utimesSync(file, atime, mtime);
+    const longer = load();
+    expect(longer.cache.counts).toEqual({ parsed: 1, cached: 5 });
+    expect(longer.result.library!.partsById.get('CAP-2')!.parameters.esr).toBeCloseTo(0.0475, 12);
+    // The same length and the same mtime: the change time (which utimes cannot set back) still differs.
+    writeFileSync(file, capacitor('CAP-2', '39.5m'));
+    utimesSync(file, atime, mtime);
+    const same = load();
+    expect(same.cache.counts).toEqual({ parsed: 1, cached: 5 });
+    expect(same.result.library!.partsById.get('CAP-2')!.parameters.esr).toBeCloseTo(0.0395, 12);
+  });
+
+  it('follows files added and removed in a folder, and a folder renamed, as a load without it', () => {
+    mkdirSync(join(root, 'parts', 'group'), { recursive: true });
+    writeFileSync(join(root, 'parts', 'group', 'g1.yaml'), capacitor('CAP-G1', '11m'));
+    writeFileSync(join(root, 'parts', 'group', 'g2.yaml'), capacitor('CAP-G2', '12m'));
+    load();
+    writeFileSync(join(root, 'parts', 'group', 'g3.yaml'), capacitor('CAP-G3', '13m'));
+    rmSync(join(root, 'parts', 'group', 'g1.yaml'));
+    const changed = load();
+    expect(changed.cache.counts.parsed).toBe(1);
+    expect(partsOf(changed.result)).toEqual(partsOf(loadLibrary(root)));
+    expect(changed.result.library!.parts.map((p) => p.id)).toEqual(expect.arrayContaining(['CAP-G2', 'CAP-G3']));
+    expect(changed.result.library!.parts.map((p) => p.id)).not.toContain('CAP-G1');
+    renameSync(join(root, 'parts', 'group'), join(root, 'parts', 'renamed'));
+    const renamed = load();
+    // New paths: read afresh, and named by their new paths.
+    expect(renamed.cache.counts.parsed).toBe(2);
+    expect(partsOf(renamed.result)).toEqual(partsOf(loadLibrary(root)));
+    expect(renamed.result.library!.partsById.get('CAP-G3')!.source.path).toBe('parts/renamed/g3.yaml');
+    rmSync(join(root, 'parts', 'renamed'), { recursive: true });
+  });
+
+  it('saves a shard from its file, not from the parts the build has changed since', () => {
+    const first = load();
+    // The build adds to the parts it is given (measurement text, for one); here a field is changed outright.
+    for (const part of first.result.library!.parts) part.title = 'changed by the build';
+    // Every shard is written again: one file edited in each would do; removing one file marks every shard
+    // that held it, so edit them all.
+    for (const part of first.result.library!.parts) writeFileSync(join(root, part.source.path), readFileSync(join(root, part.source.path), 'utf8') + '# edited\n');
+    const second = load();
+    expect(second.cache.counts.cached).toBe(0);
+    for (const part of second.result.library!.parts) part.title = 'changed again';
+    second.cache.save();
+    const third = load();
+    expect(third.cache.counts.parsed).toBe(0);
+    expect(third.result.library!.parts.map((p) => p.title).filter((t) => /changed/.test(t))).toEqual([]);
+    expect(partsOf(third.result)).toEqual(partsOf(loadLibrary(root)));
+  });
 });
+
