@@ -28,7 +28,7 @@ import { codeKey, partKey, siteKey } from './reuse.js';
 import { PartCache } from '../model/part-cache.js';
 import { dropSiteRecord, readSiteRecord, recordDir, writeSiteRecord } from './site-record.js';
 import { SiteUnits } from './carry-over.js';
-import { carriedPart, partData } from './part-record.js';
+import { carriedPart, recordParts } from './part-record.js';
 import { comparisonPageKey, listPages } from './page-keys.js';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { keptPdfs, linkPdfs, pdfKeys, pdfsIn, stampPdfs } from './pdf-reuse.js';
@@ -202,7 +202,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     const partKeys = new Map(library.parts.map((p) => [p.id, partKey(site, p, pdfLinks.part(p.id))]));
     const partKeyOf = (id: string) => partKeys.get(id) ?? '';
     const carried = new Map<string, CarriedPart>();
-    for (const part of library.parts) if (recordAt && units.kept(`parts/${part.id}`, partKeys.get(part.id)!)) carried.set(part.id, carriedPart(units.recorded(`parts/${part.id}`)));
+    for (const part of library.parts) if (recordAt && units.kept(`parts/${part.id}`, partKeys.get(part.id)!)) carried.set(part.id, carriedPart(part.id, units.recordedEntry(`parts/${part.id}`)));
     const fresh = library.parts.length - carried.size;
     pool = options.charts ? undefined : chartPoolFor(library, options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), cacheRoot ? join(cacheRoot, 'charts') : false);
     for (const part of library.parts) if (carried.has(part.id)) pool?.keepPartCharts({ part });
@@ -251,9 +251,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
       units.assemble(staging.dir);
     }
     const target = units.target(staging.dir);
-    const reviewed = new Set(library.reviews.flatMap((r) => r.parts.map((p) => p.id)));
-    const full = new Map([...folio.reviews.flatMap((r) => r.parts), ...folio.partPages].map((p) => [p.id, p]));
-    for (const p of folio.parts) units.setData(`parts/${p.id}`, partData(full.get(p.id) ?? p, reviewed.has(p.id), units.recorded(`parts/${p.id}`)));
+    recordParts(units, library, folio, carried);
     // The record is dropped before the swap and written after it, so it never describes a site not in place.
     if (recordAt) dropSiteRecord(recordAt);
     const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) });

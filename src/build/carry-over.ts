@@ -13,7 +13,7 @@
 
 import { constants, copyFileSync, linkSync, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmdirSync, rmSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import { sameStamp, unitStamp, VersionRecord, type SiteRecord, type UnitEntry } from './site-record.js';
+import { entryData, entryText, sameStamp, unitStamp, VersionRecord, type SiteRecord, type UnitEntry } from './site-record.js';
 
 type Source = 'spare' | 'live' | 'fresh';
 
@@ -60,9 +60,14 @@ export class SiteUnits {
 
   /** The data recorded with a unit (a part's listed data), when it is kept. */
   recorded(unit: string): unknown {
+    return entryData(this.recordedEntry(unit));
+  }
+
+  /** The record's entry of a kept unit (its data unread: see entryData). */
+  recordedEntry(unit: string): UnitEntry | undefined {
     const w = this.wanted.get(unit);
     if (!w || w.from === 'fresh') return undefined;
-    return (w.from === 'spare' ? this.record?.spare : this.record?.live)?.get(unit)?.data;
+    return (w.from === 'spare' ? this.record?.spare : this.record?.live)?.get(unit);
   }
 
   /** Data to record with a unit (kept or made afresh). */
@@ -119,7 +124,11 @@ export class SiteUnits {
       if (w.from === 'spare' && before && sameData(before, w)) continue;
       const stamp = w.from === 'spare' && before ? before.stamp : unitStamp(join(target, unit), isFolderUnit(unit));
       const entry: UnitEntry = { key: w.key, stamp };
+      // A kept unit whose data was not set again keeps what was recorded, unread.
+      const kept = w.data === undefined && w.from !== 'fresh' ? this.recordedEntry(unit) : undefined;
       if (w.data !== undefined) entry.data = w.data;
+      else if (kept?.text !== undefined) entry.text = kept.text;
+      else if (kept?.data !== undefined) entry.data = kept.data;
       base.set(unit, entry);
     }
     const spare = replaced && this.record?.live?.name === replaced && this.liveDir ? this.record.live : undefined;
@@ -128,7 +137,7 @@ export class SiteUnits {
 }
 
 /** A kept unit's recorded data is the same object when nothing set it again (and equal when it was). */
-const sameData = (entry: UnitEntry, w: Wanted) => w.data === undefined || entry.data === w.data || JSON.stringify(entry.data) === JSON.stringify(w.data);
+const sameData = (entry: UnitEntry, w: Wanted) => w.data === undefined || entry.data === w.data || entryText(entry) === JSON.stringify(w.data);
 
 /** The name of the version the site path links to. */
 export function currentVersion(sitePath: string): string | undefined {

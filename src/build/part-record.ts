@@ -4,7 +4,10 @@
 
 import type { CarriedPart, RecordedPage } from './assemble.js';
 import { listedPart, type ListedPart } from '../pages/listed-part.js';
-import type { PartPageData } from '../pages/site-data.js';
+import type { FolioData, PartPageData } from '../pages/site-data.js';
+import type { Library } from '../model/library.js';
+import type { SiteUnits } from './carry-over.js';
+import { entryData, type UnitEntry } from './site-record.js';
 
 interface PartData {
   listed: ListedPart;
@@ -27,10 +30,56 @@ function recordedPage(page: PartPageData): RecordedPage {
   return rest;
 }
 
-/** The carried part for what the record holds of it. */
-export function carriedPart(recorded: unknown): CarriedPart {
-  const data = recorded as Partial<PartData> | undefined;
-  return data && typeof data === 'object' ? { listed: data.listed, page: data.page } : {};
+/**
+ * The carried part for what the record holds of it (`entry`, site-record.ts), read when a field is first
+ * asked for: a rebuild reads the data of the parts on the pages it renders, not of every part.
+ */
+export function carriedPart(id: string, entry: UnitEntry | undefined): CarriedPart {
+  let data: Partial<PartData> | undefined;
+  const read = () => (data ??= (entryData(entry) as Partial<PartData> | undefined) ?? {});
+  // partData records { listed, page? } (listed first) or nothing: with text, listed is there and is an object.
+  const listed = entry?.text?.startsWith('{"listed":{') ? new RecordedListed(id, () => read().listed!) : entry?.data !== undefined ? read().listed : undefined;
+  return {
+    listed,
+    get page() {
+      return entry ? read().page : undefined;
+    },
+  };
+}
+
+/**
+ * A part's listed data as the record holds it, parsed when a field other than its id is first read (templates
+ * read fields by name; JSON.stringify calls toJSON). Its fields are getters on the prototype: `'field' in`
+ * is true of all of them, and spreading it copies only the id.
+ */
+class RecordedListed implements ListedPart {
+  #data?: ListedPart;
+
+  constructor(
+    readonly id: string,
+    private readonly read: () => ListedPart,
+  ) {}
+
+  private get d(): ListedPart {
+    return (this.#data ??= this.read());
+  }
+
+  get kind() { return this.d.kind; }
+  get title() { return this.d.title; }
+  get package() { return this.d.package; }
+  get ratingText() { return this.d.ratingText; }
+  get mainsMark() { return this.d.mainsMark; }
+  get tagsText() { return this.d.tagsText; }
+  get searchText() { return this.d.searchText; }
+  get text() { return this.d.text; }
+  get sort() { return this.d.sort; }
+  get srfImpedanceText() { return this.d.srfImpedanceText; }
+  get sourceFile() { return this.d.sourceFile; }
+  get sourceHash() { return this.d.sourceHash; }
+
+  toJSON(): ListedPart {
+    return this.d;
+  }
 }
 
 /**
@@ -43,4 +92,15 @@ export function partData(page: ListedPart | PartPageData, reviewed: boolean, rec
   const data: PartData = { listed: listedPart(page) };
   if (reviewed && 'charts' in page) data.page = recordedPage(page);
   return faithful(data) ? data : undefined;
+}
+
+/** Set the data each part's unit records for the next build (partData). */
+export function recordParts(units: Pick<SiteUnits, 'setData' | 'recorded'>, library: Library, folio: FolioData, carried: ReadonlyMap<string, CarriedPart>): void {
+  const reviewed = new Set(library.reviews.flatMap((r) => r.parts.map((p) => p.id)));
+  const full = new Map([...folio.reviews.flatMap((r) => r.parts), ...folio.partPages].map((p) => [p.id, p]));
+  for (const p of folio.parts) {
+    // A part carried over with its listed data recorded, which no review shows, keeps its record unread.
+    if (!reviewed.has(p.id) && carried.get(p.id)?.listed) continue;
+    units.setData(`parts/${p.id}`, partData(full.get(p.id) ?? p, reviewed.has(p.id), units.recorded(`parts/${p.id}`)));
+  }
 }

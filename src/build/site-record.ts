@@ -9,6 +9,10 @@
 // by a hash of their path; a shard is a file named by its content's hash, written once and shared by every
 // version that holds it; a version is a list of shard names. A build that changes one part writes one or
 // two shard files and a root file of a few kilobytes. Shards no version names any longer are removed.
+//
+// A unit's data is kept in its shard as JSON text and parsed only when asked for (entryData): a rebuild
+// reads the data of the few parts on the pages it renders, not of the library, and the record of 10,000
+// parts reads as 10,000 strings rather than a few hundred thousand objects.
 
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -24,7 +28,23 @@ export interface UnitEntry {
   stamp: number[];
   /** A part's data for the index and comparisons (ListedPart), and its full page data when a review shows it. */
   data?: unknown;
+  /** The data as JSON text, as the record file holds it (read with entryData). */
+  text?: string;
 }
+
+/** A unit's recorded data (parsed from its text when it was read from the record). */
+export function entryData(entry: UnitEntry | undefined): unknown {
+  if (!entry) return undefined;
+  return entry.data !== undefined ? entry.data : entry.text !== undefined ? JSON.parse(entry.text) : undefined;
+}
+
+/** A unit's data as JSON text, or undefined when it has none. */
+export function entryText(entry: UnitEntry): string | undefined {
+  return entry.text ?? (entry.data === undefined ? undefined : JSON.stringify(entry.data));
+}
+
+/** A shard's row: unit, key, stamp and, when there is data, its JSON text. */
+type Row = [string, string, number[]] | [string, string, number[], string];
 
 /** One version of the site: its folder's name in the holding folder, and its units by site-relative path. */
 export class VersionRecord {
@@ -72,8 +92,11 @@ export class VersionRecord {
   /** Write the shards changed since reading into `dir`; the names of all shards. */
   save(dir: string): string[] {
     for (const i of this.dirty) {
-      const entries = [...this.shards[i]].sort((a, b) => (a[0] < b[0] ? -1 : 1));
-      const text = JSON.stringify(entries);
+      const rows = [...this.shards[i]].sort((a, b) => (a[0] < b[0] ? -1 : 1)).map(([unit, entry]): Row => {
+        const data = entryText(entry);
+        return data === undefined ? [unit, entry.key, entry.stamp] : [unit, entry.key, entry.stamp, data];
+      });
+      const text = JSON.stringify(rows);
       const name = `${createHash('sha256').update(text).digest('hex').slice(0, 24)}.json`;
       if (!existsSync(join(dir, name))) writeAtomically(join(dir, name), text);
       this.names[i] = name;
@@ -94,7 +117,7 @@ export interface SiteRecord {
 }
 
 interface RootFile {
-  format: 2;
+  format: 3;
   outDir: string;
   live?: { name: string; shards: string[] };
   spare?: { name: string; shards: string[] };
@@ -117,12 +140,13 @@ function writeAtomically(file: string, text: string): void {
 export function readSiteRecord(dir: string, outDir: string): SiteRecord | undefined {
   try {
     const root = JSON.parse(readFileSync(join(dir, ROOT), 'utf8')) as RootFile;
-    if (root.format !== 2 || root.outDir !== outDir) return undefined;
+    if (root.format !== 3 || root.outDir !== outDir) return undefined;
     const cache = new Map<string, Map<string, UnitEntry>>();
     const shard = (name: string) => {
       let map = cache.get(name);
       if (!map) {
-        map = new Map(JSON.parse(readFileSync(join(dir, 'shards', name), 'utf8')) as [string, UnitEntry][]);
+        const rows = JSON.parse(readFileSync(join(dir, 'shards', name), 'utf8')) as Row[];
+        map = new Map(rows.map(([unit, key, stamp, text]) => [unit, text === undefined ? { key, stamp } : { key, stamp, text }]));
         cache.set(name, map);
       }
       // Each version gets its own maps (they are changed), sharing the entries.
@@ -146,7 +170,7 @@ export function writeSiteRecord(dir: string, record: SiteRecord): void {
   mkdirSync(shardDir, { recursive: true });
   const live = record.live && { name: record.live.name, shards: record.live.save(shardDir) };
   const spare = record.spare && { name: record.spare.name, shards: record.spare.save(shardDir) };
-  const root: RootFile = { format: 2, outDir: record.outDir, live, spare, pdfs: record.pdfs };
+  const root: RootFile = { format: 3, outDir: record.outDir, live, spare, pdfs: record.pdfs };
   writeAtomically(join(dir, ROOT), JSON.stringify(root));
   const named = new Set([...(live?.shards ?? []), ...(spare?.shards ?? [])]);
   for (const name of readdirSync(shardDir)) if (!named.has(name)) rmSync(join(shardDir, name), { force: true });

@@ -10,7 +10,7 @@ import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, wri
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio } from '../../src/build/build.js';
-import { readSiteRecord, recordDir, SHARDS, VersionRecord, writeSiteRecord } from '../../src/build/site-record.js';
+import { entryData, readSiteRecord, recordDir, SHARDS, VersionRecord, writeSiteRecord } from '../../src/build/site-record.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { copyLibrary, filesUnder, LIBRARY_ENTRIES, REPO, tempDir, treeHashes } from '../site-helpers.js';
 
@@ -174,7 +174,10 @@ describe('the record of the last two versions', () => {
     expect(first.length).toBeGreaterThan(SHARDS / 2);
     expect(first.length).toBeLessThanOrEqual(SHARDS);
     const back = readSiteRecord(records, out)!;
-    expect(back.live!.get('parts/P7')).toEqual({ key: 'k7', stamp: [7], data: { listed: { id: 'P7' } } });
+    // The data comes back as its text, parsed when asked for.
+    expect(back.live!.get('parts/P7')).toEqual({ key: 'k7', stamp: [7], text: '{"listed":{"id":"P7"}}' });
+    expect(entryData(back.live!.get('parts/P7'))).toEqual({ listed: { id: 'P7' } });
+    expect(back.live!.get('parts/P8')!.text).toBe('{"listed":{"id":"P8"}}');
     expect(back.spare).toBeUndefined();
     expect(readSiteRecord(records, join(dir, 'elsewhere'))).toBeUndefined();
 
