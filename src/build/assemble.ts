@@ -81,31 +81,38 @@ function partChartOnPage(part: Part): (chart: DrawnChart) => ChartOnPage {
 
 /**
  * A part's analysis, made the first time a figure of it is read: a chart maker needs only the part to find
- * its charts in the cache, and draws (reading the sweep) only when they are not there.
+ * its charts in the cache, and draws (reading the sweep) only when they are not there. A class, so that the
+ * getters are the prototype's and a part that is never analysed costs one small object.
  */
-function deferredAnalysis(part: Part, analyse: () => PartAnalysis): PartAnalysis {
-  let made: PartAnalysis | undefined;
-  const analysis = () => (made ??= analyse());
-  return {
-    part,
-    get sweep() { return analysis().sweep; },
-    get frequencies() { return analysis().frequencies; },
-    get z() { return analysis().z; },
-    get columns() { return analysis().columns; },
-    get resolved() { return analysis().resolved; },
-    get resolvedColumns() { return analysis().resolvedColumns; },
-    get decades() { return analysis().decades; },
-    get decadeEffective() { return analysis().decadeEffective; },
-    get ratedImpedanceOhm() { return analysis().ratedImpedanceOhm; },
-    get resonances() { return analysis().resonances; },
-    get selfResonance() { return analysis().selfResonance; },
-    get bandRule() { return analysis().bandRule; },
-    get usableBand() { return analysis().usableBand; },
-    get within() { return analysis().within; },
-    get peakImpedance() { return analysis().peakImpedance; },
-    get peakQuality() { return analysis().peakQuality; },
-    get corners() { return analysis().corners; },
-  };
+class DeferredAnalysis implements PartAnalysis {
+  private made?: PartAnalysis;
+
+  constructor(
+    readonly part: Part,
+    private readonly analyse: (part: Part) => PartAnalysis,
+  ) {}
+
+  private get a(): PartAnalysis {
+    return (this.made ??= this.analyse(this.part));
+  }
+
+  get sweep() { return this.a.sweep; }
+  get frequencies() { return this.a.frequencies; }
+  get z() { return this.a.z; }
+  get columns() { return this.a.columns; }
+  get resolved() { return this.a.resolved; }
+  get resolvedColumns() { return this.a.resolvedColumns; }
+  get decades() { return this.a.decades; }
+  get decadeEffective() { return this.a.decadeEffective; }
+  get ratedImpedanceOhm() { return this.a.ratedImpedanceOhm; }
+  get resonances() { return this.a.resonances; }
+  get selfResonance() { return this.a.selfResonance; }
+  get bandRule() { return this.a.bandRule; }
+  get usableBand() { return this.a.usableBand; }
+  get within() { return this.a.within; }
+  get peakImpedance() { return this.a.peakImpedance; }
+  get peakQuality() { return this.a.peakQuality; }
+  get corners() { return this.a.corners; }
 }
 
 export interface AssembleOptions {
@@ -153,7 +160,7 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
     if (timings) timings.analyse += (performance.now() - started) / 1000;
     return a;
   };
-  const byId = new Map(library.parts.map((p) => [p.id, deferredAnalysis(p, () => analyse(p))]));
+  const byId = new Map<string, PartAnalysis>(library.parts.map((p) => [p.id, new DeferredAnalysis(p, analyse)]));
   // What the comparisons read of each part. A part whose folder is written keeps only that, so the build
   // holds a few whole analyses at a time (those the chart workers are drawing), not the library's.
   const compared = new Map<string, ComparedAnalysis>(byId);

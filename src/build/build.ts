@@ -188,9 +188,11 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
   const recordAt = cacheRoot && !options.charts ? recordDir(cacheRoot, outDir) : undefined;
   const record = recordAt ? readSiteRecord(recordAt, outDir) : undefined;
   // PDFs: printed afresh with a browser; without one, the last site's are kept where their inputs are unchanged.
-  const keys = pdfKeys(library, site, (slug) => run.history.reviews.get(slug)?.revision.commit ?? '');
+  // Made only when there are PDFs to keep or to record: every part's key is a hash, 10,000 of them in a large library.
+  let pdfKeysMade: Map<string, string> | undefined;
+  const keys = () => (pdfKeysMade ??= pdfKeys(library, site, (slug) => run.history.reviews.get(slug)?.revision.commit ?? ''));
   const earlier = browser ? [] : pdfsIn(outDir);
-  const kept = browser ? new Set<string>() : keptPdfs(record?.pdfs, keys, outDir);
+  const kept = browser || !record || Object.keys(record.pdfs).length === 0 ? new Set<string>() : keptPdfs(record.pdfs, keys(), outDir);
   const pdfLinks = {
     part: (id: string) => Boolean(browser) || kept.has(partPdfPath(id)),
     review: (slug: string) => Boolean(browser) || kept.has(reviewPdfPath(slug)),
@@ -256,7 +258,8 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     if (recordAt) dropSiteRecord(recordAt);
     const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) });
     if (recordAt) {
-      const pdfs = stampPdfs(browser ? result.pdfs.map((p) => p.pdfFile) : kept, keys, outDir);
+      const printed = browser ? result.pdfs.map((p) => p.pdfFile) : [...kept];
+      const pdfs = stampPdfs(printed, printed.length > 0 ? keys() : new Map(), outDir);
       writeSiteRecord(recordAt, units.nextRecord(target, replaced, pdfs));
     }
     timings.swap = clock();

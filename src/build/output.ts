@@ -88,19 +88,38 @@ function writable(path: string): Stats | undefined {
 }
 
 /**
+ * Whether a folder inside a site may be written, from its stats alone where they settle it: root, or its
+ * owner with write and search permission, may write it unless its mode lets nobody write (which counts as
+ * read-only, as in `writable`); in any other case the system is asked. One call per folder instead of two,
+ * for the 10,000 part folders of a large site.
+ */
+function writableInside(path: string): Stats | undefined {
+  let stats: Stats;
+  try {
+    stats = statSync(path);
+  } catch {
+    return undefined;
+  }
+  if ((stats.mode & 0o222) === 0) return undefined;
+  const uid = process.getuid?.();
+  if (uid === 0 || (uid === stats.uid && (stats.mode & 0o300) === 0o300)) return stats;
+  return writable(path);
+}
+
+/**
  * The first read-only folder in a tree (whose entries could then not be removed), if any. A folder whose
  * link count is 2 (its entry in its parent and its own `.`) has no folder inside it on the file systems that
  * count the links of folders (ext4, XFS, tmpfs: each folder inside adds its `..`), so it is not listed: a
  * site's part folders hold files only, and a 10,000-part site is checked without listing 10,000 folders.
  * Where folders' links are not counted (btrfs gives 1), every folder is listed, as before.
  */
-function readOnlyFolderIn(dir: string): string | undefined {
-  const stats = writable(dir);
+function readOnlyFolderIn(dir: string, inside = false): string | undefined {
+  const stats = inside ? writableInside(dir) : writable(dir);
   if (!stats) return dir;
   if (stats.nlink === 2) return undefined;
   for (const entry of readdirSync(dir, { withFileTypes: true })) {
     if (!entry.isDirectory()) continue;
-    const found = readOnlyFolderIn(join(dir, entry.name));
+    const found = readOnlyFolderIn(join(dir, entry.name), true);
     if (found) return found;
   }
   return undefined;

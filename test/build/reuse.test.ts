@@ -185,6 +185,8 @@ describe('the record of the last two versions', () => {
     const next = back.live!.renamed('site-2-bbbbbbbb');
     next.set('parts/P7', { key: 'changed', stamp: [70] });
     writeSiteRecord(records, { outDir: out, live: next, spare: back.live, pdfs: {} });
+    // The version it was renamed from, which shares its shard maps, still has the unit as it was.
+    expect(back.live!.get('parts/P7')!.key).toBe('k7');
     const second = shards();
     expect(second.filter((s) => !first.includes(s))).toHaveLength(1);
     const again = readSiteRecord(records, out)!;
