@@ -87,6 +87,9 @@ function writable(path: string): Stats | undefined {
   }
 }
 
+/** This process's user id (a system call each time it is asked), undefined where there is none (Windows). */
+const USER_ID = process.getuid?.();
+
 /**
  * Whether a folder inside a site may be written, from its stats alone where they settle it: root, or its
  * owner with write and search permission, may write it unless its mode lets nobody write (which counts as
@@ -101,7 +104,7 @@ function writableInside(path: string): Stats | undefined {
     return undefined;
   }
   if ((stats.mode & 0o222) === 0) return undefined;
-  const uid = process.getuid?.();
+  const uid = USER_ID;
   if (uid === 0 || (uid === stats.uid && (stats.mode & 0o300) === 0o300)) return stats;
   return writable(path);
 }

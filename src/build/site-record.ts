@@ -68,6 +68,9 @@ function readShardLines(text: string): Map<string, UnitEntry> {
   return map;
 }
 
+/** A shard's map, or a function that reads it (once: it is shared by the versions that name it). */
+type ShardSource = Map<string, UnitEntry> | (() => Map<string, UnitEntry>);
+
 /**
  * One version of the site: its folder's name in the holding folder, and its units by site-relative path.
  * Shard maps are shared (between the two versions read from one record, and with a renamed copy) until a
@@ -76,14 +79,15 @@ function readShardLines(text: string): Map<string, UnitEntry> {
 export class VersionRecord {
   /** The name of each shard's file, as read (undefined: not written yet). */
   private readonly names: (string | undefined)[];
-  private readonly shards: Map<string, UnitEntry>[];
+  /** Each shard's map, or what reads it on first use (a version whose units are all found in the other is never read). */
+  private readonly shards: ShardSource[];
   private readonly dirty = new Set<number>();
   /** Shards this version may change in place (its own copies). */
   private readonly owned = new Set<number>();
 
   constructor(
     public name: string,
-    shards?: Map<string, UnitEntry>[],
+    shards?: ShardSource[],
     names?: (string | undefined)[],
   ) {
     this.shards = shards ? [...shards] : Array.from({ length: SHARDS }, () => new Map());
@@ -93,7 +97,7 @@ export class VersionRecord {
   }
 
   get(unit: string): UnitEntry | undefined {
-    return this.shards[shardOf(unit)].get(unit);
+    return this.shard(shardOf(unit)).get(unit);
   }
 
   set(unit: string, entry: UnitEntry): void {
@@ -104,13 +108,13 @@ export class VersionRecord {
 
   delete(unit: string): void {
     const i = shardOf(unit);
-    if (!this.shards[i].has(unit)) return;
+    if (!this.shard(i).has(unit)) return;
     this.own(i).delete(unit);
     this.dirty.add(i);
   }
 
   *units(): IterableIterator<[string, UnitEntry]> {
-    for (const shard of this.shards) yield* shard;
+    for (let i = 0; i < SHARDS; i++) yield* this.shard(i);
   }
 
   /** A copy under another name, sharing the shard files and maps (entries are never changed in place). */
@@ -124,16 +128,22 @@ export class VersionRecord {
 
   private own(i: number): Map<string, UnitEntry> {
     if (!this.owned.has(i)) {
-      this.shards[i] = new Map(this.shards[i]);
+      this.shards[i] = new Map(this.shard(i));
       this.owned.add(i);
     }
-    return this.shards[i];
+    return this.shard(i);
+  }
+
+  private shard(i: number): Map<string, UnitEntry> {
+    const found = this.shards[i];
+    if (found instanceof Map) return found;
+    return (this.shards[i] = found());
   }
 
   /** Write the shards changed since reading into `dir`; the names of all shards. */
   save(dir: string): string[] {
     for (const i of this.dirty) {
-      const text = [...this.shards[i]].sort((a, b) => (a[0] < b[0] ? -1 : 1)).map(([unit, entry]) => `${shardLine(unit, entry)}\n`).join('');
+      const text = [...this.shard(i)].sort((a, b) => (a[0] < b[0] ? -1 : 1)).map(([unit, entry]) => `${shardLine(unit, entry)}\n`).join('');
       const name = `${createHash('sha256').update(text).digest('hex').slice(0, 24)}.tsv`;
       if (!existsSync(join(dir, name))) writeAtomically(join(dir, name), text);
       this.names[i] = name;
@@ -184,13 +194,19 @@ export function readSiteRecord(dir: string, outDir: string): SiteRecord | undefi
     const root = JSON.parse(readFileSync(join(dir, ROOT), 'utf8')) as RootFile;
     if (root.format !== 4 || root.outDir !== outDir) return undefined;
     const cache = new Map<string, Map<string, UnitEntry>>();
-    const shard = (name: string) => {
+    // Read when a version first asks (the spare is read whole, the live site only where the spare lacks a
+    // unit), once for both versions, which share it: a version copies a shard before changing it. A shard
+    // that cannot be read is empty: its units are then made afresh.
+    const shard = (name: string) => () => {
       let map = cache.get(name);
       if (!map) {
-        map = readShardLines(readFileSync(join(dir, 'shards', name), 'utf8'));
+        try {
+          map = readShardLines(readFileSync(join(dir, 'shards', name), 'utf8'));
+        } catch {
+          map = new Map();
+        }
         cache.set(name, map);
       }
-      // Shared by both versions: a version copies a shard before changing it.
       return map;
     };
     const version = (v: RootFile['live']) => (v && v.shards.length === SHARDS ? new VersionRecord(v.name, v.shards.map(shard), [...v.shards]) : undefined);

@@ -194,6 +194,17 @@ describe('the record of the last two versions', () => {
     expect(again.spare!.get('parts/P7')!.key).toBe('k7');
     expect(again.spare!.name).toBe('site-1-aaaaaaaa');
 
+    // A shard is read when a version first asks for one of its units: one the live version alone names,
+    // lost, leaves the spare readable and makes the live site's units in it unknown (made afresh).
+    const liveOnly = join(records, 'shards', shards().filter((s) => !first.includes(s))[0]);
+    const kept = readFileSync(liveOnly, 'utf8');
+    rmSync(liveOnly);
+    const partial = readSiteRecord(records, out)!;
+    expect(partial.spare!.get('parts/P7')!.key).toBe('k7');
+    expect(partial.live!.get('parts/P7')).toBeUndefined();
+    expect(partial.live!.get('parts/P8')!.key).toBe('k8');
+    writeFileSync(liveOnly, kept);
+
     // Without the spare, the shard only it named goes.
     writeSiteRecord(records, { outDir: out, live: again.live, pdfs: {} });
     expect(shards()).toHaveLength(first.length);
