@@ -64,10 +64,10 @@ export function sweepJson(a: PartAnalysis): object {
  * `digits` significant digits, each row the model evaluated at the frequency as written (roundedSweep), so
  * a row reads back as the model at its own frequency. The other columns of SWEEP_COLUMNS are closed forms
  * of R and X (|Z| = √(R² + X²), phase = atan2(X, R), G = R/|Z|², B = −X/|Z|², |Y| = 1/|Z|, Q = |X|/R,
- * C_eff = −1/(ωX), L_eff = X/ω); `zfolio sweep --csv` writes them all.
+ * C_eff = −1/(ωX), L_eff = X/ω); `zfolio sweep --csv` writes them all. `f` is roundedSweep(a.sweep, digits),
+ * given by a caller that has it already.
  */
-export function sweepPointsCsv(a: { part: Pick<PartAnalysis['part'], 'network'>; sweep: PartAnalysis['sweep'] }, digits: number): string {
-  const f = roundedSweep(a.sweep, digits);
+export function sweepPointsCsv(a: { part: Pick<PartAnalysis['part'], 'network'>; sweep: PartAnalysis['sweep'] }, digits: number, f = roundedSweep(a.sweep, digits)): string {
   const z = impedanceSweep(a.part.network, f);
   let text = 'frequency_Hz,R_ohm,X_ohm\n';
   for (let i = 0; i < f.length; i++) text += `${csvCell(f[i], digits)},${csvCell(z.re[i], digits)},${csvCell(z.im[i], digits)}\n`;

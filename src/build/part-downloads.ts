@@ -3,6 +3,7 @@
 // build, so that turning numbers into text (about a third of the thread that feeds the workers, CPU
 // profile of a 1,000-part build) is spread over the workers instead of holding them up.
 
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { partSummary, type PartSummary } from '../analysis/summary.js';
@@ -62,9 +63,11 @@ export function writeChartSpec(chart: ChartArtifact, folder: string): void {
  * (spec-download.ts), not written here.
  */
 export function writePartDownloads(d: PartDownloads): void {
-  writeFileDeep(join(d.folder, SWEEP_CSV), sweepPointsCsv(d, SWEEP_CSV_DIGITS));
-  writeFileDeep(join(d.folder, 'figures.json'), jsonFile(d.summary));
+  mkdirSync(d.folder, { recursive: true });
+  const frequencies = roundedSweep(d.sweep, SWEEP_CSV_DIGITS);
+  writeFileSync(join(d.folder, SWEEP_CSV), sweepPointsCsv(d, SWEEP_CSV_DIGITS, frequencies));
+  writeFileSync(join(d.folder, 'figures.json'), jsonFile(d.summary));
   const names = modelFileNames(d.part.id);
-  writeFileDeep(join(d.folder, names.touchstone), partTouchstone(d.part, roundedSweep(d.sweep, SWEEP_CSV_DIGITS), sweepText(d.sweep), SWEEP_CSV_DIGITS));
-  writeFileDeep(join(d.folder, names.spice), partSubcircuit(d.part));
+  writeFileSync(join(d.folder, names.touchstone), partTouchstone(d.part, frequencies, sweepText(d.sweep), SWEEP_CSV_DIGITS));
+  writeFileSync(join(d.folder, names.spice), partSubcircuit(d.part));
 }

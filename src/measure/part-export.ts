@@ -72,13 +72,13 @@ export function partTouchstone(part: ExportablePart, frequencies: Float64Array, 
   const z = impedanceSweep(part.network, frequencies);
   const re = new Float64Array(frequencies.length);
   const im = new Float64Array(frequencies.length);
+  const decimals = impedanceDigits === undefined ? undefined : new Uint8Array(frequencies.length);
   for (let k = 0; k < frequencies.length; k++) {
-    const [sr, si] = reflectionOf(z.re[k], z.im[k], EXPORT_REFERENCE_OHM);
-    const d = impedanceDigits === undefined ? undefined : impedanceDecimals(sr, si, impedanceDigits);
-    [re[k], im[k]] = d === undefined ? [sr, si] : [Number(sr.toFixed(d)), Number(si.toFixed(d))];
+    [re[k], im[k]] = reflectionOf(z.re[k], z.im[k], EXPORT_REFERENCE_OHM);
+    if (decimals) decimals[k] = impedanceDecimals(re[k], im[k], impedanceDigits!);
   }
   const comments = [TOUCHSTONE_MARK, ...header(part, `one-port S-parameters of the model, reference ${EXPORT_REFERENCE_OHM} ohm, ${ascii(sweepText)}`)];
-  return writeTouchstone({ version: 1, ports: 1, parameter: 'S', format: 'RI', unit: 'Hz', reference: EXPORT_REFERENCE_OHM, frequencies, re, im, comments });
+  return writeTouchstone({ version: 1, ports: 1, parameter: 'S', format: 'RI', unit: 'Hz', reference: EXPORT_REFERENCE_OHM, frequencies, re, im, comments, decimals });
 }
 
 /**

@@ -3,7 +3,7 @@
 // parameter and format. Numbers are written in full (the shortest text that reads back to the same double)
 // unless fewer digits are asked for.
 
-import { significantText } from '../units/digits-text.js';
+import { fixedText, significantText } from '../units/digits-text.js';
 import { FREQUENCY_SCALE, type DataFormat, type FrequencyUnit, type NetworkParameter } from './network-data.js';
 
 export interface TouchstoneWriteInput {
@@ -22,6 +22,11 @@ export interface TouchstoneWriteInput {
   comments?: readonly string[];
   /** Significant digits of each value; the full double when absent. */
   digits?: number;
+  /**
+   * Decimals of each value of `re` and `im` (index as theirs; RI only): each is written as its rounding to
+   * that many decimals reads, String(Number(v.toFixed(d))), instead of with `digits`.
+   */
+  decimals?: Uint8Array;
   /** Order of a version 2 two-port's values (version 1 is always 21_12). */
   twoPortOrder?: '12_21' | '21_12';
 }
@@ -33,6 +38,8 @@ export function writeTouchstone(input: TouchstoneWriteInput): string {
   const n2 = ports * ports;
   const count = input.frequencies.length;
   if (input.re.length !== count * n2 || input.im.length !== count * n2) throw new RangeError('writeTouchstone: value arrays do not match ports × frequencies');
+  const { decimals } = input;
+  if (decimals && (input.format !== 'RI' || decimals.length !== count * n2)) throw new RangeError('writeTouchstone: decimals are for RI values, one per value');
   const num = (v: number) => (input.digits ? significantText(v, input.digits) : String(v));
   const lines: string[] = (input.comments ?? []).map((c) => `! ${c}`.trimEnd());
   const option = `# ${input.unit} ${input.parameter} ${input.format} R ${num(input.reference)}`;
@@ -51,7 +58,7 @@ export function writeTouchstone(input: TouchstoneWriteInput): string {
     const im = input.im[index] * scale;
     switch (input.format) {
       case 'RI':
-        return `${num(re)} ${num(im)}`;
+        return decimals ? `${fixedText(re, decimals[index])} ${fixedText(im, decimals[index])}` : `${num(re)} ${num(im)}`;
       case 'MA':
         return `${num(Math.hypot(re, im))} ${num(Math.atan2(im, re) * DEGREES)}`;
       case 'DB':

@@ -79,3 +79,26 @@ export function shortSignificantText(value: number, significant: number): string
   const exponent = exponentLayout(d, false);
   return exponent.length < plain.length ? exponent : plain;
 }
+
+/**
+ * `String(Number(value.toFixed(decimals)))`, faster: toFixed's digits (exact decimal rounding, ECMA-262
+ * Number.prototype.toFixed) without the trailing zeros, which is Number::toString's text of the double they
+ * name when they are at most 15 significant digits (see the top of this file) and the value is at least
+ * 1e-6 (below that toString writes an exponent). Otherwise, and beyond toFixed's plain range, the round trip.
+ */
+export function fixedText(value: number, decimals: number): string {
+  if (!(Math.abs(value) < 1e21)) return String(Number(value.toFixed(decimals)));
+  const text = value.toFixed(decimals);
+  const dot = text.indexOf('.');
+  let end = text.length;
+  if (dot >= 0) {
+    while (text.charCodeAt(end - 1) === 48) end--; // '0'
+    if (end - 1 === dot) end--;
+  }
+  let first = text.charCodeAt(0) === 45 ? 1 : 0; // '-'
+  while (first < end && (text.charCodeAt(first) === 48 || first === dot)) first++;
+  if (first === end) return '0'; // a zero, -0 included, which toString writes "0"
+  const significant = end - first - (dot > first && dot < end ? 1 : 0);
+  if (significant > 15 || (dot >= 0 && first - dot > 6)) return String(Number(text));
+  return end === text.length ? text : text.slice(0, end);
+}

@@ -110,3 +110,34 @@ describe('writeTouchstone against the specification’s examples', () => {
     ).toThrow(/ports × frequencies/);
   });
 });
+
+/** A version 1 one-port S file in RI (a data line: the frequency, then Re and Im of S11). */
+const onePort = (re: number[], im: number[], extra: Partial<TouchstoneWriteInput> = {}): TouchstoneWriteInput => ({
+  version: 1,
+  ports: 1,
+  parameter: 'S',
+  format: 'RI',
+  unit: 'Hz',
+  reference: 50,
+  frequencies: Float64Array.from(re, (_, k) => 1000 * (k + 1)),
+  re: Float64Array.from(re),
+  im: Float64Array.from(im),
+  ...extra,
+});
+
+describe('writeTouchstone with decimals per value', () => {
+  it('writes each value as its rounding to that many decimals reads back (String(Number(v.toFixed(d))), ECMA-262)', () => {
+    const re = [0.123456789, -0.99999999987, 0.5, -0.0000001234, 0.999999999999999, 1e-9];
+    const im = [-0.000012345678, 0.3333333333333333, -0.25, 0.7071067811865476, -1e-12, 0.0625];
+    const decimals = Uint8Array.from([6, 12, 3, 9, 17, 4]);
+    const lines = dataLines(writeTouchstone(onePort(re, im, { decimals })));
+    expect(lines).toEqual(re.map((r, k) => `${1000 * (k + 1)} ${String(Number(r.toFixed(decimals[k])))} ${String(Number(im[k].toFixed(decimals[k])))}`));
+    expect(lines[0]).toBe('1000 0.123457 -0.000012');
+    expect(lines[3]).toBe('4000 -1.23e-7 0.707106781');
+  });
+
+  it('refuses decimals for a format other than RI, or of another length than the values', () => {
+    expect(() => writeTouchstone(onePort([0.1], [0.2], { format: 'MA', decimals: Uint8Array.from([3]) }))).toThrow(RangeError);
+    expect(() => writeTouchstone(onePort([0.1, 0.2], [0.2, 0.3], { decimals: Uint8Array.from([3]) }))).toThrow(RangeError);
+  });
+});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { shortSignificantText, significantText } from '../../src/units/digits-text.js';
+import { fixedText, shortSignificantText, significantText } from '../../src/units/digits-text.js';
 
 // The reference is the language itself: ECMA-262 Number.prototype.toPrecision rounds, Number() reads the
 // text back and Number::toString prints the double's shortest form; the fast version must write the same.
@@ -45,5 +45,31 @@ describe('numbers to significant digits as text', () => {
     expect(shortSignificantText(Infinity, 6)).toBe('Infinity');
     expect(significantText(-90.00000001, 6)).toBe('-90');
     expect(significantText(1.23456789e25, 6)).toBe('1.23457e+25');
+  });
+});
+
+// The reference is the language again: ECMA-262 Number.prototype.toFixed rounds, Number() reads it back and
+// Number::toString prints the double's shortest form.
+const fixedReference = (v: number, d: number) => String(Number(v.toFixed(d)));
+
+describe('numbers to a count of decimals as text', () => {
+  it('writes what String(Number(x.toFixed(d))) writes, for every decimal count toFixed takes', () => {
+    const all = values();
+    const wrong: string[] = [];
+    for (const d of [0, 1, 2, 3, 5, 6, 8, 10, 12, 14, 15, 16, 17, 20, 100]) for (const v of all) if (fixedText(v, d) !== fixedReference(v, d)) wrong.push(`${v} to ${d} decimals: ${fixedText(v, d)}`);
+    expect(wrong).toEqual([]);
+  });
+
+  it('drops trailing zeros, writes a rounded zero as 0 and a value under 1e-6 with an exponent', () => {
+    expect(fixedText(12.5, 4)).toBe('12.5');
+    expect(fixedText(120, 0)).toBe('120');
+    expect(fixedText(119.96, 1)).toBe('120');
+    expect(fixedText(-0.00004, 3)).toBe('0');
+    expect(fixedText(0.0000015, 7)).toBe('0.0000015');
+    expect(fixedText(0.00000015, 8)).toBe('1.5e-7');
+    // Seventeen significant digits name a double whose shortest form is shorter.
+    expect(fixedText(0.1, 17)).toBe('0.1');
+    expect(fixedText(-0.123456789012345678, 17)).toBe('-0.12345678901234568');
+    expect(fixedText(1e21, 2)).toBe('1e+21');
   });
 });
