@@ -14,7 +14,7 @@ import { stageClock, type BuildTimings, type StageTime } from './stage-clock.js'
 import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
 import type { Browser } from 'puppeteer-core';
 import type { ChartMaker } from './chart-maker.js';
-import { ChartPool, type ChartPoolStats } from './chart-pool.js';
+import { libraryChartPool, type ChartPool, type ChartPoolStats } from './chart-pool.js';
 import { renderPages, TEMPLATES_DIR } from './eleventy.js';
 import { checkWritable, stageOutput, writeFileDeep, type SwapStep } from './output.js';
 import { SPEC_FOLDER, SWEEP_SPECS } from '../pages/spec-download.js';
@@ -35,6 +35,7 @@ import { keptPdfs, linkPdfs, pdfKeys, pdfsIn, stampPdfs } from './pdf-reuse.js';
 import { buildHistory, type BuildHistory } from './build-history.js';
 import { addChanges } from '../pages/changes-page.js';
 import { SvgSpill } from './svg-spill.js';
+import { earlyChartWorkers, PARTS_PER_WORKER_START, type StartedWorker } from './chart-workers.js';
 
 export interface BuildOptions {
   libraryRoot: string;
@@ -45,7 +46,7 @@ export interface BuildOptions {
   /** The home folder, which the site may not replace (default: the system's). */
   home?: string;
   progress?: Progress;
-  /** Where charts come from; default: a ChartPool with the library's cache (see chartPoolFor). */
+  /** Where charts come from; default: a ChartPool with the library's cache (see libraryChartPool). */
   charts?: ChartMaker;
   /** Worker threads for charts (default: one per core when many parts need drawing, none for a few). */
   workers?: number;
@@ -117,16 +118,26 @@ export const DEFAULT_OUT_DIR = '_site';
 export const CACHE_DIR = '.zfolio-cache';
 
 export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
-  const started = performance.now();
+  const started = { at: performance.now(), clock: stageClock(), libraryRoot: resolve(options.libraryRoot) };
+  const outDir = resolve(started.libraryRoot, options.outDir ?? DEFAULT_OUT_DIR);
+  // Before anything is read or written: a refused output leaves the disk exactly as it was.
+  guardOutput(outDir, { libraryRoot: started.libraryRoot, cwd: options.cwd ?? process.cwd(), home: options.home });
+  checkWritable(outDir);
+  // A cold build of many parts starts its chart workers now, to load beside the reading (chart-workers.ts).
+  const cacheRoot = options.cache === false ? undefined : resolve(started.libraryRoot, options.cache ?? CACHE_DIR);
+  const early = options.charts ? [] : earlyChartWorkers({ libraryRoot: started.libraryRoot, cacheRoot, recordDir: cacheRoot && recordDir(cacheRoot, outDir), workers: options.workers });
+  try {
+    return await loadAndBuild(options, outDir, { ...started, early });
+  } finally {
+    // Those the chart pool did not take (the library had errors, or fewer parts to draw).
+    for (const w of early) void w.worker.terminate();
+  }
+}
+
+async function loadAndBuild(options: BuildOptions, outDir: string, { at: started, clock, libraryRoot, early }: { at: number; clock: () => StageTime; libraryRoot: string; early: StartedWorker[] }): Promise<BuildResult> {
   const progress = options.progress ?? silentProgress;
-  const libraryRoot = resolve(options.libraryRoot);
-  const outDir = resolve(libraryRoot, options.outDir ?? DEFAULT_OUT_DIR);
   const zero = { seconds: 0, cpuSeconds: 0 };
   const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
-  const clock = stageClock();
-  // Before anything is read or written: a refused output leaves the disk exactly as it was.
-  guardOutput(outDir, { libraryRoot, cwd: options.cwd ?? process.cwd(), home: options.home });
-  checkWritable(outDir);
   // Part files unchanged since the last build are taken from the cache, not read and parsed again.
   const partCache = options.cache === false ? undefined : new PartCache(libraryRoot, join(resolve(libraryRoot, options.cache ?? CACHE_DIR), 'parts'), codeKey());
   const { library, diagnostics } = loadLibrary(libraryRoot, { partCache });
@@ -165,7 +176,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
     }
   }
   try {
-    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history });
+    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history, early });
   } finally {
     await browser?.close();
   }
@@ -173,6 +184,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
 
 interface Running {
   history: BuildHistory;
+  early: StartedWorker[];
   started: number;
   progress: Progress;
   clock: () => StageTime;
@@ -206,7 +218,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     const carried = new Map<string, CarriedPart>();
     for (const part of library.parts) if (recordAt && units.kept(`parts/${part.id}`, partKeys.get(part.id)!)) carried.set(part.id, carriedPart(part.id, units.recordedEntry(`parts/${part.id}`)));
     const fresh = library.parts.length - carried.size;
-    pool = options.charts ? undefined : chartPoolFor(library, options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), cacheRoot ? join(cacheRoot, 'charts') : false);
+    pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), started: run.early });
     for (const part of library.parts) if (carried.has(part.id)) pool?.keepPartCharts({ part });
     timings.load = clock();
 
@@ -284,17 +296,4 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     staging.abandon();
     throw error;
   }
-}
-
-/** Below this many parts to draw (not carried over), starting worker threads costs more than it saves. */
-const PARTS_PER_WORKER_START = 40;
-
-export function chartPoolFor(library: Library, workers?: number, cache?: string | false): ChartPool {
-  const { sweep, within, temperature } = library.settings;
-  return new ChartPool({
-    cacheDir: cache === false ? undefined : (cache ?? join(library.root, CACHE_DIR, 'charts')),
-    workers: workers ?? (library.parts.length < PARTS_PER_WORKER_START ? 0 : undefined),
-    // The operating temperatures set every part's and rail's spread envelope.
-    settingsKey: JSON.stringify({ sweep, within, temperature }),
-  });
 }

@@ -6,10 +6,8 @@
 
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
-import { dirname, join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { Worker } from 'node:worker_threads';
+import { join } from 'node:path';
+import type { Worker } from 'node:worker_threads';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { codeKey } from './reuse.js';
 import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, withoutSpecs, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
@@ -20,6 +18,8 @@ import type { WorkerJob } from './chart-worker.js';
 import { partDownloads, writePartDownloads, type DownloadPlace } from './part-downloads.js';
 import type { ChangeChartData } from '../charts/change-chart.js';
 import type { MeasurementChartData } from '../charts/measurement-charts.js';
+import type { FolioSettings } from '../model/settings.js';
+import { defaultWorkerCount, startChartWorker, type StartedWorker } from './chart-workers.js';
 
 export interface ChartPoolOptions {
   /** Folder for cached charts; none: no cache. */
@@ -28,6 +28,8 @@ export interface ChartPoolOptions {
   workers?: number;
   /** The sweep and band settings, part of every key. */
   settingsKey: string;
+  /** Workers started already (chart-workers.ts): the pool takes as many as it needs out of the list. */
+  started?: StartedWorker[];
 }
 
 export interface ChartPoolStats {
@@ -52,17 +54,11 @@ export interface ChartPoolStats {
 export function compactCharts<T extends DrawnChart>(charts: T[]): T[] {
   return charts.map((c) => (/[^\u0000-\u00ff]/.test(c.svg) ? c : { ...c, svg: Buffer.from(c.svg, 'latin1').toString('latin1') }));
 }
-const HERE = dirname(fileURLToPath(import.meta.url));
-const RUNNING_TYPESCRIPT = import.meta.url.endsWith('.ts');
-
-/**
- * Under TypeScript (tests, development) a worker must register tsx itself: Node 20 applies neither the
- * parent's loader nor an --import in execArgv to a worker's entry file. The dev dependency tsx is then
- * present by definition.
- */
-function typescriptWorker(file: string): Worker {
-  const boot = `import('tsx/esm/api').then((tsx) => { tsx.register(); return import(${JSON.stringify(pathToFileURL(file).href)}); })`;
-  return new Worker(boot, { eval: true });
+/** The chart pool of a library's build: its sweep, band and temperature settings are part of every key. */
+export function libraryChartPool(settings: Pick<FolioSettings, 'sweep' | 'within' | 'temperature'>, options: Omit<ChartPoolOptions, 'settingsKey'>): ChartPool {
+  const { sweep, within, temperature } = settings;
+  // The operating temperatures set every part's and rail's spread envelope.
+  return new ChartPool({ ...options, settingsKey: JSON.stringify({ sweep, within, temperature }) });
 }
 
 interface Pending {
@@ -87,8 +83,8 @@ export class ChartPool implements ChartMaker {
   private preparing = false;
 
   constructor(private readonly options: ChartPoolOptions) {
-    const count = options.workers ?? Math.min(availableParallelism(), 4);
-    for (let i = 0; i < count; i++) this.startWorker();
+    const count = options.workers ?? defaultWorkerCount();
+    for (let i = 0; i < count; i++) this.startWorker(options.started?.shift());
     if (options.cacheDir) mkdirSync(options.cacheDir, { recursive: true });
   }
 
@@ -243,8 +239,9 @@ export class ChartPool implements ChartMaker {
     }
   }
 
-  private startWorker(): void {
-    const worker = RUNNING_TYPESCRIPT ? typescriptWorker(join(HERE, 'chart-worker.ts')) : new Worker(join(HERE, 'chart-worker.js'));
+  private startWorker(started?: StartedWorker): void {
+    if (started?.failure) void started.worker.terminate();
+    const { worker } = started && !started.failure ? started : startChartWorker();
     worker.on('message', (message: { id: number; charts?: DrawnChart[]; error?: string }) => {
       const pending = this.pending.get(message.id);
       this.pending.delete(message.id);

@@ -2,6 +2,7 @@
 
 import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
+import './eleventy-resolver.js';
 import Eleventy from '@11ty/eleventy';
 import { PACKAGE_ROOT } from '../version.js';
 import type { FolioData } from '../pages/site-data.js';

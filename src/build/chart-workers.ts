@@ -1,0 +1,99 @@
+// Starting the chart worker threads (chart-worker.ts), for the chart pool or, on a cold build of many parts,
+// before the library is read.
+//
+// A worker's start (loading vega, vega-lite and the chart modules) took 2.3 to 3.3 s of a 1,000-part build's
+// CPU profile before its first job. Started by the chart pool, that comes after the library is read and
+// checked, while one core idles; started first, it runs beside the reading.
+
+import { existsSync, readdirSync, type Dirent } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { Worker } from 'node:worker_threads';
+
+const HERE = dirname(fileURLToPath(import.meta.url));
+const RUNNING_TYPESCRIPT = import.meta.url.endsWith('.ts');
+
+/** Below this many parts to draw (not carried over), starting worker threads costs more than it saves. */
+export const PARTS_PER_WORKER_START = 40;
+
+/** Worker threads when none are asked for: one per core, at most four. */
+export const defaultWorkerCount = () => Math.min(availableParallelism(), 4);
+
+/** A started worker, and the error it failed with before anyone listened (its start failed). */
+export interface StartedWorker {
+  worker: Worker;
+  failure?: Error;
+}
+
+/**
+ * Under TypeScript (tests, development) a worker must register tsx itself: Node 20 applies neither the
+ * parent's loader nor an --import in execArgv to a worker's entry file. The dev dependency tsx is then
+ * present by definition.
+ */
+function typescriptWorker(file: string): Worker {
+  const boot = `import('tsx/esm/api').then((tsx) => { tsx.register(); return import(${JSON.stringify(pathToFileURL(file).href)}); })`;
+  return new Worker(boot, { eval: true });
+}
+
+export function startChartWorker(): StartedWorker {
+  const worker = RUNNING_TYPESCRIPT ? typescriptWorker(join(HERE, 'chart-worker.ts')) : new Worker(join(HERE, 'chart-worker.js'));
+  const started: StartedWorker = { worker };
+  // Until the pool listens: an error here would otherwise end the process.
+  worker.once('error', (error) => (started.failure = error));
+  return started;
+}
+
+export interface EarlyStart {
+  libraryRoot: string;
+  /** The build's cache folder, none without a cache. */
+  cacheRoot?: string;
+  /** Where the record of the last build of this output folder would be (site-record.ts), none without a cache. */
+  recordDir?: string;
+  /** --workers. */
+  workers?: number;
+}
+
+/**
+ * The chart workers of a build that will draw every part of a library of many, started now: only when
+ * nothing of a last build can be used (no record of one for this output folder, no chart in the cache)
+ * and the library has at least PARTS_PER_WORKER_START part files. Any other build starts its workers once
+ * it knows how many parts it draws (a rebuild after an edit draws one, and starts none). The chart pool
+ * takes these over; the caller stops those it did not take.
+ */
+export function earlyChartWorkers(start: EarlyStart): StartedWorker[] {
+  if (start.workers === 0) return [];
+  if (start.recordDir && existsSync(start.recordDir)) return [];
+  if (start.cacheRoot && !emptyFolder(join(start.cacheRoot, 'charts'))) return [];
+  if (!atLeastYamlFiles(join(start.libraryRoot, 'parts'), PARTS_PER_WORKER_START)) return [];
+  return Array.from({ length: start.workers ?? defaultWorkerCount() }, startChartWorker);
+}
+
+function emptyFolder(dir: string): boolean {
+  try {
+    return readdirSync(dir).length === 0;
+  } catch {
+    return true;
+  }
+}
+
+/** Whether `dir` holds at least `count` YAML files at any depth (stops counting there; unreadable folders hold none). */
+function atLeastYamlFiles(dir: string, count: number): boolean {
+  let found = 0;
+  const folders = [dir];
+  while (folders.length > 0 && found < count) {
+    const folder = folders.pop()!;
+    let entries: Dirent[];
+    try {
+      entries = readdirSync(folder, { withFileTypes: true });
+    } catch {
+      continue;
+    }
+    for (const e of entries) {
+      if (e.name.startsWith('.')) continue;
+      if (e.isDirectory()) folders.push(join(folder, e.name));
+      else if (/\.ya?ml$/i.test(e.name)) found++;
+    }
+  }
+  return found >= count;
+}

@@ -1,0 +1,68 @@
+// Chart workers start before the library is read only on a cold build of many parts: a rebuild, a build
+// whose charts are cached or a small library starts none early (it would pay their start for nothing).
+
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { earlyChartWorkers, PARTS_PER_WORKER_START, type StartedWorker } from '../../src/build/chart-workers.js';
+import { ChartPool } from '../../src/build/chart-pool.js';
+import type { Part } from '../../src/model/part.js';
+import { analysed, resistorPart } from '../charts/fixtures.js';
+
+const root = mkdtempSync(join(tmpdir(), 'zfolio-early-'));
+afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+/** A library folder with `count` part files (only their names are read here), half of them one folder down. */
+function library(name: string, count: number, hidden = 0): string {
+  const dir = join(root, name);
+  mkdirSync(join(dir, 'parts', 'group'), { recursive: true });
+  mkdirSync(join(dir, 'parts', '.hidden'), { recursive: true });
+  for (let i = 0; i < count; i++) writeFileSync(join(dir, 'parts', i % 2 ? 'group' : '', `p${i}.yaml`), 'id: P\n');
+  for (let i = 0; i < hidden; i++) writeFileSync(join(dir, 'parts', '.hidden', `h${i}.yaml`), 'id: H\n');
+  writeFileSync(join(dir, 'parts', 'notes.txt'), 'not a part\n');
+  return dir;
+}
+
+const stop = (started: StartedWorker[]) => Promise.all(started.map((s) => s.worker.terminate()));
+
+describe('chart workers started early', () => {
+  it('are started for a library of enough part files, at any depth, with no cache', async () => {
+    const started = earlyChartWorkers({ libraryRoot: library('many', PARTS_PER_WORKER_START), workers: 1 });
+    expect(started).toHaveLength(1);
+    await stop(started);
+  }, 60_000);
+
+  it('are not started for fewer part files (hidden folders and other files not counted), nor when asked for none', () => {
+    expect(earlyChartWorkers({ libraryRoot: library('few', PARTS_PER_WORKER_START - 1, 5), workers: 1 })).toEqual([]);
+    expect(earlyChartWorkers({ libraryRoot: library('none-asked', PARTS_PER_WORKER_START), workers: 0 })).toEqual([]);
+  });
+
+  it('are not started when a last build of the output folder is recorded, or when the chart cache holds a chart', () => {
+    const libraryRoot = library('rebuild', PARTS_PER_WORKER_START);
+    const cacheRoot = join(libraryRoot, '.zfolio-cache');
+    const recordDir = join(cacheRoot, 'builds', 'site');
+    mkdirSync(recordDir, { recursive: true });
+    expect(earlyChartWorkers({ libraryRoot, cacheRoot, recordDir, workers: 1 })).toEqual([]);
+    rmSync(recordDir, { recursive: true });
+    mkdirSync(join(cacheRoot, 'charts'));
+    writeFileSync(join(cacheRoot, 'charts', 'entry.json.gz'), '');
+    expect(earlyChartWorkers({ libraryRoot, cacheRoot, recordDir, workers: 1 })).toEqual([]);
+  });
+
+  it('are taken over by the chart pool, which draws with them', async () => {
+    const started = earlyChartWorkers({ libraryRoot: library('pool', PARTS_PER_WORKER_START), workers: 1 });
+    const [worker] = started.map((s) => s.worker);
+    const pool = new ChartPool({ workers: 1, settingsKey: 'test', started });
+    // Taken out of the list, so the build does not stop it.
+    expect(started).toEqual([]);
+    const part = { ...resistorPart, id: 'P-EARLY', source: { path: 'p.yaml', hash: 'h' } } as unknown as Part;
+    const charts = await pool.partCharts(analysed(part));
+    expect(charts.map((c) => c.title.includes('P-EARLY'))).toEqual([true, true, true, true]);
+    // The worker that drew them was the one started early: stopping the pool stops it.
+    let exited = false;
+    worker.once('exit', () => (exited = true));
+    await pool.close();
+    expect(exited).toBe(true);
+  }, 120_000);
+});
