@@ -10,6 +10,7 @@
 import { createHash } from 'node:crypto';
 import type { ChartText } from '../present/chart-descriptions.js';
 import { escapeXml } from '../present/escape.js';
+import { fixedText } from '../units/digits-text.js';
 import { slimSvgBody } from './svg-slim.js';
 
 export type { ChartText } from '../present/chart-descriptions.js';
@@ -17,6 +18,8 @@ export type { ChartText } from '../present/chart-descriptions.js';
 const ROOT = /^<svg\b[^>]*>/;
 const TAG = /<[^>]+>/g;
 const ID = / id="([^"]+)"/g;
+/** A tag's id (a tag has at most one: XML 1.0 §3.1, unique attribute names). */
+const TAG_ID = /<[^>]* id="([^"]+)"/g;
 const TEXT_CONTENT = />[^<]*</g;
 const VEGA_ATTRIBUTES = / (?:class|role|aria-roledescription|aria-hidden|aria-label|pointer-events)="[^"]*"/g;
 
@@ -34,10 +37,10 @@ export function finishSvg(raw: string, text: ChartText, size: { width: number; h
   if (!root || !raw.endsWith('</svg>')) throw new Error('vega produced no SVG document');
   // Text content cannot hold '<' or '>' (vega escapes them), so every match of TAG is markup: attributes
   // are edited and checked there only, and text from a library file is never touched or misread.
-  const slim = slimSvgBody(raw.slice(root[0].length, -'</svg>'.length).replace(TAG, (tag) => roundNumbers(tag.replace(VEGA_ATTRIBUTES, ''))));
+  const slim = slimSvgBody(raw.slice(root[0].length, -'</svg>'.length), (tag) => roundNumbers(tag.replace(VEGA_ATTRIBUTES, '')));
   let body = slim.body;
   const ids = new Map<string, string>();
-  for (const tag of body.match(TAG) ?? []) for (const m of tag.matchAll(ID)) if (!ids.has(m[1])) ids.set(m[1], '');
+  for (const m of body.matchAll(TAG_ID)) if (!ids.has(m[1])) ids.set(m[1], '');
   assertInert(body.replace(TEXT_CONTENT, '><'));
 
   // vega's ids count across the process; number them in order of appearance before anything depends on them.
@@ -77,7 +80,9 @@ export function finishSvg(raw: string, text: ChartText, size: { width: number; h
  * rendered; a few such characters a chart cost a few bytes on disk.
  */
 function latin1(svg: string): string {
-  return svg.replace(/[^\x00-\xff]/gu, (c) => `&#${c.codePointAt(0)};`);
+  // A surrogate pair is one character (its code point); the search is not Unicode-aware, which costs three
+  // times as much and finds the same.
+  return svg.replace(/[\ud800-\udbff][\udc00-\udfff]|[^\x00-\xff]/g, (c) => `&#${c.codePointAt(0)};`);
 }
 
 /**
@@ -95,10 +100,8 @@ export function assertInert(markup: string): void {
  * 0.15 px (simplify.ts). vega writes some numbers with 15 decimals, which costs bytes and nothing else.
  */
 function roundNumbers(tag: string): string {
-  return tag.replace(/(-?\d+\.\d{2,})/g, (n) => {
-    const r = Number(Number(n).toFixed(1));
-    return String(Object.is(r, -0) ? 0 : r);
-  });
+  // fixedText writes what String(Number(x.toFixed(1))) does, a rounded zero (-0 too) as "0".
+  return tag.replace(/-?\d+\.\d{2,}/g, (n) => fixedText(Number(n), 1));
 }
 
 function round(v: number): number {

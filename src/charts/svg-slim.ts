@@ -18,19 +18,34 @@ const CLIP = /<clipPath id="([^"]+)">(.*?)<\/clipPath>/g;
 /**
  * The slimmed body of a chart's SVG (everything between `<svg …>` and `</svg>`), and the font family its
  * texts share, which the caller writes on the root element (undefined when the texts use several).
+ * `editTag`, when given, changes every tag first (in the same pass over the markup as the rules here).
  */
-export function slimSvgBody(body: string): { body: string; fontFamily?: string } {
+export function slimSvgBody(body: string, editTag: (tag: string) => string = (tag) => tag): { body: string; fontFamily?: string } {
   // Attributes are edited inside tags only: text content (a title from a library file) is never touched.
-  // Text cannot hold '<' (vega escapes it), so every match of TAG is markup.
+  // Text cannot hold '<' (vega escapes it), so every match of TAG is markup. The font family is taken off
+  // every tag in the same pass, as it is said once on the root when the texts share one (vega writes it on
+  // texts only, which no rule below looks at); should they use several, the body is slimmed again, keeping it.
   const families = new Set<string>();
-  let out = body
-    .replace(TAG, (tag) => {
-      const font = FONT.exec(tag);
-      if (font) families.add(font[1]);
-      return tag.replace(/ (?:opacity="1"|stroke-miterlimit="4"|stroke-dasharray="")/g, '');
-    })
-    .replace(/<path d=""(?: display="none")?\/>/g, '')
-    .replace(/<path d="M0,0h0v0h0Z"\/>/g, '');
+  const out = slimmedBody(
+    body.replace(TAG, (tag) => {
+      const edited = editTag(tag);
+      const font = FONT.exec(edited);
+      if (!font) return withoutDefaults(edited);
+      families.add(font[1]);
+      return withoutDefaults(edited.replace(FONT, ''));
+    }),
+  );
+  if (families.size === 1) return { body: out, fontFamily: [...families][0] };
+  if (families.size === 0) return { body: out };
+  return { body: slimmedBody(body.replace(TAG, (tag) => withoutDefaults(editTag(tag)))) };
+}
+
+/** A tag without the attributes at their initial value. */
+const withoutDefaults = (tag: string) => tag.replace(/ (?:opacity="1"|stroke-miterlimit="4"|stroke-dasharray="")/g, '');
+
+/** The rules for elements, after the tags' own attributes are slimmed. */
+function slimmedBody(body: string): string {
+  let out = body.replace(/<path d=""(?: display="none")?\/>/g, '').replace(/<path d="M0,0h0v0h0Z"\/>/g, '');
   // A group background with no attribute but its outline is invisible only where every fill above it is
   // none: vega writes the chart's root group with fill="none" and no group of its own with another fill.
   const groupFills = [...out.matchAll(/<g\b[^>]* fill="([^"]*)"/g)].map((m) => m[1]);
@@ -42,10 +57,7 @@ export function slimSvgBody(body: string): { body: string; fontFamily?: string }
     before = out;
     out = out.replace(/<g\/>|<g>(?:<\/g>)|<g transform="[^"]*"\/>|<g transform="[^"]*"><\/g>/g, '');
   }
-  out = sharedClips(out);
-  if (families.size !== 1) return { body: out };
-  const [fontFamily] = families;
-  return { body: out.replace(TAG, (tag) => tag.replace(FONT, '')), fontFamily };
+  return sharedClips(out);
 }
 
 /** Clip paths with the same content kept once; references to the others point at the one kept. */
