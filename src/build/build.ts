@@ -127,19 +127,19 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   const cacheRoot = options.cache === false ? undefined : resolve(started.libraryRoot, options.cache ?? CACHE_DIR);
   const early = options.charts ? [] : earlyChartWorkers({ libraryRoot: started.libraryRoot, cacheRoot, recordDir: cacheRoot && recordDir(cacheRoot, outDir), workers: options.workers });
   try {
-    return await loadAndBuild(options, outDir, { ...started, early });
+    return await loadAndBuild(options, outDir, { ...started, cacheRoot, early });
   } finally {
     // Those the chart pool did not take (the library had errors, or fewer parts to draw).
     for (const w of early) void w.worker.terminate();
   }
 }
 
-async function loadAndBuild(options: BuildOptions, outDir: string, { at: started, clock, libraryRoot, early }: { at: number; clock: () => StageTime; libraryRoot: string; early: StartedWorker[] }): Promise<BuildResult> {
+async function loadAndBuild(options: BuildOptions, outDir: string, { at: started, clock, libraryRoot, cacheRoot, early }: { at: number; clock: () => StageTime; libraryRoot: string; cacheRoot?: string; early: StartedWorker[] }): Promise<BuildResult> {
   const progress = options.progress ?? silentProgress;
   const zero = { seconds: 0, cpuSeconds: 0 };
   const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
   // Part files unchanged since the last build are taken from the cache, not read and parsed again.
-  const partCache = options.cache === false ? undefined : new PartCache(libraryRoot, join(resolve(libraryRoot, options.cache ?? CACHE_DIR), 'parts'), codeKey());
+  const partCache = cacheRoot === undefined ? undefined : new PartCache(libraryRoot, join(cacheRoot, 'parts'), codeKey());
   const { library, diagnostics } = loadLibrary(libraryRoot, { partCache });
   partCache?.save();
   const work = { filesParsed: partCache?.counts.parsed ?? library?.parts.length ?? 0, partsAnalysed: 0, partFolders: 0, comparisons: 0, listFiles: 0, pagesRendered: 0 };
@@ -176,7 +176,7 @@ async function loadAndBuild(options: BuildOptions, outDir: string, { at: started
     }
   }
   try {
-    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history, early });
+    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history, early, cacheRoot });
   } finally {
     await browser?.close();
   }
@@ -185,6 +185,7 @@ async function loadAndBuild(options: BuildOptions, outDir: string, { at: started
 interface Running {
   history: BuildHistory;
   early: StartedWorker[];
+  cacheRoot?: string;
   started: number;
   progress: Progress;
   clock: () => StageTime;
@@ -194,7 +195,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
   const { progress } = run;
   const { timings, work } = result;
   let clock = run.clock;
-  const cacheRoot = options.cache === false ? undefined : resolve(library.root, options.cache ?? CACHE_DIR);
+  const { cacheRoot } = run;
   const site = siteKey(library);
   // Units can be carried over only when charts come from the cache-keyed pool.
   const recordAt = cacheRoot && !options.charts ? recordDir(cacheRoot, outDir) : undefined;

@@ -125,7 +125,7 @@ export class SiteUnits {
       const stamp = w.from === 'spare' && before ? before.stamp : unitStamp(join(target, unit), isFolderUnit(unit));
       const entry: UnitEntry = { key: w.key, stamp };
       // A kept unit whose data was not set again keeps what was recorded, unread.
-      const kept = w.data === undefined && w.from !== 'fresh' ? this.recordedEntry(unit) : undefined;
+      const kept = w.data === undefined ? this.recordedEntry(unit) : undefined;
       if (w.data !== undefined) entry.data = w.data;
       else if (kept?.text !== undefined) entry.text = kept.text;
       else if (kept?.data !== undefined) entry.data = kept.data;
