@@ -11,7 +11,6 @@ import { reviewWarnings } from '../model/review-consistency.js';
 import type { PaperSize } from '../model/settings.js';
 import { assembleSite, type BuildWork, type CarriedPart } from './assemble.js';
 import { stageClock, type BuildTimings, type StageTime } from './stage-clock.js';
-import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
 import type { Browser } from 'puppeteer-core';
 import type { ChartMaker } from './chart-maker.js';
 import { libraryChartPool, type ChartPool, type ChartPoolStats } from './chart-pool.js';
@@ -26,12 +25,13 @@ import { buildDate, printJobsFor, type PrintSelection } from '../print/print-job
 import { silentProgress, type Progress } from './progress.js';
 import { codeKey, partKey, siteKey } from './reuse.js';
 import { PartCache } from '../model/part-cache.js';
-import { dropSiteRecord, readSiteRecord, recordDir, writeSiteRecord } from './site-record.js';
-import { SiteUnits } from './carry-over.js';
+import { dropSiteRecord, readSiteRecord, recordDir, writeSiteRecord, type SiteRecord } from './site-record.js';
+import { currentVersion, SiteUnits } from './carry-over.js';
+import { SpareRefused } from './writable.js';
 import { carriedPart, recordParts } from './part-record.js';
 import { comparisonPageKey, listPages } from './page-keys.js';
 import type { PartAnalysis } from '../analysis/part-figures.js';
-import { keptPdfs, linkPdfs, pdfKeys, pdfsIn, stampPdfs } from './pdf-reuse.js';
+import { keptPdfs, linkPdfs, pdfKeys, pdfLinksFor, pdfsIn, stampPdfs } from './pdf-reuse.js';
 import { buildHistory, type BuildHistory } from './build-history.js';
 import { addChanges } from '../pages/changes-page.js';
 import { SvgSpill } from './svg-spill.js';
@@ -122,19 +122,23 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   const outDir = resolve(started.libraryRoot, options.outDir ?? DEFAULT_OUT_DIR);
   // Before anything is read or written: a refused output leaves the disk exactly as it was.
   guardOutput(outDir, { libraryRoot: started.libraryRoot, cwd: options.cwd ?? process.cwd(), home: options.home });
-  checkWritable(outDir);
-  // A cold build of many parts starts its chart workers now, to load beside the reading (chart-workers.ts).
   const cacheRoot = options.cache === false ? undefined : resolve(started.libraryRoot, options.cache ?? CACHE_DIR);
+  // Units are carried over only when charts come from the cache-keyed pool. With a record of the version at the
+  // site path, this build keeps that version as it is (the next one's spare): see checkWritable.
+  const recordAt = cacheRoot && !options.charts ? recordDir(cacheRoot, outDir) : undefined;
+  const record = recordAt ? readSiteRecord(recordAt, outDir) : undefined;
+  checkWritable(outDir, { keptAsSpare: record?.live !== undefined && currentVersion(outDir) === record.live.name });
+  // A cold build of many parts starts its chart workers now, to load beside the reading (chart-workers.ts).
   const early = options.charts ? [] : earlyChartWorkers({ libraryRoot: started.libraryRoot, cacheRoot, recordDir: cacheRoot && recordDir(cacheRoot, outDir), workers: options.workers });
   try {
-    return await loadAndBuild(options, outDir, { ...started, cacheRoot, early });
+    return await loadAndBuild(options, outDir, { ...started, cacheRoot, early, recordAt, record });
   } finally {
     // Those the chart pool did not take (the library had errors, or fewer parts to draw).
     for (const w of early) void w.worker.terminate();
   }
 }
 
-async function loadAndBuild(options: BuildOptions, outDir: string, { at: started, clock, libraryRoot, cacheRoot, early }: { at: number; clock: () => StageTime; libraryRoot: string; cacheRoot?: string; early: StartedWorker[] }): Promise<BuildResult> {
+async function loadAndBuild(options: BuildOptions, outDir: string, { at: started, clock, libraryRoot, cacheRoot, early, recordAt, record }: { at: number; clock: () => StageTime; libraryRoot: string; cacheRoot?: string; early: StartedWorker[]; recordAt?: string; record?: SiteRecord }): Promise<BuildResult> {
   const progress = options.progress ?? silentProgress;
   const zero = { seconds: 0, cpuSeconds: 0 };
   const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
@@ -176,7 +180,7 @@ async function loadAndBuild(options: BuildOptions, outDir: string, { at: started
     }
   }
   try {
-    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history, early, cacheRoot });
+    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history, early, cacheRoot, recordAt, record });
   } finally {
     await browser?.close();
   }
@@ -186,30 +190,25 @@ interface Running {
   history: BuildHistory;
   early: StartedWorker[];
   cacheRoot?: string;
+  record?: SiteRecord;
+  recordAt?: string;
   started: number;
   progress: Progress;
   clock: () => StageTime;
 }
 
 async function buildWith(options: BuildOptions, library: Library, outDir: string, browser: Browser | undefined, result: BuildResult, run: Running): Promise<BuildResult> {
-  const { progress } = run;
+  const { progress, cacheRoot, recordAt, record } = run;
   const { timings, work } = result;
   let clock = run.clock;
-  const { cacheRoot } = run;
   const site = siteKey(library);
-  // Units can be carried over only when charts come from the cache-keyed pool.
-  const recordAt = cacheRoot && !options.charts ? recordDir(cacheRoot, outDir) : undefined;
-  const record = recordAt ? readSiteRecord(recordAt, outDir) : undefined;
   // PDFs: printed afresh with a browser; without one, the last site's are kept where their inputs are unchanged.
   // Made only when there are PDFs to keep or to record: every part's key is a hash, 10,000 of them in a large library.
   let pdfKeysMade: Map<string, string> | undefined;
   const keys = () => (pdfKeysMade ??= pdfKeys(library, site, (slug) => run.history.reviews.get(slug)?.revision.commit ?? ''));
   const earlier = browser ? [] : pdfsIn(outDir);
   const kept = browser || !record || Object.keys(record.pdfs).length === 0 ? new Set<string>() : keptPdfs(record.pdfs, keys(), outDir);
-  const pdfLinks = {
-    part: (id: string) => Boolean(browser) || kept.has(partPdfPath(id)),
-    review: (slug: string) => Boolean(browser) || kept.has(reviewPdfPath(slug)),
-  };
+  const pdfLinks = pdfLinksFor(Boolean(browser), kept);
   const staging = stageOutput(outDir, { onStep: options.onSwapStep });
   let pool: ChartPool | undefined;
   try {
@@ -294,6 +293,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
   } catch (error) {
     // The workers stop first: they write parts' downloads into the staging folder.
     await pool?.close();
+    if (error instanceof SpareRefused) staging.release();
     staging.abandon();
     throw error;
   }

@@ -13,7 +13,10 @@
 
 import { constants, copyFileSync, linkSync, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmdirSync, rmSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import { entryData, entryText, sameStamp, unitStamp, VersionRecord, type SiteRecord, type UnitEntry } from './site-record.js';
+import { checkSpare } from './writable.js';
+import { asciiJson } from '../model/ascii-text.js';
+import { entryData, entryText, VersionRecord, type SiteRecord, type UnitEntry } from './site-record.js';
+import { sameStamp, spareUnchanged, unitStamp } from './unit-stamp.js';
 
 type Source = 'spare' | 'live' | 'fresh';
 
@@ -86,7 +89,7 @@ export class SiteUnits {
   private source(unit: string, key: string): Source {
     const folder = isFolderUnit(unit);
     const spare = this.spareDir ? this.record?.spare?.get(unit) : undefined;
-    if (spare?.key === key && sameStamp(spare.stamp, unitStamp(join(this.spareDir!, unit), folder))) return 'spare';
+    if (spare?.key === key && spareUnchanged(join(this.spareDir!, unit), folder, spare.stamp)) return 'spare';
     const live = this.liveDir ? this.record?.live?.get(unit) : undefined;
     if (live?.key === key && sameStamp(live.stamp, unitStamp(join(this.liveDir!, unit), folder))) return 'live';
     return 'fresh';
@@ -101,10 +104,10 @@ export class SiteUnits {
     const target = this.target(staging);
     if (target !== staging) {
       const keptHere = new Set<string>();
-      for (const [unit] of this.record!.spare!.units()) {
-        if (this.wanted.get(unit)?.from === 'spare') keptHere.add(unit);
-        else rmSync(join(target, unit), { recursive: true, force: true });
-      }
+      for (const [unit] of this.record!.spare!.units()) if (this.wanted.get(unit)?.from === 'spare') keptHere.add(unit);
+      // Before anything in it changes: a read-only folder there refuses the build, the spare given back as it was.
+      checkSpare(this.outDir, { dir: target, shownAs: join(dirname(target), this.record!.spare!.name) }, keptHere);
+      for (const [unit] of this.record!.spare!.units()) if (!keptHere.has(unit)) rmSync(join(target, unit), { recursive: true, force: true });
       removeStale(target, staging, '', keptHere);
       moveInto(staging, target, '', this.wanted);
     }
@@ -136,8 +139,8 @@ export class SiteUnits {
   }
 }
 
-/** A kept unit's recorded data is the same object when nothing set it again (and equal when it was). */
-const sameData = (entry: UnitEntry, w: Wanted) => w.data === undefined || entry.data === w.data || entryText(entry) === JSON.stringify(w.data);
+/** A kept unit's recorded data is the same object when nothing set it again (and equal when it was: the record's text is ASCII). */
+const sameData = (entry: UnitEntry, w: Wanted) => w.data === undefined || entry.data === w.data || asciiJson(entryText(entry) ?? '') === asciiJson(JSON.stringify(w.data));
 
 /** The name of the version the site path links to. */
 export function currentVersion(sitePath: string): string | undefined {

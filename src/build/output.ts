@@ -12,9 +12,12 @@
 // On a file system without symbolic links every build does that, as zfolio always did before.
 
 import { randomBytes } from 'node:crypto';
-import { accessSync, constants, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, statSync, symlinkSync, writeFileSync, type Stats } from 'node:fs';
+import { mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { holdingName, isOwnLink, MARKER_TEXT, OutputRefused, SITE_MARKER } from './output-guard.js';
+import { entryKind } from './writable.js';
+
+export { checkSpare, checkWritable } from './writable.js';
 import { untilDone } from '../on-exit.js';
 
 /** Points in a swap, reported to `onStep` (tests stop a build at each to check the site path). */
@@ -35,6 +38,8 @@ export interface Staging {
    * build updates it); returns that version's name.
    */
   commit(options?: { version?: string; keepReplaced?: boolean }): { replaced?: string };
+  /** Give a claimed version back under its earlier name, unchanged (before it is changed), to be claimed again. */
+  release(): void;
   /** Throw the staging folder (and a claimed version) away. */
   abandon(): void;
 }
@@ -59,96 +64,6 @@ export function alive(pid: number): boolean {
   }
 }
 
-function entryKind(path: string): 'none' | 'link' | 'folder' | 'other' {
-  try {
-    const s = lstatSync(path);
-    return s.isSymbolicLink() ? 'link' : s.isDirectory() ? 'folder' : 'other';
-  } catch {
-    return 'none';
-  }
-}
-
-/**
- * Read-only folders: one the system will not let this process write, or one whose mode says nobody may
- * (chmod a-w), which zfolio respects even when run as root.
- */
-function readOnly(path: string): boolean {
-  return writable(path) === undefined;
-}
-
-/** A folder's stats when it is not read-only. */
-function writable(path: string): Stats | undefined {
-  try {
-    accessSync(path, constants.W_OK | constants.X_OK);
-    const stats = statSync(path);
-    return (stats.mode & 0o222) === 0 ? undefined : stats;
-  } catch {
-    return undefined;
-  }
-}
-
-/** This process's user id (a system call each time it is asked), undefined where there is none (Windows). */
-const USER_ID = process.getuid?.();
-
-/**
- * Whether a folder inside a site may be written, from its stats alone where they settle it: root, or its
- * owner with write and search permission, may write it unless its mode lets nobody write (which counts as
- * read-only, as in `writable`); in any other case the system is asked. One call per folder instead of two,
- * for the 10,000 part folders of a large site.
- */
-function writableInside(path: string): Stats | undefined {
-  let stats: Stats;
-  try {
-    stats = statSync(path);
-  } catch {
-    return undefined;
-  }
-  if ((stats.mode & 0o222) === 0) return undefined;
-  const uid = USER_ID;
-  if (uid === 0 || (uid === stats.uid && (stats.mode & 0o300) === 0o300)) return stats;
-  return writable(path);
-}
-
-/**
- * The first read-only folder in a tree (whose entries could then not be removed), if any. A folder whose
- * link count is 2 (its entry in its parent and its own `.`) has no folder inside it on the file systems that
- * count the links of folders (ext4, XFS, tmpfs: each folder inside adds its `..`), so it is not listed: a
- * site's part folders hold files only, and a 10,000-part site is checked without listing 10,000 folders.
- * Where folders' links are not counted (btrfs gives 1), every folder is listed, as before.
- */
-function readOnlyFolderIn(dir: string, inside = false): string | undefined {
-  const stats = inside ? writableInside(dir) : writable(dir);
-  if (!stats) return dir;
-  if (stats.nlink === 2) return undefined;
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
-    if (!entry.isDirectory()) continue;
-    const found = readOnlyFolderIn(join(dir, entry.name), true);
-    if (found) return found;
-  }
-  return undefined;
-}
-
-/**
- * Throws OutputRefused when the site could not be swapped in and the old one removed: a read-only folder
- * where the site goes, above it, or in the site it would replace. Reads only; called before the build.
- */
-export function checkWritable(sitePath: string): void {
-  const refuse = (folder: string) => {
-    throw new OutputRefused(`cannot write the site to ${sitePath}: ${folder} is read-only; make it writable or choose another --out`);
-  };
-  let parent = dirname(sitePath);
-  while (entryKind(parent) === 'none' && dirname(parent) !== parent) parent = dirname(parent);
-  if (readOnly(parent)) refuse(parent);
-  const holding = join(dirname(sitePath), holdingName(basename(sitePath)));
-  if (entryKind(holding) === 'folder' && readOnly(holding)) refuse(holding);
-  const kind = entryKind(sitePath);
-  const current = kind === 'link' ? join(dirname(sitePath), readlinkSync(sitePath)) : kind === 'folder' ? sitePath : undefined;
-  if (current && entryKind(current) === 'folder') {
-    const found = readOnlyFolderIn(current);
-    if (found) refuse(kind === 'link' && found === current ? sitePath : found);
-  }
-}
-
 export function stageOutput(sitePath: string, options: StageOptions = {}): Staging {
   const step = options.onStep ?? (() => {});
   const parent = dirname(sitePath);
@@ -162,6 +77,7 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
   writeFileSync(join(dir, SITE_MARKER), MARKER_TEXT);
   let link: string | undefined;
   let claimed: string | undefined;
+  let claimedFrom: string | undefined;
   const abandon = () => {
     if (link) rmSync(link, { force: true });
     rmSync(dir, { recursive: true, force: true });
@@ -181,7 +97,17 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
         return undefined;
       }
       claimed = to;
+      claimedFrom = join(holding, earlier);
       return to;
+    },
+    release() {
+      if (!claimed || !claimedFrom) return;
+      try {
+        renameSync(claimed, claimedFrom);
+        claimed = undefined;
+      } catch {
+        // left to be removed with the staging folder
+      }
     },
     commit(options = {}) {
       done();

@@ -17,6 +17,7 @@ import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
 import { reviewSlug } from '../present/slugs.js';
 import { libraryRevision } from '../history/library-revision.js';
 import { reviewSources } from '../pages/review-page.js';
+import type { PdfLinks } from './assemble.js';
 
 /** A printed PDF as the build record keeps it: its key, and the file's size, mtime and inode. */
 export interface PdfStamp {
@@ -97,4 +98,9 @@ export function stampPdfs(paths: Iterable<string>, keys: ReadonlyMap<string, str
     stamps[path] = { key, size: s.size, mtimeMs: s.mtimeMs, ino: s.ino };
   }
   return stamps;
+}
+
+/** What the pages link: every PDF when this build prints, else the kept ones (`kept`, site-relative paths). */
+export function pdfLinksFor(printing: boolean, kept: ReadonlySet<string>): PdfLinks {
+  return { part: (id) => printing || kept.has(partPdfPath(id)), review: (slug) => printing || kept.has(reviewPdfPath(slug)) };
 }

@@ -18,13 +18,14 @@ import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { PdfStamp } from './pdf-reuse.js';
+import { asciiJson, readText } from '../model/ascii-text.js';
 
 /** Shards of a version's units. */
 export const SHARDS = 64;
 
 export interface UnitEntry {
   key: string;
-  /** See unitStamp. */
+  /** See unitStamp (unit-stamp.ts). */
   stamp: number[];
   /** A part's data for the index and comparisons (ListedPart), and its full page data when a review shows it. */
   data?: unknown;
@@ -50,7 +51,7 @@ export function entryText(entry: UnitEntry): string | undefined {
  * escaped and had to be unescaped again, which was most of reading the record of 10,000 parts.
  */
 function shardLine(unit: string, entry: UnitEntry): string {
-  return `${JSON.stringify(unit)}\t${JSON.stringify(entry.key)}\t${JSON.stringify(entry.stamp)}\t${entryText(entry) ?? ''}`;
+  return asciiJson(`${JSON.stringify(unit)}\t${JSON.stringify(entry.key)}\t${JSON.stringify(entry.stamp)}\t${entryText(entry) ?? ''}`);
 }
 
 function readShardLines(text: string): Map<string, UnitEntry> {
@@ -67,6 +68,9 @@ function readShardLines(text: string): Map<string, UnitEntry> {
   }
   return map;
 }
+
+/** Shards read as UTF-8 (written by an older version): saved again, as ASCII (ascii-text.ts). */
+const NOT_ASCII = new WeakSet<Map<string, UnitEntry>>();
 
 /** A shard's map, or a function that reads it (once: it is shared by the versions that name it). */
 type ShardSource = Map<string, UnitEntry> | (() => Map<string, UnitEntry>);
@@ -137,7 +141,9 @@ export class VersionRecord {
   private shard(i: number): Map<string, UnitEntry> {
     const found = this.shards[i];
     if (found instanceof Map) return found;
-    return (this.shards[i] = found());
+    const map = (this.shards[i] = found());
+    if (NOT_ASCII.has(map)) this.dirty.add(i);
+    return map;
   }
 
   /** Write the shards changed since reading into `dir`; the names of all shards. */
@@ -201,7 +207,9 @@ export function readSiteRecord(dir: string, outDir: string): SiteRecord | undefi
       let map = cache.get(name);
       if (!map) {
         try {
-          map = readShardLines(readFileSync(join(dir, 'shards', name), 'utf8'));
+          const { text, ascii } = readText(join(dir, 'shards', name));
+          map = readShardLines(text);
+          if (!ascii) NOT_ASCII.add(map);
         } catch {
           map = new Map();
         }
@@ -255,23 +263,3 @@ function pruneRecords(buildsDir: string): void {
     if (i >= RECORDS_KEPT || outDir === undefined || !existsSync(outDir)) rmSync(join(buildsDir, name), { recursive: true, force: true });
   });
 }
-
-/**
- * What a hand edit of a unit would change: for a folder, its own mtime and inode (a file added, removed or
- * replaced by rename) and its page's size, mtime and inode (the page edited in place); for a file, its size,
- * mtime and inode. Empty when it is missing.
- */
-export function unitStamp(path: string, folder: boolean): number[] {
-  try {
-    const s = statSync(path, { throwIfNoEntry: false });
-    if (!s) return [];
-    if (!folder) return s.isFile() ? [s.size, s.mtimeMs, s.ino] : [];
-    if (!s.isDirectory()) return [];
-    const page = statSync(join(path, 'index.html'), { throwIfNoEntry: false });
-    return page ? [s.mtimeMs, s.ino, page.size, page.mtimeMs, page.ino] : [];
-  } catch {
-    return [];
-  }
-}
-
-export const sameStamp = (a: readonly number[], b: readonly number[]) => a.length > 0 && a.length === b.length && a.every((x, i) => x === b[i]);

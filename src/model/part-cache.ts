@@ -17,6 +17,7 @@ import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, wri
 import { join } from 'node:path';
 import { deserialize, serialize } from 'node:v8';
 import { DiagnosticList, type Diagnostic, type SourcePosition } from './diagnostics.js';
+import { asciiJson, readText } from './ascii-text.js';
 import { decodeExact, encodeExact, type Holes } from './exact-json.js';
 import type { Part } from './part.js';
 import { parseYamlSource, type SourceFile } from './source.js';
@@ -52,8 +53,8 @@ interface ShardFile {
 /** An entry's row, as JSON text. */
 function rowText(path: string, entry: Entry): string {
   const exact = encodeExact(entry);
-  if (exact) return `[${JSON.stringify(path)},${exact.text},${JSON.stringify(exact.holes)}]`;
-  return JSON.stringify([path, Buffer.from(serialize(entry)).toString('base64')]);
+  if (exact) return asciiJson(`[${JSON.stringify(path)},${exact.text},${JSON.stringify(exact.holes)}]`);
+  return asciiJson(JSON.stringify([path, Buffer.from(serialize(entry)).toString('base64')]));
 }
 
 function rowEntry(row: Row): Entry {
@@ -67,6 +68,8 @@ export class PartCache {
   /** Entries dropped this run (the file now has errors), by shard. */
   private readonly dropped = new Map<number, Set<string>>();
   private readonly seen = new Set<string>();
+  /** Shards read as UTF-8 (written by an older version): written again, as ASCII (ascii-text.ts). */
+  private readonly notAscii = new Set<number>();
   /** Files read and parsed this run, and files taken from the cache. */
   readonly counts = { parsed: 0, cached: 0 };
 
@@ -116,7 +119,7 @@ export class PartCache {
 
   /** Write the shards changed, dropping entries of files not looked up this run (removed from the library). */
   save(): void {
-    const dirty = new Set<number>([...this.stored.keys(), ...this.dropped.keys()]);
+    const dirty = new Set<number>([...this.stored.keys(), ...this.dropped.keys(), ...this.notAscii]);
     for (let i = 0; i < SHARDS; i++) {
       const shard = this.shards[i];
       if (shard && [...shard.keys()].some((path) => !this.seen.has(path))) dirty.add(i);
@@ -126,16 +129,17 @@ export class PartCache {
     for (const i of dirty) {
       // The rows as the file holds them (the parts handed out may have been changed since), less those of
       // files gone or now with errors, with those stored this run.
-      const rows = new Map(this.readRows(i).map((row) => [row[0], JSON.stringify(row)]));
+      const rows = new Map(this.readRows(i).map((row) => [row[0], asciiJson(JSON.stringify(row))]));
       for (const path of [...rows.keys()]) if (!this.seen.has(path) || this.dropped.get(i)?.has(path)) rows.delete(path);
       for (const [path, text] of this.stored.get(i) ?? []) rows.set(path, text);
       const file = this.shardFile(i);
       const temp = `${file}.${process.pid}.tmp`;
-      writeFileSync(temp, `{"format":${FORMAT},"key":${JSON.stringify(this.key)},"rows":[\n${[...rows.values()].join(',\n')}\n]}\n`);
+      writeFileSync(temp, `{"format":${FORMAT},"key":${asciiJson(JSON.stringify(this.key))},"rows":[\n${[...rows.values()].join(',\n')}\n]}\n`);
       renameSync(temp, file);
     }
     this.stored.clear();
     this.dropped.clear();
+    this.notAscii.clear();
     for (const name of readdirSync(this.dir)) if (!/^\d\d\.json$/.test(name)) rmSync(join(this.dir, name), { force: true });
   }
 
@@ -152,7 +156,9 @@ export class PartCache {
   /** A shard's rows as its file holds them (none when it is missing, unreadable or of other code). */
   private readRows(i: number): Row[] {
     try {
-      const data = JSON.parse(readFileSync(this.shardFile(i), 'utf8')) as ShardFile;
+      const { text, ascii } = readText(this.shardFile(i));
+      if (!ascii) this.notAscii.add(i);
+      const data = JSON.parse(text) as ShardFile;
       if (data.format === FORMAT && data.key === this.key && Array.isArray(data.rows)) return data.rows;
     } catch {
       // none yet, or unreadable: read the files again

@@ -6,7 +6,7 @@
 // change only the last site, not the library).
 
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio } from '../../src/build/build.js';
@@ -148,6 +148,18 @@ describe('a rebuild with the last site and the cache in place', () => {
     // Built afresh, or kept from the spare version when the spare's copy is not the edited file.
     expect(rebuilt.reused).toBeGreaterThanOrEqual(loadLibrary(root).library!.parts.length - 1);
     expect(readFileSync(page, 'utf8')).not.toContain('edited by hand');
+  }, 240_000);
+
+  it('puts back a download removed from the last site by hand, and a page replaced there by rename', async () => {
+    // The live site's copy of a part folder changed by hand; the rebuild keeps the spare's copy (its page
+    // shared with the live one by hard link, so the page's stamp is that of the live page) or makes it afresh.
+    const folder = join(out, 'parts', 'ORV-C-0805-10U-X5R');
+    rmSync(join(folder, 'sweep.csv'));
+    writeFileSync(join(folder, 'index.tmp'), readFileSync(join(folder, 'index.html'), 'utf8').replace('</main>', '<p>replaced by hand</p></main>'));
+    renameSync(join(folder, 'index.tmp'), join(folder, 'index.html'));
+    const rebuilt = await rebuildAndCompare();
+    expect(rebuilt.reused).toBeGreaterThanOrEqual(loadLibrary(root).library!.parts.length - 1);
+    expect(readFileSync(join(folder, 'index.html'), 'utf8')).not.toContain('replaced by hand');
   }, 240_000);
 
   it('builds from nothing when the last site is gone, with the versions beside it', async () => {

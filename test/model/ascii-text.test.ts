@@ -1,0 +1,73 @@
+// Cache text written as ASCII and read back as one-byte text (src/model/ascii-text.ts): the escapes give back
+// every character (JSON's \u escapes, ECMA-404 section 9, UTF-16 code units: a character beyond U+FFFF is a
+// surrogate pair), and a file of other bytes is still read as UTF-8. The build record and the part cache that
+// write through it are checked here too: a shard an older version wrote with UTF-8 is written again as ASCII.
+
+import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { asciiJson, readText } from '../../src/model/ascii-text.js';
+import { entryData, readSiteRecord, VersionRecord, writeSiteRecord } from '../../src/build/site-record.js';
+import { tempDir } from '../site-helpers.js';
+
+const SAMPLE = { title: '100 nF ±10 %, 0402 — X7R', esr: '≤ 30 mΩ', tags: ['µ', 'é', '😀', 'tab\tand\nline'], n: 1.5e-9 };
+const allAscii = (bytes: Buffer) => bytes.every((b) => b < 0x80);
+
+describe('asciiJson', () => {
+  it('escapes every character beyond ASCII, and the text parses to the same value', () => {
+    const text = asciiJson(JSON.stringify(SAMPLE));
+    expect(allAscii(Buffer.from(text, 'utf8'))).toBe(true);
+    expect(text).toContain('\\u03a9'); // Ω, GREEK CAPITAL LETTER OMEGA (U+03A9)
+    expect(text).toContain('\\ud83d\\ude00'); // U+1F600 as its UTF-16 surrogate pair
+    expect(JSON.parse(text)).toEqual(SAMPLE);
+    expect(asciiJson('{"a":"plain"}')).toBe('{"a":"plain"}');
+  });
+});
+
+describe('readText', () => {
+  it('reads an ASCII file as the same string, and a file with other bytes as UTF-8', () => {
+    const dir = tempDir('ascii-text');
+    writeFileSync(join(dir, 'a.json'), asciiJson(JSON.stringify(SAMPLE)));
+    writeFileSync(join(dir, 'u.json'), JSON.stringify(SAMPLE));
+    const a = readText(join(dir, 'a.json'));
+    expect(a.ascii).toBe(true);
+    expect(a.text).toBe(readFileSync(join(dir, 'a.json'), 'utf8'));
+    const u = readText(join(dir, 'u.json'));
+    expect(u.ascii).toBe(false);
+    expect(JSON.parse(u.text)).toEqual(SAMPLE);
+  });
+});
+
+describe('the build record', () => {
+  it('writes its shards as ASCII, and writes a UTF-8 shard of an older version again as ASCII', () => {
+    const dir = tempDir('ascii-record');
+    const out = join(dir, 'site');
+    const records = join(dir, 'builds', 'one');
+    mkdirSync(out);
+    const live = new VersionRecord('site-1-aaaaaaaa');
+    for (let i = 0; i < 100; i++) live.set(`parts/P${i}`, { key: `k${i}`, stamp: [i], data: { listed: { id: `P${i}`, ...SAMPLE } } });
+    writeSiteRecord(records, { outDir: out, live, pdfs: {} });
+    const shardDir = join(records, 'shards');
+    const files = () => readdirSync(shardDir).map((name) => readFileSync(join(shardDir, name)));
+    expect(files().every(allAscii)).toBe(true);
+    expect(entryData(readSiteRecord(records, out)!.live!.get('parts/P7'))).toEqual({ listed: { id: 'P7', ...SAMPLE } });
+
+    // As an older version wrote them: the same lines, with the characters as UTF-8, in files named otherwise
+    // (a shard is named by a hash of its text).
+    let root = readFileSync(join(records, 'root.json'), 'utf8');
+    for (const name of readdirSync(shardDir)) {
+      const text = readFileSync(join(shardDir, name), 'utf8');
+      writeFileSync(join(shardDir, `old${name}`), text.replace(/\\u([0-9a-f]{4})/g, (_, h: string) => String.fromCharCode(parseInt(h, 16))));
+      rmSync(join(shardDir, name));
+      root = root.replaceAll(`"${name}"`, `"old${name}"`);
+    }
+    writeFileSync(join(records, 'root.json'), root);
+    expect(files().some((b) => !allAscii(b))).toBe(true);
+    const old = readSiteRecord(records, out)!;
+    expect(entryData(old.live!.get('parts/P7'))).toEqual({ listed: { id: 'P7', ...SAMPLE } });
+    for (const _ of old.live!.units()); // read every shard, as a rebuild reads its spare's
+    writeSiteRecord(records, { outDir: out, live: old.live, pdfs: {} });
+    expect(files().every(allAscii)).toBe(true);
+    expect(entryData(readSiteRecord(records, out)!.live!.get('parts/P9'))).toEqual({ listed: { id: 'P9', ...SAMPLE } });
+  });
+});
