@@ -11,7 +11,6 @@ import { reviewWarnings } from '../model/review-consistency.js';
 import type { PaperSize } from '../model/settings.js';
 import { assembleSite, type BuildWork, type CarriedPart } from './assemble.js';
 import { stageClock, type BuildTimings, type StageTime } from './stage-clock.js';
-import type { Browser } from 'puppeteer-core';
 import type { ChartMaker } from './chart-maker.js';
 import { libraryChartPool, type ChartPool, type ChartPoolStats } from './chart-pool.js';
 import { renderPages, TEMPLATES_DIR } from './eleventy.js';
@@ -21,6 +20,7 @@ import { escapeJsonMarkup } from '../present/escape.js';
 import { guardOutput } from './output-guard.js';
 import type { FolioData } from '../pages/site-data.js';
 import type { PrintedFile } from '../print/print.js';
+import type { PrintBrowser } from '../print/browser.js';
 import { buildDate, printJobsFor, type PrintSelection } from '../print/print-jobs.js';
 import { silentProgress, type Progress } from './progress.js';
 import { codeKey, partKey, siteKey } from './reuse.js';
@@ -69,6 +69,8 @@ export interface BuildOptions {
 export interface PdfOptions {
   /** --chrome PATH. */
   chrome?: string;
+  /** A running browser to print with instead of starting one (left running); `chrome` is then not used. */
+  browser?: PrintBrowser;
   env: Readonly<Record<string, string | undefined>>;
   /** Default: folio.yaml's paper. */
   paper?: PaperSize;
@@ -162,27 +164,17 @@ async function loadAndBuild(options: BuildOptions, outDir: string, { at: started
   result.measurements = measured.byPart;
   if (measured.diagnostics.some((d) => d.severity === 'error')) return result;
 
-  // Chromium first: one that is missing or will not start is known before the build's time is spent, and the
-  // pages then link only the PDFs there are (kept ones, as a build without --pdf).
-  let browser: Browser | undefined;
-  if (options.pdf) {
-    // Loaded only to print: the browser driver and the PDF library are most of a build's start-up otherwise.
-    const { ChromeStartError, chromeHint, findChrome, launchChrome } = await import('../print/browser.js');
-    const chrome = findChrome(options.pdf.chrome, options.pdf.env);
-    if ('problem' in chrome) result.pdfProblem = chromeHint(chrome.problem);
-    else {
-      try {
-        browser = await launchChrome(chrome.path);
-      } catch (error) {
-        if (!(error instanceof ChromeStartError)) throw error;
-        result.pdfProblem = error.message;
-      }
-    }
-  }
+  // Chromium first (unless one is given): one that is missing or will not start is known before the build's
+  // time is spent, and the pages then link only the PDFs there are (kept ones, as a build without --pdf). The
+  // browser driver is loaded only to print: it and the PDF library are most of a build's start-up otherwise.
+  const chrome = options.pdf && !options.pdf.browser ? await (await import('../print/browser.js')).chromeForPrinting(options.pdf.chrome, options.pdf.env) : undefined;
+  if (chrome && 'problem' in chrome) result.pdfProblem = chrome.problem;
+  const own = chrome && 'browser' in chrome ? chrome.browser : undefined;
+  const browser = options.pdf?.browser ?? own;
   try {
     return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history, early, cacheRoot, recordAt, record });
   } finally {
-    await browser?.close();
+    await own?.close();
   }
 }
 
@@ -197,7 +189,7 @@ interface Running {
   clock: () => StageTime;
 }
 
-async function buildWith(options: BuildOptions, library: Library, outDir: string, browser: Browser | undefined, result: BuildResult, run: Running): Promise<BuildResult> {
+async function buildWith(options: BuildOptions, library: Library, outDir: string, browser: PrintBrowser | undefined, result: BuildResult, run: Running): Promise<BuildResult> {
   const { progress, cacheRoot, recordAt, record } = run;
   const { timings, work } = result;
   let clock = run.clock;

@@ -1,7 +1,7 @@
 // Finding and starting the system's Chromium for PDFs. zfolio never downloads a browser.
 
 import { existsSync } from 'node:fs';
-import puppeteer, { type Browser } from 'puppeteer-core';
+import puppeteer, { type Browser, type BrowserContext } from 'puppeteer-core';
 import { untilDone } from '../on-exit.js';
 
 export const CHROME_ENV = 'ZFOLIO_CHROME';
@@ -52,6 +52,24 @@ const FLAGS = [
   '--mute-audio',
   '--font-render-hinting=none',
 ];
+
+/** What printing needs of a browser: new tabs. A Browser, or a context of one (a browser the caller runs). */
+export type PrintBrowser = Pick<Browser | BrowserContext, 'newPage'>;
+
+/**
+ * The Chromium for a build's PDFs, started: `explicit` (--chrome), else $ZFOLIO_CHROME, else the usual paths;
+ * or the line that tells the user why there is none (the caller closes the browser).
+ */
+export async function chromeForPrinting(explicit: string | undefined, env: Readonly<Record<string, string | undefined>>): Promise<{ browser: Browser } | { problem: string }> {
+  const chrome = findChrome(explicit, env);
+  if ('problem' in chrome) return { problem: chromeHint(chrome.problem) };
+  try {
+    return { browser: await launchChrome(chrome.path) };
+  } catch (error) {
+    if (!(error instanceof ChromeStartError)) throw error;
+    return { problem: error.message };
+  }
+}
 
 /** A Chromium that would not start (not a browser, a broken install, no display libraries...). */
 export class ChromeStartError extends Error {}

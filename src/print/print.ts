@@ -5,7 +5,8 @@
 import { writeFileSync, mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import type { Browser, Page } from 'puppeteer-core';
+import type { Page } from 'puppeteer-core';
+import type { PrintBrowser } from './browser.js';
 import type { PaperSize } from '../model/settings.js';
 import { headingPages, loadForPrint, printLoadedPage, withMetadata, type PageFurniture, type PdfMetadata } from './pdf.js';
 import type { Progress } from '../build/progress.js';
@@ -30,8 +31,8 @@ export interface PrintedFile {
 /** Tabs printing at once: one per core on the machines zfolio targets. */
 const CONCURRENCY = 2;
 
-/** Print every job with `browser` (started with launchChrome; the caller closes it). */
-export async function printJobs(browser: Browser, jobs: PrintJob[], paper: PaperSize, date: Date, progress: Progress): Promise<PrintedFile[]> {
+/** Print every job with `browser` (started with launchChrome, or a context of one; the caller closes it). */
+export async function printJobs(browser: PrintBrowser, jobs: PrintJob[], paper: PaperSize, date: Date, progress: Progress): Promise<PrintedFile[]> {
   progress.stage('pdf', jobs.length);
   const results: PrintedFile[] = new Array(jobs.length);
   let next = 0;

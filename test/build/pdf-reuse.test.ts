@@ -4,7 +4,8 @@
 import { execFileSync } from 'node:child_process';
 import { existsSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext } from 'puppeteer-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio } from '../../src/build/build.js';
 import { pdfKeys } from '../../src/build/pdf-reuse.js';
 import { siteKey } from '../../src/build/reuse.js';
@@ -12,6 +13,7 @@ import { loadLibrary } from '../../src/model/library.js';
 import { run } from '../cli/fake-io.js';
 import { copyLibrary, read, REPO, tempDir } from '../site-helpers.js';
 import { GIT_ENV, useGitEnv } from '../history/git-repo.js';
+import { startChrome, stopChrome } from '../print/site-tabs.js';
 
 const GOOD = join(REPO, 'test/fixtures/good-library');
 const IDS = ['BEAD-TEST-600R', 'CAP-TEST-100N', 'IND-TEST-10U', 'NET-TEST-BULK', 'RES-TEST-4K7'];
@@ -86,13 +88,19 @@ describe('build after build --pdf', () => {
   const pdf = (id: string) => join(site, 'pdf', 'parts', `${id}.pdf`);
   const inode = (file: string) => statSync(file).ino;
 
+  let browser: BrowserContext;
+
   beforeAll(async () => {
     root = copyLibrary(GOOD, 'pdf-keep');
     site = join(root, '_site');
-    const printed = await buildFolio({ libraryRoot: root, outDir: site, cwd: root, workers: 0, pdf: { env: process.env, date: new Date('2026-12-01T12:00:00Z') } });
+    // Printed by the run's Chromium (test/setup/shared-chrome.ts), in this file's context of it.
+    browser = await startChrome();
+    const printed = await buildFolio({ libraryRoot: root, outDir: site, cwd: root, workers: 0, pdf: { env: process.env, browser, date: new Date('2026-12-01T12:00:00Z') } });
     expect(printed.pdfProblem).toBeUndefined();
     expect(printed.pdfs.map((p) => p.pdfFile).sort()).toEqual(IDS.map((id) => `pdf/parts/${id}.pdf`));
   }, 120_000);
+
+  afterAll(() => stopChrome(browser));
 
   it('keeps every PDF when nothing changed: the same files, linked from the same pages', async () => {
     const inodes = IDS.map((id) => inode(pdf(id)));

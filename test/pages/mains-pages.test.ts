@@ -41,9 +41,10 @@ beforeAll(async () => {
     `title: ${JSON.stringify(REVIEW_TITLE)}\ndate: 2026-03-18\nboard: test board\nreviewers: [A. Person]\ncovers: {parts: [${X2}, T-PLAIN]}\ndecisions: [Keep the X2 part]\n`,
   );
   site = join(root, '_site');
-  result = await buildFolio({ libraryRoot: root, outDir: site, cache: false, workers: 0, pdf: { env: process.env, select: { parts: new Set([X2]), reviews: new Set() } } });
-  if (result.pdfProblem) throw new Error(`these tests need Chromium: ${result.pdfProblem}`);
+  // The run's Chromium (test/setup/shared-chrome.ts) prints the PDFs, in this file's context of it.
   browser = await startChrome();
+  result = await buildFolio({ libraryRoot: root, outDir: site, cache: false, workers: 0, pdf: { env: process.env, browser, select: { parts: new Set([X2]), reviews: new Set() } } });
+  if (result.pdfProblem) throw new Error(`these tests need Chromium: ${result.pdfProblem}`);
 }, 240_000);
 
 afterAll(async () => {

@@ -9,13 +9,15 @@
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext } from 'puppeteer-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analysePlan } from '../../src/analysis/plan-figures.js';
 import { buildFolio, type BuildResult } from '../../src/build/build.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { formatDecibels } from '../../src/units/format.js';
 import { run } from '../cli/fake-io.js';
 import { read, tempDir } from '../site-helpers.js';
+import { startChrome, stopChrome } from '../print/site-tabs.js';
 
 const ESR = 0.01;
 const ESL = 1e-9;
@@ -25,6 +27,7 @@ const marginDb = (c: number) => 20 * Math.log10(TARGET / seriesRlc(1e5, c));
 
 let root: string;
 let built: BuildResult;
+let browser: BrowserContext;
 
 beforeAll(async () => {
   root = tempDir('review-corners');
@@ -33,15 +36,19 @@ beforeAll(async () => {
   writeFileSync(join(root, 'parts/c.yaml'), 'id: T-C-1U\nkind: capacitor\nnominal: 1u\ntolerance: 20%\nvoltage: 16V\nparasitics: {esr: 10m, esl: 1n}\n');
   writeFileSync(join(root, 'plans/edge.yaml'), `rail: RAIL_EDGE\nvoltage: 1V\ntarget: ${TARGET}\nband: {from: 100k, to: 10M}\nmounting: 0nH\ncapacitors:\n  - {part: T-C-1U, count: 1}\n`);
   writeFileSync(join(root, 'reviews/r.yaml'), 'title: Corner review (invented)\ndate: 2026-03-18\nboard: test board\nreviewers: [A. Person]\ncovers: {plans: [RAIL_EDGE]}\ndecisions: [Measure the rail before sign-off.]\n');
+  // Printed by the run's Chromium (test/setup/shared-chrome.ts), in this file's context of it.
+  browser = await startChrome();
   built = await buildFolio({
     libraryRoot: root,
     outDir: join(root, '_site'),
     cache: false,
     workers: 0,
-    pdf: { env: process.env, date: new Date('2026-12-01T12:00:00Z'), select: { parts: new Set(['T-C-1U']) } },
+    pdf: { env: process.env, browser, date: new Date('2026-12-01T12:00:00Z'), select: { parts: new Set(['T-C-1U']) } },
   });
   if (built.pdfProblem) throw new Error(`PDF tests need Chromium: ${built.pdfProblem}`);
 }, 300_000);
+
+afterAll(() => stopChrome(browser));
 
 /** A PDF's text, its lines' runs of spaces (layout columns, wrapped lines) read as one space. */
 const pdfText = (file: string) => execFileSync('pdftotext', ['-layout', join(root, '_site', file), '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');

@@ -7,12 +7,14 @@ import { execFileSync } from 'node:child_process';
 import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext } from 'puppeteer-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio, CACHE_DIR, type BuildResult } from '../../src/build/build.js';
 import { main } from '../../src/cli/main.js';
 import { loadLibrary } from '../../src/model/library.js';
 import { read, REPO, tempDir, copyLibrary } from '../site-helpers.js';
 import { demoCache } from '../demo-site.js';
+import { startChrome, stopChrome } from './site-tabs.js';
 import { measurePdf, nearlyEmptyPages, shareUnder, type PdfLegibility } from '../../bench/print-legibility.js';
 
 const DATE = new Date('2026-12-01T12:00:00Z');
@@ -24,6 +26,7 @@ const NETWORK = 'ORV-N-L-PWR-2U2-SKIN';
 const library = loadLibrary(REPO).library!;
 let result: BuildResult;
 let site: string;
+let browser: BrowserContext;
 /** Each PDF read back once with pdftotext -bbox. */
 const measured = new Map<string, PdfLegibility>();
 const measure = (file: string) => measured.get(file) ?? measured.set(file, measurePdf(file)).get(file)!;
@@ -37,15 +40,20 @@ const pdfinfo = (file: string) => Object.fromEntries(execFileSync('pdfinfo', [fi
 beforeAll(async () => {
   site = join(tempDir('pdf'), '_site');
   // The charts the run's shared demo build drew (test/demo-site.ts), from a copy of its cache: this build
-  // prints them rather than drawing them again, and writes nothing into the repository's own cache.
+  // prints them rather than drawing them again, and writes nothing into the repository's own cache. It
+  // prints with the run's Chromium (test/setup/shared-chrome.ts), in this file's context of it; the
+  // `zfolio print` below starts a Chromium of its own, as a build does.
+  browser = await startChrome();
   result = await buildFolio({
     libraryRoot: REPO,
     outDir: site,
     cache: await demoCache(),
-    pdf: { env: process.env, date: DATE },
+    pdf: { env: process.env, browser, date: DATE },
   });
   if (result.pdfProblem) throw new Error(`PDF tests need Chromium: ${result.pdfProblem}`);
 }, 600_000);
+
+afterAll(() => stopChrome(browser));
 
 describe('part datasheets', () => {
   it('are written for every part, a pack for every review, and linked from their pages', () => {
