@@ -93,8 +93,8 @@ describe('build after build --pdf', () => {
   beforeAll(async () => {
     root = copyLibrary(GOOD, 'pdf-keep');
     site = join(root, '_site');
-    // Printed by the run's Chromium (test/setup/shared-chrome.ts), in this file's context of it.
-    browser = await startChrome();
+    // Printed by the run's Chromium for printing (test/setup/shared-chrome.ts), in this file's context of it.
+    browser = await startChrome('print');
     const printed = await buildFolio({ libraryRoot: root, outDir: site, cwd: root, workers: 0, pdf: { env: process.env, browser, date: new Date('2026-12-01T12:00:00Z') } });
     expect(printed.pdfProblem).toBeUndefined();
     expect(printed.pdfs.map((p) => p.pdfFile).sort()).toEqual(IDS.map((id) => `pdf/parts/${id}.pdf`));

@@ -41,8 +41,9 @@ beforeAll(async () => {
     `title: ${JSON.stringify(REVIEW_TITLE)}\ndate: 2026-03-18\nboard: test board\nreviewers: [A. Person]\ncovers: {parts: [${X2}, T-PLAIN]}\ndecisions: [Keep the X2 part]\n`,
   );
   site = join(root, '_site');
-  // The run's Chromium (test/setup/shared-chrome.ts) prints the PDFs, in this file's context of it.
-  browser = await startChrome();
+  // The run's Chromium for printing (test/setup/shared-chrome.ts) prints the PDFs and opens the pages, in this
+  // file's context of it.
+  browser = await startChrome('print');
   result = await buildFolio({ libraryRoot: root, outDir: site, cache: false, workers: 0, pdf: { env: process.env, browser, select: { parts: new Set([X2]), reviews: new Set() } } });
   if (result.pdfProblem) throw new Error(`these tests need Chromium: ${result.pdfProblem}`);
 }, 240_000);

@@ -36,8 +36,8 @@ beforeAll(async () => {
   writeFileSync(join(root, 'parts/c.yaml'), 'id: T-C-1U\nkind: capacitor\nnominal: 1u\ntolerance: 20%\nvoltage: 16V\nparasitics: {esr: 10m, esl: 1n}\n');
   writeFileSync(join(root, 'plans/edge.yaml'), `rail: RAIL_EDGE\nvoltage: 1V\ntarget: ${TARGET}\nband: {from: 100k, to: 10M}\nmounting: 0nH\ncapacitors:\n  - {part: T-C-1U, count: 1}\n`);
   writeFileSync(join(root, 'reviews/r.yaml'), 'title: Corner review (invented)\ndate: 2026-03-18\nboard: test board\nreviewers: [A. Person]\ncovers: {plans: [RAIL_EDGE]}\ndecisions: [Measure the rail before sign-off.]\n');
-  // Printed by the run's Chromium (test/setup/shared-chrome.ts), in this file's context of it.
-  browser = await startChrome();
+  // Printed by the run's Chromium for printing (test/setup/shared-chrome.ts), in this file's context of it.
+  browser = await startChrome('print');
   built = await buildFolio({
     libraryRoot: root,
     outDir: join(root, '_site'),

@@ -41,9 +41,9 @@ beforeAll(async () => {
   site = join(tempDir('pdf'), '_site');
   // The charts the run's shared demo build drew (test/demo-site.ts), from a copy of its cache: this build
   // prints them rather than drawing them again, and writes nothing into the repository's own cache. It
-  // prints with the run's Chromium (test/setup/shared-chrome.ts), in this file's context of it; the
+  // prints with the run's Chromium for printing (test/setup/shared-chrome.ts), in this file's context of it; the
   // `zfolio print` below starts a Chromium of its own, as a build does.
-  browser = await startChrome();
+  browser = await startChrome('print');
   result = await buildFolio({
     libraryRoot: REPO,
     outDir: site,

@@ -16,12 +16,13 @@ export const ARTIFACTS = join(REPO, 'test', '.artifacts');
 
 /**
  * A context of its own in the run's Chromium (started on the first call of the run); a machine without
- * Chromium fails here rather than skipping. Close it with `stopChrome`.
+ * Chromium fails here rather than skipping. Close it with `stopChrome`. Test builds that print ask for the
+ * run's other Chromium, `'print'`, to give as their `pdf.browser`.
  */
-export async function startChrome(): Promise<BrowserContext> {
+export async function startChrome(use: 'pages' | 'print' = 'pages'): Promise<BrowserContext> {
   mkdirSync(ARTIFACTS, { recursive: true });
   // The viewport zfolio's own launch gives a new tab (src/print/browser.ts).
-  const browser = await puppeteer.connect({ browserWSEndpoint: await chromeEndpoint(inject('chromeSocket')), defaultViewport: { width: 1200, height: 900 } });
+  const browser = await puppeteer.connect({ browserWSEndpoint: await chromeEndpoint(inject('chromeSocket'), use), defaultViewport: { width: 1200, height: 900 } });
   return browser.createBrowserContext();
 }
 

@@ -2,6 +2,8 @@
 // first time a file asks for it and closed when the run ends. A file asks over a unix socket in the run's
 // folder and gets the browser's DevTools endpoint (test/print/site-tabs.ts connects to it with a browser
 // context of its own). A run with no browser test starts no Chromium and loads no browser driver.
+// The test builds that print PDFs ask for a second one (path /print), so that their printing does not share
+// a browser with the tests that time pages and screenshots.
 
 import { rmSync } from 'node:fs';
 import { createServer, request, type Server } from 'node:http';
@@ -11,9 +13,10 @@ import type { Browser } from 'puppeteer-core';
 /** The main process's side: answers every request with the endpoint (starting Chromium on the first one). */
 export function serveChrome(folder: string): { socket: string; close(): Promise<void> } {
   const socket = join(folder, 'chrome.sock');
-  let browser: Promise<Browser> | undefined;
-  const server: Server = createServer((_request, response) => {
-    browser ??= startChromium();
+  const browsers = new Map<string, Promise<Browser>>();
+  const server: Server = createServer((request, response) => {
+    const use = request.url === '/print' ? 'print' : 'pages';
+    const browser = browsers.get(use) ?? browsers.set(use, startChromium()).get(use)!;
     browser.then(
       (b) => response.end(b.wsEndpoint()),
       (error: unknown) => {
@@ -29,8 +32,7 @@ export function serveChrome(folder: string): { socket: string; close(): Promise<
       await new Promise((done) => server.close(done));
       rmSync(socket, { force: true });
       // A Chromium that failed to start has nothing to close.
-      const started = await browser?.catch(() => undefined);
-      await started?.close();
+      for (const browser of browsers.values()) await (await browser.catch(() => undefined))?.close();
     },
   };
 }
@@ -43,10 +45,10 @@ async function startChromium(): Promise<Browser> {
   return launchChrome(chrome.path);
 }
 
-/** A test file's side: the shared Chromium's DevTools endpoint. */
-export function chromeEndpoint(socket: string): Promise<string> {
+/** A test file's side: the DevTools endpoint of the shared Chromium for pages, or of the one for printing. */
+export function chromeEndpoint(socket: string, use: 'pages' | 'print' = 'pages'): Promise<string> {
   return new Promise((resolve, reject) => {
-    const asked = request({ socketPath: socket, path: '/' }, (response) => {
+    const asked = request({ socketPath: socket, path: use === 'print' ? '/print' : '/' }, (response) => {
       let text = '';
       response.setEncoding('utf8');
       response.on('data', (chunk: string) => (text += chunk));
