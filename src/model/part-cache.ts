@@ -24,7 +24,7 @@ import { parseYamlSource, type SourceFile } from './source.js';
 
 const SHARDS = 64;
 /** Changes whenever what an entry holds changes shape (or what reading a part gives does: see codeKey). */
-const FORMAT = 4;
+const FORMAT = 3;
 
 export interface CachedRead {
   part: Part;
@@ -41,42 +41,20 @@ interface Entry {
   diagnostics: Diagnostic[];
 }
 
-/**
- * An entry as read from its shard file: [path, entry as exact JSON, its holes] or [path, base64 of v8 bytes].
- * The file holds each holes list once, in `holes`, and a row the index of its own: the entries of a shard
- * share a few lists (the fields a part leaves undefined), which as arrays of their own in every row were 45%
- * of the objects, arrays and strings JSON.parse made of a shard (generated parts), each one more for the
- * garbage collector to copy.
- */
+/** An entry as its shard file holds it: [path, entry as exact JSON, its holes] or [path, base64 of v8 bytes]. */
 type Row = [string, unknown, Holes] | [string, string];
 
 interface ShardFile {
   format?: number;
   key?: string;
-  holes?: Holes[];
-  rows?: ([string, unknown, number] | [string, string])[];
+  rows?: Row[];
 }
 
-/** An entry to write: its exact JSON text and holes, or its v8 bytes as base64. */
-type StoredRow = { exact: string; holes: Holes } | { v8: string };
-
-function storedRow(entry: Entry): StoredRow {
+/** An entry's row, as JSON text. */
+function rowText(path: string, entry: Entry): string {
   const exact = encodeExact(entry);
-  return exact ? { exact: exact.text, holes: exact.holes } : { v8: Buffer.from(serialize(entry)).toString('base64') };
-}
-
-/** A shard's file text: each distinct holes list once, and each row naming its own by index. */
-function shardText(format: number, key: string, rows: ReadonlyMap<string, StoredRow>): string {
-  const index = new Map<string, number>();
-  const lists: string[] = [];
-  const holesAt = (holes: Holes) => {
-    const text = JSON.stringify(holes);
-    let i = index.get(text);
-    if (i === undefined) index.set(text, (i = lists.push(text) - 1));
-    return i;
-  };
-  const lines = [...rows].map(([path, row]) => ('v8' in row ? JSON.stringify([path, row.v8]) : `[${JSON.stringify(path)},${row.exact},${holesAt(row.holes)}]`));
-  return asciiJson(`{"format":${format},"key":${JSON.stringify(key)},"holes":[${lists.join(',')}],"rows":[\n${lines.join(',\n')}\n]}\n`);
+  if (exact) return asciiJson(`[${JSON.stringify(path)},${exact.text},${JSON.stringify(exact.holes)}]`);
+  return asciiJson(JSON.stringify([path, Buffer.from(serialize(entry)).toString('base64')]));
 }
 
 function rowEntry(row: Row): Entry {
@@ -86,7 +64,7 @@ function rowEntry(row: Row): Entry {
 export class PartCache {
   private readonly shards: (Map<string, Entry> | undefined)[] = Array.from({ length: SHARDS }, () => undefined);
   /** Rows of the entries stored this run, made when stored (the part is the build's afterwards), by shard. */
-  private readonly stored = new Map<number, Map<string, StoredRow>>();
+  private readonly stored = new Map<number, Map<string, string>>();
   /** Entries dropped this run (the file now has errors), by shard. */
   private readonly dropped = new Map<number, Set<string>>();
   private readonly seen = new Set<string>();
@@ -127,7 +105,7 @@ export class PartCache {
     if (!stamp) return;
     const { source, ...rest } = read.part;
     const entry = { stamp, hash: source.hash, part: { ...rest, source: undefined }, declared: read.declared, diagnostics: read.diagnostics };
-    this.changes(this.stored, shardOf(path), () => new Map()).set(path, storedRow(entry));
+    this.changes(this.stored, shardOf(path), () => new Map()).set(path, rowText(path, entry));
     this.dropped.get(shardOf(path))?.delete(path);
   }
 
@@ -151,12 +129,12 @@ export class PartCache {
     for (const i of dirty) {
       // The rows as the file holds them (the parts handed out may have been changed since), less those of
       // files gone or now with errors, with those stored this run.
-      const rows = new Map(this.readRows(i).map((row): [string, StoredRow] => [row[0], row.length === 3 ? { exact: JSON.stringify(row[1]), holes: row[2] } : { v8: row[1] }]));
+      const rows = new Map(this.readRows(i).map((row) => [row[0], asciiJson(JSON.stringify(row))]));
       for (const path of [...rows.keys()]) if (!this.seen.has(path) || this.dropped.get(i)?.has(path)) rows.delete(path);
-      for (const [path, row] of this.stored.get(i) ?? []) rows.set(path, row);
+      for (const [path, text] of this.stored.get(i) ?? []) rows.set(path, text);
       const file = this.shardFile(i);
       const temp = `${file}.${process.pid}.tmp`;
-      writeFileSync(temp, shardText(FORMAT, this.key, rows));
+      writeFileSync(temp, `{"format":${FORMAT},"key":${asciiJson(JSON.stringify(this.key))},"rows":[\n${[...rows.values()].join(',\n')}\n]}\n`);
       renameSync(temp, file);
     }
     this.stored.clear();
@@ -181,13 +159,7 @@ export class PartCache {
       const { text, ascii } = readText(this.shardFile(i));
       if (!ascii) this.notAscii.add(i);
       const data = JSON.parse(text) as ShardFile;
-      const holes = data.holes;
-      if (data.format !== FORMAT || data.key !== this.key || !Array.isArray(data.rows) || !Array.isArray(holes)) return [];
-      return data.rows.map((row): Row => {
-        if (row.length === 2) return row;
-        if (!Array.isArray(holes[row[2]])) throw new Error('no such holes list');
-        return [row[0], row[1], holes[row[2]]];
-      });
+      if (data.format === FORMAT && data.key === this.key && Array.isArray(data.rows)) return data.rows;
     } catch {
       // none yet, or unreadable: read the files again
     }

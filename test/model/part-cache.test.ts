@@ -1,7 +1,7 @@
 // The part cache: a library loaded with it gives the very parts and problems a load without it gives, and
 // reads and parses only the part files that changed since (or that have errors, which are never kept).
 
-import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { isDeepStrictEqual } from 'node:util';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -132,31 +132,5 @@ describe('PartCache', () => {
     expect(third.result.library!.parts.map((p) => p.title).filter((t) => /changed/.test(t))).toEqual([]);
     expect(partsOf(third.result)).toEqual(partsOf(loadLibrary(root)));
   });
-
-  it('writes each shard as ASCII with each holes list once, reads back the parts a load without it gives, and writes a UTF-8 shard again', () => {
-    writeFileSync(join(root, 'parts', 'micro.yaml'), capacitor('CAP-MICRO', '20m').replace('(invented)', 'of 4.7 µF, ≤ 30 mΩ (invented)'));
-    load();
-    const shards = readdirSync(cacheDir).map((name) => join(cacheDir, name));
-    for (const file of shards) {
-      const bytes = readFileSync(file);
-      expect(bytes.every((b) => b < 0x80)).toBe(true);
-      const data = JSON.parse(bytes.toString('latin1')) as { holes: unknown[]; rows: unknown[][] };
-      const lists = data.holes.map((h) => JSON.stringify(h));
-      expect(new Set(lists).size).toBe(lists.length);
-      for (const row of data.rows) if (row.length === 3) expect(data.holes[row[2] as number]).toBeDefined();
-    }
-    const again = load();
-    expect(again.cache.counts.parsed).toBe(0);
-    expect(partsOf(again.result)).toEqual(partsOf(loadLibrary(root)));
-    expect(again.result.library!.partsById.get('CAP-MICRO')!.title).toBe('Test capacitor CAP-MICRO of 4.7 µF, ≤ 30 mΩ (invented)');
-    // As an older version wrote it: the characters as UTF-8. Read as before, and written again as ASCII.
-    const micro = shards.find((f) => readFileSync(f, 'latin1').includes('CAP-MICRO'))!;
-    writeFileSync(micro, readFileSync(micro, 'latin1').replace(/\\u([0-9a-f]{4})/g, (_, h: string) => String.fromCharCode(parseInt(h, 16))));
-    expect(readFileSync(micro).every((b) => b < 0x80)).toBe(false);
-    const old = load();
-    expect(old.cache.counts.parsed).toBe(0);
-    expect(old.result.library!.partsById.get('CAP-MICRO')!.title).toContain('µF, ≤ 30 mΩ');
-    expect(readFileSync(micro).every((b) => b < 0x80)).toBe(true);
-    rmSync(join(root, 'parts', 'micro.yaml'));
-  });
 });
+
