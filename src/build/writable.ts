@@ -60,32 +60,32 @@ function writableInside(path: string): Stats | undefined {
  * link count is 2 (its entry in its parent and its own `.`) has no folder inside it on the file systems that
  * count the links of folders (ext4, XFS, tmpfs: each folder inside adds its `..`), so it is not listed: a
  * site's part folders hold files only, and a 10,000-part site is checked without listing 10,000 folders.
- * Where folders' links are not counted (btrfs gives 1), every folder is listed, as before. Folders for which
- * `skip` (given the site-relative path) is true are not looked at.
+ * Where folders' links are not counted (btrfs gives 1), every folder is listed, as before. `skip` (given a
+ * folder's site-relative path) says which folders are not looked at ('all') or not listed ('inside').
  */
-function readOnlyFolderIn(dir: string, skip?: (relative: string) => boolean, relative = ''): string | undefined {
+function readOnlyFolderIn(dir: string, skip?: (relative: string) => 'all' | 'inside' | undefined, relative = ''): string | undefined {
   const stats = relative ? writableInside(dir) : writable(dir);
   if (!stats) return dir;
-  if (stats.nlink === 2) return undefined;
+  if (stats.nlink === 2 || (relative && skip?.(relative) === 'inside')) return undefined;
   for (const entry of readdirSync(dir, { withFileTypes: true })) {
     if (!entry.isDirectory()) continue;
     const path = relative ? `${relative}/${entry.name}` : entry.name;
-    if (skip?.(path)) continue;
+    if (skip?.(path) === 'all') continue;
     const found = readOnlyFolderIn(join(dir, entry.name), skip, path);
     if (found) return found;
   }
   return undefined;
 }
 
-/** A part or comparison folder: the units a rebuild with a spare version leaves as they are (carry-over.ts). */
-const unitFolder = (relative: string) => /^(?:parts|comparisons)\/[^/]+$/.test(relative);
+/** The folders holding the part and comparison folders, the units a rebuild with a spare leaves as they are. */
+const unitsInside = (relative: string) => (relative === 'parts' || relative === 'comparisons' ? 'inside' : undefined);
 
 /**
  * Throws OutputRefused when the site could not be swapped in and the old one removed: a read-only folder
  * where the site goes, above it, or in the site it would replace. Reads only; called before the build.
  * `keptAsSpare`: this build will keep the version at the site path as it is, as the next build's spare
- * (carry-over.ts), so its part and comparison folders are not walked (at 10,000 parts, a stat each was a
- * twentieth of a rebuild); the build that later changes them in the spare checks them first (`checkSpare`).
+ * (carry-over.ts), so the folders holding its part and comparison folders are not listed (at 10,000 parts, a
+ * stat of each was a twentieth of a rebuild); the build that later changes them in the spare checks them first (`checkSpare`).
  */
 export function checkWritable(sitePath: string, options: { keptAsSpare?: boolean } = {}): void {
   const refuse = (folder: string) => {
@@ -99,7 +99,7 @@ export function checkWritable(sitePath: string, options: { keptAsSpare?: boolean
   const kind = entryKind(sitePath);
   const current = kind === 'link' ? join(dirname(sitePath), readlinkSync(sitePath)) : kind === 'folder' ? sitePath : undefined;
   if (current && entryKind(current) === 'folder') {
-    const found = readOnlyFolderIn(current, options.keptAsSpare ? unitFolder : undefined);
+    const found = readOnlyFolderIn(current, options.keptAsSpare ? unitsInside : undefined);
     if (found) refuse(kind === 'link' && found === current ? sitePath : found);
   }
 }
@@ -114,7 +114,7 @@ export class SpareRefused extends OutputRefused {}
  * give it back as it was (Staging.release); the message names it where it is given back (`shownAs`).
  */
 export function checkSpare(sitePath: string, spare: { dir: string; shownAs: string }, kept: ReadonlySet<string>): void {
-  const found = readOnlyFolderIn(spare.dir, (relative) => kept.has(relative));
+  const found = readOnlyFolderIn(spare.dir, (relative) => (kept.has(relative) ? 'all' : undefined));
   const shown = found && spare.shownAs + found.slice(spare.dir.length);
   if (shown) throw new SpareRefused(`cannot write the site to ${sitePath}: ${shown} (in the version before the site, which a rebuild updates) is read-only; make it writable or choose another --out`);
 }
