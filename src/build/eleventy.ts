@@ -1,7 +1,7 @@
 // Rendering the site's pages with eleventy from the package's templates/, given the computed data.
 
 import { readdirSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, relative, sep } from 'node:path';
 import './eleventy-resolver.js';
 import Eleventy from '@11ty/eleventy';
 import { PACKAGE_ROOT } from '../version.js';
@@ -54,8 +54,10 @@ async function renderRun(outDir: string, folio: FolioData, partPagesOnly: boolea
     quietMode: true,
     config(config) {
       config.addGlobalData('folio', folio);
-      // A pattern that starts with **/ is taken as it is (others are made relative to the current folder).
-      if (partPagesOnly) for (const name of otherTemplates()) config.ignores.add(`**/${name}`);
+      // eleventy matches an ignore against the template's path from the current folder, which starts with ../
+      // when the templates are not under it (zfolio run from anywhere but its own folder): there a pattern
+      // `**/name` matches nothing, so each template is ignored by its own path from the current folder.
+      if (partPagesOnly) for (const name of otherTemplates()) config.ignores.add(relative(process.cwd(), join(TEMPLATES_DIR, name)).split(sep).join('/'));
     },
   });
   // zfolio reports its own progress and summary.

@@ -1,7 +1,8 @@
 // Part pages are rendered by several eleventy runs of a few hundred pages each (a run holds every page it
 // renders until it ends): the site must not depend on how they are split. A generated library of 30 parts,
 // built with no charts drawn (charts are not what is checked), rendered in runs of 7 part pages and in one
-// run, gives the same files, byte for byte, and every part its page.
+// run, gives the same files, byte for byte, and every part its page; so does a build run from a folder the
+// templates are not under (eleventy's ignores once matched nothing there, and every run rendered every page).
 
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -9,7 +10,7 @@ import { writeGeneratedLibrary } from '../../bench/generate.js';
 import { buildFolio } from '../../src/build/build.js';
 import { noCharts } from './no-charts.js';
 import { PART_PAGES_PER_RUN } from '../../src/build/eleventy.js';
-import { filesUnder, treeHashes } from '../site-helpers.js';
+import { filesUnder, tempDir, treeHashes } from '../site-helpers.js';
 import { rmSync, writeFileSync } from 'node:fs';
 
 const PARTS = 30;
@@ -31,5 +32,23 @@ describe('part pages rendered in runs', () => {
     expect(files).toContain('index.html');
     expect(files).toContain('comparisons/index.html');
     expect(treeHashes(join(root, 'split'))).toEqual(treeHashes(join(root, 'whole')));
+  }, 120_000);
+
+  it('renders every page once when run from a folder the templates are not under', async () => {
+    const elsewhere = tempDir('cwd');
+    const out = join(root, 'elsewhere');
+    const was = process.cwd();
+    process.chdir(elsewhere);
+    let result: Awaited<ReturnType<typeof buildFolio>>;
+    try {
+      result = await buildFolio({ libraryRoot: root, outDir: out, cache: false, charts: noCharts, partPagesPerRun: 7 });
+    } finally {
+      process.chdir(was);
+      rmSync(elsewhere, { recursive: true, force: true });
+    }
+    expect(result.ok).toBe(true);
+    // Each page rendered once: as many as the site has pages.
+    expect(result.work.pagesRendered).toBe(filesUnder(out).filter((f) => f.endsWith('.html')).length);
+    expect(treeHashes(out)).toEqual(treeHashes(join(root, 'whole')));
   }, 120_000);
 });
