@@ -42,6 +42,7 @@ import {
 export { jsonFile } from './part-downloads.js';
 import { jsonFile, specFileName, writeChartSpec } from './part-downloads.js';
 import type { SvgSpill } from './svg-spill.js';
+import type { PartPageRuns } from './part-page-runs.js';
 
 /** A chart as its page shows it; its spec is (or was) written beside the page. */
 function chartOnPage(chart: DrawnChart): ChartOnPage {
@@ -145,6 +146,8 @@ export interface AssembleOptions {
    * default they are held in the page data. A part a review shows keeps its charts (its review renders them too).
    */
   spill?: SvgSpill;
+  /** Given each fresh part's page as soon as its data is complete, and flushed once every part's is (part-page-runs.ts). */
+  partPages?: Pick<PartPageRuns, 'add' | 'flush'>;
 }
 
 export interface PdfLinks {
@@ -152,7 +155,7 @@ export interface PdfLinks {
   review(slug: string): boolean;
 }
 
-export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), units = NOTHING_KEPT, measurements = new Map(), timings, work, spill }: AssembleOptions): Promise<FolioData> {
+export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), units = NOTHING_KEPT, measurements = new Map(), timings, work, spill, partPages: pageRuns }: AssembleOptions): Promise<FolioData> {
   const analyse = (part: Part) => {
     const started = performance.now();
     if (work) work.partsAnalysed++;
@@ -196,9 +199,11 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
       }
       progress.tick();
       if (pdfLinks.part(part.id) && 'charts' in page) page.pdfFile = partPdfPath(part.id);
+      if (!recorded) pageRuns?.add(page as PartPageData);
       return page;
     }),
   );
+  pageRuns?.flush();
   const listedById = new Map(pages.map((p) => [p.id, p]));
   // Full page data, for part pages and review packs.
   const fullById = new Map(pages.filter((p): p is PartPageData => 'charts' in p).map((p) => [p.id, p]));

@@ -1,7 +1,6 @@
 // zfolio build: library -> figures -> charts -> pages (-> PDFs), written to a staging folder and swapped in
 // whole, so a failed build never leaves a half-written site.
 
-import { cpSync } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
 import { sortedDiagnostics, type Diagnostic } from '../model/diagnostics.js';
 import { libraryMeasurements, type PartMeasurement } from '../measure/part-measurements.js';
@@ -13,10 +12,10 @@ import { assembleSite, type BuildWork, type CarriedPart } from './assemble.js';
 import { stageClock, type BuildTimings, type StageTime } from './stage-clock.js';
 import type { ChartMaker } from './chart-maker.js';
 import { libraryChartPool, type ChartPool, type ChartPoolStats } from './chart-pool.js';
-import { renderPages, TEMPLATES_DIR } from './eleventy.js';
+import { renderPages } from './eleventy.js';
+import { buildPageRuns, type PartPageRuns } from './part-page-runs.js';
+import { writeSharedFiles } from './shared-files.js';
 import { checkWritable, stageOutput, writeFileDeep, type SwapStep } from './output.js';
-import { SPEC_FOLDER, SWEEP_SPECS } from '../pages/spec-download.js';
-import { escapeJsonMarkup } from '../present/escape.js';
 import { guardOutput } from './output-guard.js';
 import type { FolioData } from '../pages/site-data.js';
 import type { PrintedFile } from '../print/print.js';
@@ -202,7 +201,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
   const kept = browser || !record || Object.keys(record.pdfs).length === 0 ? new Set<string>() : keptPdfs(record.pdfs, keys(), outDir);
   const pdfLinks = pdfLinksFor(Boolean(browser), kept);
   const staging = stageOutput(outDir, { onStep: options.onSwapStep });
-  let pool: ChartPool | undefined;
+  let pool: ChartPool | undefined, pageRuns: PartPageRuns | undefined;
   try {
     const units = new SiteUnits(recordAt ? record : undefined, record?.spare && staging.claim(record.spare.name), outDir);
     const partKeys = new Map(library.parts.map((p) => [p.id, partKey(site, p, pdfLinks.part(p.id))]));
@@ -221,7 +220,8 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
       keepChart: (analyses: Pick<PartAnalysis, 'part'>[], title: string) => pool?.keepComparisonChart(analyses, title),
     };
     const spill = new SvgSpill(staging.dir);
-    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, units: unitKeys, measurements: result.measurements, timings: timings.assemble, work, spill });
+    pageRuns = buildPageRuns(staging.dir, library, spill, options.partPagesPerRun);
+    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, units: unitKeys, measurements: result.measurements, timings: timings.assemble, work, spill, partPages: pageRuns });
     await addChanges(folio, run.history, options.charts ?? pool!, staging.dir);
     await pool?.close();
     work.listFiles = listPages(folio, site, partKeyOf, unitKeys.kept, staging.dir, writeFileDeep);
@@ -229,12 +229,11 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
 
     clock = stageClock();
     progress.stage('pages', 1);
-    const written = await renderPages(staging.dir, folio, options.partPagesPerRun, spill);
+    const written = (await pageRuns.done()) + (await renderPages(staging.dir, { ...folio, partPages: [] }, options.partPagesPerRun, spill));
     spill.remove();
     work.pagesRendered = written;
     progress.tick();
-    cpSync(join(TEMPLATES_DIR, 'assets'), join(staging.dir, 'assets'), { recursive: true });
-    for (const [file, spec] of Object.entries(SWEEP_SPECS)) writeFileDeep(join(staging.dir, SPEC_FOLDER, file), escapeJsonMarkup(JSON.stringify(spec, null, 2)) + '\n');
+    writeSharedFiles(staging.dir);
     timings.pages = clock();
 
     if (browser && options.pdf) {
@@ -283,8 +282,9 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     });
     return result;
   } catch (error) {
-    // The workers stop first: they write parts' downloads into the staging folder.
+    // The workers and a run of part pages stop first: they write into the staging folder.
     await pool?.close();
+    await pageRuns?.settle();
     if (error instanceof SpareRefused) staging.release();
     staging.abandon();
     throw error;

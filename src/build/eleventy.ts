@@ -5,7 +5,7 @@ import { join, relative, sep } from 'node:path';
 import './eleventy-resolver.js';
 import Eleventy from '@11ty/eleventy';
 import { PACKAGE_ROOT } from '../version.js';
-import type { FolioData } from '../pages/site-data.js';
+import type { FolioData, FolioHeader, PartPageData } from '../pages/site-data.js';
 import { collectGarbage } from './collect-garbage.js';
 import type { PageCharts } from './svg-spill.js';
 
@@ -14,8 +14,9 @@ export const TEMPLATES_DIR = join(PACKAGE_ROOT, 'templates');
 /**
  * Part pages rendered by one eleventy run. A run holds every page it renders, with its data and its HTML,
  * until it ends (its result lists them all): all of a 10,000-part library's pages at once took more memory
- * than the rest of the build. The first run renders every other page too; the runs after it render part
- * pages only, the other templates ignored.
+ * than the rest of the build. A build renders its part pages in runs as they are ready (part-page-runs.ts,
+ * renderPartPages) and the other pages last (renderPages with no part pages); renderPages renders every
+ * other page in its first run and part pages only in the runs after it, the other templates ignored.
  */
 export const PART_PAGES_PER_RUN = 500;
 
@@ -43,12 +44,26 @@ export async function renderPages(outDir: string, folio: FolioData, perRun = PAR
   return written;
 }
 
+/**
+ * Render part pages only (every other template ignored), with the site header as their global data: a part
+ * page reads only its own part and the header, so it can be rendered before the rest of the site is known
+ * (part-page-runs.ts). Resolves to the count of pages written.
+ */
+export async function renderPartPages(outDir: string, header: FolioHeader, pages: PartPageData[], charts?: PageCharts): Promise<number> {
+  charts?.load(pages);
+  try {
+    return await renderRun(outDir, { ...header, partPages: pages }, true);
+  } finally {
+    charts?.unload(pages);
+  }
+}
+
 /** The page templates at the top of templates/ other than the part page's. */
 function otherTemplates(): string[] {
   return readdirSync(TEMPLATES_DIR).filter((name) => name.endsWith('.njk') && name !== PART_TEMPLATE);
 }
 
-async function renderRun(outDir: string, folio: FolioData, partPagesOnly: boolean): Promise<number> {
+async function renderRun(outDir: string, folio: FolioData | (FolioHeader & Pick<FolioData, 'partPages'>), partPagesOnly: boolean): Promise<number> {
   const eleventy = new Eleventy(TEMPLATES_DIR, outDir, {
     configPath: join(PACKAGE_ROOT, '.eleventy.js'),
     quietMode: true,

@@ -1,6 +1,6 @@
-// Part charts kept on disk from the moment they are drawn until their page is rendered. A part page is
-// rendered only once every part's charts are drawn (the index and comparisons need them all first), and a
-// part's four SVGs are about 35 KB of the 50 KB its page data takes: held in memory, a 10,000-part build
+// Part charts kept on disk from the moment they are drawn until their page is rendered. A part page waits
+// for a run of part pages (part-page-runs.ts), and every fresh part's page data is held until the index
+// and comparisons are rendered, at the end; a part's four SVGs are about 35 KB of the 50 KB its page data takes: held in memory, a 10,000-part build
 // held 350 MB of them at once. Spilled, each eleventy run reads back the SVGs of the pages it renders and
 // lets them go when it ends (eleventy.ts).
 

@@ -88,6 +88,9 @@ export interface FolioData extends ComparisonIndex {
   kindCounts: { kind: PartKind; label: string; count: number }[];
   /** The index's legend for mains marks, when the library holds a mains part. */
   mainsLegend?: string;
+  /** Whether the site has rail plans and reviews (the masthead links to their lists); known before they are analysed. */
+  hasPlans: boolean;
+  hasReviews: boolean;
   /** Every part, as the pages that list parts show it. */
   parts: ListedPart[];
   /** The parts index in pages (part-list.ts). */
@@ -152,7 +155,10 @@ export function kindCounts(library: Library): FolioData['kindCounts'] {
     .filter((k) => k.count > 0);
 }
 
-export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partList' | 'partPages' | 'comparisons' | 'comparisonPages' | 'indexPages' | 'plans' | 'reviews' | keyof ComparisonIndex> {
+/** What every page may read of the site besides its own data: known once the library is read. */
+export type FolioHeader = Omit<FolioData, 'parts' | 'partList' | 'partPages' | 'comparisons' | 'comparisonPages' | 'indexPages' | 'plans' | 'reviews' | keyof ComparisonIndex>;
+
+export function folioHeader(library: Library): FolioHeader {
   const s = library.settings;
   return {
     title: s.title,
@@ -164,5 +170,7 @@ export function folioHeader(library: Library): Omit<FolioData, 'parts' | 'partLi
     withinText: formatPercent(s.within),
     kindCounts: kindCounts(library),
     mainsLegend: library.parts.some((p) => p.safetyClass) ? MAINS_LEGEND : undefined,
+    hasPlans: library.plans.length > 0,
+    hasReviews: library.reviews.length > 0,
   };
 }
