@@ -39,7 +39,8 @@ const PLATE_HALF = 8;
 const SCALE = 1.5;
 
 const line = (x1: number, y1: number, x2: number, y2: number) => `<path d="M${r(x1)} ${r(y1)}H${r(x2)}${y2 !== y1 ? `V${r(y2)}` : ''}"/>`;
-const r = (v: number) => String(Math.round(v * 10) / 10);
+const onGrid = (v: number) => Math.round(v * 10) / 10;
+const r = (v: number) => String(onGrid(v));
 
 function symbol(type: Element['type'], cx: number, cy: number): string {
   const half = SYMBOL_WIDTH / 2;
@@ -68,8 +69,10 @@ function leaf(element: Element & { type: 'R' | 'L' | 'C' }, name: string): Block
     width,
     height: LEAF_HEIGHT,
     draw(x, y) {
-      const cy = y + LEAF_HEIGHT / 2;
-      const cx = x + width / 2;
+      // The symbol's centre on the 0.1-unit grid the numbers are written to, so that its pieces, each placed
+      // from the centre, meet exactly (a rectangle's side and its lead rounded apart left a 0.1-unit gap).
+      const cy = onGrid(y + LEAF_HEIGHT / 2);
+      const cx = onGrid(x + width / 2);
       return {
         geometry: `${line(x, cy, cx - SYMBOL_WIDTH / 2, cy)}${symbol(element.type, cx, cy)}${line(cx + SYMBOL_WIDTH / 2, cy, x + width, cy)}`,
         labels: `<text x="${r(cx)}" y="${r(y + LABEL_BASELINE)}">${escapeXml(label)}</text>`,
