@@ -2,7 +2,7 @@
 // A page's key hashes what its template reads: the site key (code, templates, settings), the page's own
 // fields, and each part it lists by the part's key (which fixes every figure the part's row shows). A
 // template that starts reading more of the site's data must have it added here, as reuse.ts says of part
-// pages; test/build/edit-cost.test.ts compares a rebuild after an edit with a cold build, byte for byte.
+// pages; test/build/carry-over.test.ts compares a rebuild after an edit with a cold build, byte for byte.
 
 import { createHash } from 'node:crypto';
 import { join } from 'node:path';
