@@ -65,6 +65,22 @@ function cornerRoundsText(r: CornerRounds): string {
   }
 }
 
+/**
+ * Under a chosen set whose load step goes beyond its budget: why a set that holds the target can, and the
+ * remedy. |Z| ≤ Z_t at every frequency bounds the response to a sinusoid, not to a step: the rail's ringing
+ * between its anti-resonances adds up in time, so the excursion can exceed step × Z_t (a transfer function's
+ * peak gain does not bound its step response; any signals-and-systems text).
+ */
+export function loadStepHint(f: PlanFigures, marginDb: number): string[] {
+  const t = f.transient;
+  if (!t || !t.resolved || Math.max(t.droopV, t.overshootV) <= t.budgetV) return [];
+  const more = marginDb > 0 ? `a margin above ${formatDecibels(marginDb)}` : 'a margin under the target (--margin 1 or more)';
+  return [
+    '             (the search holds |Z| under the target, which does not bound a step: the rail rings between',
+    `             its anti-resonances and the swings add up; ${more} buys a shallower dip for more placements)`,
+  ];
+}
+
 /** "2 × A + 4 × B", or "no capacitors". */
 function setText(f: PlanFigures): string {
   return f.placements.length === 0 ? 'no capacitors' : f.placements.map((p) => `${p.count} × ${p.partId}`).join(' + ');
@@ -97,8 +113,9 @@ export function describeSuggestion(plan: Plan, s: Suggestion, request: SuggestRe
   if (s.figures) {
     const f = s.figures;
     lines.push(`  target     ${targetLine(f)}`);
-    // The search weighs the impedance only; the chosen set's load step is shown for what it is.
-    lines.push(...verdictLines(f), ...loadStepBlock(f));
+    // The search weighs the impedance only; the chosen set's load step is shown for what it is, and when it
+    // misses its budget, what to do about it.
+    lines.push(...verdictLines(f), ...loadStepBlock(f), ...loadStepHint(f, s.marginDb));
     describeSet(f);
     lines.push('  as plan YAML', ...capacitorsYaml(s.placements, '    '));
   } else if (s.closest) {
