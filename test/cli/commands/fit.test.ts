@@ -4,39 +4,19 @@
 // tolerances of test/measure/fit.test.ts. S21 of a shunt impedance is 2Z/(2Z + Z0) (Pozar, Microwave
 // Engineering, 4th ed., table 4.2).
 
-import { Complex } from 'complex.js';
 import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { capacitor as C, inductor as L, parallel, resistor as R, series } from '../../../src/circuit/element.js';
-import { writeTouchstone } from '../../../src/measure/touchstone-write.js';
 import { loadLibrary } from '../../../src/model/library.js';
 import { tempDir } from '../../site-helpers.js';
-import { logFrequencies, synthesise } from '../../measure/synthetic.js';
+import { CAPACITOR_TRUTH, capacitorShuntThruFile } from '../../measure/shunt-thru.js';
 import { run } from '../fake-io.js';
 
 const dir = tempDir('fit');
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-const TRUTH = { nominal: 100e-9, esr: 0.018, esl: 0.45e-9 };
-const capacitorTree = series(R(TRUTH.esr), L(TRUTH.esl), parallel(C(TRUTH.nominal), R(1e9)));
-
-/** A shunt-thru two-port file of the capacitor, 0.05 dB and 0.3° of noise on its impedance. */
-function shuntThruFile(name: string): string {
-  const s = synthesise(capacitorTree, logFrequencies(1e5, 1e9, 401), { db: 0.05, deg: 0.3, seed: 21 });
-  const re = new Float64Array(4 * 401);
-  const im = new Float64Array(4 * 401);
-  for (let k = 0; k < 401; k++) {
-    const z = new Complex(s.re[k], s.im[k]);
-    const d = z.mul(2).add(50);
-    const s11 = new Complex(-50, 0).div(d);
-    const s21 = z.mul(2).div(d);
-    [s11, s21, s21, s11].forEach((v, i) => ((re[4 * k + i] = v.re), (im[4 * k + i] = v.im)));
-  }
-  const path = join(dir, name);
-  writeFileSync(path, writeTouchstone({ version: 1, ports: 2, parameter: 'S', format: 'MA', unit: 'MHz', reference: 50, frequencies: s.frequencies, re, im, digits: 9, comments: ['synthetic test measurement'] }));
-  return path;
-}
+const TRUTH = CAPACITOR_TRUTH;
+const shuntThruFile = (name: string) => capacitorShuntThruFile(join(dir, name));
 
 describe('zfolio fit', () => {
   const file = shuntThruFile('cap.s2p');
