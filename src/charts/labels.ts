@@ -1,7 +1,8 @@
 // Placing short labels next to marked points (resonances, decade marks, rail peaks) so that they stay inside
 // the plot and clear of each other and of the curves. Greedy, in priority order: each label takes the first
-// of its candidate positions that collides with nothing; a label that must be shown takes the position with
-// the least overlap instead, others are dropped (their point stays).
+// of its candidate positions that collides with nothing, trying its shorter wording (when it has one) only
+// where the full one fits nowhere; a label that must be shown takes the position with the least overlap
+// instead, others are dropped (their point stays).
 
 import { textWidth } from './text-width.js';
 
@@ -15,11 +16,18 @@ export interface Placement {
   baseline: Baseline;
 }
 
+/** Where a label went, and which of its wordings it shows there. */
+export interface PlacedLabel extends Placement {
+  text: string;
+}
+
 export interface LabelRequest {
   /** Anchor in px from the plot's top-left corner. */
   x: number;
   y: number;
   text: string;
+  /** A shorter wording ("190 MHz" for "series 190 MHz"), tried at every position where the full text collides. */
+  shortText?: string;
   fontSize: number;
   /** Shown even when every position collides. */
   required?: boolean;
@@ -40,6 +48,9 @@ interface Box {
 }
 
 const GAP = 5;
+
+/** How far a label above or below its point may be moved sideways to stay inside the plot, px. */
+const NUDGE = 6;
 
 /** Right, left, above, below, then the diagonals. */
 export const AROUND: Placement[] = [
@@ -82,8 +93,8 @@ export const ABOVE_FIRST: Placement[] = [
   { dx: 0, dy: 20, align: 'center', baseline: 'top' },
 ];
 
-function boxOf(r: LabelRequest, p: Placement): Box {
-  const w = textWidth(r.text, r.fontSize);
+function boxOf(r: LabelRequest, p: Placement, text = r.text): Box {
+  const w = textWidth(text, r.fontSize);
   const h = r.fontSize * 1.15;
   const x = r.x + p.dx;
   const y = r.y + p.dy;
@@ -159,30 +170,56 @@ export function placeLabels(
   plot: { width: number; height: number },
   obstacles: readonly Obstacle[] = [],
   avoid: readonly Box[] = [],
-): (Placement | null)[] {
+): (PlacedLabel | null)[] {
   const placed: Box[] = [...avoid];
   return requests.map((r) => {
-    let best: { p: Placement; box: Box; cost: number } | null = null;
-    for (const p of r.candidates ?? AROUND) {
-      const box = boxOf(r, p);
-      const outside =
-        Math.max(0, 2 - box.x0) + Math.max(0, box.x1 - plot.width + 2) + Math.max(0, 2 - box.y0) + Math.max(0, box.y1 - plot.height + 2);
-      let cost = outside * 1000;
-      for (const q of placed) cost += overlapArea(box, q) * 10;
-      cost += hitsObstacles(box, obstacles) * 50;
-      if (cost === 0) {
-        best = { p, box, cost };
-        break;
-      }
-      if (best === null || cost < best.cost) best = { p, box, cost };
-    }
-    if (best === null || (best.cost > 0 && !r.required)) return null;
-    placed.push(best.box);
-    return best.p;
+    const chosen = freePlace(r, r.text) ?? (r.shortText !== undefined ? freePlace(r, r.shortText) : null) ?? (r.required ? leastCovering(r) : null);
+    if (chosen === null) return null;
+    placed.push(boxOf(r, chosen, chosen.text));
+    return chosen;
   });
+
+  function cost(r: LabelRequest, p: Placement, text: string): number {
+    const box = boxOf(r, p, text);
+    const outside = Math.max(0, 2 - box.x0) + Math.max(0, box.x1 - plot.width + 2) + Math.max(0, 2 - box.y0) + Math.max(0, box.y1 - plot.height + 2);
+    let c = outside * 1000;
+    for (const q of placed) c += overlapArea(box, q) * 10;
+    return c + hitsObstacles(box, obstacles) * 50;
+  }
+  /** The first candidate where `text` collides with nothing (nudged inside the plot, see nudged()). */
+  function freePlace(r: LabelRequest, text: string): PlacedLabel | null {
+    for (const candidate of r.candidates ?? AROUND) {
+      const p = nudged(r, candidate, text);
+      if (cost(r, p, text) === 0) return { ...p, text };
+    }
+    return null;
+  }
+  /**
+   * A label above or below its point that sticks out of the plot's side by at most NUDGE px, moved back in
+   * (its point stays under or over it); any other placement as it is. Beside a point (middle baseline) a
+   * move would put the text over the point, so those stay.
+   */
+  function nudged(r: LabelRequest, p: Placement, text: string): Placement {
+    if (p.baseline === 'middle') return p;
+    const box = boxOf(r, p, text);
+    const left = 2 - box.x0;
+    const right = box.x1 - (plot.width - 2);
+    if (left > 0 && left <= NUDGE && right + left <= 0) return { ...p, dx: p.dx + left };
+    if (right > 0 && right <= NUDGE && left + right <= 0) return { ...p, dx: p.dx - right };
+    return p;
+  }
+  /** For a label that must be shown: its full wording where it covers least. */
+  function leastCovering(r: LabelRequest): PlacedLabel | null {
+    let best: { p: Placement; c: number } | null = null;
+    for (const p of r.candidates ?? AROUND) {
+      const c = cost(r, p, r.text);
+      if (best === null || c < best.c) best = { p, c };
+    }
+    return best && { ...best.p, text: r.text };
+  }
 }
 
-/** The box a placed label covers, for callers that keep other marks clear of it. */
-export function labelBox(r: LabelRequest, p: Placement): Box {
-  return boxOf(r, p);
+/** The box a placed label covers (in the wording it was placed with), for callers that keep other marks clear of it. */
+export function labelBox(r: LabelRequest, p: Placement | PlacedLabel): Box {
+  return boxOf(r, p, 'text' in p ? p.text : r.text);
 }

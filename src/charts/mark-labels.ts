@@ -14,6 +14,8 @@ export interface MarkLabel {
   x: number;
   y: number;
   text: string;
+  /** A shorter wording, shown where the full text fits nowhere (labels.ts). */
+  shortText?: string;
   /** Shown even when every position collides. */
   required?: boolean;
   candidates?: Placement[];
@@ -37,18 +39,18 @@ export interface PlacedLabels {
 /** Place labels (most important first), then notes, clear of each other and of `obstacles`. */
 export function placeMarkLabels(labels: readonly MarkLabel[], plot: { width: number; height: number }, obstacles: readonly Obstacle[], notes: readonly PlotNote[] = []): PlacedLabels {
   const requests: LabelRequest[] = [
-    ...labels.map((l) => ({ x: l.x, y: l.y, text: l.text, fontSize: FONT_SIZE.note, ...(l.required !== undefined ? { required: l.required } : {}), ...(l.candidates ? { candidates: l.candidates } : {}) })),
+    ...labels.map((l) => ({ x: l.x, y: l.y, text: l.text, ...(l.shortText !== undefined ? { shortText: l.shortText } : {}), fontSize: FONT_SIZE.note, ...(l.required !== undefined ? { required: l.required } : {}), ...(l.candidates ? { candidates: l.candidates } : {}) })),
     ...notes.map((n) => ({ x: n.x, y: n.y, text: n.text, fontSize: FONT_SIZE.note, candidates: n.candidates })),
   ];
   const placements = placeLabels(requests, plot, obstacles);
   return {
     labels: labels.map((l, k) => {
       const p = placements[k];
-      return p ? { ...l.at, t: l.text, dx: p.dx, dy: p.dy, al: p.align, bl: p.baseline } : null;
+      return p ? { ...l.at, t: p.text, dx: p.dx, dy: p.dy, al: p.align, bl: p.baseline } : null;
     }),
     notes: notes.flatMap((n, k) => {
       const p = placements[labels.length + k];
-      return p ? [{ x: n.x + p.dx, y: n.y + p.dy, t: n.text, al: p.align, bl: p.baseline }] : [];
+      return p ? [{ x: n.x + p.dx, y: n.y + p.dy, t: p.text, al: p.align, bl: p.baseline }] : [];
     }),
   };
 }

@@ -7,7 +7,7 @@ import type { Element } from '../circuit/element.js';
 import type { UsableBand } from '../analysis/band.js';
 import { isSelfResonance, type Resonance } from '../analysis/resonance.js';
 import { bandCaption, bandRange } from '../present/band-words.js';
-import { resonanceLabel } from '../present/resonance-words.js';
+import { resonanceLabel, resonanceShortLabel } from '../present/resonance-words.js';
 import type { KeyItem } from './key.js';
 import type { Placement } from './labels.js';
 import type { MarkLabel } from './mark-labels.js';
@@ -48,6 +48,8 @@ export function resonanceLabels(
   return resonancesByImportance(input).map((r) => ({
     ...place(r),
     text: resonanceLabel(r, input.selfResonance),
+    // The self-resonance keeps its name wherever it goes; another may drop its type where it has no room.
+    ...(isSelfResonance(r, input.selfResonance) ? {} : { shortText: resonanceShortLabel(r) }),
     required: isSelfResonance(r, input.selfResonance),
     ...(candidates ? { candidates: candidates(r) } : {}),
   }));

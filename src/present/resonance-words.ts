@@ -10,6 +10,11 @@ export function resonanceLabel(r: Resonance, self: Resonance | undefined): strin
   return `${name} ${formatEng(r.frequencyHz, 'Hz')}`;
 }
 
+/** "190 MHz": the frequency alone, where a chart has no room for "series 190 MHz" (its dot says what it marks). */
+export function resonanceShortLabel(r: Resonance): string {
+  return formatEng(r.frequencyHz, 'Hz');
+}
+
 /** "X = 0 with |Z| 1.12 Ω; |Z| max 1.34 Ω at 95.2 MHz": where X = 0, and the |Z| extremum beside it. */
 export function resonanceNote(r: Resonance): string {
   const atZero = `|Z| ${formatEng(r.impedanceOhm, 'resistance')} where X = 0`;

@@ -45,3 +45,67 @@ describe('label placement', () => {
     expect(segmentHitsBox(0, 100, 300, 100, b)).toBe(false);
   });
 });
+
+describe('a shorter wording, and a label nudged back inside the plot', () => {
+  const plot = { width: 234, height: 160 };
+  // Every check below is plain geometry on the returned box: inside the plot's 2 px margin, clear of the
+  // curve given (Liang–Barsky, segmentHitsBox above), not over the point.
+  const inside = (b: ReturnType<typeof labelBox>) => b.x0 >= 2 && b.x1 <= plot.width - 2 && b.y0 >= 2 && b.y1 <= plot.height - 2;
+
+  it('a label whose full text fits nowhere is shown in its short wording where that fits', () => {
+    // Right of the point runs out of the plot; below it, a vertical curve 25 px to the left crosses the
+    // full text centred under the point (over 50 px wide) but not the short one (under 45 px).
+    const candidates = [
+      { dx: 7, dy: 0, align: 'left' as const, baseline: 'middle' as const },
+      { dx: 0, dy: 8, align: 'center' as const, baseline: 'top' as const },
+    ];
+    const r: LabelRequest = { x: 200, y: 80, text: 'series 190 MHz', shortText: '190 MHz', fontSize: 10, candidates };
+    const curves = [{ xs: [175, 175], ys: [0, 160] }];
+    expect(placeLabels([{ ...r, shortText: undefined }], plot, curves)).toEqual([null]);
+    const [p] = placeLabels([r], plot, curves);
+    expect(p).not.toBeNull();
+    expect(p!.text).toBe('190 MHz');
+    const b = labelBox(r, p!);
+    expect(inside(b)).toBe(true);
+    expect(b.x0).toBeGreaterThan(175);
+    expect(b.y0).toBe(88);
+  });
+
+  it('the full wording is kept wherever it fits', () => {
+    const r: LabelRequest = { x: 100, y: 80, text: 'series 190 MHz', shortText: '190 MHz', fontSize: 10 };
+    const [p] = placeLabels([r], plot);
+    expect(p!.text).toBe('series 190 MHz');
+  });
+
+  it('a label that must be shown and fits nowhere keeps its full wording where it covers least', () => {
+    const r: LabelRequest = { x: 117, y: 80, text: 'SRF 1.07 MHz', shortText: '1.07 MHz', fontSize: 10, required: true };
+    // A dense fan of lines through the point leaves no free place for either wording.
+    const fan = Array.from({ length: 36 }, (_, k) => ({ xs: [117 - 200 * Math.cos((k * Math.PI) / 36), 117 + 200 * Math.cos((k * Math.PI) / 36)], ys: [80 - 200 * Math.sin((k * Math.PI) / 36), 80 + 200 * Math.sin((k * Math.PI) / 36)] }));
+    const [p] = placeLabels([r], plot, fan);
+    expect(p!.text).toBe('SRF 1.07 MHz');
+  });
+
+  it('a label below its point that sticks out of the side by a few px is moved in, still below its point', () => {
+    // Below-right of a point placed so that "190 MHz" would end 3 px past the right margin.
+    const w = labelBox({ x: 0, y: 0, text: '190 MHz', fontSize: 10 }, { dx: 0, dy: 0, align: 'left', baseline: 'top' }).x1;
+    const x = plot.width - 2 - 7 - w + 3;
+    const r: LabelRequest = { x, y: 80, text: '190 MHz', fontSize: 10, candidates: [{ dx: 7, dy: 16, align: 'left', baseline: 'top' }] };
+    const [p] = placeLabels([r], plot);
+    expect(p).not.toBeNull();
+    const b = labelBox(r, p!);
+    expect(inside(b)).toBe(true);
+    expect(b.x1).toBeCloseTo(plot.width - 2, 9);
+    expect(b.x0).toBeCloseTo(x + 7 - 3, 9);
+    expect(b.y0).toBe(96);
+  });
+
+  it('a label beside its point (middle baseline) is never moved over the point', () => {
+    const r: LabelRequest = { x: 200, y: 80, text: '190 MHz', fontSize: 10, candidates: [{ dx: 7, dy: 0, align: 'left', baseline: 'middle' }] };
+    expect(placeLabels([r], plot)).toEqual([null]);
+  });
+
+  it('a label sticking out by more than the nudge is not moved', () => {
+    const r: LabelRequest = { x: 215, y: 80, text: '190 MHz', fontSize: 10, candidates: [{ dx: 7, dy: 16, align: 'left', baseline: 'top' }] };
+    expect(placeLabels([r], plot)).toEqual([null]);
+  });
+});

@@ -4,7 +4,7 @@
 
 import { describe, expect, it } from 'vitest';
 import type { Resonance } from '../../src/analysis/resonance.js';
-import { extremumNote, resonanceLabel, resonanceNote } from '../../src/present/resonance-words.js';
+import { extremumNote, resonanceLabel, resonanceNote, resonanceShortLabel } from '../../src/present/resonance-words.js';
 import { analysed, networkPart } from '../charts/fixtures.js';
 
 describe('resonance labels', () => {
@@ -17,6 +17,11 @@ describe('resonance labels', () => {
     const a = analysed(networkPart);
     const copy = JSON.parse(JSON.stringify(a.selfResonance)) as Resonance;
     expect(resonanceLabel(a.resonances[0], copy)).toBe('SRF 1.52 MHz');
+  });
+
+  it('have a short wording, the frequency alone, for a chart with no room for the type', () => {
+    const a = analysed(networkPart);
+    expect(a.resonances.map(resonanceShortLabel)).toEqual(['1.52 MHz', '13.6 MHz', '24.1 MHz']);
   });
 });
 
