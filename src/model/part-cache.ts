@@ -5,26 +5,32 @@
 // without errors are kept. A part from the cache has a source whose text and YAML document are read from
 // the file on first use (only `zfolio diff`-style pairing of renamed parts asks for them).
 //
-// The entries are sharded by a hash of the path; a run writes only the shards it changed. A shard is one
-// JSON file, parsed at once into every part it holds: each entry is written as exact JSON (exact-json.ts:
-// undefined values kept, the text checked to give the entry back), or, should JSON not keep it exactly
-// (a -0, say), v8-serialised (the structured clone keeps every value as it is). In a library of 10,000
-// parts, one v8 deserialisation per part was half of loading, and JSON is read several times faster than
-// v8's format. The parts handed out are the build's from then on (it adds measurement text to them, for
-// one); a shard written again is made from its file as it is on disk and the entries this run stored.
+// The entries are sharded by a hash of the path; a run writes only the shards it changed. Each entry is
+// written as exact JSON (exact-json.ts: undefined values kept, the text checked to give the entry back), or,
+// should JSON not keep it exactly (a -0, say), v8-serialised (the structured clone keeps every value as it
+// is), in two pieces (part-cache-files.ts): its head (the part's early fields, with the id it declares and
+// its warnings), parsed when its part is handed out, and its late fields (lazy-part.ts), read and parsed only
+// when the build first reads one (the title, the model, the parameters …: for the parts whose pages or
+// charts it makes). Reading and parsing every part of a 10,000-part library whole at each build, the objects
+// it made kept through the build, was a fifth of a rebuild after one edit. The parts handed out are the
+// build's from then on (it adds measurement text to them, for one); a shard written again is made from its
+// files as they are on disk and the entries this run stored.
 
-import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { deserialize, serialize } from 'node:v8';
 import { DiagnosticList, type Diagnostic, type SourcePosition } from './diagnostics.js';
-import { asciiJson, readText } from './ascii-text.js';
 import { decodeExact, encodeExact, type Holes } from './exact-json.js';
+import { lazyPart, splitPart } from './lazy-part.js';
+import { lateText, ShardFiles, type HeadRow, type Heads, type ShardEntry } from './part-cache-files.js';
+import { readPart } from './part.js';
 import type { Part } from './part.js';
 import { parseYamlSource, type SourceFile } from './source.js';
 
 const SHARDS = 64;
 /** Changes whenever what an entry holds changes shape (or what reading a part gives does: see codeKey). */
-const FORMAT = 3;
+const FORMAT = 4;
+const SHARD_NAME = /^\d\d\.(lines|late)$/;
 
 export interface CachedRead {
   part: Part;
@@ -32,44 +38,67 @@ export interface CachedRead {
   diagnostics: Diagnostic[];
 }
 
-interface Entry {
-  stamp: number[];
-  hash: string;
-  /** The part; its source (undefined here) is set when it is handed out. */
-  part: Omit<Part, 'source'> & { source?: SourceFile };
+/** What a row's head holds, parsed when its part is handed out: the part's early fields (lazy-part.ts) and the rest's names. */
+interface Head {
+  early: Record<string, unknown>;
+  lateKeys: string[];
   declared: { id: string; at: SourcePosition };
   diagnostics: Diagnostic[];
 }
 
-/** An entry as its shard file holds it: [path, entry as exact JSON, its holes] or [path, base64 of v8 bytes]. */
-type Row = [string, unknown, Holes] | [string, string];
+/** A head that says the late text is the whole entry as base64 of v8 bytes (exact JSON would not give it back). */
+const V8 = 'v8';
 
-interface ShardFile {
-  format?: number;
-  key?: string;
-  rows?: Row[];
+/** [value, holes] as text, or undefined when exact JSON would not give the value back. */
+function exactText(value: unknown): string | undefined {
+  const exact = encodeExact(value);
+  return exact && `[${exact.text},${JSON.stringify(exact.holes)}]`;
 }
 
-/** An entry's row, as JSON text. */
-function rowText(path: string, entry: Entry): string {
-  const exact = encodeExact(entry);
-  if (exact) return asciiJson(`[${JSON.stringify(path)},${exact.text},${JSON.stringify(exact.holes)}]`);
-  return asciiJson(JSON.stringify([path, Buffer.from(serialize(entry)).toString('base64')]));
+function fromExactText<T>(text: string): T {
+  const [value, holes] = JSON.parse(text) as [unknown, Holes];
+  return decodeExact<T>(value, holes);
 }
 
-function rowEntry(row: Row): Entry {
-  return row.length === 3 ? decodeExact<Entry>(row[1], row[2]) : (deserialize(Buffer.from(row[1], 'base64')) as Entry);
+/** An entry as its shard's files hold it (part-cache-files.ts). */
+function shardEntry(path: string, stamp: number[], read: CachedRead): ShardEntry {
+  const { source, ...fields } = read.part;
+  const { early, late } = splitPart(fields);
+  const head = exactText({ early, lateKeys: Object.keys(late), declared: read.declared, diagnostics: read.diagnostics } satisfies Head);
+  const rest = head && exactText(late);
+  const at = { path, stamp: JSON.stringify(stamp), hash: source.hash };
+  if (head && rest) return { ...at, head, late: rest };
+  const whole = { part: { ...fields, source: undefined }, declared: read.declared, diagnostics: read.diagnostics };
+  return { ...at, head: V8, late: Buffer.from(serialize(whole)).toString('base64') };
+}
+
+/** A shard as read: its head rows, and its late bytes once a part's late fields are asked for (null: not to be had). */
+interface Shard extends Heads {
+  late?: Buffer | null;
+}
+
+/** Where a cached part's late fields are: read when the part's first late field is. */
+class LateFields {
+  constructor(
+    private readonly cache: PartCache,
+    private readonly shard: number,
+    private readonly path: string,
+    private readonly row: HeadRow,
+  ) {}
+
+  read(): Record<string, unknown> {
+    return this.cache.lateFields(this.shard, this.path, this.row);
+  }
 }
 
 export class PartCache {
-  private readonly shards: (Map<string, Entry> | undefined)[] = Array.from({ length: SHARDS }, () => undefined);
-  /** Rows of the entries stored this run, made when stored (the part is the build's afterwards), by shard. */
-  private readonly stored = new Map<number, Map<string, string>>();
+  private readonly shards: (Shard | undefined)[] = Array.from({ length: SHARDS }, () => undefined);
+  private readonly files: ShardFiles;
+  /** Entries stored this run, made when stored (the part is the build's afterwards), by shard. */
+  private readonly stored = new Map<number, Map<string, ShardEntry>>();
   /** Entries dropped this run (the file now has errors), by shard. */
   private readonly dropped = new Map<number, Set<string>>();
   private readonly seen = new Set<string>();
-  /** Shards read as UTF-8 (written by an older version): written again, as ASCII (ascii-text.ts). */
-  private readonly notAscii = new Set<number>();
   /** Files read and parsed this run, and files taken from the cache. */
   readonly counts = { parsed: 0, cached: 0 };
 
@@ -77,8 +106,10 @@ export class PartCache {
   constructor(
     private readonly root: string,
     private readonly dir: string,
-    private readonly key: string,
-  ) {}
+    key: string,
+  ) {
+    this.files = new ShardFiles(dir, key, FORMAT);
+  }
 
   /** The stamp of a library file now (to be passed to `store` after reading it), or undefined. */
   stamp(path: string): number[] | undefined {
@@ -90,12 +121,44 @@ export class PartCache {
   lookup(path: string, stamp: number[] | undefined): CachedRead | undefined {
     if (this.seen.has(path)) return undefined;
     this.seen.add(path);
-    const entry = stamp && this.shard(path).get(path);
-    if (!entry || !sameStamp(entry.stamp, stamp)) return undefined;
-    const part = entry.part as Part;
-    part.source = new LazySource(this.root, path, entry.hash);
+    const i = shardOf(path);
+    const row = stamp && this.shard(i).rows.get(path);
+    if (!row || row.stamp !== JSON.stringify(stamp)) return undefined;
+    let read: CachedRead;
+    try {
+      if (row.head === V8) read = deserialize(Buffer.from(this.late(i, path, row), 'base64')) as CachedRead;
+      else {
+        const head = fromExactText<Head>(row.head);
+        read = { part: lazyPart(head.early, head.lateKeys, new LateFields(this, i, path, row)) as Part, declared: head.declared, diagnostics: head.diagnostics };
+      }
+    } catch {
+      // a damaged row: read the file again
+      return undefined;
+    }
+    read.part.source = new LazySource(this.root, path, row.hash);
     this.counts.cached++;
-    return { part, declared: entry.declared, diagnostics: entry.diagnostics };
+    return read;
+  }
+
+  /** A cached part's late fields: from its shard's .late file, else (that file lost or rewritten by another run) from the part file, when its hash is unchanged. */
+  lateFields(i: number, path: string, row: HeadRow): Record<string, unknown> {
+    try {
+      return fromExactText<Record<string, unknown>>(this.late(i, path, row));
+    } catch {
+      const text = readFileSync(join(this.root, path), 'utf8');
+      const source = parseYamlSource(path, text, new DiagnosticList());
+      const part = source?.hash === row.hash ? readPart({ source, diagnostics: new DiagnosticList() }) : undefined;
+      if (!part) throw new Error(`${path} changed while it was read; run again`);
+      const { source: _source, ...fields } = part;
+      return splitPart(fields).late;
+    }
+  }
+
+  private late(i: number, path: string, row: HeadRow): string {
+    const shard = this.shard(i);
+    if (shard.late === undefined) shard.late = this.files.late(i, shard.token) ?? null;
+    if (!shard.late) throw new Error(`no late fields for ${path}`);
+    return lateText(shard.late, row);
   }
 
   /** Keep what reading `path` gave (call only when it gave no errors). */
@@ -103,9 +166,7 @@ export class PartCache {
     this.counts.parsed++;
     this.seen.add(path);
     if (!stamp) return;
-    const { source, ...rest } = read.part;
-    const entry = { stamp, hash: source.hash, part: { ...rest, source: undefined }, declared: read.declared, diagnostics: read.diagnostics };
-    this.changes(this.stored, shardOf(path), () => new Map()).set(path, rowText(path, entry));
+    this.changes(this.stored, shardOf(path), () => new Map()).set(path, shardEntry(path, stamp, read));
     this.dropped.get(shardOf(path))?.delete(path);
   }
 
@@ -114,33 +175,41 @@ export class PartCache {
     this.counts.parsed++;
     this.seen.add(path);
     this.stored.get(shardOf(path))?.delete(path);
-    if (this.shard(path).has(path)) this.changes(this.dropped, shardOf(path), () => new Set()).add(path);
+    if (this.shard(shardOf(path)).rows.has(path)) this.changes(this.dropped, shardOf(path), () => new Set()).add(path);
   }
 
   /** Write the shards changed, dropping entries of files not looked up this run (removed from the library). */
   save(): void {
-    const dirty = new Set<number>([...this.stored.keys(), ...this.dropped.keys(), ...this.notAscii]);
+    const dirty = new Set<number>([...this.stored.keys(), ...this.dropped.keys()]);
     for (let i = 0; i < SHARDS; i++) {
       const shard = this.shards[i];
-      if (shard && [...shard.keys()].some((path) => !this.seen.has(path))) dirty.add(i);
+      if (shard && (!shard.ascii || [...shard.rows.keys()].some((path) => !this.seen.has(path)))) dirty.add(i);
     }
     if (dirty.size === 0) return;
     mkdirSync(this.dir, { recursive: true });
     for (const i of dirty) {
-      // The rows as the file holds them (the parts handed out may have been changed since), less those of
+      // The entries as the files hold them (the parts handed out may have been changed since), less those of
       // files gone or now with errors, with those stored this run.
-      const rows = new Map(this.readRows(i).map((row) => [row[0], asciiJson(JSON.stringify(row))]));
-      for (const path of [...rows.keys()]) if (!this.seen.has(path) || this.dropped.get(i)?.has(path)) rows.delete(path);
-      for (const [path, text] of this.stored.get(i) ?? []) rows.set(path, text);
-      const file = this.shardFile(i);
-      const temp = `${file}.${process.pid}.tmp`;
-      writeFileSync(temp, `{"format":${FORMAT},"key":${asciiJson(JSON.stringify(this.key))},"rows":[\n${[...rows.values()].join(',\n')}\n]}\n`);
-      renameSync(temp, file);
+      const onDisk = this.files.heads(i);
+      const lateBytes = this.files.late(i, onDisk.token);
+      const entries = new Map<string, ShardEntry>();
+      for (const [path, row] of onDisk.rows) {
+        if (!this.seen.has(path) || this.dropped.get(i)?.has(path) || !lateBytes) continue;
+        try {
+          entries.set(path, { path, stamp: row.stamp, hash: row.hash, head: row.head, late: lateText(lateBytes, row) });
+        } catch {
+          // a damaged row: its file is read again next time
+        }
+      }
+      for (const [path, entry] of this.stored.get(i) ?? []) entries.set(path, entry);
+      // The parts handed out from this shard read their late fields from the bytes they were read with.
+      const shard = this.shards[i];
+      if (shard && shard.late === undefined) shard.late = shard.token === onDisk.token ? (lateBytes ?? null) : null;
+      this.files.write(i, [...entries.values()]);
     }
     this.stored.clear();
     this.dropped.clear();
-    this.notAscii.clear();
-    for (const name of readdirSync(this.dir)) if (!/^\d\d\.json$/.test(name)) rmSync(join(this.dir, name), { force: true });
+    for (const name of readdirSync(this.dir)) if (!SHARD_NAME.test(name)) rmSync(join(this.dir, name), { force: true });
   }
 
   private changes<T>(all: Map<number, T>, i: number, make: () => T): T {
@@ -149,37 +218,8 @@ export class PartCache {
     return found;
   }
 
-  private shardFile(i: number): string {
-    return join(this.dir, `${String(i).padStart(2, '0')}.json`);
-  }
-
-  /** A shard's rows as its file holds them (none when it is missing, unreadable or of other code). */
-  private readRows(i: number): Row[] {
-    try {
-      const { text, ascii } = readText(this.shardFile(i));
-      if (!ascii) this.notAscii.add(i);
-      const data = JSON.parse(text) as ShardFile;
-      if (data.format === FORMAT && data.key === this.key && Array.isArray(data.rows)) return data.rows;
-    } catch {
-      // none yet, or unreadable: read the files again
-    }
-    return [];
-  }
-
-  private readShard(i: number): Map<string, Entry> {
-    const entries = new Map<string, Entry>();
-    try {
-      for (const row of this.readRows(i)) entries.set(row[0], rowEntry(row));
-    } catch {
-      // a damaged row: read the shard's files again
-      entries.clear();
-    }
-    return entries;
-  }
-
-  private shard(path: string): Map<string, Entry> {
-    const i = shardOf(path);
-    return (this.shards[i] ??= this.readShard(i));
+  private shard(i: number): Shard {
+    return (this.shards[i] ??= this.files.heads(i));
   }
 }
 
@@ -190,7 +230,6 @@ function shardOf(path: string): number {
   return (h >>> 0) % SHARDS;
 }
 
-const sameStamp = (a: readonly number[], b: readonly number[]) => a.length === b.length && a.every((x, i) => x === b[i]);
 
 /** A source whose text and document are read from the file when first asked for. */
 class LazySource implements SourceFile {

@@ -36,6 +36,29 @@ describe('readText', () => {
     expect(u.ascii).toBe(false);
     expect(JSON.parse(u.text)).toEqual(SAMPLE);
   });
+
+  it('gives each file its own text whatever the files read before it (a buffer is kept between reads)', () => {
+    const dir = tempDir('ascii-sizes');
+    // Sizes around the kept buffer's first size (64 KiB), growing and shrinking, empty, and past the 8 MiB
+    // beyond which a file gets a buffer of its own; each file's bytes differ from the others' at every place.
+    const sizes = [10, 0, 65_535, 65_536, 65_537, 200_000, 3, 1_000_000, 9 << 20, 150_000, 1];
+    const texts = sizes.map((size, n) => {
+      const bytes = Buffer.alloc(size);
+      for (let i = 0; i < size; i++) bytes[i] = 33 + ((i * 7 + n * 13) % 90);
+      return bytes.toString('latin1');
+    });
+    texts.forEach((text, n) => writeFileSync(join(dir, `${n}.txt`), text));
+    for (const round of [0, 1]) {
+      texts.forEach((text, n) => {
+        const read = readText(join(dir, `${n}.txt`));
+        expect(read.ascii, `file ${n}, round ${round}`).toBe(true);
+        expect(read.text === text, `file ${n} (${sizes[n]} bytes), round ${round}`).toBe(true);
+      });
+    }
+    // A file with bytes beyond ASCII read after a longer ASCII one: none of the longer one's bytes follow it.
+    writeFileSync(join(dir, 'u.txt'), 'µΩ');
+    expect(readText(join(dir, 'u.txt'))).toEqual({ text: 'µΩ', ascii: false });
+  });
 });
 
 describe('the build record', () => {

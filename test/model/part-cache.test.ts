@@ -1,12 +1,13 @@
 // The part cache: a library loaded with it gives the very parts and problems a load without it gives, and
 // reads and parses only the part files that changed since (or that have errors, which are never kept).
 
-import { mkdirSync, readFileSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { isDeepStrictEqual } from 'node:util';
 import { afterAll, describe, expect, it } from 'vitest';
 import { loadLibrary, type LoadResult } from '../../src/model/library.js';
 import { PartCache } from '../../src/model/part-cache.js';
+import { lateFieldsRead } from '../../src/model/lazy-part.js';
 import { tempDir } from '../site-helpers.js';
 
 const root = tempDir('part-cache');
@@ -131,6 +132,42 @@ describe('PartCache', () => {
     expect(third.cache.counts.parsed).toBe(0);
     expect(third.result.library!.parts.map((p) => p.title).filter((t) => /changed/.test(t))).toEqual([]);
     expect(partsOf(third.result)).toEqual(partsOf(loadLibrary(root)));
+  });
+
+  it('reads a cached part\'s late fields only when one is asked for, from the part file when its shard\'s late file is lost or rewritten', () => {
+    load();
+    const plain = loadLibrary(root);
+    const expected = new Map(plain.library!.parts.map((p) => [p.id, { title: p.title, parameters: p.parameters, network: p.network, tags: p.tags }]));
+    const lateOf = (p: { title: string; parameters: unknown; network: unknown; tags: unknown }) => ({ title: p.title, parameters: p.parameters, network: p.network, tags: p.tags });
+
+    const { result, cache } = load();
+    expect(cache.counts.parsed).toBe(0);
+    const parts = result.library!.parts;
+    expect(parts.filter((p) => lateFieldsRead(p))).toEqual([]);
+    // What every build reads of every part leaves the late fields unread.
+    for (const p of parts) void [p.id, p.kind, p.nominal, p.package, p.voltageRatings, p.measurements, p.spread, p.source.hash];
+    expect(parts.filter((p) => lateFieldsRead(p))).toEqual([]);
+    expect(lateOf(parts[0])).toEqual(expected.get(parts[0].id));
+    expect(parts.filter((p) => lateFieldsRead(p)).map((p) => p.id)).toEqual([parts[0].id]);
+
+    // The late files gone (or written by another run since) after the parts were handed out: read from the part files.
+    const lost = load();
+    for (const name of readdirSync(cacheDir)) if (name.endsWith('.late')) rmSync(join(cacheDir, name));
+    for (const p of lost.result.library!.parts) expect(lateOf(p)).toEqual(expected.get(p.id));
+    const rewritten = load();
+    expect(rewritten.cache.counts.parsed).toBe(0);
+    for (const name of readdirSync(cacheDir)) if (name.endsWith('.late')) writeFileSync(join(cacheDir, name), readFileSync(join(cacheDir, name), 'latin1').replace(/"token":"/, '"token":"0'));
+    for (const p of rewritten.result.library!.parts) expect(lateOf(p)).toEqual(expected.get(p.id));
+    // A part file changed since it was handed out cannot give its late fields: the build stops rather than mix versions.
+    const changed = load();
+    for (const name of readdirSync(cacheDir)) if (name.endsWith('.late')) rmSync(join(cacheDir, name));
+    const first = changed.result.library!.parts[0];
+    writeFileSync(join(root, first.source.path), readFileSync(join(root, first.source.path), 'utf8') + '# edited\n');
+    expect(() => first.title).toThrow(/changed while it was read/);
+    // The next load reads the changed file again; the others' late fields still come from their part files.
+    const again = load();
+    expect(again.cache.counts.parsed).toBe(1);
+    expect(partsOf(again.result)).toEqual(partsOf(loadLibrary(root)));
   });
 });
 
