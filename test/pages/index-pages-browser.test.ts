@@ -16,7 +16,7 @@ import { writeGeneratedLibrary } from '../../bench/generate.js';
 import { buildFolio } from '../../src/build/build.js';
 import { noCharts } from '../build/no-charts.js';
 import type { Library } from '../../src/model/library.js';
-import { ARTIFACTS, siteTabs, startChrome, stopChrome } from '../print/site-tabs.js';
+import { ARTIFACTS, keepScreenshot, siteTabs, startChrome, stopChrome } from '../print/site-tabs.js';
 
 const PARTS = 2000;
 let root: string;
@@ -44,6 +44,8 @@ afterAll(async () => {
 });
 
 const open = siteTabs(() => browser, () => site, problems);
+/** The walk's own tab: a test may hold a page of `open` while the walk is made. */
+const openForWalk = siteTabs(() => browser, () => site, problems);
 
 const ids = (page: Page) => page.$$eval('table.parts-index tbody tr', (rows) => rows.filter((r) => !(r as HTMLElement).hidden).map((r) => r.querySelector('a')!.textContent!.trim()));
 const count = (page: Page) => page.$eval('output[name=count]', (o) => (o as HTMLOutputElement).value);
@@ -75,7 +77,7 @@ function walkWithoutScript(): Promise<StaticPage[]> {
   walked ??= (async () => {
     const out: StaticPage[] = [];
     let file: string | undefined = 'index.html';
-    const page = await open(file, false);
+    const page = await openForWalk(file, false);
     while (file) {
       const read = await page.evaluate(() => {
         const rows = Array.from(document.querySelectorAll<HTMLTableRowElement>('table.parts-index tbody tr'));
@@ -136,7 +138,7 @@ describe(`the index of ${PARTS.toLocaleString('en-GB')} parts`, () => {
     await page.click('nav[data-pager] button:last-of-type');
     expect(await count(page)).toBe(`${expected.length} of ${PARTS} shown, page 2 of ${pages}`);
     expect(await ids(page)).toEqual(expected.slice(200, 400));
-    await page.screenshot({ path: join(ARTIFACTS, 'index-2000-filtered.png') });
+    await keepScreenshot(page, 'index-2000-filtered.png');
 
     await page.click('input[name=q]', { clickCount: 3 });
     await page.keyboard.press('Backspace');
@@ -144,7 +146,6 @@ describe(`the index of ${PARTS.toLocaleString('en-GB')} parts`, () => {
     const beads = library.parts.filter((p) => p.kind === 'bead').map((p) => p.id).sort();
     expect(await count(page)).toBe(`${beads.length} of ${PARTS} shown, page 1 of ${Math.ceil(beads.length / 200)}`);
     expect(await ids(page)).toEqual(beads.slice(0, 200));
-    await page.close();
   });
 
   it('sorts all parts by a column, both ways, with the order of the numbers', async () => {
@@ -158,8 +159,7 @@ describe(`the index of ${PARTS.toLocaleString('en-GB')} parts`, () => {
     expect((await srfs()).map(Number)).toEqual(all.slice(0, 200));
     await page.click('th[data-key=srf] button');
     expect((await srfs()).map(Number)).toEqual([...all].reverse().slice(0, 200));
-    await page.screenshot({ path: join(ARTIFACTS, 'index-2000-sorted.png') });
-    await page.close();
+    await keepScreenshot(page, 'index-2000-sorted.png');
   });
 
   it('raised no console error and no failed request', () => {

@@ -1,14 +1,13 @@
 // The built demo folio in the system Chromium, opened from the file system as a reader would: the index
 // filters and sorts, part and comparison pages show their charts, nothing is fetched from outside and no
-// error reaches the console. Screenshots go to test/.artifacts/ for people to look at.
+// error reaches the console. With ZFOLIO_TEST_SCREENSHOTS=1, screenshots go to test/.artifacts/ for people to look at.
 
-import { join } from 'node:path';
 import type { BrowserContext, Page } from 'puppeteer-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadLibrary } from '../../src/model/library.js';
 import { demoSite } from '../demo-site.js';
 import { REPO } from '../site-helpers.js';
-import { ARTIFACTS, siteTabs, startChrome, stopChrome } from './site-tabs.js';
+import { keepScreenshot, siteTabs, startChrome, stopChrome } from './site-tabs.js';
 
 const library = loadLibrary(REPO).library!;
 let site: string;
@@ -46,8 +45,7 @@ describe('the index', () => {
     await page.type('input[name=q]', word);
     const expected = library.parts.filter((p) => [p.id, p.title, p.package ?? '', ...p.tags].join(' ').toLowerCase().includes(word)).map((p) => p.id);
     expect((await visibleIds(page)).sort()).toEqual(expected.sort());
-    await page.screenshot({ path: join(ARTIFACTS, 'index-filtered.png') });
-    await page.close();
+    await keepScreenshot(page, 'index-filtered.png');
   });
 
   it('sorts by SRF, both ways, with the order of the numbers and not of the text', async () => {
@@ -61,15 +59,13 @@ describe('the index', () => {
     await header!.click();
     const down = (await srfs()).filter((v) => v !== '').map(Number);
     expect(down).toEqual([...down].sort((a, b) => b - a));
-    await page.screenshot({ path: join(ARTIFACTS, 'index-sorted.png') });
-    await page.close();
+    await keepScreenshot(page, 'index-sorted.png');
   });
 
   it('is complete and readable with script off', async () => {
     const page = await open('index.html', false);
     expect(await page.$$eval('table.parts-index tbody tr', (rows) => rows.length)).toBe(library.parts.length);
     expect(await page.$eval('form[data-filters]', (f) => (f as HTMLFormElement).hidden)).toBe(true);
-    await page.close();
   });
 });
 
@@ -82,8 +78,7 @@ describe('pages', () => {
     const boxes = await page.$$eval('figure.chart svg, .schematic-figure svg', (svgs) => svgs.map((s) => s.getBoundingClientRect()).map((r) => [r.width, r.height]));
     expect(boxes).toHaveLength(5);
     for (const [w, h] of boxes) expect(w * h).toBeGreaterThan(10_000);
-    await page.screenshot({ path: join(ARTIFACTS, 'part-page.png'), fullPage: true });
-    await page.close();
+    await keepScreenshot(page, 'part-page.png', true);
   });
 
   it('every kind of part page opens cleanly', async () => {
@@ -92,9 +87,8 @@ describe('pages', () => {
       const page = await open(`parts/${part.id}/index.html`);
       // Four charts, and three more for each measurement the part has.
       expect(await page.$$eval('figure.chart svg', (s) => s.length)).toBe(4 + 3 * part.measurements.length);
-      await page.screenshot({ path: join(ARTIFACTS, `part-${kind}.png`), fullPage: true });
-      await page.close();
-    }
+      await keepScreenshot(page, `part-${kind}.png`, true);
+      }
   });
 
   it('a comparison page overlays the parts on one chart', async () => {
@@ -104,8 +98,7 @@ describe('pages', () => {
     expect(box).toBeGreaterThan(300);
     const rows = await page.$$eval('table.grid tbody tr', (r) => r.length);
     expect(rows).toBe(library.parts.filter((p) => p.kind === 'inductor').length);
-    await page.screenshot({ path: join(ARTIFACTS, 'comparison.png'), fullPage: true });
-    await page.close();
+    await keepScreenshot(page, 'comparison.png', true);
   });
 
   it('raised no console error, no failed request and no request outside the site', () => {

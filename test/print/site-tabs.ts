@@ -15,6 +15,17 @@ import { REPO } from '../site-helpers.js';
 export const ARTIFACTS = join(REPO, 'test', '.artifacts');
 
 /**
+ * A screenshot of what `page` shows, written to ARTIFACTS as `name` for people to look at, when the run has
+ * ZFOLIO_TEST_SCREENSHOTS=1. No check reads these, and they cost Chromium's CPU: the eight of
+ * browser.test.ts (six of them whole pages) took 10 s of it, 34.6 s against 24.4 s for the file without
+ * them (scripts/tree-cpu.mjs, load 15 to 18).
+ */
+export async function keepScreenshot(page: Page, name: string, fullPage = false): Promise<void> {
+  if (process.env.ZFOLIO_TEST_SCREENSHOTS !== '1') return;
+  await page.screenshot({ path: join(ARTIFACTS, name), fullPage });
+}
+
+/**
  * A context of its own in the run's Chromium (started on the first call of the run); a machine without
  * Chromium fails here rather than skipping. Close it with `stopChrome`. Test builds that print ask for the
  * run's other Chromium, `'print'`, to give as their `pdf.browser`.
@@ -34,15 +45,21 @@ export async function stopChrome(context: BrowserContext | undefined): Promise<v
   await browser.disconnect();
 }
 
-/** Opens `file` of the site at `site` in a new tab of `browser`, with or without script. */
+/**
+ * Opens `file` of the site at `site`, with or without script, in the tab of this `open`: one tab going from
+ * page to page rather than a tab a page (a new tab costs Chromium about a second of CPU: ten tabs opened on
+ * about:blank took 10 s more than none, at load 10 to 13). A test that closes it gets a new one next time;
+ * a memo that reads pages while a test holds another (a walk through pages) takes a `siteTabs` of its own.
+ */
 export function siteTabs(browser: () => BrowserContext, site: () => string, problems: string[]) {
-  return async function open(file: string, javascript = true): Promise<Page> {
+  let tab: Page | undefined;
+  /** The file last opened in the tab. */
+  let opened = '';
+  const newTab = async (): Promise<Page> => {
     const page = await browser().newPage();
-    await page.setJavaScriptEnabled(javascript);
-    await page.setViewport({ width: 1280, height: 900 });
     const siteUrl = pathToFileURL(site()).href;
     // The page the tab shows when it happens (a test may go on to another page of the site in the same tab).
-    const where = () => (page.url().startsWith(siteUrl + '/') ? page.url().slice(siteUrl.length + 1) : file);
+    const where = () => (page.url().startsWith(siteUrl + '/') ? page.url().slice(siteUrl.length + 1) : opened);
     page.on('console', (m) => {
       if (m.type() === 'error' || m.type() === 'warn') problems.push(`${where()}: console ${m.type()}: ${m.text()}`);
     });
@@ -51,7 +68,14 @@ export function siteTabs(browser: () => BrowserContext, site: () => string, prob
     page.on('request', (r) => {
       if (!r.url().startsWith(siteUrl + '/') && !r.url().startsWith('data:')) problems.push(`${where()}: outside request: ${r.url()}`);
     });
-    await page.goto(`${siteUrl}/${file}`, { waitUntil: 'load' });
     return page;
+  };
+  return async function open(file: string, javascript = true): Promise<Page> {
+    if (!tab || tab.isClosed()) tab = await newTab();
+    opened = file;
+    await tab.setJavaScriptEnabled(javascript);
+    await tab.setViewport({ width: 1280, height: 900 });
+    await tab.goto(`${pathToFileURL(site()).href}/${file}`, { waitUntil: 'load' });
+    return tab;
   };
 }
