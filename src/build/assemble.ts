@@ -264,7 +264,9 @@ async function comparisonPages(
   const slugs = new Set<string>();
   // A review pack prints the comparisons it names, chart and all.
   const inReviews = new Set(library.reviews.flatMap((r) => r.comparisons.map(comparisonKey)));
-  const add = async (wanted: string, page: Omit<ComparisonPageData, 'slug' | 'parts' | 'chart'>, partIds: string[], reviewed = false) => {
+  // Pages listed in order, charts asked for all at once (one by one, one worker drew them while one idled).
+  const drawing: Promise<void>[] = [];
+  const add = (wanted: string, page: Omit<ComparisonPageData, 'slug' | 'parts' | 'chart'>, partIds: string[], reviewed = false) => {
     // Two files whose names differ only in characters a folder name cannot hold get distinct folders.
     let slug = wanted;
     for (let n = 2; slugs.has(slug); n++) slug = `${wanted}-${n}`;
@@ -274,8 +276,7 @@ async function comparisonPages(
     const data: ComparisonPageData = { slug, ...page, parts: partIds.map((id) => listedById.get(id)!) };
     const kept = units.kept(`comparisons/${slug}`, units.comparison(data));
     if (analyses.length > 0 && (!kept || reviewed)) {
-      const chart = await charts.comparisonChart(analyses, page.title);
-      data.chart = kept ? chartOnPage(chart) : placeChart(chart, folder, timings);
+      drawing.push(charts.comparisonChart(analyses, page.title).then((chart) => void (data.chart = kept ? chartOnPage(chart) : placeChart(chart, folder, timings))));
     } else if (analyses.length > 0) {
       // The page is kept (with its chart); the chart stays in the cache unread.
       units.keepChart?.(analyses, page.title);
@@ -288,12 +289,12 @@ async function comparisonPages(
     return data;
   };
   for (const c of library.comparisons) {
-    const data = await add(comparisonSlug(c), { title: c.title, description: c.description, automatic: false, selection: selectionText(c), sourceFile: c.source.path }, c.parts.map((p) => p.id), inReviews.has(comparisonKey(c)));
+    const data = add(comparisonSlug(c), { title: c.title, description: c.description, automatic: false, selection: selectionText(c), sourceFile: c.source.path }, c.parts.map((p) => p.id), inReviews.has(comparisonKey(c)));
     byKey.set(comparisonKey(c), data);
   }
   for (const f of automaticComparisons(library)) {
     const family = { kind: f.kind, packageText: f.packageText, valuesText: f.valuesText, subsetText: f.subsetText };
-    await add(f.slug, { title: f.title, automatic: true, selection: f.selection, family }, f.parts.map((p) => p.id));
+    add(f.slug, { title: f.title, automatic: true, selection: f.selection, family }, f.parts.map((p) => p.id));
   }
-  return { pages, byKey, rendered };
+  return Promise.all(drawing).then(() => ({ pages, byKey, rendered }));
 }
