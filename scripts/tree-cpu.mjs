@@ -8,6 +8,9 @@
 // (utime + stime, proc(5)) and known by its pid and start time, so one that outlives its parent still counts
 // once seen. A process that lives less than 100 ms may be missed, and each one's last 100 ms is: the figure
 // errs low by about that, alike for runs compared side by side.
+//
+// Below the total, the CPU time by program name (the kernel's name of the process: chromium, node, git,
+// pdftotext...), largest first: in a test run, "chromium" is the browser tests' pages and prints.
 
 import { spawn } from 'node:child_process';
 import { readdirSync, readFileSync } from 'node:fs';
@@ -16,7 +19,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 const TICKS_PER_SECOND = 100;
 const INTERVAL_MS = 100;
 
-/** pid -> [parent pid, utime + stime in ticks, start time in ticks]; proc(5) fields 4, 14 + 15 and 22. */
+/** pid -> [parent pid, utime + stime in ticks, start time in ticks, name]; proc(5) fields 4, 14 + 15, 22 and 2. */
 function processes() {
   const found = new Map();
   for (const name of readdirSync('/proc')) {
@@ -28,7 +31,7 @@ function processes() {
       continue; // ended meanwhile
     }
     const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
-    found.set(Number(name), [Number(fields[1]), Number(fields[11]) + Number(fields[12]), Number(fields[19])]);
+    found.set(Number(name), [Number(fields[1]), Number(fields[11]) + Number(fields[12]), Number(fields[19]), stat.slice(stat.indexOf('(') + 1, stat.lastIndexOf(')'))]);
   }
   return found;
 }
@@ -40,7 +43,7 @@ if (!command) {
 }
 const started = performance.now();
 const child = spawn(command, args, { stdio: 'inherit' });
-/** "pid start" -> ticks at the last reading, for every process seen under the command. */
+/** "pid start" -> [ticks at the last reading, name], for every process seen under the command. */
 const seen = new Map();
 const sample = () => {
   const all = processes();
@@ -50,19 +53,27 @@ const sample = () => {
     }
     return false;
   };
-  for (const [pid, [, ticks, start]] of all) {
+  for (const [pid, [, ticks, start, name]] of all) {
     const key = `${pid} ${start}`;
-    if (seen.has(key) || ours(pid)) seen.set(key, ticks);
+    if (seen.has(key) || ours(pid)) seen.set(key, [ticks, name]);
   }
 };
 const timer = setInterval(sample, INTERVAL_MS);
 sample();
 child.on('exit', (code, signal) => {
   clearInterval(timer);
-  const cpu = [...seen.values()].reduce((sum, ticks) => sum + ticks, 0) / TICKS_PER_SECOND;
+  const cpu = [...seen.values()].reduce((sum, [ticks]) => sum + ticks, 0) / TICKS_PER_SECOND;
   const wall = (performance.now() - started) / 1000;
   const load = readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ');
   process.stderr.write(`tree-cpu: ${wall.toFixed(1)} s wall, ${cpu.toFixed(1)} s of CPU in ${seen.size} processes (load now ${load})\n`);
+  const byName = new Map();
+  for (const [ticks, name] of seen.values()) {
+    const [sum, count] = byName.get(name) ?? [0, 0];
+    byName.set(name, [sum + ticks, count + 1]);
+  }
+  for (const [name, [ticks, count]] of [...byName].sort((a, b) => b[1][0] - a[1][0])) {
+    if (ticks >= 10) process.stderr.write(`tree-cpu: ${(ticks / TICKS_PER_SECOND).toFixed(1).padStart(7)} s ${name} (${count} ${count === 1 ? 'process' : 'processes'})\n`);
+  }
   process.exitCode = code ?? 1;
   if (signal) process.exitCode = 1;
 });
