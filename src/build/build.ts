@@ -35,7 +35,6 @@ import { buildHistory, type BuildHistory } from './build-history.js';
 import { addChanges } from '../pages/changes-page.js';
 import { SvgSpill } from './svg-spill.js';
 import { earlyChartWorkers, PARTS_PER_WORKER_START, type StartedWorker } from './chart-workers.js';
-import { readWhileStamping, stampsFor, type prefetchStamps, type Stamps } from './stamp-prefetch.js';
 
 export interface BuildOptions {
   libraryRoot: string;
@@ -62,8 +61,6 @@ export interface BuildOptions {
   cache?: string | false;
   /** A git revision: the site gets a "Changes since REV" page. */
   since?: string;
-  /** Take the stamps of a rebuild with a spare in a worker (stamp-prefetch.ts); default: when the spare has UNITS_PER_PREFETCH units. */
-  prefetchStamps?: boolean;
   /** Called at each step of putting the new site in place (tests stop the process there). */
   onSwapStep?(step: SwapStep): void;
 }
@@ -134,23 +131,20 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   checkWritable(outDir, { keptAsSpare: record?.live !== undefined && currentVersion(outDir) === record.live.name });
   // A cold build of many parts starts its chart workers now, to load beside the reading (chart-workers.ts).
   const early = options.charts ? [] : earlyChartWorkers({ libraryRoot: started.libraryRoot, cacheRoot, recordDir: cacheRoot && recordDir(cacheRoot, outDir), workers: options.workers });
-  // A rebuild with a spare version takes the stamps of the part files and the spare's pages in a worker (stamp-prefetch.ts).
-  const stamps = recordAt ? stampsFor(started.libraryRoot, outDir, record, options.prefetchStamps) : undefined;
   try {
-    return await loadAndBuild(options, outDir, { ...started, cacheRoot, early, recordAt, record, stamps });
+    return await loadAndBuild(options, outDir, { ...started, cacheRoot, early, recordAt, record });
   } finally {
     // Those the chart pool did not take (the library had errors, or fewer parts to draw).
     for (const w of early) void w.worker.terminate();
   }
 }
 
-async function loadAndBuild(options: BuildOptions, outDir: string, { at: started, clock, libraryRoot, cacheRoot, early, recordAt, record, stamps }: { at: number; clock: () => StageTime; libraryRoot: string; cacheRoot?: string; early: StartedWorker[]; recordAt?: string; record?: SiteRecord; stamps?: ReturnType<typeof prefetchStamps> }): Promise<BuildResult> {
+async function loadAndBuild(options: BuildOptions, outDir: string, { at: started, clock, libraryRoot, cacheRoot, early, recordAt, record }: { at: number; clock: () => StageTime; libraryRoot: string; cacheRoot?: string; early: StartedWorker[]; recordAt?: string; record?: SiteRecord }): Promise<BuildResult> {
   const progress = options.progress ?? silentProgress;
   const zero = { seconds: 0, cpuSeconds: 0 };
   const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
   // Part files unchanged since the last build are taken from the cache, not read and parsed again.
   const partCache = cacheRoot === undefined ? undefined : new PartCache(libraryRoot, join(cacheRoot, 'parts'), codeKey());
-  if (stamps) await readWhileStamping(stamps, partCache, record);
   const { library, diagnostics } = loadLibrary(libraryRoot, { partCache });
   partCache?.save();
   const work = { filesParsed: partCache?.counts.parsed ?? library?.parts.length ?? 0, partsAnalysed: 0, partFolders: 0, comparisons: 0, listFiles: 0, pagesRendered: 0 };
@@ -177,7 +171,7 @@ async function loadAndBuild(options: BuildOptions, outDir: string, { at: started
   const own = chrome && 'browser' in chrome ? chrome.browser : undefined;
   const browser = options.pdf?.browser ?? own;
   try {
-    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history, early, cacheRoot, recordAt, record, sparePages: await stamps?.sparePages });
+    return await buildWith(options, library, outDir, browser, result, { started, progress, clock, history, early, cacheRoot, recordAt, record });
   } finally {
     await own?.close();
   }
@@ -189,7 +183,6 @@ interface Running {
   cacheRoot?: string;
   record?: SiteRecord;
   recordAt?: string;
-  sparePages?: Stamps['sparePages'];
   started: number;
   progress: Progress;
   clock: () => StageTime;
@@ -210,7 +203,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
   const staging = stageOutput(outDir, { onStep: options.onSwapStep });
   let pool: ChartPool | undefined, pageRuns: PartPageRuns | undefined;
   try {
-    const units = new SiteUnits(recordAt ? record : undefined, record?.spare && staging.claim(record.spare.name), outDir, run.sparePages);
+    const units = new SiteUnits(recordAt ? record : undefined, record?.spare && staging.claim(record.spare.name), outDir);
     const partKeys = new Map(library.parts.map((p) => [p.id, partKey(site, p, pdfLinks.part(p.id))]));
     const partKeyOf = (id: string) => partKeys.get(id) ?? '';
     const carried = new Map<string, CarriedPart>();

@@ -42,8 +42,6 @@ export class SiteUnits {
     private readonly record: SiteRecord | undefined,
     private readonly spareDir: string | undefined,
     private readonly outDir: string,
-    /** The spare's folder units' pages as a worker stamped them (stamp-prefetch.ts), by unit. */
-    private readonly sparePages?: ReadonlyMap<string, readonly number[]>,
   ) {
     if (record?.live && currentVersion(outDir) === record.live.name) this.liveDir = outDir;
   }
@@ -91,7 +89,7 @@ export class SiteUnits {
   private source(unit: string, key: string): Source {
     const folder = isFolderUnit(unit);
     const spare = this.spareDir ? this.record?.spare?.get(unit) : undefined;
-    if (spare?.key === key && spareUnchanged(join(this.spareDir!, unit), folder, spare.stamp, this.sparePages?.get(unit))) return 'spare';
+    if (spare?.key === key && spareUnchanged(join(this.spareDir!, unit), folder, spare.stamp)) return 'spare';
     const live = this.liveDir ? this.record?.live?.get(unit) : undefined;
     if (live?.key === key && sameStamp(live.stamp, unitStamp(join(this.liveDir!, unit), folder))) return 'live';
     return 'fresh';

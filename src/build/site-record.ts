@@ -121,16 +121,6 @@ export class VersionRecord {
     for (let i = 0; i < SHARDS; i++) yield* this.shard(i);
   }
 
-  /** About how many units the version has: its first shard's, times the shards (units are spread over them by a hash). */
-  estimatedUnits(): number {
-    return this.shard(0).size * SHARDS;
-  }
-
-  /** Read every shard now (they are read at a unit's first look-up otherwise). */
-  readAll(): void {
-    for (let i = 0; i < SHARDS; i++) this.shard(i);
-  }
-
   /** A copy under another name, sharing the shard files and maps (entries are never changed in place). */
   renamed(name: string): VersionRecord {
     const copy = new VersionRecord(name, this.shards, [...this.names]);

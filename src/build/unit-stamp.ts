@@ -31,13 +31,11 @@ export const sameStamp = (a: readonly number[], b: readonly number[]) => a.lengt
  * spare's page too, and is seen here. A file added to, removed from or renamed over in the live site's copy of
  * a folder leaves the spare's copy as the build made it, which is the copy the new site gets; only the spare's
  * own folder changed inside the holding folder by hand goes unseen (its folder's stamp is not read: at 10,000
- * parts that stat was a tenth of a rebuild). `page`: the page's size, mtime and inode when already taken.
+ * parts that stat was a tenth of a rebuild).
  */
-export function spareUnchanged(path: string, folder: boolean, stamp: readonly number[], page?: readonly number[]): boolean {
+export function spareUnchanged(path: string, folder: boolean, stamp: readonly number[]): boolean {
   if (!folder) return sameStamp(stamp, unitStamp(path, false));
   if (stamp.length !== 5) return false;
-  // The page's size, mtime and inode as a worker took them (stamp-prefetch.ts).
-  if (page) return page[0] === stamp[2] && page[1] === stamp[3] && page[2] === stamp[4];
   try {
     const page = statSync(join(path, 'index.html'), { throwIfNoEntry: false });
     return page !== undefined && page.isFile() && page.size === stamp[2] && page.mtimeMs === stamp[3] && page.ino === stamp[4];

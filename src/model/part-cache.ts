@@ -111,23 +111,8 @@ export class PartCache {
     this.files = new ShardFiles(dir, key, FORMAT);
   }
 
-  /** Stamps of part files already taken (stamp-prefetch.ts), by library-relative path. */
-  private taken?: ReadonlyMap<string, number[]>;
-
-  /** Use these stamps (taken before the files are read) instead of taking them again. */
-  useStamps(taken: ReadonlyMap<string, number[]>): void {
-    this.taken = taken;
-  }
-
-  /** Read every shard's heads now (while stamps are taken elsewhere) rather than at each shard's first look-up. */
-  readHeads(): void {
-    for (let i = 0; i < SHARDS; i++) this.shard(i);
-  }
-
   /** The stamp of a library file now (to be passed to `store` after reading it), or undefined. */
   stamp(path: string): number[] | undefined {
-    const taken = this.taken?.get(path);
-    if (taken) return taken;
     const s = statSync(join(this.root, path), { throwIfNoEntry: false });
     return s && [s.size, s.mtimeMs, s.ctimeMs, s.ino, s.dev];
   }
