@@ -61,17 +61,6 @@ export function libraryChartPool(settings: Pick<FolioSettings, 'sweep' | 'within
   return new ChartPool({ ...options, settingsKey: JSON.stringify({ sweep, within, temperature }) });
 }
 
-/**
- * Jobs a worker holds at once: the one it draws and those waiting in its message queue. A worker that has
- * none left waits for this thread to take an answer and send the next, and this thread takes none while it
- * renders a run of part pages (eleventy's rendering is one chain of promise callbacks, which no message
- * interrupts): in CPU profiles of a cold 1,000-part build (load 7 to 11) both workers sat idle together for
- * 0.2 to 0.8 s every 2 to 4 s of the chart phase, 3.3 to 4.1 s each in all, with one job or two a worker.
- * Sixteen cover a run of a few hundred milliseconds; a job waiting holds its part's chart input (about
- * 100 KB) and this thread the part's analysis, made when the job is sent.
- */
-export const JOBS_PER_WORKER = 16;
-
 interface Pending {
   resolve(charts: DrawnChart[]): void;
   reject(error: Error): void;
@@ -85,8 +74,7 @@ export class ChartPool implements ChartMaker {
   // packages' versions, so a changed analysis or renderer never serves a stale chart.
   private readonly fingerprint = codeKey();
   private readonly workers: Worker[] = [];
-  /** Per worker: jobs sent and not yet answered, and when it last answered (performance.now()). */
-  private readonly held = new Map<Worker, { jobs: number; answeredAt: number }>();
+  private readonly idle: Worker[] = [];
   /** Jobs waiting for a worker; a job is made from its `make` when it is next (see `prepare`). */
   private readonly queue: { id: number; make: () => ChartJob; job?: ChartJob; cacheFile?: string; slim: boolean }[] = [];
   private readonly pending = new Map<number, Pending>();
@@ -233,17 +221,15 @@ export class ChartPool implements ChartMaker {
   }
 
   private dispatch(): void {
-    while (this.queue.length > 0) {
-      const worker = this.leastHeld();
-      if (!worker) break;
-      this.held.get(worker)!.jobs++;
+    while (this.idle.length > 0 && this.queue.length > 0) {
+      const worker = this.idle.pop()!;
       const next = this.queue.shift()!;
       const pending = this.pending.get(next.id);
       if (pending) pending.sentAt = performance.now();
       const message: WorkerJob = { id: next.id, job: next.job ?? next.make(), cacheFile: next.cacheFile, slim: next.slim };
       worker.postMessage(message);
     }
-    // The next few jobs are made while the workers draw, so the job sent on an answer is ready.
+    // The next few jobs are made while the workers draw, so a worker that finishes finds one ready.
     if (this.queue.length > 0 && !this.preparing) {
       this.preparing = true;
       setImmediate(() => {
@@ -253,32 +239,14 @@ export class ChartPool implements ChartMaker {
     }
   }
 
-  /** The worker holding the fewest jobs, if one holds fewer than JOBS_PER_WORKER (the first such on a tie). */
-  private leastHeld(): Worker | undefined {
-    let best: Worker | undefined;
-    let fewest = JOBS_PER_WORKER;
-    for (const w of this.workers) {
-      const jobs = this.held.get(w)!.jobs;
-      if (jobs < fewest) {
-        best = w;
-        fewest = jobs;
-      }
-    }
-    return best;
-  }
-
   private startWorker(started?: StartedWorker): void {
     if (started?.failure) void started.worker.terminate();
     const { worker } = started && !started.failure ? started : startChartWorker();
     worker.on('message', (message: { id: number; charts?: DrawnChart[]; error?: string }) => {
       const pending = this.pending.get(message.id);
       this.pending.delete(message.id);
-      const held = this.held.get(worker)!;
-      const now = performance.now();
-      // A job waits in the worker's queue while the one before it is drawn: its time starts at that answer.
-      if (pending?.sentAt !== undefined) this.stats.workerSeconds += (now - Math.max(pending.sentAt, held.answeredAt)) / 1000;
-      held.jobs--;
-      held.answeredAt = now;
+      if (pending?.sentAt !== undefined) this.stats.workerSeconds += (performance.now() - pending.sentAt) / 1000;
+      this.idle.push(worker);
       this.dispatch();
       if (!pending) return;
       if (message.error !== undefined) pending.reject(new Error(`chart worker: ${message.error}`));
@@ -289,6 +257,6 @@ export class ChartPool implements ChartMaker {
       this.pending.clear();
     });
     this.workers.push(worker);
-    this.held.set(worker, { jobs: 0, answeredAt: 0 });
+    this.idle.push(worker);
   }
 }

@@ -25,27 +25,14 @@ export interface WorkerJob {
 const JOBS_BETWEEN_COLLECTIONS = 100;
 let jobs = 0;
 
-/**
- * Jobs are drawn one at a time, in the order they came: the pool sends a worker its next jobs before this
- * one is answered (chart-pool.ts, JOBS_PER_WORKER), and jobs drawn at once would only hold their parts' data
- * in memory together. What fails in a job is that job's answer.
- */
-let last: Promise<void> = Promise.resolve();
-
 port.on('message', (message: WorkerJob) => {
-  const run = () => draw(message);
-  last = last.then(run, run);
-});
-
-function draw(message: WorkerJob): Promise<void> {
-  return renderChartJob(message.job)
-    .then((charts) => {
+  renderChartJob(message.job).then(
+    (charts) => {
       const answer = message.slim ? withoutSpecs(charts) : charts;
       if (message.cacheFile) writeCacheEntry(message.cacheFile, answer);
       port.postMessage({ id: message.id, charts: answer });
-    })
-    .catch((error: unknown) => port.postMessage({ id: message.id, error: error instanceof Error ? error.stack ?? error.message : String(error) }))
-    .then(() => {
       if (++jobs % JOBS_BETWEEN_COLLECTIONS === 0) collectGarbage();
-    });
-}
+    },
+    (error: unknown) => port.postMessage({ id: message.id, error: error instanceof Error ? error.stack ?? error.message : String(error) }),
+  );
+});

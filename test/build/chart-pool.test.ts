@@ -3,7 +3,7 @@
 
 import { afterAll, describe, expect, it } from 'vitest';
 import type { PartAnalysis } from '../../src/analysis/part-figures.js';
-import { ChartPool, compactCharts, JOBS_PER_WORKER } from '../../src/build/chart-pool.js';
+import { ChartPool, compactCharts } from '../../src/build/chart-pool.js';
 import { serialize } from 'node:v8';
 import { renderPartCharts } from '../../src/charts/part-charts.js';
 import type { Part } from '../../src/model/part.js';
@@ -28,25 +28,14 @@ describe('chart pool', () => {
 
   it('reads a part only when a worker takes its job (or just before), and draws every part', async () => {
     const made = new Set<string>();
-    const parts = Array.from({ length: JOBS_PER_WORKER + 4 }, (_, i) => ({ ...(i % 2 ? capacitorPart : resistorPart), id: `P-${i}`, source: { path: `p${i}.yaml`, hash: `h${i}` } }) as unknown as Part);
-    const answered: number[] = [];
-    const started = performance.now();
-    const requests = parts.map((p, i) => pool.partCharts(counted(p, made)).then((c) => (answered.push(i), c)));
-    // JOBS_PER_WORKER jobs sent to the one worker (the one it draws and the rest queued in it); one more is
-    // made while it draws, no more.
-    expect(JOBS_PER_WORKER).toBeGreaterThan(1);
-    expect(made.size).toBe(JOBS_PER_WORKER);
+    const parts = Array.from({ length: 8 }, (_, i) => ({ ...(i % 2 ? capacitorPart : resistorPart), id: `P-${i}`, source: { path: `p${i}.yaml`, hash: `h${i}` } }) as unknown as Part);
+    const requests = parts.map((p) => pool.partCharts(counted(p, made)));
+    // One job sent to the one worker; the next is made while it draws, no more.
+    expect(made.size).toBe(1);
     await new Promise((r) => setImmediate(r));
-    expect(made.size).toBeLessThanOrEqual(JOBS_PER_WORKER + 1);
+    expect(made.size).toBeLessThanOrEqual(2);
     const charts = await Promise.all(requests);
-    const elapsed = (performance.now() - started) / 1000;
     expect(made.size).toBe(parts.length);
-    // The worker draws its jobs one at a time, in the order sent, so they are answered in that order.
-    expect(answered).toEqual(parts.map((_, i) => i));
-    // A job's time counts from the answer before it, not from when it was queued: the one worker's time on
-    // jobs is at most the time it had them (counted from sending, queued jobs would add up to many times that).
-    expect(pool.stats.workerSeconds).toBeGreaterThan(0);
-    expect(pool.stats.workerSeconds).toBeLessThanOrEqual(elapsed);
     // Each request answered with its own part's four charts.
     for (const [i, c] of charts.entries()) {
       expect(c).toHaveLength(4);
