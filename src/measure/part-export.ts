@@ -24,21 +24,27 @@ export const EXPORT_REFERENCE_OHM = 50;
 /** The first comment of every Touchstone file zfolio writes, by which it knows a file as its own. */
 export const TOUCHSTONE_MARK = 'zfolio export';
 
-/** The model as a formula of its leaves: "ESR + ESL + (C || EPR)"; unnamed leaves by value. */
-export function treeFormula(e: Element, inside?: 'series' | 'parallel'): string {
-  switch (e.type) {
-    case 'R':
-      return e.name ?? formatEng(e.ohms, 'resistance');
-    case 'L':
-      return e.name ?? formatEng(e.henries, 'inductance');
-    case 'C':
-      return e.name ?? formatEng(e.farads, 'capacitance');
-    case 'series':
-    case 'parallel': {
-      const text = e.parts.map((p) => treeFormula(p, e.type)).join(e.type === 'series' ? ' + ' : ' || ');
-      return inside && inside !== e.type ? `(${text})` : text;
+/**
+ * The model as a formula of its leaves: "ESR + ESL + (C || EPR)"; unnamed leaves by value. `parallelSign`
+ * joins parallel branches ('||' in files for other tools, '‖' on pages).
+ */
+export function treeFormula(e: Element, parallelSign = '||'): string {
+  const formula = (x: Element, inside?: 'series' | 'parallel'): string => {
+    switch (x.type) {
+      case 'R':
+        return x.name ?? formatEng(x.ohms, 'resistance');
+      case 'L':
+        return x.name ?? formatEng(x.henries, 'inductance');
+      case 'C':
+        return x.name ?? formatEng(x.farads, 'capacitance');
+      case 'series':
+      case 'parallel': {
+        const text = x.parts.map((p) => formula(p, x.type)).join(x.type === 'series' ? ' + ' : ` ${parallelSign} `);
+        return inside && inside !== x.type ? `(${text})` : text;
+      }
     }
-  }
+  };
+  return formula(e);
 }
 
 /** "C = 100 nF, ESR = 18 mΩ, …" for the named leaves of a tree, in tree order. */

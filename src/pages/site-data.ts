@@ -134,7 +134,7 @@ export function partPageData(a: PartAnalysis, charts: ChartOnPage[]): PartPageDa
     },
     srfImpedanceText: a.selfResonance ? formatEng(a.selfResonance.impedanceOhm, 'resistance') : '—',
     schematic: schematicSvg(part.network, `Model of ${part.id}`),
-    modelCaption: modelCaption(part.kind),
+    modelCaption: modelCaption(part.kind, part.network),
     charts,
     sourceFile: part.source.path,
     sourceHash: part.source.hash,

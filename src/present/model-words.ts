@@ -1,13 +1,15 @@
 // A part's model in words: the caption under its schematic, and what each named element of it stands for.
 
+import type { Element } from '../circuit/element.js';
+import { treeFormula } from '../measure/part-export.js';
 import type { PartKind } from '../model/part.js';
 
-const MODEL_CAPTION: Readonly<Record<PartKind, string>> = {
-  capacitor: 'Capacitor model: ESR + ESL + (C ‖ EPR).',
-  inductor: 'Inductor model: (DCR + L) ‖ Cp ‖ Rp.',
-  resistor: 'Resistor model: (R + Ls) ‖ Cp.',
-  bead: 'Bead model: Rdc + (R ‖ L ‖ C).',
-  network: 'Network as written in the part file.',
+const MODEL_OF: Readonly<Record<PartKind, string>> = {
+  capacitor: 'Capacitor model',
+  inductor: 'Inductor model',
+  resistor: 'Resistor model',
+  bead: 'Bead model',
+  network: 'Network as written in the part file',
 };
 
 const PARAMETER_MEANING: Readonly<Record<string, string>> = {
@@ -24,9 +26,13 @@ const PARAMETER_MEANING: Readonly<Record<string, string>> = {
   Rdc: 'DC resistance',
 };
 
-/** The caption under a part's schematic: which model the kind uses. */
-export function modelCaption(kind: PartKind): string {
-  return MODEL_CAPTION[kind];
+/**
+ * The caption under a part's schematic: its model as the formula of the elements it has ("Capacitor model:
+ * ESR + ESL + C."), so a part without the kind's optional elements (a capacitor's EPR, an inductor's Rp) is
+ * not captioned with them.
+ */
+export function modelCaption(kind: PartKind, network: Element): string {
+  return `${MODEL_OF[kind]}: ${treeFormula(network, '‖')}.`;
 }
 
 /** What a model element named `name` stands for ("equivalent series resistance"); '' for an unnamed one. */

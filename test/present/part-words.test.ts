@@ -39,7 +39,13 @@ describe('kinds and models', () => {
   });
 
   it('caption the model and say what its named elements stand for', () => {
-    expect(modelCaption('capacitor')).toBe('Capacitor model: ESR + ESL + (C ‖ EPR).');
+    // The caption names the elements each part's file gives it, read off the fixture files by hand: the
+    // capacitor has no leakage (EPR), the inductor every optional element, the network its values.
+    expect(modelCaption('capacitor', part('CAP-TEST-100N').network)).toBe('Capacitor model: ESR + ESL + C.');
+    expect(modelCaption('inductor', part('IND-TEST-10U').network)).toBe('Inductor model: (DCR + L) ‖ Cp ‖ Rp.');
+    expect(modelCaption('resistor', part('RES-TEST-4K7').network)).toBe('Resistor model: (R + Ls) ‖ Cp.');
+    expect(modelCaption('bead', part('BEAD-TEST-600R').network)).toBe('Bead model: Rdc + (R ‖ L ‖ C).');
+    expect(modelCaption('network', part('NET-TEST-BULK').network)).toBe('Network as written in the part file: 5 mΩ + 1.1 nH + (10 µF ‖ 50 MΩ).');
     expect(parameterMeaning('ESR', 'capacitor')).toBe('equivalent series resistance');
     expect(parameterMeaning('L', 'bead')).toBe('core inductance');
     expect(parameterMeaning('R2', 'network')).toBe('');
