@@ -37,6 +37,8 @@ export function modelCaption(kind: PartKind, network: Element): string {
 
 /** What a model element named `name` stands for ("equivalent series resistance"); '' for an unnamed one. */
 export function parameterMeaning(name: string, kind: string): string {
+  // A resistor's Cp is the capacitance between its terminals; it has no winding.
+  if (kind === 'resistor' && name === 'Cp') return 'parallel (terminal-to-terminal) capacitance';
   const meaning = Object.hasOwn(PARAMETER_MEANING, name) ? PARAMETER_MEANING[name] : '';
   // A bead's R, L and C are its core's.
   return kind === 'bead' && (name === 'R' || name === 'L' || name === 'C') ? `core ${meaning}` : meaning;

@@ -48,6 +48,8 @@ describe('kinds and models', () => {
     expect(modelCaption('network', part('NET-TEST-BULK').network)).toBe('Network as written in the part file: 5 mΩ + 1.1 nH + (10 µF ‖ 50 MΩ).');
     expect(parameterMeaning('ESR', 'capacitor')).toBe('equivalent series resistance');
     expect(parameterMeaning('L', 'bead')).toBe('core inductance');
+    expect(parameterMeaning('Cp', 'inductor')).toBe('parallel (winding) capacitance');
+    expect(parameterMeaning('Cp', 'resistor')).toBe('parallel (terminal-to-terminal) capacitance');
     expect(parameterMeaning('R2', 'network')).toBe('');
     expect(parameterMeaning('constructor', 'network')).toBe('');
   });
