@@ -63,7 +63,8 @@ export function valueSpreadText(part: Part, s: SpreadSummary): string | undefine
   if (s.tolerance) pieces.push(boundsText(s.tolerance));
   let text = pieces.join(' ');
   if (s.temperatureChange) text += `, ${changeText(s.temperatureChange)} over ${celsiusSpan(s.temperature)} (${temperatureSourceText(part)})`;
-  if (s.nominalValue) text += `: ${formatEng(s.nominalValue.min, unit)} to ${formatEng(s.nominalValue.max, unit)}`;
+  // As many digits as tell the two ends apart: a C0G's ±0.135% would read "3.3 pF to 3.3 pF" at three.
+  if (s.nominalValue) text += `: ${formatEngRange(s.nominalValue.min, s.nominalValue.max, unit).join(' to ')}`;
   return text;
 }
 

@@ -40,9 +40,24 @@ describe('a part\'s value over its spread, in plain words', () => {
   it('C0G: ±30 ppm/K from 25 °C, so at most ±30e-6 × 45 K = ±0.135% over 0 °C to 70 °C', () => {
     const p = part('id: C\nkind: capacitor\nnominal: 100p\ntolerance: 5%\ndielectric: C0G\nparasitics: {esr: 50m, esl: 0.4n}\n');
     const change = 30e-6 * (70 - 25);
-    expect(words(p, { fromC: 0, toC: 70 })).toBe(
-      `100 pF ±5%, −0.135% … +0.135% over 0 °C to 70 °C (C0G, EIA-198 class 1, ±30 ppm/K from 25 °C): ${formatEng(100e-12 * 0.95 * (1 - change), 'F')} to ${formatEng(100e-12 * 1.05 * (1 + change), 'F')}`,
-    );
+    // 100 pF × 0.95 × (1 − 0.00135) = 94.872 pF and × 1.05 × 1.00135 = 105.14 pF, at four digits (the ends
+    // are a tenth of the value apart).
+    expect([100e-12 * 0.95 * (1 - change), 100e-12 * 1.05 * (1 + change)].map((f) => f * 1e12)).toEqual([expect.closeTo(94.872, 3), expect.closeTo(105.142, 3)]);
+    expect(words(p, { fromC: 0, toC: 70 })).toBe('100 pF ±5%, −0.135% … +0.135% over 0 °C to 70 °C (C0G, EIA-198 class 1, ±30 ppm/K from 25 °C): 94.87 pF to 105.1 pF');
+  });
+
+  it('a C0G with no tolerance stated: the ±0.135% ends are told apart, not both "3.3 pF"', () => {
+    const p = part('id: C\nkind: capacitor\nnominal: 3.3p\ndielectric: C0G\nparasitics: {esr: 15m, esl: 0.47n}\n');
+    const text = words(p, { fromC: 0, toC: 70 })!;
+    const ends = text.slice(text.lastIndexOf(': ') + 2).split(' to ');
+    expect(ends).toHaveLength(2);
+    expect(ends[0]).not.toBe(ends[1]);
+    // Each end read back agrees with 3.3 pF × (1 ∓ 30e-6 × 45 K) to its last digit (5 digits: 3.2955, 3.3045).
+    const exact = [3.3 * (1 - 30e-6 * 45), 3.3 * (1 + 30e-6 * 45)];
+    ends.forEach((e, i) => {
+      expect(e).toMatch(/^\d\.\d{4} pF$/);
+      expect(Math.abs(parseFloat(e) - exact[i])).toBeLessThanOrEqual(0.5e-4 + 1e-12);
+    });
   });
 });
 
