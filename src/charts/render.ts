@@ -6,7 +6,8 @@
 // datasets and parameter values. Each kind keeps one vega View, made once from the parsed runtime; a render
 // clears what the last chart could leave behind (render-order.ts), then sets every parameter and dataset
 // that differs from the last chart's (a dataset the binding leaves out is empty), runs the dataflow and
-// serialises the scene.
+// serialises the scene. What the binding's underlay draws (the grid) is written into the SVG under every mark
+// by the finishing step, not drawn by vega: its layers stay in the spec offered with the chart only.
 // Renders of one kind queue behind each other on its View; kinds run independently. The output depends on
 // the chart's own input only, never on what was drawn before (checked in test/charts/render.test.ts and
 // test/charts/render-order.test.ts).
@@ -28,6 +29,11 @@ export interface ChartBinding {
   params: Record<string, unknown>;
   /** Overrides the definition's frame (e.g. a legend that needs more rows). */
   frame?: Frame;
+  /**
+   * Markup drawn under every mark, in the plot's px (origin at its top-left corner): what the layers of the
+   * definition's `underlaid` sources would draw (the grid, grid.ts), written without vega.
+   */
+  underlay?: string;
 }
 
 export interface ChartDefinition<I> {
@@ -36,6 +42,11 @@ export interface ChartDefinition<I> {
   readonly frame: Frame;
   /** The vega-lite spec, without data values; called once per process. */
   spec(): TopLevelSpec;
+  /**
+   * Data sources whose layers the binding's underlay draws: they stay in the spec offered with a chart (with
+   * their rows) and are left out of the one vega runs.
+   */
+  readonly underlaid?: readonly string[];
   bind(input: I): ChartBinding;
 }
 
@@ -48,10 +59,13 @@ export interface ChartOutput {
 }
 
 interface Compiled {
+  /** The whole spec, as offered with a chart (specWithData). */
   spec: TopLevelSpec;
+  /** Names of every named data source of the whole spec, drawn by vega or not. */
+  sources: ReadonlySet<string>;
   runtime: Runtime;
   view: View;
-  /** Names of the spec's named data sources. */
+  /** Names of the named data sources vega draws (those of the spec without its underlaid layers). */
   datasets: string[];
   /** The spec's parameters with their placeholder values. */
   params: { name: string; value: unknown }[];
@@ -107,17 +121,18 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
   if (!c) {
     installTextMetrics();
     const spec = withFrame(def.spec(), def.frame);
+    const drawn = withoutLayers(spec, new Set(def.underlaid ?? []));
     const warnings: string[] = [];
-    const vg = compile(spec, { logger: collectingLogger(warnings) }).spec as VegaSpec;
+    const vg = compile(drawn, { logger: collectingLogger(warnings) }).spec as VegaSpec;
     // The specs are fixed: a warning is a defect in a chart definition, found by the chart tests.
     if (warnings.length > 0) throw new Error(`chart "${def.name}": vega-lite warns: ${warnings.join('; ')}`);
-    const datasets = namedData(spec);
+    const datasets = namedData(drawn);
     const params = paramsOf(spec);
     const emptied = new Set(params.filter((p) => Array.isArray(p.value) && p.value.length === 0).map((p) => p.name));
     const { sources: keyed, axes } = keyedItems(vg as VegaOrderSpec, datasets, [...emptied], def.name);
     const runtime = parse(vg);
     const now = { params: new Map(params.map((p) => [p.name, p.value])), rows: new Map<string, Row[]>() };
-    c = { spec, runtime, view: new View(runtime, { renderer: 'none' }), datasets, params, emptied, keyed, axes, filled: new Set(), now, queue: Promise.resolve() };
+    c = { spec, sources: new Set(namedData(spec)), runtime, view: new View(runtime, { renderer: 'none' }), datasets, params, emptied, keyed, axes, filled: new Set(), now, queue: Promise.resolve() };
     compiled.set(def.name, c);
     counter(def.name).compiles++;
   }
@@ -133,6 +148,13 @@ function collectingLogger(into: string[]) {
     debug: () => logger,
   };
   return logger as never;
+}
+
+/** The spec without the top-level layers that read one of `sources` (their data sources go with them). */
+function withoutLayers(spec: TopLevelSpec, sources: ReadonlySet<string>): TopLevelSpec {
+  if (sources.size === 0) return spec;
+  const layer = (spec as { layer?: { data?: { name?: string } }[] }).layer ?? [];
+  return { ...spec, layer: layer.filter((l) => l.data?.name === undefined || !sources.has(l.data.name)) } as TopLevelSpec;
 }
 
 function withFrame(spec: TopLevelSpec, f: Frame): TopLevelSpec {
@@ -160,7 +182,7 @@ function namedData(spec: TopLevelSpec): string[] {
 export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartText): Promise<ChartOutput> {
   const c = compiledOf(def);
   const binding = def.bind(input);
-  const unknown = Object.keys(binding.datasets).filter((name) => !c.datasets.includes(name));
+  const unknown = Object.keys(binding.datasets).filter((name) => !c.sources.has(name));
   if (unknown.length > 0) throw new Error(`chart "${def.name}" has no data source ${unknown.join(', ')}`);
   const run = c.queue.then(async () => {
     const { view, now } = c;
@@ -220,7 +242,7 @@ export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartTex
     const raw = await view.toSVG();
     counter(def.name).renders++;
     return {
-      svg: finishSvg(raw, text, outerSize(f)),
+      svg: finishSvg(raw, text, outerSize(f), binding.underlay),
       spec: specWithData(c.spec, binding, f, text),
       title: text.title,
       description: text.description,

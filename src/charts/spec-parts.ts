@@ -5,6 +5,7 @@
 //            on every axis comes from formatEng (engineering notation, SI prefixes).
 // Each piece is a plain object; a chart spec is a list of layers built from them.
 
+import { GRID_WIDTH } from './grid.js';
 import type { Ticks } from './scales.js';
 import { BAND_EDGE, BAND_FILL, BAND_OPACITY, FONT_SIZE, GRID_MAJOR, GRID_MINOR, INK, RESONANCE_MARK, SPREAD_FILL, SPREAD_OPACITY, type SeriesStyle } from './palette.js';
 
@@ -78,19 +79,26 @@ export function curveLayer(data: string, x: Json, y: Json, style: Json, detail?:
 
 /**
  * Grid lines: rows {v} drawn across the plot along `channel`; `major` at labelled ticks. The grid is drawn as
- * marks (not by the axis) so that it lies above the band's tint and below the curves.
+ * marks (not by the axis) so that it lies under the band's tint and the curves. These layers are the grid in
+ * the spec offered with a chart; the renderer draws the same lines itself, as two paths (grid.ts).
  */
 export function gridLayer(data: string, channel: 'x' | 'y', enc: Json, major = false): Json {
   return {
     data: { name: data },
-    mark: { type: 'rule', color: major ? GRID_MAJOR : GRID_MINOR, strokeWidth: 0.6 },
+    mark: { type: 'rule', color: major ? GRID_MAJOR : GRID_MINOR, strokeWidth: GRID_WIDTH },
     encoding: { [channel]: { ...enc, field: 'v' } },
   };
 }
 
 /** Grid layers for one axis: minor rows in `<axis>Minor`, major rows in `<axis>Major`. */
 export function gridLayers(axis: string, channel: 'x' | 'y', enc: Json): Json[] {
-  return [gridLayer(`${axis}Minor`, channel, enc), gridLayer(`${axis}Major`, channel, enc, true)];
+  const [minor, major] = gridSources(axis);
+  return [gridLayer(minor, channel, enc), gridLayer(major, channel, enc, true)];
+}
+
+/** The data sources of an axis's grid layers (the renderer draws them itself: grid.ts). */
+export function gridSources(axis: string): [string, string] {
+  return [`${axis}Minor`, `${axis}Major`];
 }
 
 /** The plot's outline, drawn last so tints and curves never cover it. */

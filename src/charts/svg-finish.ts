@@ -29,12 +29,25 @@ export function idPrefix(content: string): string {
 }
 
 /**
- * The finished SVG. `size` is the chart's outer size in px; the viewBox keeps that coordinate system so the
- * chart scales to its container (the page sets the displayed width).
+ * The start of the plot's content in vega's SVG: the root group's view (its origin the plot's top-left
+ * corner) after its background, before the axes and marks it holds.
  */
-export function finishSvg(raw: string, text: ChartText, size: { width: number; height: number }): string {
+const PLOT_CONTENT = /<g class="mark-group role-frame root"[^>]*><g transform="translate\(0,0\)"><path class="background"[^>]*\/><g>/;
+
+/**
+ * The finished SVG. `size` is the chart's outer size in px; the viewBox keeps that coordinate system so the
+ * chart scales to its container (the page sets the displayed width). `underlay` (markup in the plot's px,
+ * such as the grid) is drawn first in the plot, under the axes and every mark.
+ */
+export function finishSvg(raw: string, text: ChartText, size: { width: number; height: number }, underlay = ''): string {
   const root = ROOT.exec(raw);
   if (!root || !raw.endsWith('</svg>')) throw new Error('vega produced no SVG document');
+  if (underlay !== '') {
+    const plot = PLOT_CONTENT.exec(raw);
+    if (!plot) throw new Error('vega’s SVG has no plot to draw the underlay in');
+    const at = plot.index + plot[0].length;
+    raw = raw.slice(0, at) + underlay + raw.slice(at);
+  }
   // Text content cannot hold '<' or '>' (vega escapes them), so every match of TAG is markup: attributes
   // are edited and checked there only, and text from a library file is never touched or misread.
   const slim = slimSvgBody(raw.slice(root[0].length, -'</svg>'.length), (tag) => roundNumbers(tag.replace(VEGA_ATTRIBUTES, '')));

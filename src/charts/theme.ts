@@ -12,7 +12,7 @@ export const CHART_CONFIG: Config = {
   view: { stroke: null, fill: null },
   axis: {
     domain: false,
-    // Grid lines are marks of their own (spec-parts.ts: gridLayers), drawn above the band tint.
+    // Grid lines are marks of their own (spec-parts.ts: gridLayers; the renderer draws them, grid.ts), under the band tint.
     grid: false,
     ticks: true,
     tickColor: INK,

@@ -5,10 +5,11 @@
 // frame to it and binds everything in one order, so every kind's spec and data read alike.
 
 import type { Frame } from './frame.js';
+import { gridPaths } from './grid.js';
 import { frameForKey, gridColumns, layoutKey, type KeyItem, type KeyLayout } from './key.js';
 import type { ChartDefinition, Row } from './render.js';
 import type { Ticks } from './scales.js';
-import { axisBinding, axisParams, bandLayers, frameLayer, gridLayers, keyLayers, position, referenceLineLayer, type Json } from './spec-parts.js';
+import { axisBinding, axisParams, bandLayers, frameLayer, gridLayers, gridSources, keyLayers, position, referenceLineLayer, type Json } from './spec-parts.js';
 import { CHART_CONFIG } from './theme.js';
 
 export interface AxisSpec {
@@ -60,6 +61,8 @@ export function xyChart<I>(kind: XYChartKind<I>): ChartDefinition<I> {
   return {
     name: kind.name,
     frame: kind.frame,
+    // The grid's layers are in the spec offered with a chart; the renderer draws them as two paths (grid.ts).
+    underlaid: [...gridSources(kind.x.name), ...gridSources(kind.y.name)],
     spec() {
       return {
         config: CHART_CONFIG,
@@ -84,6 +87,7 @@ export function xyChart<I>(kind: XYChartKind<I>): ChartDefinition<I> {
       const key = layoutKey(d.key, kind.frame.width, d.keyGrid ? gridColumns(d.key, kind.frame.width) : undefined);
       return {
         frame: frameForKey(kind.frame, key),
+        underlay: gridPaths({ scale: kind.x.scale, domain: d.x.domain, ticks: d.x.ticks }, { scale: kind.y.scale, domain: d.y.domain, ticks: d.y.ticks }, kind.frame.width, kind.frame.height),
         params: { ...xa.params, ...ya.params },
         datasets: {
           ...xa.datasets,

@@ -49,6 +49,20 @@ describe('finishing vega’s SVG', () => {
     expect(svg).toContain('>Z &#8594; &#937;</title>');
   });
 
+  it('draws an underlay first in the plot, under its axes and marks, and refuses one with no plot to go in', () => {
+    const plotted =
+      `<svg xmlns="http://www.w3.org/2000/svg" class="marks" width="100" height="80" viewBox="0 0 100 80"><g fill="none" transform="translate(10,5)">` +
+      `<g class="mark-group role-frame root" role="graphics-object"><g transform="translate(0,0)"><path class="background" aria-hidden="true" d="M0,0h80v60h-80Z"/><g>` +
+      `<g class="mark-group role-axis"><line x2="4" stroke="#000"/></g><g class="mark-line role-mark"><path d="M0,0L80,60" stroke="#123456"/></g></g></g></g></g></svg>`;
+    const underlay = '<path d="M0,30H80" stroke="#ececec" stroke-width="0.6"/>';
+    const svg = finishSvg(plotted, text, { width: 100, height: 80 }, underlay);
+    expect(svg).toContain(`<g transform="translate(0,0)"><g>${underlay}<g><line`);
+    expect(svg.indexOf(underlay)).toBeLessThan(svg.indexOf('stroke="#123456"'));
+    expect(() => finishSvg(raw('clip1', 'x'), text, { width: 640, height: 320 }, underlay)).toThrow(/no plot/);
+    // Without an underlay, a chart with no plot group finishes as before.
+    expect(finishSvg(raw('clip1', 'x'), text, { width: 640, height: 320 })).toContain('<text');
+  });
+
   it('refuses markup that could run or load anything', () => {
     expect(() => assertInert('<g><script></script></g>')).toThrow(/active or external/);
     expect(() => assertInert('<a href="x"></a>')).toThrow();

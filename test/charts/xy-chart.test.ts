@@ -55,4 +55,16 @@ describe('xyChart', () => {
     expect(out.svg).toContain('X title');
     expect(out.svg).toContain('a band');
   });
+
+  it('leaves its grid layers to the renderer, which draws them as two paths; the handed-out spec keeps them', async () => {
+    expect(chart.underlaid).toEqual(['fMinor', 'fMajor', 'yMinor', 'yMajor']);
+    const out = await renderChart(chart, { band: true }, { title: 'T', description: 'D' });
+    // x: log over 1..100 on 300 px, ticks at 1, 10, 100 (0, 150, 300 px); y: linear over −1..1 on 100 px,
+    // up from the bottom: −1, 0, 1 at 100, 50, 0 px, the minor 0.5 at 25 px.
+    expect(out.svg).toContain('<path d="M0,25H300" stroke="#ececec" stroke-width="0.6"/><path d="M0,0V100M150,0V100M300,0V100M0,100H300M0,50H300M0,0H300" stroke="#c9c9c9" stroke-width="0.6"/>');
+    expect(out.svg).not.toMatch(/<line[^>]*stroke="#(?:ececec|c9c9c9)"/);
+    const spec = out.spec as { layer: { data?: { name?: string } }[]; datasets: Record<string, unknown[]> };
+    expect(spec.layer.filter((l) => /Minor|Major/.test(l.data?.name ?? '')).map((l) => l.data?.name)).toEqual(['fMinor', 'fMajor', 'yMinor', 'yMajor']);
+    expect(spec.datasets.yMinor).toEqual([{ v: 0.5 }]);
+  });
 });

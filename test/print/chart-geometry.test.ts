@@ -82,8 +82,10 @@ function readPage(): PageProblems {
     const chart = svg.closest('figure')?.id ?? '?';
     const texts = words(svg).filter((t) => t.text !== '');
     overlaps(texts, SLACK, (a, b, w, h) => `${chart}: "${a.text}" overlaps "${b.text}" by ${w.toFixed(1)} × ${h.toFixed(1)} px`, charts);
-    // Curves: stroked, unfilled paths (vega's line marks); the key's symbols are <line>s, grids and rules too.
-    const curves = Array.from(svg.querySelectorAll('path')).filter((p) => p.getAttribute('stroke') && (!p.getAttribute('fill') || p.getAttribute('fill') === 'none') && p.getAttribute('stroke') !== 'none');
+    // Curves: stroked, unfilled paths (vega's line marks); the key's symbols are <line>s, rules too. The grid
+    // is two paths in its own light greys (#ececec, #c9c9c9: src/charts/grid.ts), which a label may cross.
+    const GRID = ['#ececec', '#c9c9c9'];
+    const curves = Array.from(svg.querySelectorAll('path')).filter((p) => p.getAttribute('stroke') && (!p.getAttribute('fill') || p.getAttribute('fill') === 'none') && p.getAttribute('stroke') !== 'none' && !GRID.includes(p.getAttribute('stroke')!));
     for (const curve of curves) {
       // Only what is drawn: a curve clipped to the plot (vega's clip-path on its group) counts inside the clip.
       const clipped = curve.closest('[clip-path]');
