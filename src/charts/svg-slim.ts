@@ -9,7 +9,10 @@
 //    zero-size group background ("M0,0h0v0h0Z"), and a group background with neither fill nor stroke of
 //    its own under the chart's fill="none" (a vega group whose view has no fill or stroke);
 //  - the font family, written by vega on every text, said once on the root element (text inherits it);
-//  - clip paths that are the same rectangle, kept once and referred to by every element that used one.
+//  - clip paths that are the same rectangle, kept once and referred to by every element that used one;
+//  - a group of straight lines drawn alike (an axis's ticks) as one path of those segments: a solid stroke
+//    with butt caps paints the same pixels whether its segments are one path or several lines (SVG 1.1
+//    §11.4, §9.5 'line' as the path "M x1 y1 L x2 y2"); dashed lines are left alone.
 
 const TAG = /<[^>]+>/g;
 const FONT = / font-family="([^"]*)"/;
@@ -57,7 +60,28 @@ function slimmedBody(body: string): string {
     before = out;
     out = out.replace(/<g\/>|<g>(?:<\/g>)|<g transform="[^"]*"\/>|<g transform="[^"]*"><\/g>/g, '');
   }
-  return sharedClips(out);
+  return sharedClips(mergedLines(out));
+}
+
+/** A group of two or more <line>s from its origin only (vega's rules), each moved by a translate. */
+const LINE_GROUP = /<g>((?:<line transform="translate\([^)]*\)" x2="[^"]*" y2="[^"]*"[^>]*\/>){2,})<\/g>/g;
+const LINE = /<line transform="translate\(([^,)]+),([^)]+)\)" x2="([^"]*)" y2="([^"]*)"([^>]*)\/>/g;
+
+/** Each group of lines that share every attribute but their place, undashed, as one path with those attributes. */
+function mergedLines(body: string): string {
+  return body.replace(LINE_GROUP, (group, lines: string) => {
+    let style: string | undefined;
+    let d = '';
+    for (const m of lines.matchAll(LINE)) {
+      if (style === undefined) style = m[5];
+      else if (m[5] !== style) return group;
+      const [x, y, dx, dy] = [m[1], m[2], m[3], m[4]];
+      // The segment from (x, y) to (x + dx, y + dy), written relative to its start.
+      d += `M${x},${y}${dx === '0' ? `v${dy}` : dy === '0' ? `h${dx}` : `l${dx},${dy}`}`;
+    }
+    if (style === undefined || style.includes('stroke-dasharray') || !/ stroke="/.test(style)) return group;
+    return `<path d="${d}"${style}/>`;
+  });
 }
 
 /** Clip paths with the same content kept once; references to the others point at the one kept. */

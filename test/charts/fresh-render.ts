@@ -14,14 +14,19 @@ export const isGridLayer = (l: { data?: { name?: string } }) => /^[a-z]+(?:Minor
 /** The grid's two paths as a chart draws them (stroke #ececec or #c9c9c9, width 0.6, only moves and straight lines). */
 export const GRID_PATH = /<path d="[MVH\d.,-]*" stroke="#(?:ececec|c9c9c9)" stroke-width="0.6"\/>/g;
 
-/** The SVG that `spec` draws in a new View, finished with `underlay`, as renderChart finishes its own. */
-export async function drawFresh(spec: DrawnSpec, out: Pick<ChartOutput, 'title' | 'description'>, underlay = ''): Promise<string> {
+/** The SVG vega writes for `spec` in a new View, as it is (not finished). */
+export async function vegaSvg(spec: DrawnSpec): Promise<string> {
   const view = new vega.View(vega.parse(compile(spec).spec), { renderer: 'none' });
   await view.runAsync();
-  const size = { width: spec.width + spec.padding.left + spec.padding.right, height: spec.height + spec.padding.top + spec.padding.bottom };
-  const svg = finishSvg(await view.toSVG(), { title: out.title, description: out.description }, size, underlay);
+  const svg = await view.toSVG();
   view.finalize();
   return svg;
+}
+
+/** The SVG that `spec` draws in a new View, finished with `underlay`, as renderChart finishes its own. */
+export async function drawFresh(spec: DrawnSpec, out: Pick<ChartOutput, 'title' | 'description'>, underlay = ''): Promise<string> {
+  const size = { width: spec.width + spec.padding.left + spec.padding.right, height: spec.height + spec.padding.top + spec.padding.bottom };
+  return finishSvg(await vegaSvg(spec), { title: out.title, description: out.description }, size, underlay);
 }
 
 /**

@@ -42,4 +42,14 @@ describe('dropping markup that draws nothing', () => {
     expect(out).toContain('<g clip-path="url(#c)">');
     expect(out).not.toContain('#b');
   });
+
+  it('draws a group of lines drawn alike (the ticks of an axis) as one path of the same segments; dashed or unlike lines stay', () => {
+    const ticks = '<line transform="translate(0,0)" x2="0" y2="4" stroke="#1b1b1b" stroke-width="0.8"/><line transform="translate(58.5,-2)" x2="-4" y2="0" stroke="#1b1b1b" stroke-width="0.8"/><line transform="translate(3,4)" x2="26" y2="-1.5" stroke="#1b1b1b" stroke-width="0.8"/>';
+    // Each segment from (x, y) to (x + x2, y + y2), relative to its start: v and h where it is upright or level.
+    expect(slimSvgBody(`<g fill="none"><g>${ticks}</g><text>1</text></g>`).body).toBe('<g fill="none"><path d="M0,0v4M58.5,-2h-4M3,4l26,-1.5" stroke="#1b1b1b" stroke-width="0.8"/><text>1</text></g>');
+    const unlike = '<g><line transform="translate(0,0)" x2="26" y2="0" stroke="#1f3d73" stroke-width="1.6"/><line transform="translate(63,0)" x2="26" y2="0" stroke="#b5520b" stroke-width="1.6"/></g>';
+    const dashed = '<g><line transform="translate(1,0)" x2="0" y2="9" stroke="#4f6f91" stroke-dasharray="4,2"/><line transform="translate(5,0)" x2="0" y2="9" stroke="#4f6f91" stroke-dasharray="4,2"/></g>';
+    const single = '<g><line transform="translate(1,0)" x2="0" y2="9" stroke="#4f6f91"/></g>';
+    for (const kept of [unlike, dashed, single]) expect(slimSvgBody(`<g fill="none">${kept}</g>`).body).toBe(`<g fill="none">${kept}</g>`);
+  });
 });
