@@ -3,6 +3,7 @@
 
 import { join } from 'node:path';
 import { analysePart, type PartAnalysis } from '../analysis/part-figures.js';
+import { DeferredAnalysis } from './deferred-analysis.js';
 import { analysePlan, planFiguresWithoutCurves } from '../analysis/plan-figures.js';
 import type { PartMeasurement } from '../measure/part-measurements.js';
 import { measurementInputs } from '../model/measurement-entry.js';
@@ -80,42 +81,6 @@ function partChartOnPage(part: Part): (chart: DrawnChart) => ChartOnPage {
   return (chart) => ({ ...chartOnPage(chart), specPath: partSpecPath(chart.key, drawsAdmittancePlane(part)) });
 }
 
-/**
- * A part's analysis, made the first time a figure of it is read: a chart maker needs only the part to find
- * its charts in the cache, and draws (reading the sweep) only when they are not there. A class, so that the
- * getters are the prototype's and a part that is never analysed costs one small object.
- */
-class DeferredAnalysis implements PartAnalysis {
-  private made?: PartAnalysis;
-
-  constructor(
-    readonly part: Part,
-    private readonly analyse: (part: Part) => PartAnalysis,
-  ) {}
-
-  private get a(): PartAnalysis {
-    return (this.made ??= this.analyse(this.part));
-  }
-
-  get sweep() { return this.a.sweep; }
-  get frequencies() { return this.a.frequencies; }
-  get z() { return this.a.z; }
-  get columns() { return this.a.columns; }
-  get resolved() { return this.a.resolved; }
-  get resolvedColumns() { return this.a.resolvedColumns; }
-  get decades() { return this.a.decades; }
-  get decadeEffective() { return this.a.decadeEffective; }
-  get ratedImpedanceOhm() { return this.a.ratedImpedanceOhm; }
-  get resonances() { return this.a.resonances; }
-  get selfResonance() { return this.a.selfResonance; }
-  get bandRule() { return this.a.bandRule; }
-  get usableBand() { return this.a.usableBand; }
-  get within() { return this.a.within; }
-  get peakImpedance() { return this.a.peakImpedance; }
-  get peakQuality() { return this.a.peakQuality; }
-  get corners() { return this.a.corners; }
-}
-
 export interface AssembleOptions {
   library: Library;
   siteDir: string;
@@ -163,52 +128,66 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
     if (timings) timings.analyse += (performance.now() - started) / 1000;
     return a;
   };
-  const byId = new Map<string, PartAnalysis>(library.parts.map((p) => [p.id, new DeferredAnalysis(p, analyse)]));
-  // What the comparisons read of each part. A part whose folder is written keeps only that, so the build
-  // holds a few whole analyses at a time (those the chart workers are drawing), not the library's.
-  const compared = new Map<string, ComparedAnalysis>(byId);
+  // A part's analysis is made (deferred) only when something asks for it: of 10,000 parts carried over, the
+  // few on a comparison drawn again. What the comparisons read of a part whose folder is written is kept
+  // alone, so the build holds a few whole analyses at a time (those the chart workers are drawing).
+  const deferred = new Map<string, PartAnalysis>();
+  const analysisOf = (part: Part) => {
+    let a = deferred.get(part.id);
+    if (!a) deferred.set(part.id, (a = new DeferredAnalysis(part, analyse)));
+    return a;
+  };
+  const compared = new Map<string, ComparedAnalysis>();
+  const comparedOf = (id: string): ComparedAnalysis => compared.get(id) ?? analysisOf(library.partsById.get(id)!);
   // Review packs print whole datasheets, charts included.
   const shownElsewhere = new Set(library.reviews.flatMap((r) => r.parts.map((p) => p.id)));
 
   progress.stage('charts', library.parts.length);
-  // All requests at once: the chart maker spreads them over its workers and answers from its cache.
-  const pages = await Promise.all(
-    library.parts.map(async (part): Promise<PartPageData | ListedPart> => {
-      const a = byId.get(part.id)!;
-      let page: PartPageData | ListedPart;
-      const recorded = carried.get(part.id);
-      if (recorded && !shownElsewhere.has(part.id)) {
-        // Its folder is kept and no page rendered here shows more of it than a list does.
-        page = recorded.listed ?? listedPart(partPageData(a, []));
-      } else if (recorded) {
-        const drawn = (await charts.partCharts(a)).map(partChartOnPage(part));
-        const full: PartPageData = recorded.page ? { ...recorded.page, charts: drawn, measurements: [] } : partPageData(a, drawn);
-        full.measurements = await measurementSections(part, measurements.get(part.id), library, charts);
-        page = full;
-      } else {
-        if (work) work.partFolders++;
-        const folder = join(siteDir, 'parts', part.id);
-        // The thread that draws the charts writes the part's downloads (part-downloads.ts).
-        const drawn = await charts.partCharts(a, { folder, sweep: library.settings.sweep });
-        const full = partPageData(a, drawn.map(partChartOnPage(part)));
-        full.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
-        if (!shownElsewhere.has(part.id)) spill?.put(full);
-        page = full;
-        compared.set(part.id, comparedAnalysis(a));
-        byId.delete(part.id);
-      }
+  const pageOf = async (part: Part): Promise<PartPageData> => {
+    const a = analysisOf(part);
+    let page: PartPageData;
+    const recorded = carried.get(part.id);
+    if (recorded) {
+      const drawn = (await charts.partCharts(a)).map(partChartOnPage(part));
+      const full: PartPageData = recorded.page ? { ...recorded.page, charts: drawn, measurements: [] } : partPageData(a, drawn);
+      full.measurements = await measurementSections(part, measurements.get(part.id), library, charts);
+      page = full;
+    } else {
+      if (work) work.partFolders++;
+      const folder = join(siteDir, 'parts', part.id);
+      // The thread that draws the charts writes the part's downloads (part-downloads.ts).
+      const drawn = await charts.partCharts(a, { folder, sweep: library.settings.sweep });
+      const full = partPageData(a, drawn.map(partChartOnPage(part)));
+      full.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
+      if (!shownElsewhere.has(part.id)) spill?.put(full);
+      page = full;
+      compared.set(part.id, comparedAnalysis(a));
+      deferred.delete(part.id);
+    }
+    progress.tick();
+    if (pdfLinks.part(part.id)) page.pdfFile = partPdfPath(part.id);
+    if (!recorded) pageRuns?.add(page as PartPageData);
+    return page;
+  };
+  // A part whose folder is kept and that no page rendered here shows more of than a list does is listed as
+  // recorded, here and now; the others are asked for all at once: the chart maker spreads them over its
+  // workers and answers from its cache.
+  const pages: (PartPageData | ListedPart)[] = new Array(library.parts.length);
+  const waiting: Promise<void>[] = [];
+  library.parts.forEach((part, i) => {
+    const recorded = carried.get(part.id);
+    if (recorded && !shownElsewhere.has(part.id)) {
+      pages[i] = recorded.listed ?? listedPart(partPageData(analysisOf(part), []));
       progress.tick();
-      if (pdfLinks.part(part.id) && 'charts' in page) page.pdfFile = partPdfPath(part.id);
-      if (!recorded) pageRuns?.add(page as PartPageData);
-      return page;
-    }),
-  );
+    } else waiting.push(pageOf(part).then((page) => void (pages[i] = page)));
+  });
+  await Promise.all(waiting);
   pageRuns?.flush();
   const listedById = new Map(pages.map((p) => [p.id, p]));
   // Full page data, for part pages and review packs.
   const fullById = new Map(pages.filter((p): p is PartPageData => 'charts' in p).map((p) => [p.id, p]));
 
-  const { pages: comparisons, byKey, rendered } = await comparisonPages(library, compared, listedById, siteDir, charts, units, timings, work);
+  const { pages: comparisons, byKey, rendered } = await comparisonPages(library, comparedOf, listedById, siteDir, charts, units, timings, work);
   const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts, timings)));
   const reviews = library.reviews.map((r) => {
     const page = reviewPageData(r, library, { parts: fullById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
@@ -250,7 +229,7 @@ async function planPage(plan: Plan, library: Library, siteDir: string, charts: C
 
 async function comparisonPages(
   library: Library,
-  byId: ReadonlyMap<string, ComparedAnalysis>,
+  comparedOf: (id: string) => ComparedAnalysis,
   listedById: ReadonlyMap<string, ListedPart>,
   siteDir: string,
   charts: ChartMaker,
@@ -271,15 +250,15 @@ async function comparisonPages(
     let slug = wanted;
     for (let n = 2; slugs.has(slug); n++) slug = `${wanted}-${n}`;
     slugs.add(slug);
-    const analyses = partIds.map((id) => byId.get(id)!);
     const folder = join(siteDir, 'comparisons', slug);
     const data: ComparisonPageData = { slug, ...page, parts: partIds.map((id) => listedById.get(id)!) };
     const kept = units.kept(`comparisons/${slug}`, units.comparison(data));
-    if (analyses.length > 0 && (!kept || reviewed)) {
+    if (partIds.length > 0 && (!kept || reviewed)) {
+      const analyses = partIds.map(comparedOf);
       drawing.push(charts.comparisonChart(analyses, page.title).then((chart) => void (data.chart = kept ? chartOnPage(chart) : placeChart(chart, folder, timings))));
-    } else if (analyses.length > 0) {
+    } else if (partIds.length > 0) {
       // The page is kept (with its chart); the chart stays in the cache unread.
-      units.keepChart?.(analyses, page.title);
+      units.keepChart?.(partIds.map((id) => library.partsById.get(id)!), page.title);
     }
     if (!kept) {
       rendered.push(data);

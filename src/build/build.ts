@@ -29,7 +29,7 @@ import { currentVersion, SiteUnits } from './carry-over.js';
 import { SpareRefused } from './writable.js';
 import { carriedPart, recordParts } from './part-record.js';
 import { comparisonPageKey, listPages } from './page-keys.js';
-import type { PartAnalysis } from '../analysis/part-figures.js';
+import type { Part } from '../model/part.js';
 import { keptPdfs, linkPdfs, pdfKeys, pdfLinksFor, pdfsIn, stampPdfs } from './pdf-reuse.js';
 import { buildHistory, type BuildHistory } from './build-history.js';
 import { addChanges } from '../pages/changes-page.js';
@@ -217,7 +217,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     const unitKeys = {
       comparison: (page: Parameters<typeof comparisonPageKey>[1]) => comparisonPageKey(site, page, partKeyOf),
       kept: (unit: string, key: string) => Boolean(recordAt) && units.kept(unit, key),
-      keepChart: (analyses: Pick<PartAnalysis, 'part'>[], title: string) => pool?.keepComparisonChart(analyses, title),
+      keepChart: (parts: readonly Part[], title: string) => pool?.keepComparisonChart(parts, title),
     };
     const spill = new SvgSpill(staging.dir);
     pageRuns = buildPageRuns(staging.dir, library, spill, options.partPagesPerRun);

@@ -1,7 +1,7 @@
 // What a build carries over from the last and what it counts of its own work: the types assembling a site
 // shares with the build (build.ts, carry-over.ts, part-record.ts).
 
-import type { PartAnalysis } from '../analysis/part-figures.js';
+import type { Part } from '../model/part.js';
 import type { ListedPart } from '../pages/listed-part.js';
 import type { ComparisonPageData, PartPageData } from '../pages/site-data.js';
 
@@ -20,7 +20,7 @@ export interface UnitKeys {
   /** True when the last site's unit with this key is kept (so nothing of it is made). */
   kept(unit: string, key: string): boolean;
   /** Keep the cached chart of a comparison whose page is kept (the chart is not read). */
-  keepChart?(analyses: Pick<PartAnalysis, 'part'>[], title: string): void;
+  keepChart?(parts: readonly Part[], title: string): void;
 }
 
 /** Counts of the work a build did, to show that a rebuild does work in proportion to what changed. */

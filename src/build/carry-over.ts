@@ -11,9 +11,10 @@
 // Without a spare (the first rebuild, or a record lost), the staging folder becomes the new version, and
 // every unit carried over is hard-linked into it from the live site.
 
-import { constants, copyFileSync, linkSync, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmdirSync, rmSync } from 'node:fs';
+import { constants, copyFileSync, linkSync, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, type Dirent } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { checkSpare } from './writable.js';
+import { removeStale } from './stale-sweep.js';
 import { asciiJson } from '../model/ascii-text.js';
 import { entryData, entryText, VersionRecord, type SiteRecord, type UnitEntry } from './site-record.js';
 import { sameStamp, spareUnchanged, unitStamp } from './unit-stamp.js';
@@ -105,10 +106,23 @@ export class SiteUnits {
     if (target !== staging) {
       const keptHere = new Set<string>();
       for (const [unit] of this.record!.spare!.units()) if (this.wanted.get(unit)?.from === 'spare') keptHere.add(unit);
+      // Each folder of the spare is listed once, for the check and for the update (the parts/ folder of a
+      // 10,000-part site holds 10,000 entries); the units removed below are skipped in those listings.
+      const listings = new Map<string, Dirent[]>();
+      const list = (dir: string) => {
+        let found = listings.get(dir);
+        if (!found) listings.set(dir, (found = readdirSync(dir, { withFileTypes: true })));
+        return found;
+      };
       // Before anything in it changes: a read-only folder there refuses the build, the spare given back as it was.
-      checkSpare(this.outDir, { dir: target, shownAs: join(dirname(target), this.record!.spare!.name) }, keptHere);
-      for (const [unit] of this.record!.spare!.units()) if (!keptHere.has(unit)) rmSync(join(target, unit), { recursive: true, force: true });
-      removeStale(target, staging, '', keptHere);
+      checkSpare(this.outDir, { dir: target, shownAs: join(dirname(target), this.record!.spare!.name) }, keptHere, list);
+      const gone = new Set<string>();
+      for (const [unit] of this.record!.spare!.units()) {
+        if (keptHere.has(unit)) continue;
+        rmSync(join(target, unit), { recursive: true, force: true });
+        gone.add(unit);
+      }
+      removeStale({ target, staging, kept: keptHere, gone, list }, '');
       moveInto(staging, target, '', this.wanted);
     }
     for (const [unit, w] of this.wanted) if (w.from === 'live') linkUnit(join(this.liveDir!, unit), join(target, unit));
@@ -151,19 +165,6 @@ export function currentVersion(sitePath: string): string | undefined {
   }
 }
 
-/** Remove from `target` every file that is not in a kept unit and that the staging folder does not hold. */
-function removeStale(target: string, staging: string, relative: string, kept: ReadonlySet<string>): void {
-  const dir = join(target, relative);
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
-    const path = relative ? `${relative}/${entry.name}` : entry.name;
-    if (kept.has(path)) continue;
-    if (entry.isDirectory()) {
-      removeStale(target, staging, path, kept);
-      if (readdirSync(join(target, path)).length === 0 && !exists(join(staging, path))) rmdirSync(join(target, path));
-    } else if (!exists(join(staging, path))) rmSync(join(target, path), { force: true });
-  }
-}
-
 /** Move the staging folder's files into `target`: a unit folder in one rename, other files one by one. */
 function moveInto(staging: string, target: string, relative: string, units: ReadonlyMap<string, Wanted>): void {
   for (const entry of readdirSync(join(staging, relative), { withFileTypes: true })) {
@@ -198,13 +199,4 @@ function linkUnit(from: string, to: string): void {
   }
   mkdirSync(to, { recursive: true });
   for (const name of readdirSync(from)) one(join(from, name), join(to, name));
-}
-
-function exists(path: string): boolean {
-  try {
-    lstatSync(path);
-    return true;
-  } catch {
-    return false;
-  }
 }

@@ -19,6 +19,7 @@ import { partDownloads, writePartDownloads, type DownloadPlace } from './part-do
 import type { ChangeChartData } from '../charts/change-chart.js';
 import type { MeasurementChartData } from '../charts/measurement-charts.js';
 import type { FolioSettings } from '../model/settings.js';
+import type { Part } from '../model/part.js';
 import { defaultWorkerCount, startChartWorker, type StartedWorker } from './chart-workers.js';
 
 export interface ChartPoolOptions {
@@ -111,16 +112,16 @@ export class ChartPool implements ChartMaker {
   }
 
   /** Keep a comparison's cached chart through this build's pruning without reading it (its page is kept). */
-  keepComparisonChart(analyses: Pick<PartAnalysis, 'part'>[], title: string): void {
-    this.usedKeys.add(this.comparisonKey(analyses, title));
+  keepComparisonChart(parts: readonly Pick<Part, 'source'>[], title: string): void {
+    this.usedKeys.add(this.comparisonKey(parts, title));
   }
 
-  private comparisonKey(analyses: Pick<PartAnalysis, 'part'>[], title: string): string {
-    return this.key('comparison', title, ...analyses.map((a) => a.part.source.hash));
+  private comparisonKey(parts: readonly Pick<Part, 'source'>[], title: string): string {
+    return this.key('comparison', title, ...parts.map((p) => p.source.hash));
   }
 
   async comparisonChart(analyses: ComparedAnalysis[], title: string): Promise<ChartArtifact> {
-    const key = this.comparisonKey(analyses, title);
+    const key = this.comparisonKey(analyses.map((a) => a.part), title);
     const [chart] = await this.cached(key, () => ({ type: 'comparison', inputs: analyses.map(comparisonInput), title }));
     return chart;
   }

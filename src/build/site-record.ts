@@ -62,11 +62,21 @@ function readShardLines(text: string): Map<string, UnitEntry> {
     const b = line.indexOf('\t', a + 1);
     const c = line.indexOf('\t', b + 1);
     if (a < 0 || b < 0 || c < 0) throw new Error('not a record shard');
-    const entry: UnitEntry = { key: JSON.parse(line.slice(a + 1, b)) as string, stamp: JSON.parse(line.slice(b + 1, c)) as number[] };
+    const entry: UnitEntry = { key: jsonString(line, a + 1, b), stamp: JSON.parse(line.slice(b + 1, c)) as number[] };
     if (c + 1 < line.length) entry.text = line.slice(c + 1);
-    map.set(JSON.parse(line.slice(0, a)) as string, entry);
+    map.set(jsonString(line, 0, a), entry);
   }
   return map;
+}
+
+/**
+ * The JSON string `text.slice(start, end)`: cut out of the line when it holds no escape (a unit's path and a
+ * key seldom do), which spares a parse and a copy for each of the 20,000 strings of a 10,000-part record.
+ */
+function jsonString(text: string, start: number, end: number): string {
+  const inner = text.slice(start + 1, end - 1);
+  if (text.charCodeAt(start) === 34 && text.charCodeAt(end - 1) === 34 && end - start >= 2 && !inner.includes('\\') && !inner.includes('"')) return inner;
+  return JSON.parse(text.slice(start, end)) as string;
 }
 
 /** Shards read as UTF-8 (written by an older version): saved again, as ASCII (ascii-text.ts). */

@@ -1,7 +1,7 @@
 // Whether a build may write where its site goes: nothing it would have to write or remove may be read-only
 // (output.ts puts the site in place; carry-over.ts updates the spare version in place).
 
-import { accessSync, constants, lstatSync, readdirSync, readlinkSync, statSync, type Stats } from 'node:fs';
+import { accessSync, constants, lstatSync, readdirSync, readlinkSync, statSync, type Dirent, type Stats } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { holdingName, OutputRefused } from './output-guard.js';
 
@@ -63,19 +63,24 @@ function writableInside(path: string): Stats | undefined {
  * Where folders' links are not counted (btrfs gives 1), every folder is listed, as before. `skip` (given a
  * folder's site-relative path) says which folders are not looked at ('all') or not listed ('inside').
  */
-function readOnlyFolderIn(dir: string, skip?: (relative: string) => 'all' | 'inside' | undefined, relative = ''): string | undefined {
+function readOnlyFolderIn(dir: string, skip?: (relative: string) => 'all' | 'inside' | undefined, relative = '', list: FolderLister = listFolder): string | undefined {
   const stats = relative ? writableInside(dir) : writable(dir);
   if (!stats) return dir;
   if (stats.nlink === 2 || (relative && skip?.(relative) === 'inside')) return undefined;
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+  for (const entry of list(dir)) {
     if (!entry.isDirectory()) continue;
     const path = relative ? `${relative}/${entry.name}` : entry.name;
     if (skip?.(path) === 'all') continue;
-    const found = readOnlyFolderIn(join(dir, entry.name), skip, path);
+    const found = readOnlyFolderIn(join(dir, entry.name), skip, path, list);
     if (found) return found;
   }
   return undefined;
 }
+
+/** A folder's entries with their types (a caller may hand in one that remembers them, to list each folder once). */
+export type FolderLister = (dir: string) => Dirent[];
+
+const listFolder: FolderLister = (dir) => readdirSync(dir, { withFileTypes: true });
 
 /** The folders holding the part and comparison folders, the units a rebuild with a spare leaves as they are. */
 const unitsInside = (relative: string) => (relative === 'parts' || relative === 'comparisons' ? 'inside' : undefined);
@@ -111,10 +116,11 @@ export class SpareRefused extends OutputRefused {}
  * Throws SpareRefused when a folder of the spare version that a build is about to change is read-only:
  * the spare's own folders and every folder of it but those of the units it keeps (`kept`, site-relative).
  * Called before the spare (`dir`, claimed under a name of this build's) is changed, so a refused build can
- * give it back as it was (Staging.release); the message names it where it is given back (`shownAs`).
+ * give it back as it was (Staging.release); the message names it where it is given back (`shownAs`). `list`:
+ * how folders are listed (the build lists the spare's once, for this check and for updating it).
  */
-export function checkSpare(sitePath: string, spare: { dir: string; shownAs: string }, kept: ReadonlySet<string>): void {
-  const found = readOnlyFolderIn(spare.dir, (relative) => (kept.has(relative) ? 'all' : undefined));
+export function checkSpare(sitePath: string, spare: { dir: string; shownAs: string }, kept: ReadonlySet<string>, list?: FolderLister): void {
+  const found = readOnlyFolderIn(spare.dir, (relative) => (kept.has(relative) ? 'all' : undefined), '', list);
   const shown = found && spare.shownAs + found.slice(spare.dir.length);
   if (shown) throw new SpareRefused(`cannot write the site to ${sitePath}: ${shown} (in the version before the site, which a rebuild updates) is read-only; make it writable or choose another --out`);
 }

@@ -7,7 +7,9 @@
 // Both files start with a header line: the format, the code key, and a hash of the late texts (the token),
 // which the .lines file names, so that a .late file whose .lines was not written after it (a run stopped
 // between the two renames) is known and not read. Fields on a line are tab-separated (JSON text holds no raw
-// tab or line end); both files are ASCII (ascii-text.ts), so a byte offset is a character offset.
+// tab or line end); both files are ASCII (ascii-text.ts), so a byte offset is a character offset. Where a
+// head's undefined values are (its holes, exact-json.ts) is the same for most parts of a kind: the .lines
+// header lists each distinct holes text once and a line names its own by index.
 
 import { createHash } from 'node:crypto';
 import { readFileSync, renameSync, writeFileSync } from 'node:fs';
@@ -20,6 +22,8 @@ export interface HeadRow {
   stamp: string;
   hash: string;
   head: string;
+  /** Where the head's undefined values are (exact-json.ts), as JSON text: one string per distinct text in a shard. */
+  holes: string;
   /** Where its late text is in NN.late: byte offset and length. */
   at: number;
   length: number;
@@ -31,6 +35,7 @@ export interface ShardEntry {
   stamp: string;
   hash: string;
   head: string;
+  holes: string;
   late: string;
 }
 
@@ -46,6 +51,8 @@ interface Header {
   format?: number;
   key?: string;
   token?: string;
+  /** The distinct holes texts of the shard's rows (a row names its own by index): 10,000 parts have a handful. */
+  holes?: string[];
 }
 
 export class ShardFiles {
@@ -74,12 +81,12 @@ export class ShardFiles {
       const { text } = read;
       const end = text.indexOf('\n');
       const header = this.header(text.slice(0, end));
-      if (!header) return { rows, token: '', ascii };
+      if (!header || !Array.isArray(header.holes) || !header.holes.every((h) => typeof h === 'string')) return { rows, token: '', ascii };
       for (let at = end + 1; at < text.length; ) {
         const next = text.indexOf('\n', at);
         const stop = next < 0 ? text.length : next;
         if (stop > at) {
-          const [path, row] = headRow(text.slice(at, stop));
+          const [path, row] = headRow(text.slice(at, stop), header.holes);
           rows.set(path, row);
         }
         at = stop + 1;
@@ -108,10 +115,12 @@ export class ShardFiles {
   write(i: number, entries: readonly ShardEntry[]): void {
     const lateTexts = entries.map((e) => asciiJson(e.late));
     const token = createHash('sha256').update(lateTexts.join('\n')).digest('hex').slice(0, 32);
-    const header = `${asciiJson(JSON.stringify({ format: this.format, key: this.key, token }))}\n`;
+    const holes = [...new Set(entries.map((e) => e.holes))];
+    const holesAt = new Map(holes.map((h, i) => [h, i]));
+    const header = `${asciiJson(JSON.stringify({ format: this.format, key: this.key, token, holes }))}\n`;
     let at = header.length;
     const heads = entries.map((e, n) => {
-      const line = asciiJson(`${JSON.stringify(e.path)}\t${e.stamp}\t${e.hash}\t${e.head}\t${at},${lateTexts[n].length}`);
+      const line = asciiJson(`${JSON.stringify(e.path)}\t${e.stamp}\t${e.hash}\t${e.head}\t${holesAt.get(e.holes)}\t${at},${lateTexts[n].length}`);
       at += lateTexts[n].length + 1;
       return `${line}\n`;
     });
@@ -126,17 +135,19 @@ function writeAtomically(file: string, text: string): void {
   renameSync(temp, file);
 }
 
-function headRow(line: string): [string, HeadRow] {
+function headRow(line: string, holes: readonly string[]): [string, HeadRow] {
   const a = line.indexOf('\t');
   const b = line.indexOf('\t', a + 1);
   const c = line.indexOf('\t', b + 1);
   const d = line.indexOf('\t', c + 1);
-  const e = line.indexOf(',', d + 1);
-  if (a < 0 || b < 0 || c < 0 || d < 0 || e < 0) throw new Error('not a part cache line');
-  const at = Number(line.slice(d + 1, e));
+  const h = line.indexOf('\t', d + 1);
+  const e = line.indexOf(',', h + 1);
+  if (a < 0 || b < 0 || c < 0 || d < 0 || h < 0 || e < 0) throw new Error('not a part cache line');
+  const hole = holes[Number(line.slice(d + 1, h))];
+  const at = Number(line.slice(h + 1, e));
   const length = Number(line.slice(e + 1));
-  if (!Number.isInteger(at) || !Number.isInteger(length)) throw new Error('not a part cache line');
-  return [JSON.parse(line.slice(0, a)) as string, { stamp: line.slice(a + 1, b), hash: line.slice(b + 1, c), head: line.slice(c + 1, d), at, length }];
+  if (hole === undefined || !Number.isInteger(at) || !Number.isInteger(length)) throw new Error('not a part cache line');
+  return [JSON.parse(line.slice(0, a)) as string, { stamp: line.slice(a + 1, b), hash: line.slice(b + 1, c), head: line.slice(c + 1, d), holes: hole, at, length }];
 }
 
 /** The late text of a row from its shard's .late bytes (ASCII: one byte a character). */

@@ -18,6 +18,7 @@
 
 import { mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { join } from 'node:path';
+import { isDeepStrictEqual } from 'node:util';
 import { deserialize, serialize } from 'node:v8';
 import { DiagnosticList, type Diagnostic, type SourcePosition } from './diagnostics.js';
 import { decodeExact, encodeExact, type Holes } from './exact-json.js';
@@ -29,7 +30,7 @@ import { parseYamlSource, type SourceFile } from './source.js';
 
 const SHARDS = 64;
 /** Changes whenever what an entry holds changes shape (or what reading a part gives does: see codeKey). */
-const FORMAT = 4;
+const FORMAT = 5;
 const SHARD_NAME = /^\d\d\.(lines|late)$/;
 
 export interface CachedRead {
@@ -38,12 +39,16 @@ export interface CachedRead {
   diagnostics: Diagnostic[];
 }
 
-/** What a row's head holds, parsed when its part is handed out: the part's early fields (lazy-part.ts) and the rest's names. */
+/**
+ * What a row's head holds, parsed when its part is handed out: the part's early fields (lazy-part.ts) and the
+ * rest's names; the id the file declares when it is not the part's own id at the part's own position, and
+ * the warnings reading it gave when there were any (most parts have neither: 10,000 heads are read a build).
+ */
 interface Head {
   early: Record<string, unknown>;
   lateKeys: string[];
-  declared: { id: string; at: SourcePosition };
-  diagnostics: Diagnostic[];
+  declared?: { id: string; at: SourcePosition };
+  diagnostics?: Diagnostic[];
 }
 
 /** A head that says the late text is the whole entry as base64 of v8 bytes (exact JSON would not give it back). */
@@ -60,16 +65,26 @@ function fromExactText<T>(text: string): T {
   return decodeExact<T>(value, holes);
 }
 
+/** Whether two positions are the same (a part's own `at` and the position of the id it declares). */
+const samePosition = (a: SourcePosition, b: unknown) => isDeepStrictEqual(a, b);
+
+/** A head as its row's two texts: the value and its holes apart, so that the shard lists each holes text once. */
+function headTexts(head: Head): { head: string; holes: string } | undefined {
+  const exact = encodeExact(head);
+  return exact && { head: exact.text, holes: JSON.stringify(exact.holes) };
+}
+
 /** An entry as its shard's files hold it (part-cache-files.ts). */
 function shardEntry(path: string, stamp: number[], read: CachedRead): ShardEntry {
   const { source, ...fields } = read.part;
   const { early, late } = splitPart(fields);
-  const head = exactText({ early, lateKeys: Object.keys(late), declared: read.declared, diagnostics: read.diagnostics } satisfies Head);
+  const own = read.declared.id === early.id && samePosition(read.declared.at, early.at);
+  const head = headTexts({ early, lateKeys: Object.keys(late), ...(own ? {} : { declared: read.declared }), ...(read.diagnostics.length > 0 ? { diagnostics: read.diagnostics } : {}) });
   const rest = head && exactText(late);
   const at = { path, stamp: JSON.stringify(stamp), hash: source.hash };
-  if (head && rest) return { ...at, head, late: rest };
+  if (head && rest) return { ...at, ...head, late: rest };
   const whole = { part: { ...fields, source: undefined }, declared: read.declared, diagnostics: read.diagnostics };
-  return { ...at, head: V8, late: Buffer.from(serialize(whole)).toString('base64') };
+  return { ...at, head: V8, holes: '[]', late: Buffer.from(serialize(whole)).toString('base64') };
 }
 
 /** A shard as read: its head rows, and its late bytes once a part's late fields are asked for (null: not to be had). */
@@ -99,6 +114,7 @@ export class PartCache {
   /** Entries dropped this run (the file now has errors), by shard. */
   private readonly dropped = new Map<number, Set<string>>();
   private readonly seen = new Set<string>();
+  private readonly parsedHoles = new Map<string, Holes>();
   /** Files read and parsed this run, and files taken from the cache. */
   readonly counts = { parsed: 0, cached: 0 };
 
@@ -128,8 +144,9 @@ export class PartCache {
     try {
       if (row.head === V8) read = deserialize(Buffer.from(this.late(i, path, row), 'base64')) as CachedRead;
       else {
-        const head = fromExactText<Head>(row.head);
-        read = { part: lazyPart(head.early, head.lateKeys, new LateFields(this, i, path, row)) as Part, declared: head.declared, diagnostics: head.diagnostics };
+        const head = decodeExact<Head>(JSON.parse(row.head), this.holes(row.holes));
+        const declared = head.declared ?? { id: head.early.id as string, at: head.early.at as SourcePosition };
+        read = { part: lazyPart(head.early, head.lateKeys, new LateFields(this, i, path, row)) as Part, declared, diagnostics: head.diagnostics ?? [] };
       }
     } catch {
       // a damaged row: read the file again
@@ -138,6 +155,13 @@ export class PartCache {
     read.part.source = new LazySource(this.root, path, row.hash);
     this.counts.cached++;
     return read;
+  }
+
+  /** A holes text parsed, once a build (a shard's rows share a handful; decodeExact only reads them). */
+  private holes(text: string): Holes {
+    let found = this.parsedHoles.get(text);
+    if (!found) this.parsedHoles.set(text, (found = JSON.parse(text) as Holes));
+    return found;
   }
 
   /** A cached part's late fields: from its shard's .late file, else (that file lost or rewritten by another run) from the part file, when its hash is unchanged. */
@@ -196,7 +220,7 @@ export class PartCache {
       for (const [path, row] of onDisk.rows) {
         if (!this.seen.has(path) || this.dropped.get(i)?.has(path) || !lateBytes) continue;
         try {
-          entries.set(path, { path, stamp: row.stamp, hash: row.hash, head: row.head, late: lateText(lateBytes, row) });
+          entries.set(path, { path, stamp: row.stamp, hash: row.hash, head: row.head, holes: row.holes, late: lateText(lateBytes, row) });
         } catch {
           // a damaged row: its file is read again next time
         }

@@ -52,6 +52,28 @@ describe('PartCache', () => {
     expect(third.result.library!.partsById.get('CAP-3')!.parameters.esr).toBeCloseTo(0.033, 12);
   });
 
+  it('lists each distinct holes text once a shard, and keeps the declared id only where it is not the part\'s own', () => {
+    load();
+    const heads = readdirSync(cacheDir).filter((name) => name.endsWith('.lines')).map((name) => readFileSync(join(cacheDir, name), 'latin1'));
+    let rows = 0;
+    for (const text of heads) {
+      const [header, ...lines] = text.trimEnd().split('\n');
+      const { holes } = JSON.parse(header) as { holes: string[] };
+      expect(new Set(holes).size).toBe(holes.length);
+      for (const line of lines) {
+        const fields = line.split('\t');
+        // path, stamp, hash, head, the index of its holes text, where its late text is
+        expect(fields).toHaveLength(6);
+        expect(Number(fields[4])).toBeLessThan(holes.length);
+        expect(fields[3]).not.toContain('"declared"');
+        rows++;
+      }
+    }
+    expect(rows).toBe(7);
+    // Only the warned bead (a part with warnings) keeps them in its head.
+    expect(heads.filter((text) => text.includes('"diagnostics"')).length).toBe(1);
+  });
+
   it('never keeps a file with errors, and forgets a removed file', () => {
     writeFileSync(join(root, 'parts', 'bad.yaml'), 'id: CAP-BAD\nkind: capacitor\ntitle: Broken (invented)\nnominal: 10 bananas\n');
     for (let run = 0; run < 2; run++) {
