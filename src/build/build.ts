@@ -207,7 +207,10 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     const partKeys = new Map(library.parts.map((p) => [p.id, partKey(site, p, pdfLinks.part(p.id))]));
     const partKeyOf = (id: string) => partKeys.get(id) ?? '';
     const carried = new Map<string, CarriedPart>();
-    for (const part of library.parts) if (recordAt && units.kept(`parts/${part.id}`, partKeys.get(part.id)!)) carried.set(part.id, carriedPart(part.id, units.recordedEntry(`parts/${part.id}`)));
+    for (const part of library.parts) {
+      const unit = `parts/${part.id}`;
+      if (recordAt && units.kept(unit, partKeys.get(part.id)!)) carried.set(part.id, carriedPart(part.id, units.recordedEntry(unit)));
+    }
     const fresh = library.parts.length - carried.size;
     pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), started: run.early });
     for (const part of library.parts) if (carried.has(part.id)) pool?.keepPartCharts({ part });

@@ -90,7 +90,8 @@ export class SiteUnits {
   private source(unit: string, key: string): Source {
     const folder = isFolderUnit(unit);
     const spare = this.spareDir ? this.record?.spare?.get(unit) : undefined;
-    if (spare?.key === key && spareUnchanged(join(this.spareDir!, unit), folder, spare.stamp)) return 'spare';
+    // Unit paths are site-relative with forward slashes and no dot segments: joined as text (a 10,000-part rebuild joins 10,000).
+    if (spare?.key === key && spareUnchanged(`${this.spareDir}/${unit}`, folder, spare.stamp)) return 'spare';
     const live = this.liveDir ? this.record?.live?.get(unit) : undefined;
     if (live?.key === key && sameStamp(live.stamp, unitStamp(join(this.liveDir!, unit), folder))) return 'live';
     return 'fresh';

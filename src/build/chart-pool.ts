@@ -10,6 +10,7 @@ import { join } from 'node:path';
 import type { Worker } from 'node:worker_threads';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { codeKey } from './reuse.js';
+import { sha256Hex } from './key-hash.js';
 import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, withoutSpecs, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker, DrawnChart } from './chart-maker.js';
@@ -163,7 +164,7 @@ export class ChartPool implements ChartMaker {
   }
 
   private key(...parts: string[]): string {
-    return createHash('sha256').update([this.fingerprint, this.options.settingsKey, ...parts].join('\n')).digest('hex').slice(0, 32);
+    return sha256Hex([this.fingerprint, this.options.settingsKey, ...parts].join('\n')).slice(0, 32);
   }
 
   /**

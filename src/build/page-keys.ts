@@ -4,7 +4,7 @@
 // template that starts reading more of the site's data must have it added here, as reuse.ts says of part
 // pages; test/build/carry-over.test.ts compares a rebuild after an edit with a cold build, byte for byte.
 
-import { createHash } from 'node:crypto';
+import { sha256Hex } from './key-hash.js';
 import { join } from 'node:path';
 import type { ComparisonPageData, FolioData } from '../pages/site-data.js';
 import type { ListedPart } from '../pages/listed-part.js';
@@ -12,7 +12,7 @@ import { indexRowChunks, indexRowScript } from '../pages/part-list.js';
 
 type PartKeyOf = (id: string) => string;
 
-const hash = (...parts: string[]) => createHash('sha256').update(parts.join('\n')).digest('hex').slice(0, 32);
+const hash = (...parts: string[]) => sha256Hex(parts.join('\n')).slice(0, 32);
 
 const listedKeys = (parts: readonly ListedPart[], partKey: PartKeyOf) => parts.map((p) => `${p.id} ${partKey(p.id)}`).join('\n');
 

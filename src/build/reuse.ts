@@ -11,6 +11,7 @@ import type { Library } from '../model/library.js';
 import type { Part } from '../model/part.js';
 import { measurementInputs } from '../model/measurement-entry.js';
 import { PACKAGE_ROOT, VERSION } from '../version.js';
+import { sha256Hex } from './key-hash.js';
 
 const SOURCE_DIR = dirname(dirname(fileURLToPath(import.meta.url)));
 
@@ -81,5 +82,5 @@ export function siteKey(library: Library): string {
  * files' paths and hashes, and whether its page links a PDF.
  */
 export function partKey(site: string, part: Part, linksPdf: boolean): string {
-  return createHash('sha256').update(`${site}\n${part.source.path}\n${part.source.hash}\n${measurementInputs(part.measurements)}\n${linksPdf ? 'pdf' : 'no pdf'}`).digest('hex').slice(0, 32);
+  return sha256Hex(`${site}\n${part.source.path}\n${part.source.hash}\n${measurementInputs(part.measurements)}\n${linksPdf ? 'pdf' : 'no pdf'}`).slice(0, 32);
 }

@@ -37,7 +37,7 @@ export function spareUnchanged(path: string, folder: boolean, stamp: readonly nu
   if (!folder) return sameStamp(stamp, unitStamp(path, false));
   if (stamp.length !== 5) return false;
   try {
-    const page = statSync(join(path, 'index.html'), { throwIfNoEntry: false });
+    const page = statSync(`${path}/index.html`, { throwIfNoEntry: false });
     return page !== undefined && page.isFile() && page.size === stamp[2] && page.mtimeMs === stamp[3] && page.ino === stamp[4];
   } catch {
     return false;
