@@ -51,8 +51,9 @@ function slimmedBody(body: string): string {
   let out = body.replace(/<path d=""(?: display="none")?\/>/g, '').replace(/<path d="M0,0h0v0h0Z"\/>/g, '');
   // A group background with no attribute but its outline is invisible only where every fill above it is
   // none: vega writes the chart's root group with fill="none" and no group of its own with another fill.
+  // The root group follows the chart's background rectangle, a sibling of it that it inherits nothing from.
   const groupFills = [...out.matchAll(/<g\b[^>]* fill="([^"]*)"/g)].map((m) => m[1]);
-  if (out.startsWith('<g fill="none"') && groupFills.every((f) => f === 'none')) {
+  if (out.replace(/^<rect [^>]*\/>/, '').startsWith('<g fill="none"') && groupFills.every((f) => f === 'none')) {
     out = out.replace(/<path d="M0,0h[\d.]+v[\d.]+h-[\d.]+Z"\/>/g, '');
   }
   // Empty groups, innermost first, until none is left.

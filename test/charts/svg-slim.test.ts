@@ -30,6 +30,10 @@ describe('dropping markup that draws nothing', () => {
     expect(slimSvgBody('<g fill="none"><g><path d="M0,0h234v120h-234Z"/><path d="M1,1L2,2" stroke="#000"/></g></g>').body).toBe('<g fill="none"><g><path d="M1,1L2,2" stroke="#000"/></g></g>');
     const filled = '<g fill="none"><g fill="#eee"><path d="M0,0h234v120h-234Z"/></g></g>';
     expect(slimSvgBody(filled).body).toBe(filled);
+    // After the chart's background rectangle (vega writes it first, beside the root group, not above it).
+    const paper = '<rect width="332" height="260" fill="#ffffff"/>';
+    expect(slimSvgBody(`${paper}<g fill="none"><g><path d="M0,0h234v120h-234Z"/><path d="M1,1L2,2" stroke="#000"/></g></g>`).body).toBe(`${paper}<g fill="none"><g><path d="M1,1L2,2" stroke="#000"/></g></g>`);
+    expect(slimSvgBody(`${paper}${filled}`).body).toBe(`${paper}${filled}`);
   });
 
   it('keeps one of each clip rectangle and points every use at it', () => {
