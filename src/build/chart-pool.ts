@@ -4,13 +4,12 @@
 // The cache key covers everything a chart depends on: the renderer's own code (a fingerprint of the chart
 // and folio modules' files), the part file's content hash, and the library's sweep and band settings.
 
-import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Worker } from 'node:worker_threads';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { codeKey } from './reuse.js';
-import { sha256Hex } from './key-hash.js';
+import { sha256Hex } from '../model/sha256.js';
 import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, withoutSpecs, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker, DrawnChart } from './chart-maker.js';
@@ -142,7 +141,7 @@ export class ChartPool implements ChartMaker {
   async changeChart(data: ChangeChartData): Promise<ChartArtifact> {
     // The data holds both revisions' curves, which come from files of two revisions and two settings: the
     // key is the data itself.
-    const key = this.key('change', createHash('sha256').update(JSON.stringify(data)).digest('hex'));
+    const key = this.key('change', sha256Hex(JSON.stringify(data)));
     const [chart] = await this.cached(key, () => ({ type: 'change', data }));
     return chart;
   }

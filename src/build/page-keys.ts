@@ -4,7 +4,7 @@
 // template that starts reading more of the site's data must have it added here, as reuse.ts says of part
 // pages; test/build/carry-over.test.ts compares a rebuild after an edit with a cold build, byte for byte.
 
-import { sha256Hex } from './key-hash.js';
+import { sha256Hex } from '../model/sha256.js';
 import { join } from 'node:path';
 import type { ComparisonPageData, FolioData } from '../pages/site-data.js';
 import type { ListedPart } from '../pages/listed-part.js';

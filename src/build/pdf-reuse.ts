@@ -8,7 +8,7 @@
 // matches the one recorded when it was printed and the file is the one that build wrote (size, mtime, inode).
 // The others are removed with the old site, and the build says how many.
 
-import { createHash } from 'node:crypto';
+import { sha256Hex } from '../model/sha256.js';
 import { constants, copyFileSync, linkSync, mkdirSync, readdirSync, statSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import type { Library } from '../model/library.js';
@@ -32,7 +32,7 @@ export interface PdfStamp {
  * `reviewInputs` names what else a review's pack is made from (the commit its `since:` names).
  */
 export function pdfKeys(library: Library, site: string, reviewInputs: (slug: string) => string = () => ''): Map<string, string> {
-  const hash = (...parts: string[]) => createHash('sha256').update(['pdf', site, ...parts].join('\n')).digest('hex').slice(0, 32);
+  const hash = (...parts: string[]) => sha256Hex(['pdf', site, ...parts].join('\n')).slice(0, 32);
   const everything = [...library.sources.map((s) => `${s.path} ${s.hash}`), ...library.parts.map((p) => measurementInputs(p.measurements))].join('\n');
   return new Map([
     ...library.parts.map((p): [string, string] => [partPdfPath(p.id), hash('part', p.source.path, p.source.hash, measurementInputs(p.measurements))]),

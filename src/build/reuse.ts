@@ -11,7 +11,7 @@ import type { Library } from '../model/library.js';
 import type { Part } from '../model/part.js';
 import { measurementInputs } from '../model/measurement-entry.js';
 import { PACKAGE_ROOT, VERSION } from '../version.js';
-import { sha256Hex } from './key-hash.js';
+import { sha256Hex } from '../model/sha256.js';
 
 const SOURCE_DIR = dirname(dirname(fileURLToPath(import.meta.url)));
 

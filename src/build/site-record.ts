@@ -14,7 +14,7 @@
 // reads the data of the few parts on the pages it renders, not of the library, and the record of 10,000
 // parts reads as 10,000 strings rather than a few hundred thousand objects.
 
-import { createHash } from 'node:crypto';
+import { sha256Hex } from '../model/sha256.js';
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { PdfStamp } from './pdf-reuse.js';
@@ -160,7 +160,7 @@ export class VersionRecord {
   save(dir: string): string[] {
     for (const i of this.dirty) {
       const text = [...this.shard(i)].sort((a, b) => (a[0] < b[0] ? -1 : 1)).map(([unit, entry]) => `${shardLine(unit, entry)}\n`).join('');
-      const name = `${createHash('sha256').update(text).digest('hex').slice(0, 24)}.tsv`;
+      const name = `${sha256Hex(text).slice(0, 24)}.tsv`;
       if (!existsSync(join(dir, name))) writeAtomically(join(dir, name), text);
       this.names[i] = name;
     }
@@ -194,7 +194,7 @@ interface RootFile {
 
 /** The folder of an output folder's record under the cache's builds/. */
 export function recordDir(cacheRoot: string, outDir: string): string {
-  return join(cacheRoot, 'builds', createHash('sha256').update(outDir).digest('hex').slice(0, 16));
+  return join(cacheRoot, 'builds', sha256Hex(outDir).slice(0, 16));
 }
 
 const ROOT = 'root.json';

@@ -7,7 +7,7 @@
 //  - self-contained and inert: no class names (page CSS must not restyle a chart), no xlink namespace, and a
 //    check that nothing can fetch or run (no script, foreignObject, href or url() outside the chart's ids).
 
-import { createHash } from 'node:crypto';
+import { sha256Hex } from '../model/sha256.js';
 import type { ChartText } from '../present/chart-descriptions.js';
 import { escapeXml } from '../present/escape.js';
 import { fixedText } from '../units/digits-text.js';
@@ -25,7 +25,7 @@ const VEGA_ATTRIBUTES = / (?:class|role|aria-roledescription|aria-hidden|aria-la
 
 /** A short, stable id prefix derived from the chart's content. */
 export function idPrefix(content: string): string {
-  return 'zc' + createHash('sha256').update(content).digest('hex').slice(0, 10);
+  return 'zc' + sha256Hex(content).slice(0, 10);
 }
 
 /**

@@ -11,7 +11,7 @@
 // head's undefined values are (its holes, exact-json.ts) is the same for most parts of a kind: the .lines
 // header lists each distinct holes text once and a line names its own by index.
 
-import { createHash } from 'node:crypto';
+import { sha256Hex } from './sha256.js';
 import { readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { asciiJson, readText } from './ascii-text.js';
@@ -114,7 +114,7 @@ export class ShardFiles {
   /** Write a shard's two files: the late texts first, then the heads that name them. */
   write(i: number, entries: readonly ShardEntry[]): void {
     const lateTexts = entries.map((e) => asciiJson(e.late));
-    const token = createHash('sha256').update(lateTexts.join('\n')).digest('hex').slice(0, 32);
+    const token = sha256Hex(lateTexts.join('\n')).slice(0, 32);
     const holes = [...new Set(entries.map((e) => e.holes))];
     const holesAt = new Map(holes.map((h, i) => [h, i]));
     const header = `${asciiJson(JSON.stringify({ format: this.format, key: this.key, token, holes }))}\n`;

@@ -1,7 +1,7 @@
 // YAML files with positions: every node can be traced back to file:line:col for messages.
 
-import { createHash } from 'node:crypto';
 import { LineCounter, isAlias, isMap, isNode, isScalar, isSeq, parseDocument, type Document, type Node, type YAMLError, type YAMLMap } from 'yaml';
+import { sha256Hex } from './sha256.js';
 import { quote, type DiagnosticList, type SourcePosition } from './diagnostics.js';
 import { MAX_DEPTH, MAX_ITEMS, depthMessage, firstLimitProblem, widthMessage, type LimitProblem } from './yaml-limits.js';
 
@@ -16,7 +16,7 @@ export interface SourceFile {
 }
 
 export function contentHash(text: string | Uint8Array): string {
-  return createHash('sha256').update(text).digest('hex').slice(0, 16);
+  return sha256Hex(text).slice(0, 16);
 }
 
 /**

@@ -1,7 +1,7 @@
 // What a review page and its pack show: the review's facts and decisions (short markdown, rendered inert),
 // the sheets of everything it covers, the cautions that apply to them, and every source file with its hash.
 
-import { createHash } from 'node:crypto';
+import { sha256Hex } from '../model/sha256.js';
 import { reviewSlug } from '../present/slugs.js';
 import type { LibraryRevision } from '../history/library-revision.js';
 import type { LibraryReview, Library } from '../model/library.js';
@@ -133,9 +133,6 @@ export function reviewPageData(
     sections,
     cautions,
     sources,
-    contentHash: createHash('sha256')
-      .update(sources.map((x) => `${x.hash}  ${x.file}\n`).join(''))
-      .digest('hex')
-      .slice(0, 16),
+    contentHash: sha256Hex(sources.map((x) => `${x.hash}  ${x.file}\n`).join('')).slice(0, 16),
   };
 }

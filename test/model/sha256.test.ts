@@ -2,7 +2,7 @@
 
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { sha256Hex } from '../../src/build/key-hash.js';
+import { sha256Hex } from '../../src/model/sha256.js';
 
 describe('sha256Hex', () => {
   it('gives the standard digest of "abc" and of the empty text', () => {
