@@ -17,18 +17,20 @@ export type Absence = 'zero' | 'open' | 'required';
 export interface ParameterSpec {
   /** As the part format names it. */
   name: string;
+  /** The element it sets, as the part's model names it (part-network.ts; the model table's label). */
+  element: string;
   dimension: Dimension;
   absence: Absence;
 }
 
-const p = (name: string, dimension: Dimension, absence: Absence): ParameterSpec => ({ name, dimension, absence });
+const p = (name: string, element: string, dimension: Dimension, absence: Absence): ParameterSpec => ({ name, element, dimension, absence });
 
 /** Parameters of each kind in the part format's names and order. */
 export const FIT_PARAMETERS: Readonly<Record<FitKind, readonly ParameterSpec[]>> = {
-  capacitor: [p('nominal', 'capacitance', 'required'), p('esr', 'resistance', 'zero'), p('esl', 'inductance', 'zero'), p('epr', 'resistance', 'open')],
-  inductor: [p('nominal', 'inductance', 'required'), p('dcr', 'resistance', 'zero'), p('cp', 'capacitance', 'open'), p('rp', 'resistance', 'open')],
-  resistor: [p('nominal', 'resistance', 'required'), p('ls', 'inductance', 'zero'), p('cp', 'capacitance', 'open')],
-  bead: [p('rdc', 'resistance', 'zero'), p('r', 'resistance', 'required'), p('l', 'inductance', 'required'), p('c', 'capacitance', 'open')],
+  capacitor: [p('nominal', 'C', 'capacitance', 'required'), p('esr', 'ESR', 'resistance', 'zero'), p('esl', 'ESL', 'inductance', 'zero'), p('epr', 'EPR', 'resistance', 'open')],
+  inductor: [p('nominal', 'L', 'inductance', 'required'), p('dcr', 'DCR', 'resistance', 'zero'), p('cp', 'Cp', 'capacitance', 'open'), p('rp', 'Rp', 'resistance', 'open')],
+  resistor: [p('nominal', 'R', 'resistance', 'required'), p('ls', 'Ls', 'inductance', 'zero'), p('cp', 'Cp', 'capacitance', 'open')],
+  bead: [p('rdc', 'Rdc', 'resistance', 'zero'), p('r', 'R', 'resistance', 'required'), p('l', 'L', 'inductance', 'required'), p('c', 'C', 'capacitance', 'open')],
 };
 
 /**

@@ -12,7 +12,10 @@ import { absentText, fixtureText, headerText, leftOutShort, limitText, missText,
 import type { ChartOnPage } from './site-data.js';
 
 export interface FitRow {
+  /** The element, as the model table names it ("ESR", "Rdc", "C"). */
   name: string;
+  /** Its key in the part file ("esr", "rdc", "nominal"). */
+  key: string;
   typed: string;
   /** The fitted value with its standard error, or why the fit left the parameter out. */
   fitted: string;
@@ -84,11 +87,16 @@ function fitTable(part: Part, m: PartMeasurement): MeasurementPageData['fit'] {
     const typedText = typed !== undefined ? formatEng(typed, spec.dimension, { digits: 4 }) : absentText(spec.absence);
     const fittedText = fitted !== undefined ? `${formatEng(fitted, spec.dimension, { digits: 4 })} ± ${formatPercent(Math.expm1(fit.standardErrors[spec.name]), 2)}` : left ? `left out (${leftOutShort(left)})` : '—';
     const difference = typed !== undefined && fitted !== undefined ? signedPercent(fitted / typed - 1) : '—';
-    return { name: spec.name, typed: typedText, fitted: fittedText, leftOut: fitted === undefined, difference };
+    return { name: spec.element, key: spec.name, typed: typedText, fitted: fittedText, leftOut: fitted === undefined, difference };
   });
   return {
     rows,
     residualText: `the fitted model misses the measurement by ${missText(fit.residual)}`,
-    leftOut: fit.leftOut.map((l) => `${l.name}: ${leftOutShort(l)}`),
+    leftOut: fit.leftOut.map((l) => `${elementOf(kind, l.name)}: ${leftOutShort(l)}`),
   };
+}
+
+/** The element a fitted parameter sets, as the model table names it. */
+function elementOf(kind: FitKind, name: string): string {
+  return FIT_PARAMETERS[kind].find((spec) => spec.name === name)?.element ?? name;
 }
