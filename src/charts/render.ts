@@ -13,11 +13,12 @@
 // test/charts/render-order.test.ts).
 
 import { parse, View, type Runtime, type Spec as VegaSpec } from 'vega';
-import { compile, type TopLevelSpec } from 'vega-lite';
+import type { TopLevelSpec } from 'vega-lite';
 import { outerSize, type Frame } from './frame.js';
 import { finishSvg, type ChartText } from './svg-finish.js';
 import { installTextMetrics } from './text-width.js';
 import { COMPARED_ROWS, keyedItems, sameValue, type AxisKeys, type VegaOrderSpec } from './render-order.js';
+import { vegaSpecOf } from './vega-specs.js';
 
 export type { ChartText } from './svg-finish.js';
 
@@ -120,12 +121,9 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
   let c = compiled.get(def.name);
   if (!c) {
     installTextMetrics();
-    const spec = withFrame(def.spec(), def.frame);
-    const drawn = withoutLayers(spec, new Set(def.underlaid ?? []));
-    const warnings: string[] = [];
-    const vg = compile(drawn, { logger: collectingLogger(warnings) }).spec as VegaSpec;
-    // The specs are fixed: a warning is a defect in a chart definition, found by the chart tests.
-    if (warnings.length > 0) throw new Error(`chart "${def.name}": vega-lite warns: ${warnings.join('; ')}`);
+    const { spec, drawn } = drawnSpec(def);
+    // The specs are fixed: compiled when zfolio is built (vega-specs.ts), else here.
+    const vg = vegaSpecOf(drawn, def.name);
     const datasets = namedData(drawn);
     const params = paramsOf(spec);
     const emptied = new Set(params.filter((p) => Array.isArray(p.value) && p.value.length === 0).map((p) => p.name));
@@ -139,15 +137,13 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
   return c;
 }
 
-function collectingLogger(into: string[]) {
-  const logger = {
-    level: () => logger,
-    error: (...args: unknown[]) => void into.push(args.join(' ')),
-    warn: (...args: unknown[]) => void into.push(args.join(' ')),
-    info: () => logger,
-    debug: () => logger,
-  };
-  return logger as never;
+/**
+ * A chart kind's whole spec in its frame (as offered with a chart), and the spec vega draws: without the
+ * layers its underlay draws instead.
+ */
+export function drawnSpec(def: Pick<ChartDefinition<unknown>, 'spec' | 'frame' | 'underlaid'>): { spec: TopLevelSpec; drawn: TopLevelSpec } {
+  const spec = withFrame(def.spec(), def.frame);
+  return { spec, drawn: withoutLayers(spec, new Set(def.underlaid ?? [])) };
 }
 
 /** The spec without the top-level layers that read one of `sources` (their data sources go with them). */
