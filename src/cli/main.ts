@@ -22,7 +22,7 @@ export const COMMANDS: Record<string, CommandEntry> = {
   check: { load: () => import('./commands/check.js').then((m) => ({ run: m.check, help: m.checkHelp })), summary: 'validate the library and list every problem' },
   figures: { load: () => import('./commands/figures.js').then((m) => ({ run: m.figures, help: m.figuresHelp })), summary: 'resonances, SRF and usable band of parts' },
   sweep: { load: () => import('./commands/sweep.js').then((m) => ({ run: m.sweep, help: m.sweepHelp })), summary: "a part's impedance at every sweep point" },
-  plan: { load: () => import('./commands/plan.js').then((m) => ({ run: m.plan, help: m.planHelp })), summary: 'check a rail plan against its target impedance, or --suggest its capacitors' },
+  plan: { load: () => import('./commands/plan.js').then((m) => ({ run: m.plan, help: m.planHelp })), summary: 'check a rail plan against its target impedance, or --suggest parts' },
   build: { load: () => import('./commands/build.js').then((m) => ({ run: m.build, help: m.buildHelp })), summary: 'build the folio: static site, and PDFs with --pdf' },
   serve: { load: () => import('./commands/serve.js').then((m) => ({ run: m.serve, help: m.serveHelp })), summary: 'build, serve on this machine, and rebuild on every change', ownsSignals: true },
   print: { load: () => import('./commands/print.js').then((m) => ({ run: m.print, help: m.printHelp })), summary: 'PDFs of chosen parts and review packs' },

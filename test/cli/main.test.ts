@@ -2,7 +2,7 @@
 
 import { readFileSync } from 'node:fs';
 import { afterEach, describe, expect, it } from 'vitest';
-import { COMMANDS } from '../../src/cli/main.js';
+import { COMMANDS, mainHelp } from '../../src/cli/main.js';
 import { GOOD_LIBRARY, run } from './fake-io.js';
 
 describe('zfolio', () => {
@@ -85,6 +85,16 @@ describe('zfolio', () => {
     it('is also reachable as "zfolio help COMMAND"', async () => {
       expect((await run(['help', name])).out).toBe((await COMMANDS[name].load()).help);
     });
+  });
+
+  it('every help text fits a terminal of 80 columns (its default width, common practice)', async () => {
+    const wide: string[] = [];
+    const texts = [mainHelp(), ...(await Promise.all(Object.values(COMMANDS).map(async (c) => (await c.load()).help)))];
+    // Columns counted as characters: every character of the help is one column wide (no tab, no CJK).
+    for (const text of texts) for (const line of text.split('\n')) if ([...line].length > 80) wide.push(line);
+    expect(texts).toHaveLength(Object.keys(COMMANDS).length + 1);
+    expect(texts.join('')).not.toMatch(/\t/);
+    expect(wide).toEqual([]);
   });
 
   it('the fixture library is where commands look by default (the current folder)', async () => {

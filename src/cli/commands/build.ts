@@ -10,7 +10,8 @@ import { RevisionError } from '../../history/git-revision.js';
 import { plural } from '../report.js';
 import { PAPER_SIZES, type PaperSize } from '../../model/settings.js';
 
-export const buildHelp = `Usage: zfolio build [--library DIR] [--out DIR] [--pdf] [--chrome PATH] [--paper A4|Letter] [--since REV]
+export const buildHelp = `Usage: zfolio build [--library DIR] [--out DIR] [--pdf] [--chrome PATH]
+                    [--paper A4|Letter] [--workers N] [--since REV]
 
 Builds the folio: a datasheet page per part, comparison pages, rail plans and
 reviews, and an index, as a static site that works offline and from the file
@@ -20,12 +21,14 @@ site zfolio built, an empty folder or a new path; anything else is refused.
 
 Options:
   --out DIR           where the site goes (default: ${DEFAULT_OUT_DIR} under the library)
-  --pdf               also print a PDF per part and a pack per review (needs Chromium)
-  --chrome PATH       the Chromium to print with (default: $ZFOLIO_CHROME, then the usual paths)
+  --pdf               also print a PDF per part and a pack per review
+                      (needs Chromium)
+  --chrome PATH       the Chromium to print with (default: $ZFOLIO_CHROME,
+                      then the usual paths)
   --paper SIZE        A4 or Letter (default: folio.yaml, else A4)
   --workers N         threads drawing charts (default: one per core)
-  --since REV         add a "Changes since REV" page: what changed in the library
-                      since git revision REV, with |Z| before and after
+  --since REV         add a "Changes since REV" page: what changed in the
+                      library since git revision REV, with |Z| before and after
   -l, --library DIR   the library folder (default: the current folder)
   -h, --help          show this help
 `;

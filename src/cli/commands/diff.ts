@@ -16,14 +16,15 @@ export const diffHelp = `Usage: zfolio diff REV [TO] [--json] [--library DIR]
 Compares the library as it is now (the work tree: uncommitted edits count)
 with the library at git revision REV (a tag, a branch, HEAD~3, a hash), or
 with revision TO when given. Both are loaded and checked. Prints one line a
-change: rails whose verdict moved first, then rails whose margin moved, folio.yaml,
-parts added, removed, renamed and changed (the fields as written, and the
-figures that moved: SRF, usable band edges, ESR at SRF, effective value at
-the band's middle), comparisons and reviews.
+change: rails whose verdict moved first, then rails whose margin moved,
+folio.yaml, parts added, removed, renamed and changed (the fields as written,
+and the figures that moved: SRF, usable band edges, ESR at SRF, effective
+value at the band's middle), comparisons and reviews.
 
 Options:
   --json              print the changes as JSON (SI units: Hz, Ω, F, H, dB)
-  -l, --library DIR   the library folder, in a git work tree (default: the current folder)
+  -l, --library DIR   the library folder, in a git work tree (default: the
+                      current folder)
   -h, --help          show this help
 
 Exit status: 0 compared; 1 a revision's files have errors (listed, with the

@@ -11,8 +11,8 @@ import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { loadReported } from '../report.js';
 import { selectParts } from '../select.js';
 
-export const exportHelp = `Usage: zfolio export ID|FILE ... --format touchstone|spice [--out DIR] [--library DIR]
-                     [--from F] [--to F] [--per-decade N]
+export const exportHelp = `Usage: zfolio export ID|FILE ... --format touchstone|spice [--out DIR]
+                     [--library DIR] [--from F] [--to F] [--per-decade N]
 
 Writes each part's model for other tools:
   touchstone  ID.s1p: one-port S-parameters of the model, reference 50 Ω,

@@ -8,7 +8,8 @@ import { EXIT_BAD_INPUT, EXIT_OK, type CommandIO } from '../io.js';
 import { loadReported } from '../report.js';
 import { selectParts } from '../select.js';
 
-export const figuresHelp = `Usage: zfolio figures [ID|FILE ...] [--json] [--library DIR] [--from F] [--to F] [--per-decade N]
+export const figuresHelp = `Usage: zfolio figures [ID|FILE ...] [--json] [--library DIR] [--from F] [--to F]
+                      [--per-decade N]
 
 Prints each part's resonances, self-resonant frequency (SRF) and usable band,
 and the same over its spread: its value, SRF and band edges at every corner of

@@ -14,7 +14,8 @@ import { fitJson, fitText } from '../../present/fit-report.js';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { readMeasurementFile } from '../measurement-file.js';
 
-export const fitHelp = `Usage: zfolio fit FILE --kind KIND [--fixture FIXTURE] [--from F] [--to F] [--json]
+export const fitHelp = `Usage: zfolio fit FILE --kind KIND [--fixture FIXTURE] [--from F] [--to F]
+                  [--json]
 
 Reads a Touchstone file (.s1p, .s2p, or version 2 .ts), turns it into the
 part's impedance by the fixture it was measured in, and fits the kind's model
@@ -25,10 +26,13 @@ in dB, phase rms in degrees), and a YAML block to paste into the part file.
 Options:
   --kind KIND         capacitor, inductor, resistor or bead
   --fixture FIXTURE   reflection (one-port: Z = Z0(1+S11)/(1-S11)),
-                      shunt-thru (two-port, part to ground: Z = (Z0/2)·S21/(1-S21)),
-                      series-thru (two-port, part in series: Z = 2·Z0·(1-S21)/S21);
-                      default: reflection for a one-port file, shunt-thru for a
-                      capacitor and series-thru for the others in a two-port file
+                      shunt-thru (two-port, part to ground:
+                        Z = (Z0/2)·S21/(1-S21)),
+                      series-thru (two-port, part in series:
+                        Z = 2·Z0·(1-S21)/S21);
+                      default: reflection for a one-port file, shunt-thru for
+                      a capacitor and series-thru for the others in a two-port
+                      file
   --from F, --to F    fit only this range, e.g. --from 10k --to 500M
   --json              one JSON object, SI units
   -h, --help          show this help

@@ -23,8 +23,9 @@ import { planJson, suggestionJson } from '../plan-json.js';
 export const DEFAULT_MAX_COUNT = 16;
 
 export const planHelp = `Usage: zfolio plan [RAIL|FILE ...] [--json] [--library DIR]
-       zfolio plan RAIL|FILE --suggest [--corners] [--margin DB] [--max-count N] [--only LIST]
-                  [--allow-safety-class] [--allow-bias-extrapolation] [--nodes N] [--json]
+       zfolio plan RAIL|FILE --suggest [--corners] [--margin DB] [--max-count N]
+                   [--only LIST] [--allow-safety-class]
+                   [--allow-bias-extrapolation] [--nodes N] [--json]
 
 Checks a rail plan (plans/*.yaml) against its target impedance Z_t = V·ripple/ΔI
 (or its explicit target) across its band: |Z| of the regulator, plane and every
@@ -37,20 +38,21 @@ part's value at the low or high end of its tolerance and temperature change over
 folio.yaml's "temperature", or the plan's; parasitics with a stated spread at
 theirs): all 2^k corners of k moving quantities up to 10, else 2,000 seeded
 random ones with all-low and all-high; the verdict names the worst corner's
-margin, frequency and which part was at which end. Then the load step: the load current ramping by "step" over
-"rise" (default 0.35 / band top), the rail's deepest dip and when, its final
-offset and settling time, and pass or fail against the ripple budget (V × ripple,
-or target × step), beside the impedance verdict. With no RAIL or FILE, every plan in the library. A FILE
-outside plans/ is read as a plan too.
+margin, frequency and which part was at which end. Then the load step: the load
+current ramping by "step" over "rise" (default 0.35 / band top), the rail's
+deepest dip and when, its final offset and settling time, and pass or fail
+against the ripple budget (V × ripple, or target × step), beside the impedance
+verdict. With no RAIL or FILE, every plan in the library. A FILE outside plans/
+is read as a plan too.
 
-With --suggest, chooses how many of each library capacitor to place (0 to N each)
-so that |Z| stays under the target across the band with the fewest placements,
-or the lowest total cost when every candidate part states a cost. The plan's
-regulator and plane are kept; its listed capacitors are replaced. Each candidate
-is weighed at the mounting it is printed with: a part the plan lists at that
-entry's mounting, any other at its default as above. The chosen set is printed
-as plan YAML with every entry's mounting. When no set meets the target, the
-closest set found is shown: its worst margin, where, and the set.
+With --suggest, chooses how many of each library capacitor to place (0 to N
+each) so that |Z| stays under the target across the band with the fewest
+placements, or the lowest total cost when every candidate part states a cost.
+The plan's regulator and plane are kept; its listed capacitors are replaced.
+Each candidate is weighed at the mounting it is printed with: a part the plan
+lists at that entry's mounting, any other at its default as above. The chosen
+set is printed as plan YAML with every entry's mounting. When no set meets the
+target, the closest set found is shown: its worst margin, where, and the set.
 With --corners, the set must also hold at every corner of the chosen parts'
 spreads (as plan --corners checks them): each corner the chosen set misses at
 is added to the search, which runs again, until a set holds at its corners.
@@ -62,7 +64,8 @@ a part with a safety class (X/Y, a mains part), or a part whose DC-bias table
 ends below the rail voltage (its capacitance there would be extrapolated).
 
 Options:
-  --json              print JSON (SI units); one object for one plan, else an array
+  --json              print JSON (SI units); one object for one plan, else an
+                      array
   --corners           hold the rail to its corners: a corner that misses the
                       target fails the check (exit 3); with --suggest, choose
                       the set for the worst corner: it holds the target (and
@@ -77,7 +80,8 @@ Options:
   --allow-bias-extrapolation  parts whose DC-bias table ends below the rail
                       voltage may be candidates (at the table's last fraction)
   --nodes N           search budget: nodes before the best set found so far is
-                      reported without proof (default 8,000,000 / (candidates + 20))
+                      reported without proof
+                      (default 8,000,000 / (candidates + 20))
   -l, --library DIR   the library folder (default: the current folder)
   -h, --help          show this help
 

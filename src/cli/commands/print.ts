@@ -15,7 +15,8 @@ import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { loadReported, plural } from '../report.js';
 import { paperOption } from './build.js';
 
-export const printHelp = `Usage: zfolio print ID|RAIL|REVIEW ... [--out DIR] [--library DIR] [--chrome PATH] [--paper A4|Letter]
+export const printHelp = `Usage: zfolio print ID|RAIL|REVIEW ... [--out DIR] [--library DIR]
+                    [--chrome PATH] [--paper A4|Letter]
 
 Prints the datasheet of each part named by id, the plan of each rail named by
 its name or plan file (plans/NAME.yaml), and the review pack of each review
@@ -25,7 +26,8 @@ same name is replaced only if it is a PDF zfolio made.
 
 Options:
   --out DIR           where the PDFs go (default: the current folder)
-  --chrome PATH       the Chromium to print with (default: $ZFOLIO_CHROME, then the usual paths)
+  --chrome PATH       the Chromium to print with (default: $ZFOLIO_CHROME,
+                      then the usual paths)
   --paper SIZE        A4 or Letter (default: folio.yaml, else A4)
   -l, --library DIR   the library folder (default: the current folder)
   -h, --help          show this help

@@ -23,7 +23,8 @@ Press Ctrl+C to stop.
 Options:
   --out DIR           where the site goes (default: ${DEFAULT_OUT_DIR} under the library)
   --port N            the port to try first (default: ${DEFAULT_PORT}; 0: any free port)
-  --host ADDRESS      the address to listen on (default: ${DEFAULT_HOST}, this machine only)
+  --host ADDRESS      the address to listen on (default: ${DEFAULT_HOST}, this
+                      machine only)
   --workers N         threads drawing charts (default: one per core)
   -l, --library DIR   the library folder (default: the current folder)
   -h, --help          show this help

@@ -8,7 +8,8 @@ import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { loadReported } from '../report.js';
 import { selectParts } from '../select.js';
 
-export const sweepHelp = `Usage: zfolio sweep ID|FILE [--csv|--json] [--library DIR] [--from F] [--to F] [--per-decade N]
+export const sweepHelp = `Usage: zfolio sweep ID|FILE [--csv|--json] [--library DIR] [--from F] [--to F]
+                    [--per-decade N]
 
 Prints the part's impedance at every sweep point: frequency, R, X, |Z| and phase
 as a table; with --csv or --json also G, B, |Y|, Q and the effective C and L,
