@@ -2,7 +2,7 @@
 // for fewer digits).
 
 import type { PartAnalysis } from './part-figures.js';
-import { impedanceSweep } from '../circuit/impedance.js';
+import { impedanceSweep, type ImpedanceArrays } from '../circuit/impedance.js';
 import { roundedSweep } from '../circuit/sweep.js';
 import { shortSignificantText } from '../units/digits-text.js';
 
@@ -64,12 +64,32 @@ export function sweepJson(a: PartAnalysis): object {
  * `digits` significant digits, each row the model evaluated at the frequency as written (roundedSweep), so
  * a row reads back as the model at its own frequency. The other columns of SWEEP_COLUMNS are closed forms
  * of R and X (|Z| = √(R² + X²), phase = atan2(X, R), G = R/|Z|², B = −X/|Z|², |Y| = 1/|Z|, Q = |X|/R,
- * C_eff = −1/(ωX), L_eff = X/ω); `zfolio sweep --csv` writes them all. `f` is roundedSweep(a.sweep, digits),
- * given by a caller that has it already.
+ * C_eff = −1/(ωX), L_eff = X/ω); `zfolio sweep --csv` writes them all. `f` is roundedSweep(a.sweep, digits)
+ * and `z` the model at `f`, given by a caller that has them already.
  */
-export function sweepPointsCsv(a: { part: Pick<PartAnalysis['part'], 'network'>; sweep: PartAnalysis['sweep'] }, digits: number, f = roundedSweep(a.sweep, digits)): string {
-  const z = impedanceSweep(a.part.network, f);
+export function sweepPointsCsv(
+  a: { part: Pick<PartAnalysis['part'], 'network'>; sweep: PartAnalysis['sweep'] },
+  digits: number,
+  f = roundedSweep(a.sweep, digits),
+  z: ImpedanceArrays = impedanceSweep(a.part.network, f),
+): string {
+  const frequencies = frequencyCells(f, digits);
   let text = 'frequency_Hz,R_ohm,X_ohm\n';
-  for (let i = 0; i < f.length; i++) text += `${csvCell(f[i], digits)},${csvCell(z.re[i], digits)},${csvCell(z.im[i], digits)}\n`;
+  for (let i = 0; i < f.length; i++) text += `${frequencies[i]},${csvCell(z.re[i], digits)},${csvCell(z.im[i], digits)}\n`;
   return text;
+}
+
+/** The frequency column's cells of the last frequencies written: the same for every part of a library. */
+let lastCells: { f: Float64Array; digits: number; cells: string[] } | undefined;
+
+function frequencyCells(f: Float64Array, digits: number): string[] {
+  if (!lastCells || lastCells.digits !== digits || !sameValues(lastCells.f, f)) lastCells = { f: f.slice(), digits, cells: Array.from(f, (v) => csvCell(v, digits)) };
+  return lastCells.cells;
+}
+
+/** Whether two arrays hold the same values (NaN equal to NaN, as Object.is: the same cells). */
+function sameValues(a: Float64Array, b: Float64Array): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false;
+  return true;
 }

@@ -8,6 +8,7 @@ import { join } from 'node:path';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { partSummary, type PartSummary } from '../analysis/summary.js';
 import { sweepPointsCsv } from '../analysis/sweep-table.js';
+import { impedanceSweep } from '../circuit/impedance.js';
 import { roundedSweep } from '../circuit/sweep.js';
 import { partSubcircuit, partTouchstone, type ExportablePart } from '../measure/part-export.js';
 import type { Library } from '../model/library.js';
@@ -64,10 +65,22 @@ export function writeChartSpec(chart: ChartArtifact, folder: string): void {
  */
 export function writePartDownloads(d: PartDownloads): void {
   mkdirSync(d.folder, { recursive: true });
-  const frequencies = roundedSweep(d.sweep, SWEEP_CSV_DIGITS);
-  writeFileSync(join(d.folder, SWEEP_CSV), sweepPointsCsv(d, SWEEP_CSV_DIGITS, frequencies));
+  const frequencies = downloadFrequencies(d.sweep);
+  // Both files are at the same frequencies: the model is evaluated once.
+  const z = impedanceSweep(d.part.network, frequencies);
+  writeFileSync(join(d.folder, SWEEP_CSV), sweepPointsCsv(d, SWEEP_CSV_DIGITS, frequencies, z));
   writeFileSync(join(d.folder, 'figures.json'), jsonFile(d.summary));
   const names = modelFileNames(d.part.id);
-  writeFileSync(join(d.folder, names.touchstone), partTouchstone(d.part, frequencies, sweepText(d.sweep), SWEEP_CSV_DIGITS));
+  writeFileSync(join(d.folder, names.touchstone), partTouchstone(d.part, frequencies, sweepText(d.sweep), SWEEP_CSV_DIGITS, z));
   writeFileSync(join(d.folder, names.spice), partSubcircuit(d.part));
+}
+
+/** The last sweep's download frequencies: every part of a library has the same (kept, never changed). */
+let lastFrequencies: { key: string; frequencies: Float64Array } | undefined;
+
+/** roundedSweep(sweep, SWEEP_CSV_DIGITS), made once a sweep: a thread writes a library's parts one after another. */
+function downloadFrequencies(sweep: Sweep): Float64Array {
+  const key = `${sweep.fromHz} ${sweep.toHz} ${sweep.perDecade}`;
+  if (lastFrequencies?.key !== key) lastFrequencies = { key, frequencies: roundedSweep(sweep, SWEEP_CSV_DIGITS) };
+  return lastFrequencies.frequencies;
 }

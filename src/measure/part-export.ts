@@ -3,7 +3,7 @@
 // model and where it came from.
 
 import type { Element } from '../circuit/element.js';
-import { impedanceSweep } from '../circuit/impedance.js';
+import { impedanceSweep, type ImpedanceArrays } from '../circuit/impedance.js';
 import { formatEng } from '../units/format.js';
 import { reflectionOf } from './fixtures.js';
 import { ascii, writeSubcircuit } from './spice-write.js';
@@ -72,10 +72,10 @@ function header(part: ExportablePart, what: string): string[] {
 /**
  * A version 1 one-port file: the model's S11 re 50 Ω, RI, at each frequency of `frequencies` (Hz), each
  * number in full, or with `impedanceDigits` the fewest decimals that keep the impedance read back from it
- * to that many significant digits (see `impedanceDecimals`).
+ * to that many significant digits (see `impedanceDecimals`). `z` is the model at `frequencies`, given by a
+ * caller that has it already.
  */
-export function partTouchstone(part: ExportablePart, frequencies: Float64Array, sweepText: string, impedanceDigits?: number): string {
-  const z = impedanceSweep(part.network, frequencies);
+export function partTouchstone(part: ExportablePart, frequencies: Float64Array, sweepText: string, impedanceDigits?: number, z: ImpedanceArrays = impedanceSweep(part.network, frequencies)): string {
   const re = new Float64Array(frequencies.length);
   const im = new Float64Array(frequencies.length);
   const decimals = impedanceDigits === undefined ? undefined : new Uint8Array(frequencies.length);

@@ -71,6 +71,22 @@ describe('a part\'s sweep.csv', () => {
   }
 });
 
+describe('sweep.csv of many parts in one thread', () => {
+  it('writes each frequency as its own value, also when the caller reuses one array and changes it', () => {
+    // The frequency column is kept between calls (the same for every part of a library): a changed array
+    // must not be written with the last one's cells. Reference: String(Number(f.toPrecision(6))), ECMA-262.
+    const a = analysed(capacitorPart, SWEEP);
+    const f = Float64Array.from([1000, 2000.004, 3e6]);
+    const cells = (text: string) => text.trim().split('\n').slice(1).map((line) => Number(line.split(',')[0]));
+    const expected = (digits: number) => Array.from(f, (v) => Number(v.toPrecision(digits)));
+    expect(cells(sweepPointsCsv(a, SWEEP_CSV_DIGITS, f))).toEqual([1000, 2000, 3e6]);
+    f[1] = 123456.7;
+    expect(cells(sweepPointsCsv(a, SWEEP_CSV_DIGITS, f))).toEqual(expected(SWEEP_CSV_DIGITS));
+    expect(cells(sweepPointsCsv(a, 3, f))).toEqual(expected(3));
+    expect(expected(3)[1]).toBe(123000);
+  });
+});
+
 describe('the shared chart specs', () => {
   for (const part of PARTS) {
     it(`${part.id}: each spec draws the sweep.csv beside it, |Z|, phase, G and B derived from R and X as complex.js derives them`, async () => {

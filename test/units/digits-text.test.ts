@@ -22,20 +22,43 @@ function values(): number[] {
     const v = mantissa * 10 ** exponent * (random() < 0.3 ? -1 : 1);
     out.push(v, Number(v.toPrecision(1 + (i % 7))));
   }
+  // Next to a rounding tie: a decimal ending in 5 one digit past the digits kept (as read from text, so
+  // within half a unit of the tie either side), its neighbouring doubles, and the powers of ten around it.
+  for (let i = 0; i < 6000; i++) {
+    const digits = 1 + (i % 12);
+    const exponent = Math.floor(random() * 50) - 25;
+    const whole = Math.floor(random() * 10 ** digits);
+    const tie = Number(`${whole}5e${exponent}`);
+    out.push(tie, -tie, nextUp(tie), nextDown(tie), Number(`1e${exponent}`), nextDown(Number(`1e${exponent}`)), Number(`${'9'.repeat(digits)}5e${exponent}`));
+  }
   return out;
+}
+
+/** The double after (or before) a positive finite one: its bit pattern plus (minus) one. */
+function nextUp(v: number): number {
+  const bits = new BigInt64Array(new Float64Array([v]).buffer);
+  bits[0] += 1n;
+  return new Float64Array(bits.buffer)[0];
+}
+function nextDown(v: number): number {
+  const bits = new BigInt64Array(new Float64Array([v]).buffer);
+  bits[0] -= 1n;
+  return new Float64Array(bits.buffer)[0];
 }
 
 describe('numbers to significant digits as text', () => {
   it('writes what String(Number(x.toPrecision(d))) writes, for every digit count', () => {
     // Every value compared, the ones that differ listed (one expect a value cost 4 to 7 s of CPU).
     const wrong: string[] = [];
-    for (const d of [1, 3, 6, 12, 15]) for (const v of values()) if (significantText(v, d) !== reference(v, d)) wrong.push(`${v} to ${d}: ${significantText(v, d)}, not ${reference(v, d)}`);
+    const all = values();
+    for (const d of [1, 3, 6, 9, 12, 13, 15]) for (const v of all) if (significantText(v, d) !== reference(v, d)) wrong.push(`${v} to ${d}: ${significantText(v, d)}, not ${reference(v, d)}`);
     expect(wrong).toEqual([]);
   });
 
   it('writes the shorter of plain and exponent form, as the CSV always has', () => {
     const wrong: string[] = [];
-    for (const d of [4, 6, 12]) for (const v of values()) if (shortSignificantText(v, d) !== shortReference(v, d)) wrong.push(`${v} to ${d}: ${shortSignificantText(v, d)}, not ${shortReference(v, d)}`);
+    const all = values();
+    for (const d of [1, 4, 6, 12]) for (const v of all) if (shortSignificantText(v, d) !== shortReference(v, d)) wrong.push(`${v} to ${d}: ${shortSignificantText(v, d)}, not ${shortReference(v, d)}`);
     expect(wrong).toEqual([]);
   });
 
@@ -61,7 +84,7 @@ describe('numbers to a count of decimals as text', () => {
   it('writes what String(Number(x.toFixed(d))) writes, for every decimal count toFixed takes', () => {
     const all = values();
     const wrong: string[] = [];
-    for (const d of [0, 1, 2, 3, 5, 6, 8, 10, 12, 14, 15, 16, 17, 20, 100]) for (const v of all) if (fixedText(v, d) !== fixedReference(v, d)) wrong.push(`${v} to ${d} decimals: ${fixedText(v, d)}`);
+    for (const d of [0, 1, 2, 3, 5, 6, 8, 10, 12, 14, 15, 16, 17, 20, 22, 23, 100]) for (const v of all) if (fixedText(v, d) !== fixedReference(v, d)) wrong.push(`${v} to ${d} decimals: ${fixedText(v, d)}`);
     expect(wrong).toEqual([]);
   });
 
