@@ -155,11 +155,13 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
     } else {
       if (work) work.partFolders++;
       const folder = join(siteDir, 'parts', part.id);
-      // The thread that draws the charts writes the part's downloads (part-downloads.ts).
-      const drawn = await charts.partCharts(a, { folder, sweep: library.settings.sweep });
+      // The thread that draws the charts writes the part's downloads (part-downloads.ts), and its SVGs into the
+      // spill unless a review shows them too (svg-spill.ts).
+      const svgFile = shownElsewhere.has(part.id) ? undefined : spill?.reserve();
+      const drawn = await charts.partCharts(a, { folder, sweep: library.settings.sweep }, svgFile);
       const full = partPageData(a, drawn.map(partChartOnPage(part)));
       full.measurements = await measurementSections(part, measurements.get(part.id), library, charts, (c) => placeChart(c, folder, timings));
-      if (!shownElsewhere.has(part.id)) spill?.put(full);
+      if (svgFile) spill!.adopt(full, svgFile);
       page = full;
       compared.set(part.id, comparedAnalysis(a));
       deferred.delete(part.id);

@@ -25,9 +25,11 @@ export type DrawnChart = Omit<ChartArtifact, 'spec'>;
 export interface ChartMaker {
   /**
    * A part's charts; with `downloads`, its downloads and its charts' specs are written into that folder too,
-   * in whichever thread draws them (part-downloads.ts), before the promise is resolved.
+   * in whichever thread draws them (part-downloads.ts), before the promise is resolved. With `svgFile`, their
+   * SVGs may instead be written to that file as a chart file (chart-cache-entry.ts) and come back empty
+   * (svg-spill.ts: `adopt` takes either).
    */
-  partCharts(analysis: PartAnalysis, downloads?: DownloadPlace): Promise<DrawnChart[]>;
+  partCharts(analysis: PartAnalysis, downloads?: DownloadPlace, svgFile?: string): Promise<DrawnChart[]>;
   comparisonChart(analyses: ComparedAnalysis[], title: string): Promise<ChartArtifact>;
   /** `inputsKey` names everything the plan's figures came from (file hashes), for caching. */
   railChart(figures: PlanFigures, inputsKey: string): Promise<ChartArtifact>;

@@ -2,7 +2,8 @@
 // (one per core, each compiling every chart kind once), or in this thread for small libraries.
 //
 // The cache key covers everything a chart depends on: the renderer's own code (a fingerprint of the chart
-// and folio modules' files), the part file's content hash, and the library's sweep and band settings.
+// and folio modules' files), the part file's content hash, and the library's sweep and band settings; and
+// the format of the entry (chart-cache-entry.ts).
 
 import { existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
@@ -13,7 +14,7 @@ import { sha256Hex } from '../model/sha256.js';
 import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, withoutSpecs, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker, DrawnChart } from './chart-maker.js';
-import { readCacheEntry, writeCacheEntry } from './chart-cache-entry.js';
+import { CACHE_ENTRY_EXTENSION, CHART_FILE_FORMAT, placeChartFile, readCacheEntry, storeCharts, withoutSvgs } from './chart-cache-entry.js';
 import type { WorkerJob } from './chart-worker.js';
 import { partDownloads, writePartDownloads, type DownloadPlace } from './part-downloads.js';
 import type { ChangeChartData } from '../charts/change-chart.js';
@@ -77,7 +78,7 @@ export class ChartPool implements ChartMaker {
   private readonly workers: Worker[] = [];
   private readonly idle: Worker[] = [];
   /** Jobs waiting for a worker; a job is made from its `make` when it is next (see `prepare`). */
-  private readonly queue: { id: number; make: () => ChartJob; job?: ChartJob; cacheFile?: string; slim: boolean }[] = [];
+  private readonly queue: { id: number; make: () => ChartJob; job?: ChartJob; cacheFile?: string; slim: boolean; svgFile?: string }[] = [];
   private readonly pending = new Map<number, Pending>();
   private readonly usedKeys = new Set<string>();
   private nextId = 0;
@@ -89,21 +90,23 @@ export class ChartPool implements ChartMaker {
     if (options.cacheDir) mkdirSync(options.cacheDir, { recursive: true });
   }
 
-  async partCharts(a: PartAnalysis, downloads?: DownloadPlace): Promise<DrawnChart[]> {
+  async partCharts(a: PartAnalysis, downloads?: DownloadPlace, svgFile?: string): Promise<DrawnChart[]> {
     const key = this.key('part', a.part.source.hash);
     // The job is made (and the part analysed) only when a worker is about to take it; the worker that draws
-    // the charts writes the downloads and answers without the specs. Charts from the cache have their
-    // downloads written here.
+    // the charts writes the downloads and the SVGs' file and answers without the specs (and the SVGs). Charts
+    // from the cache have their downloads written here, and their entry linked as the SVGs' file.
     const found = this.fromCache(key);
     if (!found.charts) {
-      return this.drawn(this.run(() => ({ type: 'part', input: chartInput(a), ...(downloads ? { downloads: partDownloads(a, downloads) } : {}) }), found.file, true));
+      return this.drawn(this.run(() => ({ type: 'part', input: chartInput(a), ...(downloads ? { downloads: partDownloads(a, downloads) } : {}) }), found.file, true, svgFile));
     }
     if (downloads) {
       const started = performance.now();
       writePartDownloads(partDownloads(a, downloads));
       this.stats.downloadSeconds += (performance.now() - started) / 1000;
     }
-    return found.charts;
+    if (!svgFile) return found.charts;
+    placeChartFile(found.file!, found.charts, svgFile);
+    return withoutSvgs(found.charts);
   }
 
   /** Keep a part's cached charts through this build's pruning without reading them (its page is reused). */
@@ -157,27 +160,28 @@ export class ChartPool implements ChartMaker {
     const dir = this.options.cacheDir;
     if (dir && existsSync(dir)) {
       for (const name of readdirSync(dir)) {
-        if (!this.usedKeys.has(name.replace(/\.json\.gz$/, ''))) rmSync(join(dir, name), { force: true });
+        // Entries of another format or name, and any left in part, go too.
+        if (!(name.endsWith(CACHE_ENTRY_EXTENSION) && this.usedKeys.has(name.slice(0, -CACHE_ENTRY_EXTENSION.length)))) rmSync(join(dir, name), { force: true });
       }
     }
   }
 
   private key(...parts: string[]): string {
-    return sha256Hex([this.fingerprint, this.options.settingsKey, ...parts].join('\n')).slice(0, 32);
+    return sha256Hex([this.fingerprint, `chart file ${CHART_FILE_FORMAT}`, this.options.settingsKey, ...parts].join('\n')).slice(0, 32);
   }
 
   /**
-   * A request's charts from the cache, or the file they are to be written to when drawn; `T` says whether
-   * its entries hold specs (a part's do not, withoutSpecs).
+   * A request's charts from the cache and their entry's file, or the file they are to be written to when
+   * drawn; `T` says whether its entries hold specs (a part's do not, withoutSpecs).
    */
   private fromCache<T extends DrawnChart>(key: string): { charts?: T[]; file?: string } {
     this.usedKeys.add(key);
-    const file = this.options.cacheDir ? join(this.options.cacheDir, `${key}.json.gz`) : undefined;
+    const file = this.options.cacheDir ? join(this.options.cacheDir, `${key}${CACHE_ENTRY_EXTENSION}`) : undefined;
     if (file && existsSync(file)) {
       try {
         const charts = readCacheEntry<T>(file);
         this.stats.fromCache++;
-        return { charts: compactCharts(charts) };
+        return { charts: compactCharts(charts), file };
       } catch {
         // A damaged entry is drawn again and rewritten.
       }
@@ -201,22 +205,23 @@ export class ChartPool implements ChartMaker {
   }
 
   /**
-   * A job for a worker, which stores its charts in `cacheFile` and, when `slim`, answers without their
-   * specs. It is given as a function and made only shortly before a worker takes it: a part's job holds its
-   * whole analysis, and a library's thousands of requests arrive at once.
+   * A job for a worker, which stores its charts in `cacheFile` and `svgFile` (answering without SVGs when
+   * given one) and, when `slim`, answers without their specs. It is given as a function and made only shortly
+   * before a worker takes it: a part's job holds its whole analysis, and a library's thousands of requests
+   * arrive at once.
    */
-  private run(make: () => ChartJob, cacheFile: string | undefined, slim: boolean): Promise<DrawnChart[]> {
+  private run(make: () => ChartJob, cacheFile: string | undefined, slim: boolean, svgFile?: string): Promise<DrawnChart[]> {
     if (this.workers.length === 0) {
       return renderChartJob(make()).then((charts) => {
         const answer = slim ? withoutSpecs(charts) : charts;
-        if (cacheFile) writeCacheEntry(cacheFile, answer);
-        return answer;
+        storeCharts(answer, cacheFile, svgFile);
+        return svgFile ? withoutSvgs(answer) : answer;
       });
     }
     return new Promise((resolve, reject) => {
       const id = this.nextId++;
       this.pending.set(id, { resolve, reject });
-      this.queue.push({ id, make, cacheFile, slim });
+      this.queue.push({ id, make, cacheFile, slim, svgFile });
       this.dispatch();
     });
   }
@@ -227,7 +232,7 @@ export class ChartPool implements ChartMaker {
       const next = this.queue.shift()!;
       const pending = this.pending.get(next.id);
       if (pending) pending.sentAt = performance.now();
-      const message: WorkerJob = { id: next.id, job: next.job ?? next.make(), cacheFile: next.cacheFile, slim: next.slim };
+      const message: WorkerJob = { id: next.id, job: next.job ?? next.make(), cacheFile: next.cacheFile, slim: next.slim, svgFile: next.svgFile };
       worker.postMessage(message);
     }
     // The next few jobs are made while the workers draw, so a worker that finishes finds one ready.

@@ -2,12 +2,15 @@
 // reads them back: the page data a build holds for thousands of parts has no SVG in it, and every page still
 // shows its own charts.
 
-import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { writeGeneratedLibrary } from '../../bench/generate.js';
 import { buildFolio } from '../../src/build/build.js';
 import type { ChartMaker } from '../../src/build/chart-maker.js';
+import { ChartPool } from '../../src/build/chart-pool.js';
+import type { Part } from '../../src/model/part.js';
+import { analysed, inductorPart } from '../charts/fixtures.js';
 import { SPILL_FOLDER, SvgSpill } from '../../src/build/svg-spill.js';
 import type { PartPageData } from '../../src/pages/site-data.js';
 import { filesUnder, tempDir } from '../site-helpers.js';
@@ -41,6 +44,38 @@ describe('spilled part charts', () => {
     spill.remove();
     expect(filesUnder(dir)).toEqual([]);
   });
+
+  it('reads the SVGs of charts drawn in a worker, in this thread or read from the cache from the file it reserved for them', async () => {
+    const part = { ...inductorPart, source: { path: 'l.yaml', hash: 'spill-l' } } as unknown as Part;
+    const a = analysed(part);
+    const reference = new ChartPool({ workers: 0, settingsKey: 'reference' });
+    const expected = (await reference.partCharts(a)).map((c) => c.svg);
+    await reference.close();
+    expect(expected).toHaveLength(4);
+    const cacheDir = join(dir, 'cache');
+    const spill = new SvgSpill(join(dir, 'staging'));
+    const drawnInto = async (pool: ChartPool) => {
+      const file = spill.reserve();
+      const charts = await pool.partCharts(a, undefined, file);
+      await pool.close();
+      expect(charts.map((c) => c.svg)).toEqual(['', '', '', '']);
+      const p = page('L', charts.map((c) => c.svg));
+      spill.adopt(p, file);
+      spill.load([p]);
+      expect(p.charts.map((c) => c.svg)).toEqual(expected);
+      return file;
+    };
+    await drawnInto(new ChartPool({ workers: 0, settingsKey: 'no cache' }));
+    await drawnInto(new ChartPool({ workers: 1, settingsKey: 'no cache' }));
+    await drawnInto(new ChartPool({ workers: 1, settingsKey: 'cached', cacheDir }));
+    // The entry the worker wrote, read from the cache now: the page's file is a link to it.
+    const cached = new ChartPool({ workers: 0, settingsKey: 'cached', cacheDir });
+    const file = await drawnInto(cached);
+    expect(cached.stats.fromCache).toBe(1);
+    const [entry] = readdirSync(cacheDir);
+    expect(statSync(file).ino).toBe(statSync(join(cacheDir, entry)).ino);
+    spill.remove();
+  }, 120_000);
 
   it('builds pages with their own charts from page data that holds none, and leaves no spill in the site', async () => {
     const root = writeGeneratedLibrary(12, 3);
