@@ -16,6 +16,7 @@ import { parse, View, type Runtime, type Spec as VegaSpec } from 'vega';
 import type { TopLevelSpec } from 'vega-lite';
 import { outerSize, type Frame } from './frame.js';
 import { finishSvg, type ChartText } from './svg-finish.js';
+import { sceneSvg } from './svg-scene.js';
 import { installTextMetrics } from './text-width.js';
 import { COMPARED_ROWS, keyedItems, sameValue, type AxisKeys, type VegaOrderSpec } from './render-order.js';
 import { vegaSpecOf } from './vega-specs.js';
@@ -90,6 +91,18 @@ function counter(name: string) {
   let c = counters.get(name);
   if (!c) counters.set(name, (c = { compiles: 0, renders: 0 }));
   return c;
+}
+
+let useVegaSvg = false;
+const svgWriters = { scene: 0, vega: 0 };
+
+/**
+ * Whether charts are finished from vega's SVG string (`toSVG` and finishSvg) even where the scene writer
+ * (svg-scene.ts) could write them; tests compare the two. Returns how many charts each has written.
+ */
+export function finishFromVegaSvg(on?: boolean): { scene: number; vega: number } {
+  if (on !== undefined) useVegaSvg = on;
+  return { ...svgWriters };
 }
 
 /** How often each chart kind was compiled and rendered in this process. */
@@ -235,10 +248,16 @@ export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartTex
       }
     }
     await view.runAsync();
-    const raw = await view.toSVG();
+    const size = outerSize(f);
+    // The finished SVG written from the scene (svg-scene.ts), else vega's SVG string finished.
+    let svg = useVegaSvg ? undefined : sceneSvg(view, text, size, binding.underlay);
+    if (svg === undefined) {
+      svg = finishSvg(await view.toSVG(), text, size, binding.underlay);
+      svgWriters.vega++;
+    } else svgWriters.scene++;
     counter(def.name).renders++;
     return {
-      svg: finishSvg(raw, text, outerSize(f), binding.underlay),
+      svg,
       spec: specWithData(c.spec, binding, f, text),
       title: text.title,
       description: text.description,

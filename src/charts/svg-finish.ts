@@ -21,7 +21,7 @@ const ID = / id="([^"]+)"/g;
 /** A tag's id (a tag has at most one: XML 1.0 §3.1, unique attribute names). */
 const TAG_ID = /<[^>]* id="([^"]+)"/g;
 const TEXT_CONTENT = />[^<]*</g;
-const VEGA_ATTRIBUTES = / (?:class|role|aria-roledescription|aria-hidden|aria-label|pointer-events)="[^"]*"/g;
+export const VEGA_ATTRIBUTES = / (?:class|role|aria-roledescription|aria-hidden|aria-label|pointer-events)="[^"]*"/g;
 
 /** A short, stable id prefix derived from the chart's content. */
 export function idPrefix(content: string): string {
@@ -54,7 +54,7 @@ export function finishSvg(raw: string, text: ChartText, size: { width: number; h
   let body = slim.body;
   const ids = new Map<string, string>();
   for (const m of body.matchAll(TAG_ID)) if (!ids.has(m[1])) ids.set(m[1], '');
-  assertInert(body.replace(TEXT_CONTENT, '><'));
+  inertOrThrow(body);
 
   // vega's ids count across the process; number them in order of appearance before anything depends on them.
   if (ids.size > 0) {
@@ -72,13 +72,17 @@ export function finishSvg(raw: string, text: ChartText, size: { width: number; h
   }
   const prefix = idPrefix(body + '\u0000' + text.title + '\u0000' + text.description);
   if (ids.size > 0) body = body.replace(TAG, (tag) => tag.replace(/@(\d+)@/g, (_, k: string) => `${prefix}-${k}`));
+  return finishedDocument(body, prefix, slim.fontFamily, text, size);
+}
 
+/** The finished document around a finished body: the root element, the title and the description. */
+export function finishedDocument(body: string, prefix: string, fontFamily: string | undefined, text: ChartText, size: { width: number; height: number }): string {
   const w = round(size.width);
   const h = round(size.height);
   const titleId = `${prefix}-title`;
   const descId = `${prefix}-desc`;
   return latin1(
-    `<svg xmlns="http://www.w3.org/2000/svg" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}" role="img" aria-labelledby="${titleId} ${descId}"${slim.fontFamily === undefined ? '' : ` font-family="${slim.fontFamily}"`}>` +
+    `<svg xmlns="http://www.w3.org/2000/svg" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}" role="img" aria-labelledby="${titleId} ${descId}"${fontFamily === undefined ? '' : ` font-family="${fontFamily}"`}>` +
       `<title id="${titleId}">${escapeXml(text.title)}</title>` +
       `<desc id="${descId}">${escapeXml(text.description)}</desc>` +
       body +
@@ -98,6 +102,11 @@ function latin1(svg: string): string {
   return svg.replace(/[\ud800-\udbff][\udc00-\udfff]|[^\x00-\xff]/g, (c) => `&#${c.codePointAt(0)};`);
 }
 
+/** assertInert on a chart's body, its text content left out (text cannot hold '<' or '>': vega escapes them). */
+export function inertOrThrow(body: string): void {
+  assertInert(body.replace(TEXT_CONTENT, '><'));
+}
+
 /**
  * Throw if markup (text content already removed) could run or load anything: a bug in a chart, never a
  * user error.
@@ -112,7 +121,7 @@ export function assertInert(markup: string): void {
  * is shown largest (a 332 px chart at 500 px), below what either shows; curves are already thinned to
  * 0.15 px (simplify.ts). vega writes some numbers with 15 decimals, which costs bytes and nothing else.
  */
-function roundNumbers(tag: string): string {
+export function roundNumbers(tag: string): string {
   // fixedText writes what String(Number(x.toFixed(1))) does, a rounded zero (-0 too) as "0".
   return tag.replace(/-?\d+\.\d{2,}/g, (n) => fixedText(Number(n), 1));
 }

@@ -44,7 +44,7 @@ export function slimSvgBody(body: string, editTag: (tag: string) => string = (ta
 }
 
 /** A tag without the attributes at their initial value. */
-const withoutDefaults = (tag: string) => tag.replace(/ (?:opacity="1"|stroke-miterlimit="4"|stroke-dasharray="")/g, '');
+export const withoutDefaults = (tag: string) => tag.replace(/ (?:opacity="1"|stroke-miterlimit="4"|stroke-dasharray="")/g, '');
 
 /** The rules for elements, after the tags' own attributes are slimmed. */
 function slimmedBody(body: string): string {
@@ -69,7 +69,7 @@ const LINE_GROUP = /<g>((?:<line transform="translate\([^)]*\)" x2="[^"]*" y2="[
 const LINE = /<line transform="translate\(([^,)]+),([^)]+)\)" x2="([^"]*)" y2="([^"]*)"([^>]*)\/>/g;
 
 /** Each group of lines that share every attribute but their place, undashed, as one path with those attributes. */
-function mergedLines(body: string): string {
+export function mergedLines(body: string): string {
   return body.replace(LINE_GROUP, (group, lines: string) => {
     let style: string | undefined;
     let d = '';
