@@ -142,7 +142,8 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   // Review packs print whole datasheets, charts included.
   const shownElsewhere = new Set(library.reviews.flatMap((r) => r.parts.map((p) => p.id)));
 
-  progress.stage('charts', library.parts.length);
+  // A step a part: its charts drawn (or taken from the cache), its downloads written, its page data made.
+  progress.stage('parts', library.parts.length);
   const pageOf = async (part: Part): Promise<PartPageData> => {
     const a = analysisOf(part);
     let page: PartPageData;

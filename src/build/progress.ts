@@ -1,7 +1,7 @@
 // Progress on long work: a line redrawn in place on a terminal, plain occasional lines in CI or a pipe.
 
 export interface Progress {
-  /** A new stage with `total` steps ("charts", 1000). */
+  /** A new stage with `total` steps ("parts", 1000); a stage of one step shows no count ("pages…", "pages: done"). */
   stage(name: string, total: number): void;
   tick(count?: number): void;
   /** A one-line message (summary, hint). */
@@ -23,7 +23,12 @@ export function terminalProgress(write: (text: string) => void, interactive: boo
     return seconds >= 1 ? `, about ${Math.ceil(seconds)} s left` : '';
   };
   const draw = (final: boolean) => {
-    if (interactive) {
+    if (total <= 1) {
+      // One step: a count of "0/1" or "1/1" says nothing. Its name as it starts (a plain line: the log shows
+      // what a build is doing), and on a terminal that it ended.
+      if (interactive) write(final ? `\r\x1b[2K${name}: done\n` : `\r\x1b[2K${name}…`);
+      else if (!final) write(`${name}…\n`);
+    } else if (interactive) {
       write(`\r\x1b[2K${name} ${done}/${total}${final ? '' : eta()}${final ? '\n' : ''}`);
     } else {
       // In CI or a pipe: one line at each tenth, so logs stay short.
@@ -42,7 +47,7 @@ export function terminalProgress(write: (text: string) => void, interactive: boo
       started = now();
       lastDraw = 0;
       lastPlainDecile = -1;
-      if (interactive) draw(false);
+      if (interactive || total <= 1) draw(false);
     },
     tick(count = 1) {
       done += count;
