@@ -84,6 +84,9 @@ export function partTouchstone(part: ExportablePart, frequencies: Float64Array, 
     if (decimals) decimals[k] = impedanceDecimals(re[k], im[k], impedanceDigits!);
   }
   const comments = [TOUCHSTONE_MARK, ...header(part, `one-port S-parameters of the model, reference ${EXPORT_REFERENCE_OHM} ohm, ${ascii(sweepText)}`)];
+  // Rounded S keeps |Z|, not each of R and X: where one is a millionth of |Z| (a capacitor's ESR far
+  // below its SRF) it reads back as noise, and a reader of the file should know.
+  if (impedanceDigits !== undefined) comments.push(`S11 to the decimals that keep |Z| read back to ${impedanceDigits} significant digits; an R or X below about 1e-${impedanceDigits} of |Z| is lost (sweep.csv keeps each to ${impedanceDigits})`);
   return writeTouchstone({ version: 1, ports: 1, parameter: 'S', format: 'RI', unit: 'Hz', reference: EXPORT_REFERENCE_OHM, frequencies, re, im, comments, decimals });
 }
 

@@ -60,6 +60,23 @@ describe('partTouchstone at the precision of the site', () => {
     expect(text.length).toBeLessThan(0.75 * partTouchstone(part, dense, '100 Hz to 10 GHz, 100 points per decade').length);
   });
 
+  it("says that an R or X a millionth of |Z| is lost, and it is: a 3.3 pF capacitor's ESR at 100 Hz", () => {
+    const cap = { id: 'C-3P3', kind: 'capacitor', title: 'invented 3.3 pF', source: { path: 'parts/c.yaml', hash: '0' }, network: series(resistor(0.5, 'ESR'), inductor(0.3e-9, 'ESL'), capacitor(3.3e-12, 'C')) };
+    const at = new Float64Array([100, 1e6]);
+    const text = partTouchstone(cap, at, '2 points', 6);
+    expect(text).toMatch(/^! S11 to the decimals that keep \|Z\| read back to 6 significant digits; an R or X below about 1e-6 of \|Z\| is lost \(sweep.csv keeps each to 6\)$/m);
+    expect(partTouchstone(cap, at, '2 points')).not.toMatch(/is lost/);
+    const read = readTouchstone(text, 'c.s1p');
+    if (!read.ok) throw new Error('unreadable');
+    // Z = Z0 (1 + S)/(1 − S) with complex.js (Pozar, §2.3), from the file's own S11 at 100 Hz.
+    const s = new Complex(read.data.re[0], read.data.im[0]);
+    const z = new Complex(1).add(s).div(new Complex(1).sub(s)).mul(50);
+    const reference = referenceZAt(cap.network, 100);
+    // |X| = 1/(2π·100·3.3 pF) ≈ 482 MΩ, so 0.5 Ω of ESR is 1e-9 of |Z|: |Z| survives, the ESR does not.
+    expect(Math.abs(z.abs() / reference.abs() - 1)).toBeLessThan(5e-6);
+    expect(Math.abs(z.re - 0.5)).toBeGreaterThan(0.05);
+  });
+
   it('uses as many decimals as digits where |Z| is Z0 and more as S approaches ±1', () => {
     expect(impedanceDecimals(0, 0, 6)).toBe(6);
     // |Z| = 5 kΩ: S = 99/101, 1 − S² ≈ 0.0396.
