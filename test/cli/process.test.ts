@@ -51,8 +51,8 @@ describe('a build stopped by a signal', () => {
     expect((await run(['build', '--library', lib, '--workers', '0'], lib)).code).toBe(0);
     const before = readFileSync(join(lib, '_site', 'index.html'), 'utf8');
     const build = start(['build', '--library', lib, '--workers', '0']);
-    // Stopped once it is drawing charts: past loading, before the swap.
-    await vi.waitFor(() => expect(build.err()).toMatch(/charts \d/), { timeout: 120_000, interval: 20 });
+    // Stopped once it is drawing the parts' charts: past loading, before the swap.
+    await vi.waitFor(() => expect(build.err()).toMatch(/parts \d/), { timeout: 120_000, interval: 20 });
     build.child.kill(signal);
     expect(await build.exit).toEqual({ code: 1, signal: null });
     expect(build.err().trimEnd().split('\n').pop()).toBe(`zfolio build: stopped by ${signal}`);
@@ -90,7 +90,7 @@ describe('a Chromium that does not start', () => {
     cpSync(GOOD_LIBRARY, lib, { recursive: true });
     const r = await run(['build', '--library', lib, '--workers', '0', '--pdf', '--chrome', '/bin/true'], lib);
     expect(r.code).toBe(1);
-    expect(r.err.trimEnd().split('\n').filter((l) => !/^(charts|pages) /.test(l))).toEqual([
+    expect(r.err.trimEnd().split('\n').filter((l) => !/^(parts|pages)(…| \d+\/\d+)$/.test(l))).toEqual([
       'zfolio build: the site was written, but no PDFs. /bin/true did not start as Chromium (it exited at once with status 0); give a working one with --chrome PATH or ZFOLIO_CHROME=PATH',
     ]);
     expect(readFileSync(join(lib, '_site', 'parts', 'CAP-TEST-100N', 'index.html'), 'utf8')).not.toContain('.pdf');
@@ -104,7 +104,7 @@ describe('a Chromium that does not start', () => {
     const out = tempDir('chrome-false');
     const r = await run(['print', 'CAP-TEST-100N', '--out', out, '--chrome', '/bin/false'], lib);
     expect(r.code).toBe(1);
-    expect(r.err.trimEnd().split('\n').filter((l) => !/^(charts|pages) /.test(l))).toEqual([
+    expect(r.err.trimEnd().split('\n').filter((l) => !/^(parts|pages)(…| \d+\/\d+)$/.test(l))).toEqual([
       'zfolio print: /bin/false did not start as Chromium (it exited at once with status 1); give a working one with --chrome PATH or ZFOLIO_CHROME=PATH',
     ]);
     expect(readdirSync(out)).toEqual([]);
