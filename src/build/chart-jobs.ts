@@ -4,6 +4,7 @@ import type { PartAnalysis } from '../analysis/part-figures.js';
 import { renderComparisonChart, type ComparisonPart } from '../charts/comparison-chart.js';
 import { describeComparison } from '../present/chart-descriptions.js';
 import { PART_CHART_KINDS, renderPartCharts, type PartChartInput } from '../charts/part-charts.js';
+import type { ChartColumns } from '../charts/part-marks.js';
 import { renderRailChart, type RailChartData } from '../charts/rail-chart.js';
 import { loadStepChartInput, renderLoadStepCharts, type LoadStepChartData } from '../charts/load-step-chart.js';
 import { renderChangeChart, type ChangeChartData } from '../charts/change-chart.js';
@@ -21,6 +22,12 @@ export type ChartJob =
   | { type: 'change'; data: ChangeChartData }
   | { type: 'measurement'; data: MeasurementChartData; index: number };
 
+/** The columns a part's charts read, the arrays themselves. */
+function chartColumns(columns: ChartColumns): ChartColumns {
+  const { resistanceOhm, reactanceOhm, magnitudeOhm, phaseDeg, conductanceS, susceptanceS } = columns;
+  return { resistanceOhm, reactanceOhm, magnitudeOhm, phaseDeg, conductanceS, susceptanceS };
+}
+
 /** The part of an analysis the charts read: typed arrays and plain objects only (no YAML nodes). */
 export function chartInput(a: PartAnalysis): PartChartInput {
   const { part } = a;
@@ -29,7 +36,8 @@ export function chartInput(a: PartAnalysis): PartChartInput {
     // The resolved sweep: curves pass through every narrow peak and notch the figures name.
     frequencies: a.resolved.frequencies,
     z: { re: a.resolved.z.re, im: a.resolved.z.im },
-    columns: a.resolvedColumns,
+    // Only the columns the charts read: the job is copied to a worker thread.
+    columns: chartColumns(a.resolvedColumns),
     resonances: a.resonances,
     selfResonance: a.selfResonance,
     usableBand: a.usableBand,

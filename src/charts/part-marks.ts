@@ -13,14 +13,17 @@ import type { Placement } from './labels.js';
 import type { MarkLabel } from './mark-labels.js';
 import type { Row } from './render.js';
 
+/** The columns of ImpedanceFigures a part's charts read (no other: a chart job is copied to a worker). */
+export type ChartColumns = Pick<ImpedanceFigures, 'resistanceOhm' | 'reactanceOhm' | 'magnitudeOhm' | 'phaseDeg' | 'conductanceS' | 'susceptanceS'>;
+
 /** The part facts the charts use; `PartAnalysis` (src/analysis/part-figures.ts) is one. */
 export interface PartChartInput {
   /** `nominal` and `ratedAtHz`: a bead's rated impedance and where it is rated. */
   part: { id: string; title: string; kind: string; behavesAs?: string; network?: Element; nominal?: number; ratedAtHz?: number };
   frequencies: Float64Array;
   z: ImpedanceArrays;
-  /** Every column derived from `z`, at `frequencies` (|Z|, phase, G, B ...): the charts draw these. */
-  columns: ImpedanceFigures;
+  /** The columns derived from `z` that the charts draw and describe, at `frequencies`. */
+  columns: ChartColumns;
   resonances: readonly Resonance[];
   selfResonance?: Resonance;
   usableBand: UsableBand | null;

@@ -6,8 +6,9 @@ import type { PartAnalysis } from '../../src/analysis/part-figures.js';
 import { ChartPool, compactCharts } from '../../src/build/chart-pool.js';
 import { serialize } from 'node:v8';
 import { renderPartCharts } from '../../src/charts/part-charts.js';
+import { chartInput } from '../../src/build/chart-jobs.js';
 import type { Part } from '../../src/model/part.js';
-import { analysed, capacitorPart, resistorPart } from '../charts/fixtures.js';
+import { ALL_PARTS, analysed, capacitorPart, resistorPart } from '../charts/fixtures.js';
 
 /** An analysis that is made (and counted) the first time any figure of it is read. */
 function counted(part: Part, made: Set<string>): PartAnalysis {
@@ -40,6 +41,26 @@ describe('chart pool', () => {
     for (const [i, c] of charts.entries()) {
       expect(c).toHaveLength(4);
       for (const chart of c) expect(chart.title).toContain(`P-${i}`);
+    }
+  }, 120_000);
+});
+
+describe('a part\'s chart job', () => {
+  it('carries only the columns the charts read, and every kind of part draws from it what it draws with every column', async () => {
+    for (const part of ALL_PARTS) {
+      const a = analysed(part);
+      const input = chartInput(a);
+      expect(Object.keys(input.columns).sort()).toEqual(['conductanceS', 'magnitudeOhm', 'phaseDeg', 'reactanceOhm', 'resistanceOhm', 'susceptanceS']);
+      // Sent as a worker is sent it (structured clone): the same SVGs and words as with all of the resolved
+      // sweep's columns (|Y|, Q, C_eff, L_eff too).
+      const fromJob = await renderPartCharts(structuredClone(input));
+      const fromAnalysis = await renderPartCharts({ ...input, columns: a.resolvedColumns });
+      expect(Object.keys(a.resolvedColumns).length).toBeGreaterThan(6);
+      for (const kind of Object.keys(fromAnalysis) as (keyof typeof fromAnalysis)[]) {
+        expect(fromJob[kind].svg, `${part.id} ${kind}`).toBe(fromAnalysis[kind].svg);
+        expect(fromJob[kind].description, `${part.id} ${kind}`).toBe(fromAnalysis[kind].description);
+        expect(fromJob[kind].title, `${part.id} ${kind}`).toBe(fromAnalysis[kind].title);
+      }
     }
   }, 120_000);
 });
