@@ -151,26 +151,6 @@ function decimal(value: number, significant: number): Decimal {
   return { negative, digits: whole.slice(first, last), point };
 }
 
-/** Number::toString's layout of 0.DIGITS × 10^point. */
-function plainLayout(d: Decimal): string {
-  const { digits, point } = d;
-  const k = digits.length;
-  let text: string;
-  if (k <= point && point <= 21) text = digits + '0'.repeat(point - k);
-  else if (0 < point && point <= 21) text = digits.slice(0, point) + '.' + digits.slice(point);
-  else if (-6 < point && point <= 0) text = '0.' + '0'.repeat(-point) + digits;
-  else return exponentLayout(d, true);
-  return d.negative ? '-' + text : text;
-}
-
-/** d.ddd e±x (the sign of a positive exponent written only when `plus`). */
-function exponentLayout(d: Decimal, plus: boolean): string {
-  const { digits, point } = d;
-  const x = point - 1;
-  const mantissa = digits.length === 1 ? digits : digits[0] + '.' + digits.slice(1);
-  return (d.negative ? '-' : '') + mantissa + (x < 0 ? 'e-' + String(-x) : (plus ? 'e+' : 'e') + String(x));
-}
-
 /** Values the layout of their rounded digits is the round trip's for (see the top of this file). */
 const direct = (value: number, significant: number) => significant <= 15 && Math.abs(value) >= 1e-300 && Math.abs(value) <= 1e300;
 
@@ -178,7 +158,8 @@ const direct = (value: number, significant: number) => significant <= 15 && Math
 export function significantText(value: number, significant: number): string {
   if (!direct(value, significant)) return String(Number(value.toPrecision(significant)));
   if (value !== 0 && roundSignificant(Math.abs(value), significant)) return plainText(value < 0, String(roundedDigits), roundedPoint);
-  return plainLayout(decimal(value, significant));
+  const d = decimal(value, significant);
+  return plainText(d.negative, d.digits, d.point);
 }
 
 /**
@@ -198,8 +179,8 @@ export function shortSignificantText(value: number, significant: number): string
     return exponentLength(digits.length, point) < plainLength(digits.length, point) ? exponentText(value < 0, digits, point, false) : plainText(value < 0, digits, point);
   }
   const d = decimal(value, significant);
-  const plain = plainLayout(d);
-  const exponent = exponentLayout(d, false);
+  const plain = plainText(d.negative, d.digits, d.point);
+  const exponent = exponentText(d.negative, d.digits, d.point, false);
   return exponent.length < plain.length ? exponent : plain;
 }
 
