@@ -104,7 +104,7 @@ export class ChartPool implements ChartMaker {
       writePartDownloads(partDownloads(a, downloads));
       this.stats.downloadSeconds += (performance.now() - started) / 1000;
     }
-    if (!svgFile) return found.charts;
+    if (!svgFile) return compactCharts(found.charts);
     placeChartFile(found.file!, found.charts, svgFile);
     return withoutSvgs(found.charts);
   }
@@ -181,7 +181,8 @@ export class ChartPool implements ChartMaker {
       try {
         const charts = readCacheEntry<T>(file);
         this.stats.fromCache++;
-        return { charts: compactCharts(charts), file };
+        // Not compacted here: a part's SVGs read to be linked to their page's file are let go at once.
+        return { charts, file };
       } catch {
         // A damaged entry is drawn again and rewritten.
       }
@@ -199,7 +200,7 @@ export class ChartPool implements ChartMaker {
   /** Charts with their specs (a comparison's, a rail's …), from the cache or drawn and stored in it. */
   private cached(key: string, make: () => ChartJob): Promise<ChartArtifact[]> {
     const found = this.fromCache<ChartArtifact>(key);
-    if (found.charts) return Promise.resolve(found.charts);
+    if (found.charts) return Promise.resolve(compactCharts(found.charts));
     // A worker answers with the specs unless asked to leave them out (slim), so the answer is whole here.
     return this.drawn(this.run(make, found.file, false) as Promise<ChartArtifact[]>);
   }
