@@ -11,6 +11,7 @@ import { impedanceAt, type ImpedanceArrays } from '../circuit/impedance.js';
 import type { ResolvedSweep } from './resolved-sweep.js';
 import type { Element } from '../circuit/element.js';
 import { frequencyRoot } from './root.js';
+import { hypot } from '../circuit/hypot.js';
 
 export type BandRule =
   | { behavesAs: 'capacitor'; nominal: number; within: number }
@@ -41,7 +42,7 @@ export function bandMargin(rule: BandRule, frequencyHz: number, re: number, im: 
       if (!(im > 0)) return -1;
       return rule.within - Math.abs(im / omega / rule.nominal - 1);
     case 'resistor':
-      return rule.within - Math.hypot(re - rule.nominal, im) / rule.nominal;
+      return rule.within - hypot(re - rule.nominal, im) / rule.nominal;
     case 'bead':
       return re - rule.dcResistanceOhm - Math.abs(im);
   }

@@ -10,6 +10,7 @@
 
 import type { ImpedanceSlope } from '../circuit/slope.js';
 import { frequencyRoot } from './root.js';
+import { hypot } from '../circuit/hypot.js';
 
 /** Relative tolerance on the frequency of each extremum. */
 export const EXTREMUM_TOLERANCE = 1e-9;
@@ -30,7 +31,7 @@ export function magnitudeSlope(y: ImpedanceSlope): number {
   return y.re * y.dRe + y.im * y.dIm;
 }
 
-const magnitudeOf = (y: ImpedanceSlope) => 1 / Math.hypot(y.re, y.im);
+const magnitudeOf = (y: ImpedanceSlope) => 1 / hypot(y.re, y.im);
 
 /** The maximum (or minimum) of |Z| between `lowHz` and `highHz`. */
 export function refineExtremum(lowHz: number, highHz: number, admittanceAt: AdmittanceSlopeAt, kind: ExtremumKind = 'maximum'): ImpedancePoint | undefined {

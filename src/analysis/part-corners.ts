@@ -14,7 +14,7 @@
 // those edges of the box L·C takes every value between its extremes, so a series resonance anywhere in the
 // spread shows in the envelope, to within the step.
 
-import { impedanceSweep } from '../circuit/impedance.js';
+import { impedanceSweep, impedanceSweepInto } from '../circuit/impedance.js';
 import type { Part } from '../model/part.js';
 import type { TemperatureRange } from '../model/spread.js';
 import { usableBand, type BandRule } from './band.js';
@@ -22,6 +22,7 @@ import { resolvedSweep } from './resolved-sweep.js';
 import { selfResonances } from './resonance.js';
 import type { Element } from '../circuit/element.js';
 import { scaledModel, spreadFactors, spreadModel, valueSpread, type SpreadFactor, type ValueSpread } from './part-spread.js';
+import { hypot } from '../circuit/hypot.js';
 
 /** At most this many moving quantities a part (2^4 = 16 corners): value and three parasitics is every model. */
 export const MAX_PART_FACTORS = 5;
@@ -54,11 +55,11 @@ const range = (values: readonly number[]): Range | null => (values.length === 0 
 /** Points each quantity is stepped through for the envelope, its ends included (geometric steps). */
 export const ENVELOPE_STEPS = 25;
 
-/** Widen `min`/`max` by the model's |Z| at every sweep point. */
-function widen(element: Element, frequencies: Float64Array, min: Float64Array, max: Float64Array): void {
-  const z = impedanceSweep(element, frequencies);
+/** Widen `min`/`max` by the model's |Z| at every sweep point; `re` and `im` are scratch arrays of the sweep's length. */
+function widen(element: Element, frequencies: Float64Array, min: Float64Array, max: Float64Array, re: Float64Array, im: Float64Array): void {
+  impedanceSweepInto(element, frequencies, re, im);
   for (let i = 0; i < frequencies.length; i++) {
-    const m = Math.hypot(z.re[i], z.im[i]);
+    const m = hypot(re[i], im[i]);
     if (m < min[i]) min[i] = m;
     if (m > max[i]) max[i] = m;
   }
@@ -66,7 +67,10 @@ function widen(element: Element, frequencies: Float64Array, min: Float64Array, m
 
 /** The envelope's points between the corners: the nominal model and every edge of the box, stepped. */
 function widenBetweenCorners(part: Part, factors: readonly SpreadFactor[], frequencies: Float64Array, min: Float64Array, max: Float64Array): void {
-  widen(part.network, frequencies, min, max);
+  // One pair of arrays for every model stepped: a new sweep each was most of what a part's corners allocated.
+  const re = new Float64Array(frequencies.length);
+  const im = new Float64Array(frequencies.length);
+  widen(part.network, frequencies, min, max, re, im);
   const q = factors.length;
   factors.forEach((f, i) => {
     for (const others of allCorners(q - 1)) {
@@ -76,7 +80,7 @@ function widenBetweenCorners(part: Part, factors: readonly SpreadFactor[], frequ
           return high ? g.high : g.low;
         });
         multipliers.splice(i, 0, f.low * (f.high / f.low) ** (s / (ENVELOPE_STEPS - 1)));
-        widen(scaledModel(part, factors, multipliers), frequencies, min, max);
+        widen(scaledModel(part, factors, multipliers), frequencies, min, max, re, im);
       }
     }
   });
@@ -108,7 +112,7 @@ export function partCorners(part: Part, operating: TemperatureRange, frequencies
     const element = spreadModel(part, factors, high);
     const z = impedanceSweep(element, frequencies);
     for (let i = 0; i < n; i++) {
-      const m = Math.hypot(z.re[i], z.im[i]);
+      const m = hypot(z.re[i], z.im[i]);
       if (m < min[i]) min[i] = m;
       if (m > max[i]) max[i] = m;
     }

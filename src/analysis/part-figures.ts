@@ -15,13 +15,14 @@ import { resolvedSweep, type ResolvedSweep } from './resolved-sweep.js';
 import { selfResonances, type Resonance } from './resonance.js';
 import { partCorners, type PartCorners } from './part-corners.js';
 import type { TemperatureRange } from '../model/spread.js';
+import { hypot } from '../circuit/hypot.js';
 
 export interface PartAnalysis {
   part: Part;
   sweep: SweepSpec;
   frequencies: Float64Array;
   z: ImpedanceArrays;
-  /** Every column over the sweep (what the CSV and JSON downloads and `zfolio sweep` give). */
+  /** Every column over the sweep (what `zfolio sweep` gives), made when first read. */
   columns: ImpedanceFigures;
   /** The sweep with ladders of points around every natural frequency: where features are searched. */
   resolved: ResolvedSweep;
@@ -79,17 +80,22 @@ export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number,
   const selfResonance = wanted ? resonances.find((r) => r.type === wanted) : resonances[0];
   const decades = Float64Array.from(decadeFrequencies(sweep.fromHz, sweep.toHz));
   const decadeFigures = deriveFigures(decades, impedanceSweep(part.network, decades));
+  let columns: ImpedanceFigures | undefined;
   return {
     part,
     sweep,
     frequencies,
     z,
-    columns: deriveFigures(frequencies, z),
+    // Made when first read: only `zfolio sweep` reads it, a build never does (the downloads evaluate their own
+    // frequencies, the charts draw the resolved sweep).
+    get columns() {
+      return (columns ??= deriveFigures(frequencies, z));
+    },
     resolved,
     resolvedColumns: deriveFigures(resolved.frequencies, resolved.z),
     decades: decadeFigures,
     decadeEffective: effectiveValues(part, decadeFigures),
-    ...(part.behavesAs === 'bead' && part.ratedAtHz !== undefined ? { ratedImpedanceOhm: Math.hypot(...impedanceAt(part.network, part.ratedAtHz)) } : {}),
+    ...(part.behavesAs === 'bead' && part.ratedAtHz !== undefined ? { ratedImpedanceOhm: hypot(...impedanceAt(part.network, part.ratedAtHz)) } : {}),
     resonances,
     selfResonance,
     bandRule,

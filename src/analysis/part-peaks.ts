@@ -7,6 +7,7 @@ import { EXTREMUM_TOLERANCE, goldenSectionMinimum, type ImpedancePoint } from '.
 import { impedancePeaks } from './peaks.js';
 import { treeAdmittanceSlope } from './resonance.js';
 import type { ResolvedSweep } from './resolved-sweep.js';
+import { hypot } from '../circuit/hypot.js';
 
 export interface QualityPeak {
   frequencyHz: number;
@@ -17,7 +18,7 @@ export interface QualityPeak {
 export function peakImpedance(element: Element, { frequencies, z }: ResolvedSweep): ImpedancePoint & { atSweepEnd: boolean } {
   const n = frequencies.length;
   const magnitude = new Float64Array(n);
-  for (let i = 0; i < n; i++) magnitude[i] = Math.hypot(z.re[i], z.im[i]);
+  for (let i = 0; i < n; i++) magnitude[i] = hypot(z.re[i], z.im[i]);
   let best = { frequencyHz: frequencies[0], impedanceOhm: magnitude[0], atSweepEnd: true };
   if (magnitude[n - 1] > best.impedanceOhm) best = { frequencyHz: frequencies[n - 1], impedanceOhm: magnitude[n - 1], atSweepEnd: true };
   for (const peak of impedancePeaks(frequencies, magnitude, treeAdmittanceSlope(element))) {

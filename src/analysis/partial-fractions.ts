@@ -9,6 +9,7 @@
 
 import type { ComplexFrequency } from '../circuit/natural-frequencies.js';
 import { leastSquares } from './least-squares.js';
+import { hypot } from '../circuit/hypot.js';
 
 export interface PartialFractions {
   /** Poles, rad/s; one of each conjugate pair (im > 0), real poles with im = 0. */
@@ -44,8 +45,8 @@ const SAME_POLE = 1e-10;
 export function distinctPoles(poles: readonly ComplexFrequency[]): ComplexFrequency[] {
   const out: ComplexFrequency[] = [];
   for (const p of poles) {
-    const size = Math.hypot(p.re, p.im);
-    if (!out.some((q) => Math.hypot(q.re - p.re, q.im - p.im) <= SAME_POLE * Math.max(size, Math.hypot(q.re, q.im)))) out.push(p);
+    const size = hypot(p.re, p.im);
+    if (!out.some((q) => hypot(q.re - p.re, q.im - p.im) <= SAME_POLE * Math.max(size, hypot(q.re, q.im)))) out.push(p);
   }
   return out;
 }
@@ -185,8 +186,8 @@ export function fitError(f: PartialFractions, samples: FrequencySamples, floor =
   let worst = 0;
   for (let i = 0; i < samples.omega.length; i++) {
     const [re, im] = partialFractionsAt(f, samples.omega[i]);
-    const size = Math.max(Math.hypot(samples.re[i], samples.im[i]), floor);
-    worst = Math.max(worst, Math.hypot(re - samples.re[i], im - samples.im[i]) / size);
+    const size = Math.max(hypot(samples.re[i], samples.im[i]), floor);
+    worst = Math.max(worst, hypot(re - samples.re[i], im - samples.im[i]) / size);
   }
   return worst;
 }

@@ -15,6 +15,7 @@ import { impedanceSweepInto } from '../circuit/impedance.js';
 import { featureGrid, sweepIndices, sweepRange } from './feature-grid.js';
 import { impedancePeaks } from './peaks.js';
 import { marginDb, railSlopeAt, railZeros, type RailBranch } from './rail.js';
+import { hypot } from '../circuit/hypot.js';
 
 /** Up to this many moving quantities every corner is evaluated (2^10 = 1,024). */
 export const MAX_ENUMERATED = 10;
@@ -174,7 +175,7 @@ export function evaluateCorners(problem: RailCornerProblem): RailCorners {
       }
       branches.push(...v.branches);
     });
-    for (let i = 0; i < m; i++) magnitude[i] = 1 / Math.hypot(g[i], b[i]);
+    for (let i = 0; i < m; i++) magnitude[i] = 1 / hypot(g[i], b[i]);
     for (let i = 0; i < n; i++) {
       const z = magnitude[onSweep ? onSweep[i] : i];
       if (z < envelope.min[i]) envelope.min[i] = z;

@@ -13,6 +13,7 @@ import { admittanceSlope, impedanceSlopeAt, impedanceSlopeInto, type ImpedanceSl
 import { naturalFrequencies, type ComplexFrequency, type FrequencyRange } from '../circuit/natural-frequencies.js';
 import { featureGrid, sweepRange, sweepIndices } from './feature-grid.js';
 import { impedancePeaks } from './peaks.js';
+import { hypot } from '../circuit/hypot.js';
 
 /** Z_t = V·ripple/ΔI, Ω (Smith et al., 1999). */
 export function targetImpedance(voltageV: number, ripple: number, stepA: number): number {
@@ -147,19 +148,19 @@ export function evaluateRail(branches: readonly RailBranch[], targetOhm: number,
       const curve = new Float64Array(n);
       for (let i = 0; i < n; i++) {
         const j = onSweep ? onSweep[i] : i;
-        curve[i] = Math.hypot(re[j], im[j]) / branch.count;
+        curve[i] = hypot(re[j], im[j]) / branch.count;
       }
       branchMagnitude.push(curve);
     }
   }
   const gridMagnitude = new Float64Array(m);
-  for (let i = 0; i < m; i++) gridMagnitude[i] = 1 / Math.hypot(g[i], b[i]);
+  for (let i = 0; i < m; i++) gridMagnitude[i] = 1 / hypot(g[i], b[i]);
   const magnitude = onSweep ? Float64Array.from(onSweep, (j) => gridMagnitude[j]) : gridMagnitude;
 
   const found = impedancePeaks(grid, gridMagnitude, (f) => railSlopeAt(branches, f));
   const peaks: RailPeak[] = found.map((p) => {
     const { total, branch } = railAdmittanceAt(branches, p.frequencyHz);
-    const y = Math.hypot(total.re, total.im);
+    const y = hypot(total.re, total.im);
     let capacitive: number | null = null;
     let inductive: number | null = null;
     branch.forEach((yb, j) => {
@@ -172,7 +173,7 @@ export function evaluateRail(branches: readonly RailBranch[], targetOhm: number,
       marginDb: marginDb(targetOhm, p.impedanceOhm),
       capacitiveBranch: capacitive,
       inductiveBranch: inductive,
-      currentRatio: branch.map((yb) => Math.hypot(yb.re, yb.im) / y),
+      currentRatio: branch.map((yb) => hypot(yb.re, yb.im) / y),
     };
   });
 

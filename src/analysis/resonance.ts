@@ -13,6 +13,7 @@ import { admittanceSlope, impedanceSlopeAt } from '../circuit/slope.js';
 import { nearestExtremum, type AdmittanceSlopeAt, type ImpedancePoint } from './extremum.js';
 import type { ResolvedSweep } from './resolved-sweep.js';
 import { frequencyRoot } from './root.js';
+import { hypot } from '../circuit/hypot.js';
 
 export type ResonanceType = 'series' | 'parallel';
 
@@ -38,7 +39,7 @@ export const REACTANCE_NOISE = 1e-12;
 
 /** The sign of X at one impedance: 0 when X is within rounding noise of zero. */
 export function reactanceSign(re: number, im: number): number {
-  if (!(Math.abs(im) > REACTANCE_NOISE * Math.hypot(re, im))) return 0;
+  if (!(Math.abs(im) > REACTANCE_NOISE * hypot(re, im))) return 0;
   return Math.sign(im);
 }
 
@@ -67,7 +68,7 @@ export function selfResonances(element: Element, sweep: ResolvedSweep): Resonanc
     const [re, im] = impedanceAt(element, f);
     return reactanceSign(re, im) === 0 ? 0 : im;
   };
-  const magnitude = (i: number) => Math.hypot(z.re[i], z.im[i]);
+  const magnitude = (i: number) => hypot(z.re[i], z.im[i]);
   const admittanceAt = treeAdmittanceSlope(element);
   let lastIndex = -1;
   let lastSign = 0;
@@ -82,7 +83,7 @@ export function selfResonances(element: Element, sweep: ResolvedSweep): Resonanc
         // Start from the bracketing sample on the extremum's side and walk to the nearest extremum.
         const start = (type === 'series') === magnitude(lastIndex) < magnitude(i) ? lastIndex : i;
         const { index: _, ...extremum } = nearestExtremum(frequencies, magnitude, start, admittanceAt, type === 'series' ? 'minimum' : 'maximum');
-        found.push({ frequencyHz: f, type, impedanceOhm: Math.hypot(re, im), extremum });
+        found.push({ frequencyHz: f, type, impedanceOhm: hypot(re, im), extremum });
       }
     }
     lastIndex = i;

@@ -4,6 +4,7 @@
 import type { ComplexFrequency } from '../circuit/natural-frequencies.js';
 import type { PartialFractions } from './partial-fractions.js';
 import { phiFunctions, type ComplexPair } from './phi-functions.js';
+import { hypot } from '../circuit/hypot.js';
 
 /** A pole carrying at least this share of the transient sets the default duration. */
 export const SIGNIFICANT_SHARE = 1e-3;
@@ -27,11 +28,11 @@ export function poleWeights(f: PartialFractions, riseS: number, integrator: numb
   const w = new Float64Array(f.poles.length);
   let total = 0;
   f.poles.forEach((p, k) => {
-    const size = Math.hypot(p.re, p.im);
+    const size = hypot(p.re, p.im);
     if (k === integrator || size === 0) return;
     phiFunctions(p.re * riseS, p.im * riseS, e, p1, p2);
     const r = f.residues[k];
-    const c = (Math.hypot(r.re, r.im) * Math.hypot(p1[0], p1[1])) / size;
+    const c = (hypot(r.re, r.im) * hypot(p1[0], p1[1])) / size;
     w[k] = p.im === 0 ? c : 2 * c;
     total += w[k];
   });

@@ -20,6 +20,7 @@ import { distinctPoles, fitError, fitPartialFractions, type PartialFractions } f
 import { RampBasis, RampCombination, rampResponses } from './ramp-response.js';
 import { brentRoot } from './root.js';
 import { transientSearchTimes, defaultDuration, poleWeights } from './transient-times.js';
+import { hypot } from '../circuit/hypot.js';
 
 export interface TransientBranch {
   element: Element;
@@ -128,7 +129,7 @@ export function railTransient(branches: readonly TransientBranch[], request: Loa
   const droop = refinedExtremum(times, v, -1, voltageAt, slopeAt);
   const peak = refinedExtremum(times, v, 1, voltageAt, slopeAt);
   const finalV = dcPath ? -dcOhm * stepA : null;
-  const growing = impedance.poles.some((p) => p.re > 1e-9 * Math.hypot(p.re, p.im));
+  const growing = impedance.poles.some((p) => p.re > 1e-9 * hypot(p.re, p.im));
   const resolved = impedanceError <= FIT_TOLERANCE && shareError <= FIT_TOLERANCE && !growing && [droop.value, peak.value, droop.t].every(Number.isFinite);
   return {
     stepA,
@@ -181,7 +182,7 @@ interface Sampled {
  * the range) with ladders around each resonance; and the same between those samples, for the check.
  */
 function samples(branches: readonly TransientBranch[], poles: readonly ComplexFrequency[], range: FrequencyRange): { fit: Sampled; check: Sampled } {
-  const sizes = poles.map((p) => Math.hypot(p.re, p.im)).filter((s) => s > 0);
+  const sizes = poles.map((p) => hypot(p.re, p.im)).filter((s) => s > 0);
   const low = Math.min(range.fromHz, ...sizes.map((s) => s / (2 * Math.PI))) / 10;
   const high = Math.max(range.toHz, ...sizes.map((s) => s / (2 * Math.PI))) * 10;
   const grid = featureGrid(logSweep({ fromHz: low, toHz: high, perDecade: FIT_PER_DECADE }), poles);

@@ -16,6 +16,7 @@ import { EigenvalueDecomposition, LuDecomposition, Matrix } from 'ml-matrix';
 import type { Element } from './element.js';
 import { laplaceImpedance } from './laplace.js';
 import { nodalPencil, withoutUnknown, type NodalPencil } from './state-space.js';
+import { hypot } from './hypot.js';
 
 /** A complex frequency s = re + j·im, rad/s. */
 export interface ComplexFrequency {
@@ -62,7 +63,7 @@ export function naturalFrequencies(element: Element, range: FrequencyRange): Nat
     const pencil = nodalPencil(element);
     const shift = 2 * Math.PI * Math.sqrt(range.fromHz * range.toHz);
     const limit = 2 * Math.PI * range.toHz * ABOVE_RANGE;
-    const inRange = (roots: ComplexFrequency[]) => roots.filter((r) => Math.hypot(r.re, r.im) <= limit);
+    const inRange = (roots: ComplexFrequency[]) => roots.filter((r) => hypot(r.re, r.im) <= limit);
     found = {
       poles: polished(element, inRange(pencilRoots(pencil, shift)), 'pole', range),
       zeros: pencil.size > 1 ? polished(element, inRange(pencilRoots(withoutUnknown(pencil, 0), shift)), 'zero', range) : [],
@@ -88,13 +89,13 @@ function polished(element: Element, roots: ComplexFrequency[], kind: 'pole' | 'z
   const below = 2 * Math.PI * range.fromHz;
   const out: ComplexFrequency[] = [];
   roots.forEach((root, i) => {
-    if (Math.hypot(root.re, root.im) < below) {
+    if (hypot(root.re, root.im) < below) {
       out.push(root);
       return;
     }
     let nearest = Infinity;
     roots.forEach((other, j) => {
-      if (j !== i) nearest = Math.min(nearest, Math.hypot(other.re - root.re, other.im - root.im), Math.hypot(other.re - root.re, other.im + root.im));
+      if (j !== i) nearest = Math.min(nearest, hypot(other.re - root.re, other.im - root.im), hypot(other.re - root.re, other.im + root.im));
     });
     // A root on the real axis stays there (Z is real for real s), so only complex roots can cross over.
     if (root.im !== 0) nearest = Math.min(nearest, 2 * root.im);
@@ -110,12 +111,12 @@ function polished(element: Element, roots: ComplexFrequency[], kind: 'pole' | 'z
       if (!Number.isFinite(qr) || !Number.isFinite(qi)) break;
       re += sign * qr;
       im += sign * qi;
-      step = Math.hypot(qr, qi);
-      if (Math.hypot(re - root.re, im - root.im) > nearest / 2) return;
-      if (step <= 4 * Number.EPSILON * Math.hypot(re, im)) break;
+      step = hypot(qr, qi);
+      if (hypot(re - root.re, im - root.im) > nearest / 2) return;
+      if (step <= 4 * Number.EPSILON * hypot(re, im)) break;
     }
     // Rounding can keep the last steps from shrinking below a few ulps; a step of 1e-9 is converged enough.
-    if (step <= 1e-9 * Math.hypot(re, im)) out.push({ re, im: Math.abs(im) });
+    if (step <= 1e-9 * hypot(re, im)) out.push({ re, im: Math.abs(im) });
   });
   return out;
 }
@@ -144,10 +145,10 @@ export function pencilRoots(pencil: NodalPencil, shiftRadPerS: number): ComplexF
   const re = evd.realEigenvalues;
   const im = evd.imaginaryEigenvalues;
   let largest = 0;
-  for (let i = 0; i < n; i++) largest = Math.max(largest, Math.hypot(re[i], im[i]));
+  for (let i = 0; i < n; i++) largest = Math.max(largest, hypot(re[i], im[i]));
   const roots: ComplexFrequency[] = [];
   for (let i = 0; i < n; i++) {
-    const size = Math.hypot(re[i], im[i]);
+    const size = hypot(re[i], im[i]);
     // The infinite eigenvalues of the pencil come out as rounding-level multiples of the largest one.
     if (!(size > largest * 1e-13)) continue;
     // ŝ = 1 − 1/λ

@@ -3,6 +3,7 @@
 
 import { admittanceInto } from './admittance.js';
 import type { ImpedanceArrays } from './impedance.js';
+import { hypot } from './hypot.js';
 
 export interface ImpedanceFigures {
   readonly frequencyHz: Float64Array;
@@ -41,7 +42,7 @@ export function deriveFigures(frequencyHz: Float64Array, z: ImpedanceArrays): Im
   for (let i = 0; i < n; i++) {
     const r = z.re[i];
     const x = z.im[i];
-    const m = Math.hypot(r, x);
+    const m = hypot(r, x);
     const omega = 2 * Math.PI * frequencyHz[i];
     magnitude[i] = m;
     phase[i] = Math.atan2(x, r) * DEG_PER_RAD;

@@ -5,6 +5,7 @@
 
 import { fixedText, significantText } from '../units/digits-text.js';
 import { FREQUENCY_SCALE, type DataFormat, type FrequencyUnit, type NetworkParameter } from './network-data.js';
+import { hypot } from '../circuit/hypot.js';
 
 export interface TouchstoneWriteInput {
   version: 1 | 2;
@@ -60,9 +61,9 @@ export function writeTouchstone(input: TouchstoneWriteInput): string {
       case 'RI':
         return decimals ? `${fixedText(re, decimals[index])} ${fixedText(im, decimals[index])}` : `${num(re)} ${num(im)}`;
       case 'MA':
-        return `${num(Math.hypot(re, im))} ${num(Math.atan2(im, re) * DEGREES)}`;
+        return `${num(hypot(re, im))} ${num(Math.atan2(im, re) * DEGREES)}`;
       case 'DB':
-        return `${num(20 * Math.log10(Math.hypot(re, im)))} ${num(Math.atan2(im, re) * DEGREES)}`;
+        return `${num(20 * Math.log10(hypot(re, im)))} ${num(Math.atan2(im, re) * DEGREES)}`;
     }
   };
   for (let k = 0; k < count; k++) {

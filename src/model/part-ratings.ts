@@ -14,13 +14,14 @@ import { describeNode, scalarText, type Fields } from './fields.js';
 import type { BiasPoint, PartKind } from './part.js';
 import type { Bounds } from './spread.js';
 import { formatVoltageRating, type VoltageRating } from './voltage-rating.js';
+import { hypot } from '../circuit/hypot.js';
 
 export const BEAD_RATING_TOLERANCE = 0.25;
 
 /** How far the model's |Z| at the rated frequency is from the rated impedance: |Z|/nominal − 1. */
 export function beadRatingDeviation(network: Element, nominal: number, ratedAtHz: number): number {
   const [re, im] = impedanceAt(network, ratedAtHz);
-  return Math.hypot(re, im) / nominal - 1;
+  return hypot(re, im) / nominal - 1;
 }
 
 /** A bead's model must reproduce its rating: |Z(at)| within the tolerance (else 25%) of nominal. */
