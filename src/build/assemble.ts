@@ -17,7 +17,7 @@ import type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.j
 
 export type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
 import { comparedAnalysis, type ComparedAnalysis } from './chart-jobs.js';
-import { drawsAdmittancePlane } from '../charts/part-charts.js';
+import { drawsAdmittancePlane } from '../charts/plane-kind.js';
 import { selectionText } from '../present/part-words.js';
 import { libraryRevision } from '../history/library-revision.js';
 import { comparisonSlug } from '../present/slugs.js';

@@ -1,17 +1,16 @@
-// Chart work as plain, cloneable jobs, so the same job can run in this thread or a worker thread.
+// Chart work as plain, cloneable jobs, so the same job can run in this thread or a worker thread
+// (chart-draw.ts draws one). Only types of the chart modules are imported here: making jobs loads no vega.
 
 import type { PartAnalysis } from '../analysis/part-figures.js';
-import { renderComparisonChart, type ComparisonPart } from '../charts/comparison-chart.js';
-import { describeComparison } from '../present/chart-descriptions.js';
-import { PART_CHART_KINDS, renderPartCharts, type PartChartInput } from '../charts/part-charts.js';
-import type { ChartColumns } from '../charts/part-marks.js';
-import { renderRailChart, type RailChartData } from '../charts/rail-chart.js';
-import { loadStepChartInput, renderLoadStepCharts, type LoadStepChartData } from '../charts/load-step-chart.js';
-import { renderChangeChart, type ChangeChartData } from '../charts/change-chart.js';
+import type { ComparisonPart } from '../charts/comparison-chart.js';
+import type { ChartColumns, PartChartInput } from '../charts/part-marks.js';
+import type { RailChartData } from '../charts/rail-chart.js';
+import { loadStepChartInput, type LoadStepChartData } from '../charts/load-step-data.js';
+import type { ChangeChartData } from '../charts/change-chart.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, DrawnChart } from './chart-maker.js';
-import { writePartDownloads, type PartDownloads } from './part-downloads.js';
-import { MEASUREMENT_CHART_KINDS, renderMeasurementCharts, type MeasurementChartData } from '../charts/measurement-charts.js';
+import type { PartDownloads } from './part-downloads.js';
+import type { MeasurementChartData } from '../charts/measurement-charts.js';
 
 export type ChartJob =
   /** With `downloads`, the part's downloads are written once its charts are drawn (part-downloads.ts). */
@@ -77,30 +76,6 @@ export function comparedAnalysis(a: ComparedAnalysis): ComparedAnalysis {
  */
 export function withoutSpecs(charts: readonly ChartArtifact[]): DrawnChart[] {
   return charts.map(({ spec: _, ...drawn }) => drawn);
-}
-
-export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {
-  if (job.type === 'part') {
-    const charts = await renderPartCharts(job.input);
-    const artifacts = PART_CHART_KINDS.map((key) => ({ key, ...charts[key] }));
-    if (job.downloads) writePartDownloads(job.downloads);
-    return artifacts;
-  }
-  if (job.type === 'measurement') {
-    const charts = await renderMeasurementCharts(job.data);
-    return MEASUREMENT_CHART_KINDS.map((kind) => ({ key: `${kind}-${job.index}`, ...charts[kind] }));
-  }
-  if (job.type === 'rail') return [{ key: 'rail', ...(await renderRailChart(job.data)) }];
-  if (job.type === 'change') return [{ key: 'change', ...(await renderChangeChart(job.data)) }];
-  if (job.type === 'load-step') {
-    const charts = await renderLoadStepCharts(job.data);
-    return [
-      { key: 'load-step', ...charts.voltage },
-      { key: 'load-share', ...charts.share },
-    ];
-  }
-  const chart = await renderComparisonChart(job.inputs, describeComparison(job.inputs, job.title));
-  return [{ key: 'overlay', ...chart }];
 }
 
 /** What the rail chart draws of an analysed plan. */

@@ -11,7 +11,7 @@ import type { Worker } from 'node:worker_threads';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import { codeKey } from './reuse.js';
 import { sha256Hex } from '../model/sha256.js';
-import { chartInput, comparisonInput, loadStepChartData, railChartData, renderChartJob, withoutSpecs, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
+import { chartInput, comparisonInput, loadStepChartData, railChartData, withoutSpecs, type ChartJob, type ComparedAnalysis } from './chart-jobs.js';
 import type { PlanFigures } from '../analysis/plan-figures.js';
 import type { ChartArtifact, ChartMaker, DrawnChart } from './chart-maker.js';
 import { CACHE_ENTRY_EXTENSION, CHART_FILE_FORMAT, placeChartFile, readCacheEntry, storeCharts, withoutSvgs } from './chart-cache-entry.js';
@@ -213,7 +213,8 @@ export class ChartPool implements ChartMaker {
    */
   private run(make: () => ChartJob, cacheFile: string | undefined, slim: boolean, svgFile?: string): Promise<DrawnChart[]> {
     if (this.workers.length === 0) {
-      return renderChartJob(make()).then((charts) => {
+      // Drawn here: the drawing modules (and vega) are loaded now, by a build that draws a chart at all.
+      return import('./chart-draw.js').then(({ renderChartJob }) => renderChartJob(make())).then((charts) => {
         const answer = slim ? withoutSpecs(charts) : charts;
         storeCharts(answer, cacheFile, svgFile);
         return svgFile ? withoutSvgs(answer) : answer;

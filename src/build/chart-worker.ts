@@ -2,7 +2,8 @@
 // part it is sent. Messages: WorkerJob in, {id, charts} or {id, error} out.
 
 import { parentPort } from 'node:worker_threads';
-import { renderChartJob, withoutSpecs, type ChartJob } from './chart-jobs.js';
+import { withoutSpecs, type ChartJob } from './chart-jobs.js';
+import { renderChartJob } from './chart-draw.js';
 import { storeCharts, withoutSvgs } from './chart-cache-entry.js';
 import { collectGarbage } from './collect-garbage.js';
 

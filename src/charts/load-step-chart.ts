@@ -4,9 +4,9 @@
 // branch's share of the load current over time, in the rail chart's branch styles, so one sees which
 // capacitors carry the step and when the regulator takes over.
 
-import type { LoadStepFigures } from '../analysis/load-step.js';
 import { AXIS_TITLE, KEY_TEXT, dipLabel, loadStepKey } from '../present/chart-words.js';
-import { describeLoadStep, type DescribedLoadStep } from '../present/plan-chart-descriptions.js';
+import { describeLoadStep } from '../present/plan-chart-descriptions.js';
+import type { LoadStepChartData } from './load-step-data.js';
 import { linearValueAxis, logRangeAxis } from './axes.js';
 import { curveObstacle, curveRows, levelObstacle, plainCurve } from './curves.js';
 import { frame, PLOT_WIDTH } from './frame.js';
@@ -18,28 +18,6 @@ import { INK, RAIL_TOTAL, RESONANCE_MARK, TARGET_LINE, ZERO_LINE } from './palet
 import { renderChart, type ChartOutput, type Row } from './render.js';
 import { curveLayer, placedLabelLayer, pointLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
 import { xyChart, type AxisSpec } from './xy-chart.js';
-
-/** What the load-step charts draw; SI units (s, V, A/A): what their descriptions read, and the voltage. */
-export interface LoadStepChartData extends DescribedLoadStep {
-  /** The rail's deviation at each time, V. */
-  voltageV: ArrayLike<number>;
-}
-
-/** What the charts draw of a rail's load step, its branches named by `labels` (in the analysis's order). */
-export function loadStepChartInput(rail: string, t: LoadStepFigures, labels: readonly string[]): LoadStepChartData {
-  return {
-    rail,
-    timesS: t.curves.timesS,
-    voltageV: t.curves.voltageV,
-    budgetV: t.budgetV,
-    finalV: t.finalV,
-    riseS: t.riseS,
-    stepA: t.stepA,
-    droop: { atS: t.atS, droopV: t.droopV },
-    settleS: t.settleS,
-    branches: labels.map((label, i) => ({ label, share: t.curves.shares[i] })),
-  };
-}
 
 const SERIES: SeriesScale = { keys: ['voltage', 'budget', 'final'], styles: [RAIL_TOTAL, TARGET_LINE, { color: ZERO_LINE, dash: [2, 3], width: 1.2 }] };
 const VOLTAGE_FRAME = frame(PLOT_WIDTH, 260, 28, 42);

@@ -9,6 +9,7 @@ import type { PartChartInput } from './part-marks.js';
 import { phaseChart } from './phase-chart.js';
 import { planeChart } from './plane-chart.js';
 import { partPlaneConstant } from './plane-scale.js';
+import { drawsAdmittancePlane } from './plane-kind.js';
 import { renderChart, type ChartDefinition, type ChartOutput, type ChartText } from './render.js';
 
 export type { PartChartInput } from './part-marks.js';
@@ -22,11 +23,6 @@ export type PartCharts = Record<PartChartKind, ChartOutput>;
  */
 function drawsAdmittanceCircle(input: PartChartInput): boolean {
   return drawsAdmittancePlane(input.part);
-}
-
-/** Whether a part's complex-plane chart is its admittance circle (else its impedance path). */
-export function drawsAdmittancePlane(part: { kind: string }): boolean {
-  return part.kind === 'capacitor';
 }
 
 /** The chart definition of one of a part's charts. */

@@ -17,7 +17,7 @@ import type { TopLevelSpec } from 'vega-lite';
 import { outerSize, type Frame } from './frame.js';
 import { finishSvg, type ChartText } from './svg-finish.js';
 import { sceneSvg } from './svg-scene.js';
-import { installTextMetrics } from './text-width.js';
+import { installTextMetrics } from './text-metrics.js';
 import { COMPARED_ROWS, keyedItems, sameValue, type AxisKeys, type VegaOrderSpec } from './render-order.js';
 import { vegaSpecOf } from './vega-specs.js';
 

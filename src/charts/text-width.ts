@@ -2,9 +2,8 @@
 // spreads legends and drops tick labels that would fit. Here each character gets the advance width it has in
 // DejaVu Sans (Book), the widest common member of our font stack, read from the font's hmtx table and rounded
 // up to 0.01 em; a character outside the table counts a full em. So the estimate errs towards more room,
-// never towards overlap (test/charts/text-width.test.ts reads the font file to hold it to that).
-
-import * as vega from 'vega';
+// never towards overlap (test/charts/text-width.test.ts reads the font file to hold it to that). Plain
+// numbers: pages lay out text with it too, without loading vega (text-metrics.ts hands it to vega).
 
 /** Characters by their advance width in em. */
 const GROUPS: readonly (readonly [number, string])[] = [
@@ -77,18 +76,4 @@ export function textWidth(text: string, fontSize: number): number {
   let em = 0;
   for (const c of text) em += charWidthEm(c);
   return em * fontSize;
-}
-
-let installed = false;
-
-/** Make vega measure text with this estimate (process-wide; idempotent). */
-export function installTextMetrics(): void {
-  if (installed) return;
-  installed = true;
-  // Exported by vega (from vega-scenegraph) but missing from its type declarations.
-  const metrics = (vega as unknown as { textMetrics: { width: (item: { fontSize?: number }, text: unknown) => number } }).textMetrics;
-  metrics.width = (item, text) => {
-    const size = item.fontSize != null ? Number(item.fontSize) || 0 : 11;
-    return textWidth(text == null ? '' : String(text).trim(), size);
-  };
 }

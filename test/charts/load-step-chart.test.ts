@@ -3,7 +3,8 @@ import { analyseLoadStep } from '../../src/analysis/load-step.js';
 import { capacitor, inductor, resistor, series } from '../../src/circuit/element.js';
 import { describeLoadStep } from '../../src/present/plan-chart-descriptions.js';
 import { niceStep } from '../../src/charts/axes.js';
-import { loadShareChart, loadStepChart, loadStepChartInput, renderLoadStepCharts, type LoadStepChartData } from '../../src/charts/load-step-chart.js';
+import { loadShareChart, loadStepChart, renderLoadStepCharts } from '../../src/charts/load-step-chart.js';
+import { loadStepChartInput, type LoadStepChartData } from '../../src/charts/load-step-data.js';
 import { formatEng } from '../../src/units/format.js';
 import { svgTexts } from './svg-text.js';
 

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import * as vega from 'vega';
 import { OVERLAY_COLORS, OVERLAY_DASHES, PART_SERIES, RAIL_TOTAL, RESONANCE_MARK, TARGET_LINE, INK, BAND_EDGE } from '../../src/charts/palette.js';
 import { overlayColor, overlayStyle } from '../../src/charts/overlay.js';
-import { installTextMetrics, textWidth } from '../../src/charts/text-width.js';
+import { textWidth } from '../../src/charts/text-width.js';
+import { installTextMetrics } from '../../src/charts/text-metrics.js';
 
 // Relative luminance and contrast ratio as defined in WCAG 2.1 (§ "relative luminance", "contrast ratio"),
 // with the sRGB transfer function of IEC 61966-2-1.
