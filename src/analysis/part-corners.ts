@@ -14,14 +14,14 @@
 // those edges of the box L·C takes every value between its extremes, so a series resonance anywhere in the
 // spread shows in the envelope, to within the step.
 
-import { impedanceSweep, impedanceSweepInto } from '../circuit/impedance.js';
+import { impedanceSweep, impedanceSweepInto, impedanceSweepWithValuesInto, leafValues, leavesOf } from '../circuit/impedance.js';
 import type { Part } from '../model/part.js';
 import type { TemperatureRange } from '../model/spread.js';
 import { usableBand, type BandRule } from './band.js';
 import { resolvedSweep } from './resolved-sweep.js';
 import { selfResonances } from './resonance.js';
 import type { Element } from '../circuit/element.js';
-import { scaledModel, spreadFactors, spreadModel, valueSpread, type SpreadFactor, type ValueSpread } from './part-spread.js';
+import { leafFactors, spreadFactors, spreadModel, valueSpread, type SpreadFactor, type ValueSpread } from './part-spread.js';
 import { hypot } from '../circuit/hypot.js';
 
 /** At most this many moving quantities a part (2^4 = 16 corners): value and three parasitics is every model. */
@@ -55,9 +55,8 @@ const range = (values: readonly number[]): Range | null => (values.length === 0 
 /** Points each quantity is stepped through for the envelope, its ends included (geometric steps). */
 export const ENVELOPE_STEPS = 25;
 
-/** Widen `min`/`max` by the model's |Z| at every sweep point; `re` and `im` are scratch arrays of the sweep's length. */
-function widen(element: Element, frequencies: Float64Array, min: Float64Array, max: Float64Array, re: Float64Array, im: Float64Array): void {
-  impedanceSweepInto(element, frequencies, re, im);
+/** Widen `min`/`max` by |Z| at every sweep point, evaluated into `re` and `im` (of the sweep's length). */
+function widen(frequencies: Float64Array, min: Float64Array, max: Float64Array, re: Float64Array, im: Float64Array): void {
   for (let i = 0; i < frequencies.length; i++) {
     const m = hypot(re[i], im[i]);
     if (m < min[i]) min[i] = m;
@@ -70,7 +69,13 @@ function widenBetweenCorners(part: Part, factors: readonly SpreadFactor[], frequ
   // One pair of arrays for every model stepped: a new sweep each was most of what a part's corners allocated.
   const re = new Float64Array(frequencies.length);
   const im = new Float64Array(frequencies.length);
-  widen(part.network, frequencies, min, max, re, im);
+  impedanceSweepInto(part.network, frequencies, re, im);
+  widen(frequencies, min, max, re, im);
+  // Each stepped model is the part's tree with other leaf values (what scaledModel builds, multiplied the same
+  // way), evaluated by the part's own kernel: building each tree and its kernel was most of the steps' cost.
+  const leaves = leavesOf(part.network);
+  const nominal = leafValues(part.network);
+  const values = new Float64Array(nominal.length);
   const q = factors.length;
   factors.forEach((f, i) => {
     for (const others of allCorners(q - 1)) {
@@ -80,7 +85,10 @@ function widenBetweenCorners(part: Part, factors: readonly SpreadFactor[], frequ
           return high ? g.high : g.low;
         });
         multipliers.splice(i, 0, f.low * (f.high / f.low) ** (s / (ENVELOPE_STEPS - 1)));
-        widen(scaledModel(part, factors, multipliers), frequencies, min, max, re, im);
+        const factorOf = leafFactors(part, factors, multipliers);
+        for (let j = 0; j < leaves.length; j++) values[j] = nominal[j] * factorOf(leaves[j]);
+        impedanceSweepWithValuesInto(part.network, values, frequencies, re, im);
+        widen(frequencies, min, max, re, im);
       }
     }
   });

@@ -135,11 +135,16 @@ export function spreadModel(part: Part, factors: readonly SpreadFactor[], high: 
 
 /** The part's model with each factor's quantity at the multiplier given for it (anywhere in its range); not cached. */
 export function scaledModel(part: Part, factors: readonly SpreadFactor[], multipliers: readonly number[]): Element {
+  return scaleLeaves(part.network, leafFactors(part, factors, multipliers));
+}
+
+/** What scaledModel multiplies each leaf's value by, for the same multipliers. */
+export function leafFactors(part: Part, factors: readonly SpreadFactor[], multipliers: readonly number[]): (leaf: Leaf) => number {
   const byLeaf = new Map<string, number>();
   let value = 1;
   factors.forEach((f, i) => {
     if (f.quantity === 'value') value = multipliers[i];
     else byLeaf.set(LEAF_OF_PARAMETER[f.quantity], multipliers[i]);
   });
-  return scaleLeaves(part.network, (leaf) => valueFactorOf(part, leaf, value) * (leaf.name !== undefined ? (byLeaf.get(leaf.name) ?? 1) : 1));
+  return (leaf) => valueFactorOf(part, leaf, value) * (leaf.name !== undefined ? (byLeaf.get(leaf.name) ?? 1) : 1);
 }

@@ -12,7 +12,11 @@ export interface ImpedanceArrays {
   readonly im: Float64Array;
 }
 
-type Kernel = (omega: Float64Array, re: Float64Array, im: Float64Array) => void;
+/** A tree's compiled sweep (one function per tree shape, kernel.ts) and the leaf values it reads. */
+interface Kernel {
+  run: (omega: Float64Array, re: Float64Array, im: Float64Array, k: Float64Array) => void;
+  k: Float64Array;
+}
 
 const TWO_PI = 2 * Math.PI;
 const kernels = new WeakMap<Element, Kernel>();
@@ -41,7 +45,28 @@ export function impedanceSweep(element: Element, frequencies: Float64Array): Imp
 
 /** The same into caller-owned arrays (length of `frequencies`), for loops that evaluate many times. */
 export function impedanceSweepInto(element: Element, frequencies: Float64Array, re: Float64Array, im: Float64Array): void {
-  kernelOf(element)(omegaOf(frequencies), re, im);
+  const kernel = kernelOf(element);
+  kernel.run(omegaOf(frequencies), re, im, kernel.k);
+}
+
+/**
+ * The values of `element`'s leaves (Ω, H, F), one a leaf, in the order its kernel reads them: depth first, each
+ * group's parts in their order (leavesOf). A new array, to change and hand to impedanceSweepWithValuesInto.
+ */
+export function leafValues(element: Element): Float64Array {
+  return kernelOf(element).k.slice();
+}
+
+/**
+ * The impedance of the tree `element` with its leaves' values replaced by `values` (in leafValues' order), into
+ * `re` and `im`: the same bits as impedanceSweep of that tree built anew, without building it or its kernel
+ * (a part's spread evaluates many models of one shape).
+ */
+export function impedanceSweepWithValuesInto(element: Element, values: Float64Array, frequencies: Float64Array, re: Float64Array, im: Float64Array): void {
+  const kernel = kernelOf(element);
+  if (values.length !== kernel.k.length) throw new RangeError(`${values.length} values for a tree of ${kernel.k.length} leaves`);
+  for (const v of values) if (!Number.isFinite(v)) throw new RangeError(`element value ${v} is not finite`);
+  kernel.run(omegaOf(frequencies), re, im, values);
 }
 
 /** Impedance at a single frequency, as [re, im] in Ω; the same kernel as the sweep, so the same bits. */
@@ -50,7 +75,8 @@ export function impedanceAt(element: Element, frequencyHz: number): [number, num
   omega[0] = TWO_PI * frequencyHz;
   const re = new Float64Array(1);
   const im = new Float64Array(1);
-  kernelOf(element)(omega, re, im);
+  const kernel = kernelOf(element);
+  kernel.run(omega, re, im, kernel.k);
   return [re[0], im[0]];
 }
 
@@ -74,7 +100,11 @@ function sweepBody({ lines, result }: ReturnType<typeof kernelLines>): string {
 
 function compileKernel(element: Element): Kernel {
   const generated = kernelLines(element, false);
-  const run = shapeKernel<(omega: Float64Array, re: Float64Array, im: Float64Array, k: Float64Array) => void>(['omega', 're', 'im'], sweepBody(generated));
-  const k = Float64Array.from(generated.constants);
-  return (omega, re, im) => run(omega, re, im, k);
+  const run = shapeKernel<Kernel['run']>(['omega', 're', 'im'], sweepBody(generated));
+  return { run, k: Float64Array.from(generated.constants) };
+}
+
+/** The leaves of a tree in the order its kernel reads their values (leafValues): depth first, parts in order. */
+export function leavesOf(element: Element): Extract<Element, { type: 'R' | 'L' | 'C' }>[] {
+  return element.type === 'series' || element.type === 'parallel' ? element.parts.flatMap(leavesOf) : [element];
 }

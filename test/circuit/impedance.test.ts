@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { Complex } from 'complex.js';
 import { capacitor, inductor, parallel, resistor, series, type Element } from '../../src/circuit/element.js';
-import { impedanceAt, impedanceSweep } from '../../src/circuit/impedance.js';
+import { impedanceAt, impedanceSweep, impedanceSweepWithValuesInto, leafValues, leavesOf } from '../../src/circuit/impedance.js';
 import { logSweep } from '../../src/circuit/sweep.js';
 
 // Closed forms: Alexander & Sadiku, Fundamentals of Electric Circuits, 6th ed., §9.4–9.7 (element
@@ -168,5 +168,62 @@ describe('exact shorts and opens inside a tree', () => {
       const [re, im] = impedanceAt(tree, f);
       expect(Number.isNaN(re) || Number.isNaN(im)).toBe(false);
     }
+  });
+});
+
+describe('a tree with other leaf values (impedanceSweepWithValuesInto)', () => {
+  // The tree rebuilt with each leaf's value in the given order (depth first, parts in order).
+  const rebuilt = (t: Element, values: readonly number[], at = { i: 0 }): Element => {
+    switch (t.type) {
+      case 'R':
+        return { ...t, ohms: values[at.i++] };
+      case 'L':
+        return { ...t, henries: values[at.i++] };
+      case 'C':
+        return { ...t, farads: values[at.i++] };
+      default:
+        return { type: t.type, parts: t.parts.map((p) => rebuilt(p, values, at)) };
+    }
+  };
+  const ownValue = (l: ReturnType<typeof leavesOf>[number]) => (l.type === 'R' ? l.ohms : l.type === 'L' ? l.henries : l.farads);
+
+  it('lists each leaf once, in the order leafValues gives their values', () => {
+    fc.assert(
+      fc.property(tree, (t) => {
+        const values = leafValues(t);
+        const leaves = leavesOf(t);
+        return leaves.length === values.length && leaves.every((l, i) => Object.is(ownValue(l), values[i]));
+      }),
+      { numRuns: 500, seed: 20261203 },
+    );
+  });
+
+  it('gives the same bits as the tree built with those values, which agrees with complex.js', () => {
+    const frequencies = logSweep({ fromHz: 1e-2, toHz: 1e11, perDecade: 7 });
+    fc.assert(
+      fc.property(tree, fc.array(logUniform(0.25, 4), { minLength: 64, maxLength: 64 }), (t, factors) => {
+        const values = leafValues(t).map((v, i) => v * factors[i % factors.length]);
+        const re = new Float64Array(frequencies.length);
+        const im = new Float64Array(frequencies.length);
+        impedanceSweepWithValuesInto(t, values, frequencies, re, im);
+        const other = rebuilt(t, [...values]);
+        const z = impedanceSweep(other, frequencies);
+        for (let i = 0; i < frequencies.length; i++) {
+          if (!Object.is(re[i], z.re[i]) || !Object.is(im[i], z.im[i])) return false;
+          const expected = reference(other, TWO_PI * frequencies[i]);
+          if (Math.hypot(re[i] - expected.re, im[i] - expected.im) > 1e-12 * expected.abs()) return false;
+        }
+        return true;
+      }),
+      { numRuns: 300, seed: 20261203 },
+    );
+  });
+
+  it('refuses a value that is not finite, or the wrong number of them', () => {
+    const t = series(resistor(1), capacitor(1e-6));
+    const f = Float64Array.of(1e3);
+    const out = () => [new Float64Array(1), new Float64Array(1)] as const;
+    expect(() => impedanceSweepWithValuesInto(t, Float64Array.of(1, Infinity), f, ...out())).toThrow(RangeError);
+    expect(() => impedanceSweepWithValuesInto(t, Float64Array.of(1), f, ...out())).toThrow(RangeError);
   });
 });
