@@ -68,7 +68,7 @@ export function bandRuleOf(part: Part, within: number): BandRule | undefined {
  * operating temperatures, also at the corners of its spread.
  */
 export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number, operating?: TemperatureRange): PartAnalysis {
-  const frequencies = logSweep(sweep);
+  const frequencies = sweepFrequencies(sweep);
   const z = impedanceSweep(part.network, frequencies);
   const resolved = resolvedSweep(part.network, frequencies, z);
   const resonances = selfResonances(part.network, resolved);
@@ -105,6 +105,19 @@ export function analysePart(part: Part, sweep: SweepSpec, defaultWithin: number,
     peakQuality: reactanceSign ? peakQuality(part.network, resolved, reactanceSign) : undefined,
     corners: operating ? partCorners(part, operating, frequencies, bandRule, wanted) : null,
   };
+}
+
+/**
+ * The sweep's frequencies, made once for the last sweep asked for: every part of a library has the same, and
+ * sharing the array also shares its ω = 2πf (impedance.ts). Never written to: every record reads it.
+ */
+let lastSweep: { spec: SweepSpec; frequencies: Float64Array } | undefined;
+function sweepFrequencies(spec: SweepSpec): Float64Array {
+  const last = lastSweep;
+  if (last && last.spec.fromHz === spec.fromHz && last.spec.toHz === spec.toHz && last.spec.perDecade === spec.perDecade) return last.frequencies;
+  const frequencies = logSweep(spec);
+  lastSweep = { spec: { fromHz: spec.fromHz, toHz: spec.toHz, perDecade: spec.perDecade }, frequencies };
+  return frequencies;
 }
 
 /** The value of a part in its own terms at each point (see PartAnalysis.decadeEffective). */
