@@ -64,7 +64,10 @@ function otherTemplates(): string[] {
 }
 
 async function renderRun(outDir: string, folio: FolioData | (FolioHeader & Pick<FolioData, 'partPages'>), partPagesOnly: boolean): Promise<number> {
-  const eleventy = new Eleventy(TEMPLATES_DIR, outDir, {
+  // The templates by their path from the current folder: given as an absolute path outside it, eleventy's file
+  // search starts at the file system's root and reads every folder above the current one on the way (the
+  // library's parent folder, whatever its size, for each run); from "../" paths it starts at their common folder.
+  const eleventy = new Eleventy(relative(process.cwd(), TEMPLATES_DIR) || '.', outDir, {
     configPath: join(PACKAGE_ROOT, '.eleventy.js'),
     quietMode: true,
     config(config) {
