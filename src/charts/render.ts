@@ -20,6 +20,7 @@ import { sceneSvg } from './svg-scene.js';
 import { installTextMetrics } from './text-metrics.js';
 import { COMPARED_ROWS, keyedItems, sameValue, type AxisKeys, type VegaOrderSpec } from './render-order.js';
 import { vegaSpecOf } from './vega-specs.js';
+import { cleaningView } from './cleaning-view.js';
 
 export type { ChartText } from './svg-finish.js';
 
@@ -143,7 +144,7 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
     const { sources: keyed, axes } = keyedItems(vg as VegaOrderSpec, datasets, [...emptied], def.name);
     const runtime = parse(vg);
     const now = { params: new Map(params.map((p) => [p.name, p.value])), rows: new Map<string, Row[]>() };
-    c = { spec, sources: new Set(namedData(spec)), runtime, view: new View(runtime, { renderer: 'none' }), datasets, params, emptied, keyed, axes, filled: new Set(), now, queue: Promise.resolve() };
+    c = { spec, sources: new Set(namedData(spec)), runtime, view: cleaningView(runtime), datasets, params, emptied, keyed, axes, filled: new Set(), now, queue: Promise.resolve() };
     compiled.set(def.name, c);
     counter(def.name).compiles++;
   }
