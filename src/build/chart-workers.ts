@@ -20,6 +20,15 @@ export const PARTS_PER_WORKER_START = 40;
 /** Worker threads when none are asked for: one per core, at most four. */
 export const defaultWorkerCount = () => Math.min(availableParallelism(), 4);
 
+/**
+ * A chart worker's young generation: 96 MB (32 MB semi-spaces) instead of V8's 48. A worker allocates
+ * much that dies within a part (rows, scene items, strings), and the larger young generation copies less of
+ * it: one worker drawing 430 parts took 9.2 to 9.5 s of process CPU against 10.3 to 10.8 s with the
+ * default (three pairs run side by side, load 14 to 18), and 8.0 and 8.8 s against 8.9 and 9.3 s with
+ * 192 MB (two pairs).
+ */
+export const WORKER_LIMITS = { maxYoungGenerationSizeMb: 96 };
+
 /** A started worker, and the error it failed with before anyone listened (its start failed). */
 export interface StartedWorker {
   worker: Worker;
@@ -33,11 +42,11 @@ export interface StartedWorker {
  */
 function typescriptWorker(file: string): Worker {
   const boot = `import('tsx/esm/api').then((tsx) => { tsx.register(); return import(${JSON.stringify(pathToFileURL(file).href)}); })`;
-  return new Worker(boot, { eval: true });
+  return new Worker(boot, { eval: true, resourceLimits: WORKER_LIMITS });
 }
 
 export function startChartWorker(): StartedWorker {
-  const worker = RUNNING_TYPESCRIPT ? typescriptWorker(join(HERE, 'chart-worker.ts')) : new Worker(join(HERE, 'chart-worker.js'));
+  const worker = RUNNING_TYPESCRIPT ? typescriptWorker(join(HERE, 'chart-worker.ts')) : new Worker(join(HERE, 'chart-worker.js'), { resourceLimits: WORKER_LIMITS });
   const started: StartedWorker = { worker };
   // Until the pool listens: an error here would otherwise end the process.
   worker.once('error', (error) => (started.failure = error));

@@ -4,8 +4,9 @@
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { Worker } from 'node:worker_threads';
 import { afterAll, describe, expect, it } from 'vitest';
-import { earlyChartWorkers, PARTS_PER_WORKER_START, type StartedWorker } from '../../src/build/chart-workers.js';
+import { earlyChartWorkers, PARTS_PER_WORKER_START, WORKER_LIMITS, type StartedWorker } from '../../src/build/chart-workers.js';
 import { ChartPool } from '../../src/build/chart-pool.js';
 import type { Part } from '../../src/model/part.js';
 import { analysed, resistorPart } from '../charts/fixtures.js';
@@ -30,6 +31,14 @@ describe('chart workers started early', () => {
   it('are started for a library of enough part files, at any depth, with no cache', async () => {
     const started = earlyChartWorkers({ libraryRoot: library('many', PARTS_PER_WORKER_START), workers: 1 });
     expect(started).toHaveLength(1);
+    // The worker's own heap has the young generation asked for (Node reports the isolate's limits).
+    await new Promise((resolve) => started[0].worker.once('online', resolve));
+    expect(started[0].worker.resourceLimits?.maxYoungGenerationSizeMb).toBe(WORKER_LIMITS.maxYoungGenerationSizeMb);
+    // Larger than V8's default, as Node reports it for a worker started without limits.
+    const plain = new Worker('', { eval: true });
+    await new Promise((resolve) => plain.once('online', resolve));
+    expect(WORKER_LIMITS.maxYoungGenerationSizeMb).toBeGreaterThan(plain.resourceLimits!.maxYoungGenerationSizeMb!);
+    await plain.terminate();
     await stop(started);
   }, 60_000);
 
