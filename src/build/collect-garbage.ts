@@ -1,5 +1,6 @@
-// A full garbage collection on request, for the place a build knows a large amount of memory has just
-// become garbage: between eleventy runs of part pages (chart workers no longer ask: chart-worker.ts).
+// A full garbage collection on request: between eleventy runs of part pages, where a build knows a large
+// amount of memory has just become garbage, and in a chart worker whose heap has grown past a bound
+// (COLLECT_ABOVE_BYTES, chart-worker.ts).
 //
 // V8 collects only when its heap has grown, and lets it grow while the process has memory to spare, so a
 // long build's threads held hundreds of megabytes of garbage each: the main heap of a 10,000-part build
