@@ -17,6 +17,7 @@ import { buildPageRuns, type PartPageRuns } from './part-page-runs.js';
 import { writeSharedFiles } from './shared-files.js';
 import { checkWritable, stageOutput, writeFileDeep, type SwapStep } from './output.js';
 import { guardOutput } from './output-guard.js';
+import { lockSiteChecked } from './site-lock.js';
 import type { FolioData } from '../pages/site-data.js';
 import type { PrintedFile } from '../print/print.js';
 import type { PrintBrowser } from '../print/browser.js';
@@ -113,7 +114,6 @@ export interface BuildResult {
 }
 
 export type { BuildTimings, StageTime } from './stage-clock.js';
-
 export const DEFAULT_OUT_DIR = '_site';
 /** Under the library; listed in .gitignore. */
 export const CACHE_DIR = '.zfolio-cache';
@@ -127,15 +127,20 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   // Units are carried over only when charts come from the cache-keyed pool. With a record of the version at the
   // site path, this build keeps that version as it is (the next one's spare): see checkWritable.
   const recordAt = cacheRoot && !options.charts ? recordDir(cacheRoot, outDir) : undefined;
-  const record = recordAt ? readSiteRecord(recordAt, outDir) : undefined;
-  checkWritable(outDir, { keptAsSpare: record?.live !== undefined && currentVersion(outDir) === record.live.name });
-  // A cold build of many parts starts its chart workers now, to load beside the reading (chart-workers.ts).
-  const early = options.charts ? [] : earlyChartWorkers({ libraryRoot: started.libraryRoot, cacheRoot, recordDir: cacheRoot && recordDir(cacheRoot, outDir), workers: options.workers });
+  // One build of a site at a time (site-lock.ts): the record read and the output checked before the lock and under it.
+  const { lock, checked: record } = lockSiteChecked(outDir, () => {
+    const record = recordAt ? readSiteRecord(recordAt, outDir) : undefined;
+    checkWritable(outDir, { keptAsSpare: record?.live !== undefined && currentVersion(outDir) === record.live.name });
+    return record;
+  });
+  let early: StartedWorker[] = [];
   try {
+    // A cold build of many parts starts its chart workers now, to load beside the reading (chart-workers.ts).
+    early = options.charts ? [] : earlyChartWorkers({ libraryRoot: started.libraryRoot, cacheRoot, recordDir: cacheRoot && recordDir(cacheRoot, outDir), workers: options.workers });
     return await loadAndBuild(options, outDir, { ...started, cacheRoot, early, recordAt, record });
   } finally {
-    // Those the chart pool did not take (the library had errors, or fewer parts to draw).
-    for (const w of early) void w.worker.terminate();
+    for (const w of early) void w.worker.terminate(); // those the chart pool did not take (errors, or few parts to draw)
+    lock.release();
   }
 }
 
