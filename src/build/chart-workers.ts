@@ -10,6 +10,7 @@ import { availableParallelism } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import { slowerTierUp } from './tier-up.js';
 
 const HERE = dirname(fileURLToPath(import.meta.url));
 const RUNNING_TYPESCRIPT = import.meta.url.endsWith('.ts');
@@ -46,6 +47,8 @@ function typescriptWorker(file: string): Worker {
 }
 
 export function startChartWorker(): StartedWorker {
+  // Before the worker's isolate is made, which reads V8's flags then (tier-up.ts).
+  slowerTierUp();
   const worker = RUNNING_TYPESCRIPT ? typescriptWorker(join(HERE, 'chart-worker.ts')) : new Worker(join(HERE, 'chart-worker.js'), { resourceLimits: WORKER_LIMITS });
   const started: StartedWorker = { worker };
   // Until the pool listens: an error here would otherwise end the process.
