@@ -135,7 +135,7 @@ export async function buildFolio(options: BuildOptions): Promise<BuildResult> {
   });
   let early: StartedWorker[] = [];
   try {
-    // A cold build of many parts starts its chart workers now, to load beside the reading (chart-workers.ts).
+    // A cold build of many parts starts its chart workers now, to load beside the reading; V8 tiers up later (chart-workers.ts).
     early = options.charts ? [] : earlyChartWorkers({ libraryRoot: started.libraryRoot, cacheRoot, recordDir: cacheRoot && recordDir(cacheRoot, outDir), workers: options.workers });
     return await loadAndBuild(options, outDir, { ...started, cacheRoot, early, recordAt, record });
   } finally {

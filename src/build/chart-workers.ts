@@ -72,8 +72,12 @@ export interface EarlyStart {
  * and the library has at least PARTS_PER_WORKER_START part files. Any other build starts its workers once
  * it knows how many parts it draws (a rebuild after an edit draws one, and starts none). The chart pool
  * takes these over; the caller stops those it did not take.
+ *
+ * A build calls this as it starts, so V8's interrupt budget is raised here first for every build, whether it
+ * starts workers now, later or never (tier-up.ts: a rebuild after one edit took about a tenth less CPU too).
  */
 export function earlyChartWorkers(start: EarlyStart): StartedWorker[] {
+  slowerTierUp();
   if (start.workers === 0) return [];
   if (start.recordDir && existsSync(start.recordDir)) return [];
   if (start.cacheRoot && !emptyFolder(join(start.cacheRoot, 'charts'))) return [];
