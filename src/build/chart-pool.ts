@@ -57,6 +57,9 @@ export function compactCharts<T extends DrawnChart>(charts: T[]): T[] {
   return charts.map((c) => (/[^\u0000-\u00ff]/.test(c.svg) ? c : { ...c, svg: Buffer.from(c.svg, 'latin1').toString('latin1') }));
 }
 /** The chart pool of a library's build: its sweep, band and temperature settings are part of every key. */
+/** A part file's content hash as source.ts makes it: 16 hex digits of its SHA-256. */
+const CONTENT_HASH = /^[0-9a-f]{16}$/;
+
 export function libraryChartPool(settings: Pick<FolioSettings, 'sweep' | 'within' | 'temperature'>, options: Omit<ChartPoolOptions, 'settingsKey'>): ChartPool {
   const { sweep, within, temperature } = settings;
   // The operating temperatures set every part's and rail's spread envelope.
@@ -91,7 +94,7 @@ export class ChartPool implements ChartMaker {
   }
 
   async partCharts(a: PartAnalysis, downloads?: DownloadPlace, svgFile?: string): Promise<DrawnChart[]> {
-    const key = this.key('part', a.part.source.hash);
+    const key = this.partKey(a.part.source.hash);
     // The job is made (and the part analysed) only when a worker is about to take it; the worker that draws
     // the charts writes the downloads and the SVGs' file and answers without the specs (and the SVGs). Charts
     // from the cache have their downloads written here, and their entry linked as the SVGs' file.
@@ -111,7 +114,7 @@ export class ChartPool implements ChartMaker {
 
   /** Keep a part's cached charts through this build's pruning without reading them (its page is reused). */
   keepPartCharts(a: Pick<PartAnalysis, 'part'>): void {
-    this.usedKeys.add(this.key('part', a.part.source.hash));
+    this.usedKeys.add(this.partKey(a.part.source.hash));
   }
 
   /** Keep a comparison's cached chart through this build's pruning without reading it (its page is kept). */
@@ -168,6 +171,21 @@ export class ChartPool implements ChartMaker {
 
   private key(...parts: string[]): string {
     return sha256Hex([this.fingerprint, `chart file ${CHART_FILE_FORMAT}`, this.options.settingsKey, ...parts].join('\n')).slice(0, 32);
+  }
+
+  /** The first half of every part's charts' key: what they share, hashed once a build (see partKey). */
+  private partKeyPrefix?: string;
+
+  /**
+   * A part's charts' key: 16 hex digits of a hash of what every part's shares (the code, the entry format,
+   * the settings), then the part file's content hash, 16 hex digits of SHA-256 already (source.ts). A rebuild
+   * keys every part it carries over, to keep its charts through the pruning: 10,000 hashes of the whole text
+   * otherwise. A content hash of another form (none a library gives) is hashed with the rest, as other keys are.
+   */
+  private partKey(contentHash: string): string {
+    if (!CONTENT_HASH.test(contentHash)) return this.key('part', contentHash);
+    this.partKeyPrefix ??= this.key('part').slice(0, 16);
+    return this.partKeyPrefix + contentHash;
   }
 
   /**

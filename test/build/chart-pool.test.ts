@@ -5,6 +5,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import type { PartAnalysis } from '../../src/analysis/part-figures.js';
 import { ChartPool, compactCharts } from '../../src/build/chart-pool.js';
 import { serialize } from 'node:v8';
+import { readdirSync, rmSync } from 'node:fs';
+import { tempDir } from '../site-helpers.js';
 import { renderPartCharts } from '../../src/charts/part-charts.js';
 import { chartInput } from '../../src/build/chart-jobs.js';
 import type { Part } from '../../src/model/part.js';
@@ -96,4 +98,40 @@ describe('charts kept one byte a character', () => {
     const wide = { ...artifacts[0], svg: '<svg><text>10 \u03a9</text></svg>' };
     expect(compactCharts([wide])[0]).toBe(wide);
   });
+});
+
+describe('a part\'s charts kept through the pruning', () => {
+  const cacheDir = tempDir('chart-keys');
+  afterAll(() => rmSync(cacheDir, { recursive: true, force: true }));
+  // Content hashes as source.ts makes them (16 hex digits), two differing in one digit, and one of another form.
+  const parts = ['0123456789abcdef', '0123456789abcdee', 'h-other-form'].map((hash, i) => ({ ...resistorPart, id: `K-${i}`, source: { path: `k${i}.yaml`, hash } }) as unknown as Part);
+  const entries = () => readdirSync(cacheDir).sort();
+  const keeping = async (settingsKey: string, kept: readonly Part[]) => {
+    const pool = new ChartPool({ workers: 0, settingsKey, cacheDir });
+    for (const part of kept) pool.keepPartCharts({ part });
+    await pool.close();
+    return entries();
+  };
+
+  it('keeps the entry a part\'s charts were drawn into, under the same settings only', async () => {
+    const drawing = new ChartPool({ workers: 0, settingsKey: 'settings A', cacheDir });
+    for (const part of parts) await drawing.partCharts(analysed(part));
+    await drawing.close();
+    const all = entries();
+    // One entry a part, each named by a key of its own (32 characters and the entry's extension).
+    expect(all).toHaveLength(3);
+    expect(new Set(all.map((name) => name.slice(0, 32))).size).toBe(3);
+    // A build that carries every part over keeps every entry; one that carries two keeps theirs.
+    expect(await keeping('settings A', parts)).toEqual(all);
+    const kept = await keeping('settings A', [parts[0], parts[2]]);
+    expect(kept).toHaveLength(2);
+    // The part file whose content hash differs in one digit was the one dropped.
+    const again = new ChartPool({ workers: 0, settingsKey: 'settings A', cacheDir });
+    for (const part of parts) await again.partCharts(analysed(part));
+    await again.close();
+    expect(again.stats.fromCache).toBe(2);
+    expect(entries()).toEqual(all);
+    // Under other settings no entry is the part's: the pruning drops them all.
+    expect(await keeping('settings B', parts)).toEqual([]);
+  }, 120_000);
 });
