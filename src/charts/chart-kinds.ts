@@ -9,7 +9,7 @@ import { MEASUREMENT_CHARTS } from './measurement-charts.js';
 import { PART_CHARTS } from './part-charts.js';
 import { railChart } from './rail-chart.js';
 import { drawnSpec, type ChartDefinition } from './render.js';
-import { chartSpecTable } from './vega-specs.js';
+import { chartSpecTable } from './vega-compile.js';
 
 export const CHART_KINDS: readonly ChartDefinition<never>[] = [
   ...Object.values(PART_CHARTS),

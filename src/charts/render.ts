@@ -19,7 +19,7 @@ import { finishSvg, type ChartText } from './svg-finish.js';
 import { sceneSvg } from './svg-scene.js';
 import { installTextMetrics } from './text-metrics.js';
 import { COMPARED_ROWS, keyedItems, sameValue, type AxisKeys, type VegaOrderSpec } from './render-order.js';
-import { vegaSpecOf } from './vega-specs.js';
+import { compilerLoaded, inSpecTable, loadCompiler, vegaSpecOf } from './vega-specs.js';
 import { cleaningView } from './cleaning-view.js';
 
 export type { ChartText } from './svg-finish.js';
@@ -190,6 +190,8 @@ function namedData(spec: TopLevelSpec): string[] {
 
 /** Render one chart of a kind. */
 export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartText): Promise<ChartOutput> {
+  // A kind whose spec the table of compiled specs lacks is compiled by vega-lite, loaded only then (vega-specs.ts).
+  if (!compiled.has(def.name) && !compilerLoaded() && !inSpecTable(drawnSpec(def).drawn)) return loadCompiler().then(() => renderChart(def, input, text));
   const c = compiledOf(def);
   const binding = def.bind(input);
   const unknown = Object.keys(binding.datasets).filter((name) => !c.sources.has(name));

@@ -4,51 +4,72 @@
 // of a cold build.
 //
 // `npm run build:ts` (and install) runs scripts/compile-chart-specs.mjs, which writes dist/charts/vega-specs.json
-// from `chartSpecTable`: each spec under a key made of vega-lite's version and the vega-lite spec's own JSON.
-// A spec is looked up by the same key, so a table made by another version of vega-lite or of a chart's spec
-// (the TypeScript sources under test, a dist/ older than its sources) is never used for it: the spec is
-// compiled here instead, as it always was.
+// from `chartSpecTable` (vega-compile.ts): each spec under a key made of vega-lite's version and the vega-lite
+// spec's own JSON. A spec is looked up by the same key, so a table made by another version of vega-lite or of a
+// chart's spec (the TypeScript sources under test, a dist/ older than its sources) is never used for it: the
+// spec is compiled instead, as it always was. vega-lite itself is loaded only then (`loadCompiler`): loading it
+// took about 55 ms of CPU in each process and chart worker that draws (after vega; five runs, load about 4),
+// and its version is read from its package.json.
 
 import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
 import type { Spec as VegaSpec } from 'vega';
-import { compile, version as vegaLiteVersion, type TopLevelSpec } from 'vega-lite';
+import type { TopLevelSpec } from 'vega-lite';
 import { sha256Hex } from '../model/sha256.js';
 
 /** Where the table is: beside this module in dist/ (there is none beside the TypeScript source). */
 const TABLE = new URL('./vega-specs.json', import.meta.url);
 
+/** The installed vega-lite's version: its package.json, the nearest above the module it resolves to. */
+export const vegaLiteVersion: string = (() => {
+  let dir = dirname(createRequire(import.meta.url).resolve('vega-lite'));
+  for (let i = 0; i < 4; i++, dir = dirname(dir)) {
+    try {
+      const found = JSON.parse(readFileSync(join(dir, 'package.json'), 'utf8')) as { name?: string; version?: string };
+      if (found.name === 'vega-lite' && found.version) return found.version;
+    } catch {
+      // No package.json in this folder: the one above.
+    }
+  }
+  throw new Error('zfolio: cannot find vega-lite’s package.json');
+})();
+
 let table: Record<string, VegaSpec> | null | undefined;
-let compiles = 0;
+let compiler: typeof import('./vega-compile.js') | undefined;
 
 /** The key of a vega-lite spec: what its compiled vega spec depends on. */
 export function specKey(spec: TopLevelSpec): string {
   return sha256Hex(`vega-lite ${vegaLiteVersion}\n${JSON.stringify(spec)}`);
 }
 
-/** vega-lite's compile of `spec`; a warning is a defect in a chart definition (the chart tests find it). */
-export function compileSpec(spec: TopLevelSpec, name: string): VegaSpec {
-  const warnings: string[] = [];
-  const vg = compile(spec, { logger: collectingLogger(warnings) }).spec as VegaSpec;
-  if (warnings.length > 0) throw new Error(`chart "${name}": vega-lite warns: ${warnings.join('; ')}`);
-  compiles++;
-  return vg;
+/** Whether the table holds this vega-lite spec's vega spec. */
+export function inSpecTable(spec: TopLevelSpec): boolean {
+  return precompiled()?.[specKey(spec)] !== undefined;
 }
 
-/** The vega spec of a chart kind's vega-lite spec: from the table when it holds this spec, else compiled. */
+/** Whether vega-lite is loaded to compile specs the table does not hold. */
+export const compilerLoaded = () => compiler !== undefined;
+
+/** Load vega-lite, for a spec the table does not hold. */
+export async function loadCompiler(): Promise<void> {
+  compiler ??= await import('./vega-compile.js');
+}
+
+/**
+ * The vega spec of a chart kind's vega-lite spec: from the table when it holds this spec, else compiled by
+ * vega-lite, which must be loaded first (`loadCompiler`).
+ */
 export function vegaSpecOf(spec: TopLevelSpec, name: string): VegaSpec {
   const found = precompiled()?.[specKey(spec)];
   // A copy: the table's object is shared by every kind, and what uses a spec may write into it.
-  return found ? structuredClone(found) : compileSpec(spec, name);
+  if (found) return structuredClone(found);
+  if (!compiler) throw new Error(`chart "${name}": its spec is not in the table of compiled specs, and vega-lite is not loaded`);
+  return compiler.compileSpec(spec, name);
 }
 
 /** How many specs this process compiled (tests check that a table hit compiles none). */
-export const specCompiles = () => compiles;
-
-/** The table for these vega-lite specs (a chart kind's, as drawn: render.ts `drawnSpec`), keys sorted. */
-export function chartSpecTable(specs: readonly { name: string; spec: TopLevelSpec }[]): Record<string, VegaSpec> {
-  const entries = specs.map((s) => [specKey(s.spec), compileSpec(s.spec, s.name)] as const);
-  return Object.fromEntries(entries.sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)));
-}
+export const specCompiles = () => compiler?.specCompiles() ?? 0;
 
 /** Use `from` as the table instead of the file (null: none), for tests. */
 export function useSpecTable(from: Record<string, VegaSpec> | null): void {
@@ -64,15 +85,4 @@ function precompiled(): Record<string, VegaSpec> | null {
     }
   }
   return table;
-}
-
-function collectingLogger(into: string[]) {
-  const logger = {
-    level: () => logger,
-    error: (...args: unknown[]) => void into.push(args.join(' ')),
-    warn: (...args: unknown[]) => void into.push(args.join(' ')),
-    info: () => logger,
-    debug: () => logger,
-  };
-  return logger as never;
 }

@@ -64,4 +64,12 @@ describe('the modules a build loads before it draws', () => {
     expect(worker.packages.has('vega')).toBe(true);
     expect(worker.modules.has(join(SRC, 'build', 'chart-draw.ts'))).toBe(true);
   });
+
+  it('leave vega-lite out of a chart worker and of drawing in this thread', () => {
+    // vega-lite compiles only a spec the table of compiled specs lacks (charts/vega-specs.ts loads it then).
+    for (const entry of ['build/chart-worker.ts', 'build/chart-draw.ts']) {
+      const { packages: loaded } = reached(join(SRC, entry));
+      expect(loaded.get('vega-lite'), entry).toBeUndefined();
+    }
+  });
 });

@@ -5,14 +5,14 @@
 
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { compile } from 'vega-lite';
+import { compile, version } from 'vega-lite';
 import { afterAll, describe, expect, it } from 'vitest';
 import { CHART_KINDS, chartKindsSpecTable } from '../../src/charts/chart-kinds.js';
 import { renderComparisonChart } from '../../src/charts/comparison-chart.js';
 import { PART_CHART_KINDS, renderPartCharts } from '../../src/charts/part-charts.js';
 import { renderRailChart } from '../../src/charts/rail-chart.js';
 import { drawnSpec, resetChartCache } from '../../src/charts/render.js';
-import { specCompiles, specKey, useSpecTable } from '../../src/charts/vega-specs.js';
+import { specCompiles, specKey, useSpecTable, vegaLiteVersion } from '../../src/charts/vega-specs.js';
 import { REPO } from '../site-helpers.js';
 import { ALL_PARTS, analysed, demoRail } from './fixtures.js';
 
@@ -37,6 +37,11 @@ afterAll(() => {
 });
 
 describe('the table of compiled chart specs', () => {
+  it('is keyed by the version vega-lite itself reports, read without loading it', () => {
+    expect(vegaLiteVersion).toBe(version);
+    expect(vegaLiteVersion).toMatch(/^\d+\.\d+\.\d+/);
+  });
+
   it('holds, for every chart kind, what vega-lite compiles from the spec vega draws', () => {
     expect(Object.keys(table)).toHaveLength(CHART_KINDS.length);
     for (const def of CHART_KINDS) {
