@@ -56,10 +56,10 @@ export interface ChartPoolStats {
 export function compactCharts<T extends DrawnChart>(charts: T[]): T[] {
   return charts.map((c) => (/[^\u0000-\u00ff]/.test(c.svg) ? c : { ...c, svg: Buffer.from(c.svg, 'latin1').toString('latin1') }));
 }
-/** The chart pool of a library's build: its sweep, band and temperature settings are part of every key. */
 /** A part file's content hash as source.ts makes it: 16 hex digits of its SHA-256. */
 const CONTENT_HASH = /^[0-9a-f]{16}$/;
 
+/** The chart pool of a library's build: its sweep, band and temperature settings are part of every key. */
 export function libraryChartPool(settings: Pick<FolioSettings, 'sweep' | 'within' | 'temperature'>, options: Omit<ChartPoolOptions, 'settingsKey'>): ChartPool {
   const { sweep, within, temperature } = settings;
   // The operating temperatures set every part's and rail's spread envelope.
