@@ -10,7 +10,7 @@ import { existsSync, mkdirSync, readdirSync, readFileSync, readlinkSync, rmSync,
 import { hostname } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, onTestFinished } from 'vitest';
 import { buildFolio } from '../../src/build/build.js';
 import { OutputRefused } from '../../src/build/output-guard.js';
 import { LOCK_NAME, lockSite, processStart, type LockHolder } from '../../src/build/site-lock.js';
@@ -51,6 +51,10 @@ describe('a build of a site another build is writing', () => {
     let said = '';
     child.stdout.on('data', (chunk) => (said += chunk));
     const ended = new Promise<number | null>((done) => child.on('exit', done));
+    // However this test ends, the held build is let go (its stdin closed) rather than left waiting.
+    onTestFinished(() => {
+      child.stdin.end();
+    });
     await new Promise<void>((done, fail) => {
       const poll = setInterval(() => {
         if (said.includes('paused')) done(clearInterval(poll));
@@ -72,7 +76,7 @@ describe('a build of a site another build is writing', () => {
     );
     expect(diskSnapshot(root)).toEqual(before);
 
-    child.stdin.end('\n');
+    child.stdin.write('\n');
     expect(await ended).toBe(0);
     expect(said).toBe('paused\nbuilt\n');
     expect(readFileSync(join(site, 'parts', 'CAP-TEST-100N', 'index.html'), 'utf8')).toContain('Held build (invented)');
