@@ -19,7 +19,7 @@ import { copyLibrary, diskSnapshot, REPO, tempDir } from '../site-helpers.js';
 import { run } from '../cli/fake-io.js';
 
 const GOOD = join(REPO, 'test/fixtures/good-library');
-const PAUSED = fileURLToPath(new URL('./scripts/build-paused.mjs', import.meta.url));
+const SCRIPT = fileURLToPath(new URL('./scripts/build-until.mjs', import.meta.url));
 
 const lockOf = (root: string) => join(root, '._site.zfolio', LOCK_NAME);
 const build = (root: string) => buildFolio({ libraryRoot: root, outDir: join(root, '_site'), cwd: root, workers: 0 });
@@ -47,7 +47,7 @@ describe('a build of a site another build is writing', () => {
     expect((await build(root)).ok).toBe(true);
     writeFileSync(join(root, 'parts', 'capacitor.yaml'), readFileSync(join(root, 'parts', 'capacitor.yaml'), 'utf8').replace(/^title: .*$/m, 'title: Held build (invented)'));
 
-    const child = spawn(process.execPath, [PAUSED, root, site, 'staged'], { cwd: REPO, stdio: ['pipe', 'pipe', 'inherit'] });
+    const child = spawn(process.execPath, [SCRIPT, root, site, 'staged', 'pause'], { cwd: REPO, stdio: ['pipe', 'pipe', 'inherit'] });
     let said = '';
     child.stdout.on('data', (chunk) => (said += chunk));
     const ended = new Promise<number | null>((done) => child.on('exit', done));
