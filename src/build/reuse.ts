@@ -12,28 +12,12 @@ import type { Part } from '../model/part.js';
 import { measurementInputs } from '../model/measurement-entry.js';
 import { PACKAGE_ROOT, VERSION } from '../version.js';
 import { sha256Hex } from '../model/sha256.js';
+import { installedVersion } from '../charts/package-version.js';
 
 const SOURCE_DIR = dirname(dirname(fileURLToPath(import.meta.url)));
 
 /** Packages whose output lands in the pages, by version (their code is not hashed file by file). */
 const RENDERING_PACKAGES = ['@11ty/eleventy', 'nunjucks', 'vega', 'vega-lite', 'vega-scenegraph', 'markdown-it'];
-
-function packageVersion(name: string): string {
-  try {
-    let dir = dirname(fileURLToPath(import.meta.resolve(name)));
-    for (let i = 0; i < 6; i++, dir = dirname(dir)) {
-      try {
-        const pkg = JSON.parse(readFileSync(join(dir, 'package.json'), 'utf8')) as { name?: string; version?: string };
-        if (pkg.name === name) return pkg.version ?? '?';
-      } catch {
-        // no package.json at this level
-      }
-    }
-  } catch {
-    // not installed: a version of its own, so the key still differs from one made with it
-  }
-  return 'absent';
-}
 
 function hashTree(hash: ReturnType<typeof createHash>, dir: string, base: string): void {
   for (const entry of readdirSync(dir, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0))) {
@@ -53,7 +37,8 @@ let codeKeyMemo: string | undefined;
 export function codeKey(): string {
   if (codeKeyMemo) return codeKeyMemo;
   const hash = createHash('sha256').update(`zfolio ${VERSION}\nnode ${process.version}\n`);
-  for (const name of RENDERING_PACKAGES) hash.update(`${name} ${packageVersion(name)}\n`);
+  // A package not installed gets a version of its own, so the key still differs from one made with it.
+  for (const name of RENDERING_PACKAGES) hash.update(`${name} ${installedVersion(name) ?? 'absent'}\n`);
   hashTree(hash, SOURCE_DIR, 'src/');
   hashTree(hash, join(PACKAGE_ROOT, 'templates'), 'templates/');
   try {

@@ -12,28 +12,22 @@
 // and its version is read from its package.json.
 
 import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { dirname, join } from 'node:path';
 import type { Spec as VegaSpec } from 'vega';
 import type { TopLevelSpec } from 'vega-lite';
 import { sha256Hex } from '../model/sha256.js';
+import { installedVersion } from './package-version.js';
 
 /** Where the table is: beside this module in dist/ (there is none beside the TypeScript source). */
 const TABLE = new URL('./vega-specs.json', import.meta.url);
 
-/** The installed vega-lite's version: its package.json, the nearest above the module it resolves to. */
-export const vegaLiteVersion: string = (() => {
-  let dir = dirname(createRequire(import.meta.url).resolve('vega-lite'));
-  for (let i = 0; i < 4; i++, dir = dirname(dir)) {
-    try {
-      const found = JSON.parse(readFileSync(join(dir, 'package.json'), 'utf8')) as { name?: string; version?: string };
-      if (found.name === 'vega-lite' && found.version) return found.version;
-    } catch {
-      // No package.json in this folder: the one above.
-    }
-  }
-  throw new Error('zfolio: cannot find vega-lite’s package.json');
-})();
+/** The installed vega-lite's version (from its package.json: vega-lite itself is not loaded to read it). */
+export const vegaLiteVersion: string = requiredVersion('vega-lite');
+
+function requiredVersion(name: string): string {
+  const found = installedVersion(name);
+  if (found === undefined) throw new Error(`zfolio: cannot find ${name}’s package.json`);
+  return found;
+}
 
 let table: Record<string, VegaSpec> | null | undefined;
 let compiler: typeof import('./vega-compile.js') | undefined;
