@@ -17,17 +17,21 @@ const parts = ALL_PARTS.map((p) => analysed(p));
 
 describe('compile once, render many', () => {
   it('compiles and parses a chart kind once for 50 charts', async () => {
+    // The counts are the process's: other test files of this fork may have compiled the kind before (and
+    // reset the cache, see vega-specs.test.ts), so the test counts what its own charts add.
+    resetChartCache();
+    const start = chartStats().impedance ?? { compiles: 0, renders: 0 };
     await renderPartChart('impedance', parts[0]);
     const before = chartStats().impedance;
+    expect(before.compiles - start.compiles).toBe(1);
     for (let k = 0; k < 50; k++) await renderPartChart('impedance', parts[k % parts.length]);
     const after = chartStats().impedance;
-    expect(after.compiles).toBe(1);
-    expect(before.compiles).toBe(1);
+    expect(after.compiles).toBe(before.compiles);
     expect(after.renders - before.renders).toBe(50);
     // The counter does count: a reset forces one more compile.
     resetChartCache();
     await renderPartChart('impedance', parts[0]);
-    expect(chartStats().impedance.compiles).toBe(2);
+    expect(chartStats().impedance.compiles).toBe(after.compiles + 1);
   });
 });
 
