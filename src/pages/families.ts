@@ -7,7 +7,7 @@
 import { NOMINAL_DIMENSION, type Part, type PartKind } from '../model/part.js';
 import { pageName } from '../model/page-names.js';
 import { kindPlural } from '../present/kinds.js';
-import { ratingText } from '../present/part-words.js';
+import { ratingTexts } from '../present/part-words.js';
 import { formatEng } from '../units/format.js';
 
 /** Most curves on one family's chart: beyond about a dozen, colours and dashes stop telling parts apart. */
@@ -87,15 +87,14 @@ const DIELECTRIC: Facet = {
   phrase: (label) => label,
 };
 
-const RATING: Facet = {
+/** The rating facet, reading each part's rating text from `rating` (ratingText, remembered for one call). */
+const ratingFacet = (rating: (p: Part) => string): Facet => ({
   name: 'rating',
-  key: (p) => ratingText(p),
+  key: rating,
   order: (p) => p.voltageV ?? p.voltageAcV ?? p.currentA ?? p.powerW ?? -1,
-  label: (groups) => listed(groups.map((g) => ratingText(g[0]) || 'no rating'), 'ratings'),
+  label: (groups) => listed(groups.map((g) => rating(g[0]) || 'no rating'), 'ratings'),
   phrase: (label) => `rated ${label}`,
-};
-
-const FACETS: readonly Facet[] = [PACKAGE, DECADE, DIELECTRIC, RATING];
+});
 
 const byValueThenId = (a: Part, b: Part) => (a.nominal ?? -1) - (b.nominal ?? -1) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
 
@@ -183,14 +182,19 @@ function slugPart(text: string): string {
 export function partFamilies(parts: readonly Part[]): PartFamily[] {
   const families: PartFamily[] = [];
   const slugs = new Set<string>();
+  // A part's rating text is read twice (to split by rating, to list a family's ratings), and formatting its
+  // numbers was most of this function's time at 10,000 parts: each distinct rating's text is made once a call.
+  const rating = ratingTexts();
+  const facets: readonly Facet[] = [PACKAGE, DECADE, DIELECTRIC, ratingFacet(rating)];
   for (const kind of KIND_ORDER) {
     const ofKind = parts.filter((p) => p.kind === kind);
     if (ofKind.length === 0) continue;
     const kinds = kindPlural(kind);
-    for (const cut of split(ofKind, FACETS, [])) {
+    for (const cut of split(ofKind, facets, [])) {
       const members = [...cut.parts].sort(byValueThenId);
       const labels = cut.labels.map((l) => l.label);
-      const run = cut.run ? ` (${cut.run.index} of ${cut.run.of}: ${valueRange(members) || 'no values'})` : '';
+      const valuesText = valueRange(members);
+      const run = cut.run ? ` (${cut.run.index} of ${cut.run.of}: ${valuesText || 'no values'})` : '';
       const title = [`${kinds[0].toUpperCase()}${kinds.slice(1)}`, ...labels].join(', ') + run;
       const phrases = cut.labels.map((l) => l.facet.phrase(l.label));
       const selection = [`every ${kind}${phrases.length > 0 ? ' ' : ''}${phrases.join(', ')}`, ...(cut.run ? [`run ${cut.run.index} of ${cut.run.of} in order of value`] : [])].join('; ');
@@ -204,8 +208,8 @@ export function partFamilies(parts: readonly Part[]): PartFamily[] {
         title,
         selection,
         packageText: distinct(members, (p) => p.package, 'packages'),
-        valuesText: valueRange(members),
-        subsetText: [distinct(members, (p) => p.dielectric, 'dielectrics'), distinct(members, (p) => ratingText(p), 'ratings')].filter(Boolean).join('; '),
+        valuesText,
+        subsetText: [distinct(members, (p) => p.dielectric, 'dielectrics'), distinct(members, rating, 'ratings')].filter(Boolean).join('; '),
         parts: members,
       });
     }

@@ -23,6 +23,37 @@ export function ratingText(part: Part): string {
   return parts.join(', ');
 }
 
+/** A node of `ratingTexts`' tree: the next value read leads to the next node, the last to the text. */
+type RatingNode = Map<unknown, RatingNode | string>;
+
+/**
+ * `ratingText` remembered by the values it reads (each voltage rating's volts, kind and whether the kind was
+ * stated, then the current and power ratings), for one pass over many parts: a library's thousands of parts
+ * share a handful of ratings, and formatting the numbers is most of the text's cost. Those values are looked
+ * up in a tree of maps (no text is made to find a text); a value read here that ratingText did not read would
+ * only split a text in two, but one ratingText read and not this would give a part another's text: the two
+ * must read the same fields (test/present/part-words.test.ts compares them over generated parts).
+ */
+export function ratingTexts(): (part: Part) => string {
+  const root: RatingNode = new Map();
+  const step = (node: RatingNode, value: unknown): RatingNode => {
+    let next = node.get(value) as RatingNode | undefined;
+    if (!next) node.set(value, (next = new Map()));
+    return next;
+  };
+  return (part) => {
+    let node = step(root, part.voltageRatings.length);
+    for (const r of part.voltageRatings) node = step(step(step(node, r.volts), r.kind), r.stated);
+    node = step(node, part.currentA);
+    const last = part.powerW;
+    const found = node.get(last);
+    if (typeof found === 'string') return found;
+    const text = ratingText(part);
+    node.set(last, text);
+    return text;
+  };
+}
+
 /** "1 kHz to 3 GHz, 100 points per decade". */
 export function sweepText(a: { fromHz: number; toHz: number; perDecade: number }): string {
   return `${formatEng(a.fromHz, 'frequency')} to ${formatEng(a.toHz, 'frequency')}, ${a.perDecade} points per decade`;

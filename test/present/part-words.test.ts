@@ -5,7 +5,9 @@ import { describe, expect, it } from 'vitest';
 import { loadLibrary } from '../../src/model/library.js';
 import { kindLabel, kindPlural } from '../../src/present/kinds.js';
 import { modelCaption, parameterMeaning } from '../../src/present/model-words.js';
-import { nominalText, ratingText, selectionText, signedPercent, sweepRangeText, sweepText } from '../../src/present/part-words.js';
+import { nominalText, ratingText, ratingTexts, selectionText, signedPercent, sweepRangeText, sweepText } from '../../src/present/part-words.js';
+import type { Part } from '../../src/model/part.js';
+import type { VoltageRating } from '../../src/model/voltage-rating.js';
 import { comparisonSlug, railSlug, reviewSlug } from '../../src/present/slugs.js';
 
 const good = loadLibrary(fileURLToPath(new URL('../fixtures/good-library', import.meta.url))).library!;
@@ -22,6 +24,36 @@ describe('part facts', () => {
     expect(ratingText(part('IND-TEST-10U'))).toBe('1.5 A');
     expect(sweepText({ fromHz: 1e3, toHz: 1e10, perDecade: 50 })).toBe('1 kHz to 10 GHz, 50 points per decade');
     expect(sweepRangeText(1e3, 3e9)).toBe('1 kHz to 3 GHz');
+  });
+
+  it('give each part its own rating text when the texts are remembered by the values they are made of', () => {
+    // Invented ratings, drawn from few values so that most parts share a text with another, and pairs that
+    // differ in one value only (kind, whether the kind was stated, the order of two ratings, a current or a
+    // power added): the remembered text must be the one ratingText makes for that very part.
+    const volts = [6.3, 16, 16.0001, 250, 310];
+    const ratings: VoltageRating[] = volts.flatMap((v) => [
+      { volts: v, kind: 'DC', stated: false },
+      { volts: v, kind: 'DC', stated: true },
+      { volts: v, kind: 'AC', stated: true },
+    ]);
+    let seed = 11;
+    const next = () => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648;
+    const pick = <T>(xs: readonly T[]) => xs[Math.floor(next() * xs.length)];
+    const parts: Part[] = [];
+    for (let i = 0; i < 2000; i++) {
+      const count = pick([0, 1, 1, 1, 2]);
+      const own = Array.from({ length: count }, () => pick(ratings));
+      parts.push({ id: `P-${i}`, voltageRatings: own, currentA: pick([undefined, undefined, 0.5, 1.5, 2]), powerW: pick([undefined, undefined, 0.1, 0.25]) } as unknown as Part);
+    }
+    const [a, b] = [ratings[4], ratings[14]];
+    parts.push(...[[a, b], [b, a]].map((own, i) => ({ id: `Q-${i}`, voltageRatings: own }) as unknown as Part));
+    const remembered = ratingTexts();
+    const texts = parts.map(remembered);
+    expect(texts).toEqual(parts.map(ratingText));
+    // The ratings as written (SI Brochure notation, a kind written out only when stated or AC).
+    expect(texts.slice(-2)).toEqual(['16 V DC, 310 V AC', '310 V AC, 16 V DC']);
+    expect(new Set(texts).size).toBeGreaterThan(50);
+    expect(new Set(texts).size).toBeLessThan(parts.length / 2);
   });
 
   it('sign a deviation with a true minus', () => {
