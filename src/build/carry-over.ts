@@ -13,7 +13,7 @@
 
 import { constants, copyFileSync, linkSync, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, type Dirent } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import { checkSpare } from './writable.js';
+import { checkSpare, PathsByFolder } from './writable.js';
 import { removeStale } from './stale-sweep.js';
 import { asciiJson } from '../model/ascii-text.js';
 import { entryData, entryText, VersionRecord, type SiteRecord, type UnitEntry } from './site-record.js';
@@ -105,8 +105,12 @@ export class SiteUnits {
   assemble(staging: string): void {
     const target = this.target(staging);
     if (target !== staging) {
-      const keptHere = new Set<string>();
-      for (const [unit] of this.record!.spare!.units()) if (this.wanted.get(unit)?.from === 'spare') keptHere.add(unit);
+      const keptHere = new PathsByFolder();
+      const removed: string[] = [];
+      for (const [unit] of this.record!.spare!.units()) {
+        if (this.wanted.get(unit)?.from === 'spare') keptHere.add(unit);
+        else removed.push(unit);
+      }
       // Each folder of the spare is listed once, for the check and for the update (the parts/ folder of a
       // 10,000-part site holds 10,000 entries); the units removed below are skipped in those listings.
       const listings = new Map<string, Dirent[]>();
@@ -117,9 +121,8 @@ export class SiteUnits {
       };
       // Before anything in it changes: a read-only folder there refuses the build, the spare given back as it was.
       checkSpare(this.outDir, { dir: target, shownAs: join(dirname(target), this.record!.spare!.name) }, keptHere, list);
-      const gone = new Set<string>();
-      for (const [unit] of this.record!.spare!.units()) {
-        if (keptHere.has(unit)) continue;
+      const gone = new PathsByFolder();
+      for (const unit of removed) {
         rmSync(join(target, unit), { recursive: true, force: true });
         gone.add(unit);
       }
@@ -138,6 +141,9 @@ export class SiteUnits {
     const base = this.spareDir ? this.record!.spare!.renamed(name) : new VersionRecord(name);
     if (this.spareDir) for (const [unit] of this.record!.spare!.units()) if (!this.wanted.has(unit)) base.delete(unit);
     for (const [unit, w] of this.wanted) {
+      // A unit the spare keeps whose data was not set again is in `base` (the spare's record) as it is: not
+      // looked up (10,000 units after one edit of 10,000 parts).
+      if (w.from === 'spare' && w.data === undefined) continue;
       const before = this.spareDir ? base.get(unit) : undefined;
       if (w.from === 'spare' && before && sameData(before, w)) continue;
       const stamp = w.from === 'spare' && before ? before.stamp : unitStamp(join(target, unit), isFolderUnit(unit));

@@ -5,13 +5,14 @@
 
 import { lstatSync, rmdirSync, rmSync, type Dirent } from 'node:fs';
 import { join } from 'node:path';
+import type { PathsByFolder } from './writable.js';
 
 export interface StaleSweep {
   target: string;
   staging: string;
-  /** Units kept as they are, and units already removed (site-relative paths). */
-  kept: ReadonlySet<string>;
-  gone: ReadonlySet<string>;
+  /** Units kept as they are, and units already removed (site-relative paths, asked by folder and name). */
+  kept: PathsByFolder;
+  gone: PathsByFolder;
   /** Lists a folder of `target` as it was before the units in `gone` were removed. */
   list(dir: string): Dirent[];
 }
@@ -24,10 +25,13 @@ export function removeStale(sweep: StaleSweep, relative: string): boolean {
   const { target, staging } = sweep;
   let left = 0;
   for (const entry of sweep.list(join(target, relative))) {
+    if (sweep.gone.has(relative, entry.name)) continue;
+    if (sweep.kept.has(relative, entry.name)) {
+      left++;
+      continue;
+    }
     const path = relative ? `${relative}/${entry.name}` : entry.name;
-    if (sweep.gone.has(path)) continue;
-    if (sweep.kept.has(path)) left++;
-    else if (entry.isDirectory()) {
+    if (entry.isDirectory()) {
       if (removeStale(sweep, path) && !exists(join(staging, path))) rmdirSync(join(target, path));
       else left++;
     } else if (!exists(join(staging, path))) rmSync(join(target, path), { force: true });

@@ -63,18 +63,49 @@ function writableInside(path: string): Stats | undefined {
  * Where folders' links are not counted (btrfs gives 1), every folder is listed, as before. `skip` (given a
  * folder's site-relative path) says which folders are not looked at ('all') or not listed ('inside').
  */
-function readOnlyFolderIn(dir: string, skip?: (relative: string) => 'all' | 'inside' | undefined, relative = '', list: FolderLister = listFolder): string | undefined {
+function readOnlyFolderIn(dir: string, skip?: SkipFolder, relative = '', list: FolderLister = listFolder, inside = true): string | undefined {
   const stats = relative ? writableInside(dir) : writable(dir);
   if (!stats) return dir;
-  if (stats.nlink === 2 || (relative && skip?.(relative) === 'inside')) return undefined;
+  if (stats.nlink === 2 || !inside) return undefined;
   for (const entry of list(dir)) {
     if (!entry.isDirectory()) continue;
-    const path = relative ? `${relative}/${entry.name}` : entry.name;
-    if (skip?.(path) === 'all') continue;
-    const found = readOnlyFolderIn(join(dir, entry.name), skip, path, list);
+    const skipped = skip?.(relative, entry.name);
+    if (skipped === 'all') continue;
+    const found = readOnlyFolderIn(join(dir, entry.name), skip, relative ? `${relative}/${entry.name}` : entry.name, list, skipped !== 'inside');
     if (found) return found;
   }
   return undefined;
+}
+
+/**
+ * Which folders `readOnlyFolderIn` passes over: given a folder's site-relative path and the name of a folder
+ * in it, 'all' (not looked at) or 'inside' (looked at, not listed). Asked by name, so that no path is made
+ * for each of the 10,000 part folders of a large site.
+ */
+type SkipFolder = (folder: string, name: string) => 'all' | 'inside' | undefined;
+
+/**
+ * Site-relative paths grouped by their folder, asked by a folder's path and an entry's name: the entries of
+ * a listing are looked up as they are, and the listing of a large site's parts/ folder makes no path a part.
+ */
+export class PathsByFolder {
+  private readonly folders = new Map<string, Set<string>>();
+
+  constructor(paths: Iterable<string> = []) {
+    for (const path of paths) this.add(path);
+  }
+
+  add(path: string): void {
+    const slash = path.lastIndexOf('/');
+    const folder = slash < 0 ? '' : path.slice(0, slash);
+    const names = this.folders.get(folder);
+    if (names) names.add(path.slice(slash + 1));
+    else this.folders.set(folder, new Set([path.slice(slash + 1)]));
+  }
+
+  has(folder: string, name: string): boolean {
+    return this.folders.get(folder)?.has(name) ?? false;
+  }
 }
 
 /** A folder's entries with their types (a caller may hand in one that remembers them, to list each folder once). */
@@ -83,7 +114,7 @@ export type FolderLister = (dir: string) => Dirent[];
 const listFolder: FolderLister = (dir) => readdirSync(dir, { withFileTypes: true });
 
 /** The folders holding the part and comparison folders, the units a rebuild with a spare leaves as they are. */
-const unitsInside = (relative: string) => (relative === 'parts' || relative === 'comparisons' ? 'inside' : undefined);
+const unitsInside: SkipFolder = (folder, name) => (folder === '' && (name === 'parts' || name === 'comparisons') ? 'inside' : undefined);
 
 /**
  * Throws OutputRefused when the site could not be swapped in and the old one removed: a read-only folder
@@ -119,8 +150,8 @@ export class SpareRefused extends OutputRefused {}
  * give it back as it was (Staging.release); the message names it where it is given back (`shownAs`). `list`:
  * how folders are listed (the build lists the spare's once, for this check and for updating it).
  */
-export function checkSpare(sitePath: string, spare: { dir: string; shownAs: string }, kept: ReadonlySet<string>, list?: FolderLister): void {
-  const found = readOnlyFolderIn(spare.dir, (relative) => (kept.has(relative) ? 'all' : undefined), '', list);
+export function checkSpare(sitePath: string, spare: { dir: string; shownAs: string }, kept: PathsByFolder, list?: FolderLister): void {
+  const found = readOnlyFolderIn(spare.dir, (folder, name) => (kept.has(folder, name) ? 'all' : undefined), '', list);
   const shown = found && spare.shownAs + found.slice(spare.dir.length);
   if (shown) throw new SpareRefused(`cannot write the site to ${sitePath}: ${shown} (in the version before the site, which a rebuild updates) is read-only; make it writable or choose another --out`);
 }

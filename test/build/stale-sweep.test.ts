@@ -6,6 +6,7 @@ import { mkdirSync, readdirSync, rmSync, writeFileSync, type Dirent } from 'node
 import { dirname, join, relative } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { removeStale } from '../../src/build/stale-sweep.js';
+import { PathsByFolder } from '../../src/build/writable.js';
 import { tempDir } from '../site-helpers.js';
 
 const root = tempDir('stale-sweep');
@@ -39,7 +40,7 @@ describe('removeStale', () => {
     };
     list(join(target, 'parts'));
     rmSync(join(target, 'parts', 'B'), { recursive: true });
-    const empty = removeStale({ target, staging, kept: new Set(['parts/A']), gone: new Set(['parts/B']), list }, '');
+    const empty = removeStale({ target, staging, kept: new PathsByFolder(['parts/A']), gone: new PathsByFolder(['parts/B']), list }, '');
     expect(empty).toBe(false);
     // Kept: the kept unit whole, files the staging folder has (moved over them later), and a folder left
     // empty that the staging folder holds; gone: the rest.
