@@ -28,6 +28,9 @@ import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
 import { partSpecPath } from '../pages/spec-download.js';
 import { writeFileDeep } from './output.js';
 import { planPageData, type PlanPageData } from '../pages/plan-page.js';
+import type { PartFamily } from '../pages/families.js';
+import { cachedFamilies } from './family-cache.js';
+import { codeKey } from './reuse.js';
 import type { Progress } from './progress.js';
 import { reviewPageData, type ReviewPageData } from '../pages/review-page.js';
 import {
@@ -113,6 +116,8 @@ export interface AssembleOptions {
   spill?: SvgSpill;
   /** Given each fresh part's page as soon as its data is complete, and flushed once every part's is (part-page-runs.ts). */
   partPages?: Pick<PartPageRuns, 'add' | 'flush'>;
+  /** Where the library's part families are kept from build to build (family-cache.ts); by default they are made afresh. */
+  familiesFile?: string;
 }
 
 export interface PdfLinks {
@@ -120,7 +125,7 @@ export interface PdfLinks {
   review(slug: string): boolean;
 }
 
-export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), units = NOTHING_KEPT, measurements = new Map(), timings, work, spill, partPages: pageRuns }: AssembleOptions): Promise<FolioData> {
+export async function assembleSite({ library, siteDir, charts, progress, pdfLinks, carried = new Map(), units = NOTHING_KEPT, measurements = new Map(), timings, work, spill, partPages: pageRuns, familiesFile }: AssembleOptions): Promise<FolioData> {
   const analyse = (part: Part) => {
     const started = performance.now();
     if (work) work.partsAnalysed++;
@@ -190,7 +195,7 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   // Full page data, for part pages and review packs.
   const fullById = new Map(pages.filter((p): p is PartPageData => 'charts' in p).map((p) => [p.id, p]));
 
-  const { pages: comparisons, byKey, rendered } = await comparisonPages(library, comparedOf, listedById, siteDir, charts, units, timings, work);
+  const { pages: comparisons, byKey, rendered } = await comparisonPages(library, familiesFile ? cachedFamilies(library.parts, library.partsById, codeKey(), familiesFile) : automaticComparisons(library), comparedOf, listedById, siteDir, charts, units, timings, work);
   const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts, timings)));
   const reviews = library.reviews.map((r) => {
     const page = reviewPageData(r, library, { parts: fullById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
@@ -232,6 +237,7 @@ async function planPage(plan: Plan, library: Library, siteDir: string, charts: C
 
 async function comparisonPages(
   library: Library,
+  families: readonly PartFamily[],
   comparedOf: (id: string) => ComparedAnalysis,
   listedById: ReadonlyMap<string, ListedPart>,
   siteDir: string,
@@ -253,12 +259,12 @@ async function comparisonPages(
     let slug = wanted;
     for (let n = 2; slugs.has(slug); n++) slug = `${wanted}-${n}`;
     slugs.add(slug);
-    const folder = join(siteDir, 'comparisons', slug);
     const data: ComparisonPageData = { slug, ...page, parts: partIds.map((id) => listedById.get(id)!) };
     const kept = units.kept(`comparisons/${slug}`, units.comparison(data));
     if (partIds.length > 0 && (!kept || reviewed)) {
       const analyses = partIds.map(comparedOf);
-      drawing.push(charts.comparisonChart(analyses, page.title).then((chart) => void (data.chart = kept ? chartOnPage(chart) : placeChart(chart, folder, timings))));
+      // The folder's path is made only for a page written here (903 families of the generated 10,000 parts, nearly all kept after an edit).
+      drawing.push(charts.comparisonChart(analyses, page.title).then((chart) => void (data.chart = kept ? chartOnPage(chart) : placeChart(chart, join(siteDir, 'comparisons', slug), timings))));
     } else if (partIds.length > 0) {
       // The page is kept (with its chart); the chart stays in the cache unread.
       units.keepChart?.(partIds.map((id) => library.partsById.get(id)!), page.title);
@@ -274,7 +280,7 @@ async function comparisonPages(
     const data = add(comparisonSlug(c), { title: c.title, description: c.description, automatic: false, selection: selectionText(c), sourceFile: c.source.path }, c.parts.map((p) => p.id), inReviews.has(comparisonKey(c)));
     byKey.set(comparisonKey(c), data);
   }
-  for (const f of automaticComparisons(library)) {
+  for (const f of families) {
     const family = { kind: f.kind, packageText: f.packageText, valuesText: f.valuesText, subsetText: f.subsetText };
     add(f.slug, { title: f.title, automatic: true, selection: f.selection, family }, f.parts.map((p) => p.id));
   }

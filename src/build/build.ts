@@ -229,7 +229,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     };
     const spill = new SvgSpill(staging.dir);
     pageRuns = buildPageRuns(staging.dir, library, spill, options.partPagesPerRun);
-    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, units: unitKeys, measurements: result.measurements, timings: timings.assemble, work, spill, partPages: pageRuns });
+    const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, units: unitKeys, measurements: result.measurements, timings: timings.assemble, work, spill, partPages: pageRuns, familiesFile: cacheRoot && join(cacheRoot, 'families.json') });
     await addChanges(folio, run.history, options.charts ?? pool!, staging.dir);
     await pool?.close();
     work.listFiles = listPages(folio, site, partKeyOf, unitKeys.kept, staging.dir, writeFileDeep);

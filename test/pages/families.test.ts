@@ -2,10 +2,11 @@
 // numbers) in exactly one family of at most 12, each family's title true of every member, checked by
 // reading the titles with the test's own SI prefix table and decade rule.
 
-import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { FAMILY_SIZE, partFamilies } from '../../src/pages/families.js';
+import { FAMILY_FIELDS, FAMILY_SIZE, partFamilies } from '../../src/pages/families.js';
+import { cachedFamilies, familiesKey } from '../../src/build/family-cache.js';
 import { loadLibrary } from '../../src/model/library.js';
 import type { Part } from '../../src/model/part.js';
 import { pageName } from '../../src/model/page-names.js';
@@ -132,5 +133,76 @@ describe('part families', () => {
     expect(runs[3].selection).toBe('every capacitor; run 4 of 4 in order of value');
     const values = runs.flatMap((f) => f.parts.map((p) => p.nominal!));
     expect(values).toEqual([...values].sort((a, b) => a - b));
+  });
+
+  it('read no field of a part but those the families are kept by (FAMILY_FIELDS)', () => {
+    const read = new Set<string | symbol>();
+    const watched = parts.map((p) => new Proxy(p, { get: (target, key, receiver) => (read.add(key), Reflect.get(target, key, receiver)) }));
+    const again = partFamilies(watched);
+    expect(again.map((f) => [f.slug, f.title, f.parts.map((p) => p.id)])).toEqual(families.map((f) => [f.slug, f.title, f.parts.map((p) => p.id)]));
+    // Fields of other kinds of part (a bead's, a resistor's) are not in this library: the list is checked by name too.
+    expect([...read].filter((k) => !(FAMILY_FIELDS as readonly (string | symbol)[]).includes(k))).toEqual([]);
+    expect(read.has('package') && read.has('voltageRatings') && read.has('currentA') && read.has('nominal')).toBe(true);
+  });
+});
+
+describe('part families kept between builds', () => {
+  const parts = library(generated(300));
+  const byId = new Map(parts.map((p) => [p.id, p]));
+  const dir = tempDir('family-cache');
+  roots.push(dir);
+  const file = join(dir, 'families.json');
+  const shown = (fs: ReturnType<typeof partFamilies>) => fs.map((f) => ({ ...f, parts: f.parts.map((p) => p.id) }));
+
+  it('are made and written when there is no file, and read back from it after', () => {
+    const made = cachedFamilies(parts, byId, 'code A', file);
+    expect(made).toEqual(partFamilies(parts));
+    const again = cachedFamilies(parts, byId, 'code A', file);
+    expect(again).toEqual(made);
+    // The very part objects of the library, found by id.
+    expect(again[0].parts[0]).toBe(byId.get(again[0].parts[0].id));
+    // Read from the file: a title changed in it (under the same key) is what comes back.
+    const text = JSON.parse(readFileSync(file, 'utf8'));
+    text.families[0].title = 'Changed in the file';
+    writeFileSync(file, JSON.stringify(text));
+    expect(cachedFamilies(parts, byId, 'code A', file)[0].title).toBe('Changed in the file');
+    // Another code key: made afresh (and written again).
+    expect(shown(cachedFamilies(parts, byId, 'code B', file))).toEqual(shown(made));
+    expect(JSON.parse(readFileSync(file, 'utf8')).families[0].title).toBe(made[0].title);
+  });
+
+  it('are keyed by every field they are made from, and by nothing else of a part', () => {
+    const key = familiesKey(parts, 'code A');
+    const changed = (field: string, value: unknown) => parts.map((p, i) => (i === 7 ? { ...p, [field]: value } : p));
+    const first = parts[7];
+    for (const [field, value] of [
+      ['id', 'ORV-T-OTHER'],
+      ['kind', first.kind === 'inductor' ? 'capacitor' : 'inductor'],
+      ['behavesAs', 'resistor'],
+      ['nominal', (first.nominal ?? 1) * (1 + 2 ** -40)],
+      ['package', '1206'],
+      ['dielectric', 'X8R'],
+      ['voltageRatings', [{ volts: 16, kind: 'DC', stated: true }]],
+      ['voltageV', 17],
+      ['voltageAcV', 230],
+      ['currentA', 3],
+      ['powerW', 0.5],
+    ] as const) {
+      expect(familiesKey(changed(field, value), 'code A'), field).not.toBe(key);
+    }
+    expect(familiesKey(changed('title', 'Another title'), 'code A')).toBe(key);
+    expect(familiesKey(parts.slice(1), 'code A')).not.toBe(key);
+    expect(familiesKey(parts, 'code B')).not.toBe(key);
+  });
+
+  it('are made afresh from a file that is damaged or names a part the library lacks', () => {
+    const made = cachedFamilies(parts, byId, 'code C', file);
+    writeFileSync(file, '{"key": "');
+    expect(cachedFamilies(parts, byId, 'code C', file)).toEqual(made);
+    const text = JSON.parse(readFileSync(file, 'utf8'));
+    text.families[0].parts[0] = 'ORV-T-MISSING';
+    text.families[0].title = 'Not to be read';
+    writeFileSync(file, JSON.stringify(text));
+    expect(cachedFamilies(parts, byId, 'code C', file)).toEqual(made);
   });
 });
