@@ -3,10 +3,13 @@
 // sorted by: the families are a function of the fields FAMILY_FIELDS names (and of zfolio's code), so they
 // are kept under a hash of those fields of every part, in order, and of the code key, and read back when the
 // hash is the same. The file is one per cache folder, written under a name of its own and renamed into place
-// (a concurrent build reads the old one or the new one whole), as ASCII (ascii-text.ts); one unreadable, of another hash or naming a
+// (a concurrent build reads the old one or the new one whole; a draft a stopped build left is removed at the next
+// write), as ASCII (ascii-text.ts); one unreadable, of another hash or naming a
 // part the library lacks is passed over and the families are made afresh.
 
-import { renameSync, rmSync, writeFileSync } from 'node:fs';
+import { readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import { alive } from './output.js';
 import type { Part } from '../model/part.js';
 import { asciiJson, readText } from '../model/ascii-text.js';
 import { sha256Hex } from '../model/sha256.js';
@@ -42,6 +45,7 @@ export function cachedFamilies(parts: readonly Part[], partsById: ReadonlyMap<st
     // Not kept: made again next time.
     rmSync(temporary, { force: true });
   }
+  removeLeftovers(file);
   return families;
 }
 
@@ -64,4 +68,23 @@ function readFamilies(file: string, key: string, partsById: ReadonlyMap<string, 
     families.push({ ...f, parts });
   }
   return families;
+}
+
+/**
+ * Remove the drafts of `file` that builds stopped between the write and the rename left behind (their process is
+ * gone); a draft of a build still running is its own, and stays. Done when the families are written, which a
+ * build killed there would have been doing.
+ */
+function removeLeftovers(file: string): void {
+  const draft = new RegExp(`^${basename(file).replace(/[.]/g, '\\.')}\\.(\\d+)\\.part$`);
+  let names: string[];
+  try {
+    names = readdirSync(dirname(file));
+  } catch {
+    return;
+  }
+  for (const name of names) {
+    const pid = draft.exec(name)?.[1];
+    if (pid !== undefined && !alive(Number(pid))) rmSync(join(dirname(file), name), { force: true });
+  }
 }

@@ -2,9 +2,10 @@
 // numbers) in exactly one family of at most 12, each family's title true of every member, checked by
 // reading the titles with the test's own SI prefix table and decade rule.
 
-import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { spawn, spawnSync } from 'node:child_process';
+import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it, onTestFinished } from 'vitest';
 import { FAMILY_FIELDS, FAMILY_SIZE, partFamilies } from '../../src/pages/families.js';
 import { cachedFamilies, familiesKey } from '../../src/build/family-cache.js';
 import { loadLibrary } from '../../src/model/library.js';
@@ -204,5 +205,21 @@ describe('part families kept between builds', () => {
     text.families[0].title = 'Not to be read';
     writeFileSync(file, JSON.stringify(text));
     expect(cachedFamilies(parts, byId, 'code C', file)).toEqual(made);
+  });
+
+  it('remove the drafts that stopped builds left when they write the file, not those of a running build', () => {
+    const dead = Number(spawnSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], { encoding: 'utf8' }).stdout);
+    const running = spawn(process.execPath, ['-e', 'setInterval(() => {}, 1000)'], { stdio: 'ignore' });
+    onTestFinished(() => {
+      running.kill();
+    });
+    const own = join(dir, 'leftovers');
+    mkdirSync(own);
+    const leftover = join(own, `families.json.${dead}.part`);
+    const writing = join(own, `families.json.${running.pid}.part`);
+    const other = join(own, `other.json.${dead}.part`);
+    for (const path of [leftover, writing, other]) writeFileSync(path, '{"key": "');
+    cachedFamilies(parts, byId, 'code D', join(own, 'families.json'));
+    expect(readdirSync(own).sort()).toEqual(['families.json', `families.json.${running.pid}.part`, `other.json.${dead}.part`]);
   });
 });
