@@ -39,6 +39,16 @@ afterEach(() => {
 
 const holdingOf = (root: string) => join(root, '._site.zfolio');
 
+/** What taking the lock of `site` threw (undefined when it was taken: it is then let go). */
+function refusal(site: string): Error | undefined {
+  try {
+    lockSite(site).release();
+    return undefined;
+  } catch (error) {
+    return error as Error;
+  }
+}
+
 describe('the site lock without hard links', () => {
   it('is made by an exclusive create, keeps a second holder out, and goes on release with the folder it made', () => {
     const root = tempDir('lock-nolinks');
@@ -51,14 +61,9 @@ describe('the site lock without hard links', () => {
     // No draft is left beside it.
     expect(readdirSync(holdingOf(root))).toEqual([LOCK_NAME]);
 
-    let refused: unknown;
-    try {
-      lockSite(site);
-    } catch (error) {
-      refused = error;
-    }
+    const refused = refusal(site);
     expect(refused).toBeInstanceOf(OutputRefused);
-    expect((refused as Error).message).toBe(
+    expect(refused?.message).toBe(
       `will not write the site to ${site}: another zfolio build is writing it (process ${process.pid}, started 2026-12-03T10:00:00.000Z); wait for it to end, or if no build is running, remove ${lock.path}`,
     );
     // The refused attempt left the holder's file as it was.
@@ -95,14 +100,9 @@ describe('the site lock without hard links', () => {
     });
     const text = `${JSON.stringify({ pid: rival.pid, host: hostname(), started: '2026-12-03T09:00:00.000Z' })}\n`;
     links.rival = text;
-    let refused: unknown;
-    try {
-      lockSite(site);
-    } catch (error) {
-      refused = error;
-    }
+    const refused = refusal(site);
     expect(refused).toBeInstanceOf(OutputRefused);
-    expect((refused as Error).message).toContain(`(process ${rival.pid}, started 2026-12-03T09:00:00.000Z)`);
+    expect(refused?.message).toContain(`(process ${rival.pid}, started 2026-12-03T09:00:00.000Z)`);
     expect(readFileSync(join(holdingOf(root), LOCK_NAME), 'utf8')).toBe(text);
     expect(readdirSync(holdingOf(root))).toEqual([LOCK_NAME]);
   });
