@@ -7,11 +7,12 @@
 // write), as ASCII (ascii-text.ts); one unreadable, of another hash or naming a
 // part the library lacks is passed over and the families are made afresh.
 
-import { readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { readdirSync, rmSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { alive } from './output.js';
 import type { Part } from '../model/part.js';
 import { asciiJson, readText } from '../model/ascii-text.js';
+import { draftOf, writeAtomically } from '../model/atomic-file.js';
 import { sha256Hex } from '../model/sha256.js';
 import { FAMILY_FIELDS, partFamilies, type PartFamily } from '../pages/families.js';
 
@@ -37,13 +38,10 @@ export function cachedFamilies(parts: readonly Part[], partsById: ReadonlyMap<st
   if (found) return found;
   const families = partFamilies(parts);
   const text = JSON.stringify({ key, families: families.map((f) => ({ ...f, parts: f.parts.map((p) => p.id) })) } satisfies FamiliesFile);
-  const temporary = `${file}.${process.pid}.part`;
   try {
-    writeFileSync(temporary, asciiJson(text));
-    renameSync(temporary, file);
+    writeAtomically(file, asciiJson(text));
   } catch {
     // Not kept: made again next time.
-    rmSync(temporary, { force: true });
   }
   removeLeftovers(file);
   return families;
@@ -76,7 +74,7 @@ function readFamilies(file: string, key: string, partsById: ReadonlyMap<string, 
  * build killed there would have been doing.
  */
 function removeLeftovers(file: string): void {
-  const draft = new RegExp(`^${basename(file).replace(/[.]/g, '\\.')}\\.(\\d+)\\.part$`);
+  const base = basename(file);
   let names: string[];
   try {
     names = readdirSync(dirname(file));
@@ -84,7 +82,8 @@ function removeLeftovers(file: string): void {
     return;
   }
   for (const name of names) {
-    const pid = draft.exec(name)?.[1];
-    if (pid !== undefined && !alive(Number(pid))) rmSync(join(dirname(file), name), { force: true });
+    // A draft's name is the file's, its writer's process id and a suffix (atomic-file.ts).
+    const pid = Number(name.slice(base.length + 1).split('.')[0]);
+    if (Number.isInteger(pid) && pid > 0 && name === draftOf(base, pid) && !alive(pid)) rmSync(join(dirname(file), name), { force: true });
   }
 }

@@ -15,10 +15,11 @@
 // parts reads as 10,000 strings rather than a few hundred thousand objects.
 
 import { sha256Hex } from '../model/sha256.js';
-import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { PdfStamp } from './pdf-reuse.js';
 import { asciiJson, readText } from '../model/ascii-text.js';
+import { writeAtomically } from '../model/atomic-file.js';
 
 /** Shards of a version's units. */
 export const SHARDS = 64;
@@ -198,12 +199,6 @@ export function recordDir(cacheRoot: string, outDir: string): string {
 }
 
 const ROOT = 'root.json';
-
-function writeAtomically(file: string, text: string): void {
-  const temp = `${file}.${process.pid}.tmp`;
-  writeFileSync(temp, text);
-  renameSync(temp, file);
-}
 
 export function readSiteRecord(dir: string, outDir: string): SiteRecord | undefined {
   try {

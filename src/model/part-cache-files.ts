@@ -12,9 +12,10 @@
 // header lists each distinct holes text once and a line names its own by index.
 
 import { sha256Hex } from './sha256.js';
-import { readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { asciiJson, readText } from './ascii-text.js';
+import { writeAtomically } from './atomic-file.js';
 
 /** An entry as NN.lines holds it, each field as text. */
 export interface HeadRow {
@@ -127,12 +128,6 @@ export class ShardFiles {
     writeAtomically(this.file(i, 'late'), header + lateTexts.map((t) => `${t}\n`).join(''));
     writeAtomically(this.file(i, 'lines'), header + heads.join(''));
   }
-}
-
-function writeAtomically(file: string, text: string): void {
-  const temp = `${file}.${process.pid}.tmp`;
-  writeFileSync(temp, text);
-  renameSync(temp, file);
 }
 
 function headRow(line: string, holes: readonly string[]): [string, HeadRow] {

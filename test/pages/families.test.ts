@@ -215,11 +215,11 @@ describe('part families kept between builds', () => {
     });
     const own = join(dir, 'leftovers');
     mkdirSync(own);
-    const leftover = join(own, `families.json.${dead}.part`);
-    const writing = join(own, `families.json.${running.pid}.part`);
-    const other = join(own, `other.json.${dead}.part`);
+    const leftover = join(own, `families.json.${dead}.tmp`);
+    const writing = join(own, `families.json.${running.pid}.tmp`);
+    const other = join(own, `other.json.${dead}.tmp`);
     for (const path of [leftover, writing, other]) writeFileSync(path, '{"key": "');
     cachedFamilies(parts, byId, 'code D', join(own, 'families.json'));
-    expect(readdirSync(own).sort()).toEqual(['families.json', `families.json.${running.pid}.part`, `other.json.${dead}.part`]);
+    expect(readdirSync(own).sort()).toEqual(['families.json', `families.json.${running.pid}.tmp`, `other.json.${dead}.tmp`]);
   });
 });
