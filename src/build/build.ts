@@ -209,16 +209,20 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
   let pool: ChartPool | undefined, pageRuns: PartPageRuns | undefined;
   try {
     const units = new SiteUnits(recordAt ? record : undefined, record?.spare && staging.claim(record.spare.name), outDir);
-    const partKeys = new Map(library.parts.map((p) => [p.id, partKey(site, p, pdfLinks.part(p.id))]));
-    const partKeyOf = (id: string) => partKeys.get(id) ?? '';
+    // Each part's id read once here (a cached part answers it through a proxy: lazy-head.ts).
+    const partKeys = new Map<string, string>();
     const carried = new Map<string, CarriedPart>();
     for (const part of library.parts) {
-      const unit = `parts/${part.id}`;
-      if (recordAt && units.kept(unit, partKeys.get(part.id)!)) carried.set(part.id, carriedPart(part.id, units.recordedEntry(unit)));
+      const id = part.id;
+      const key = partKey(site, part, pdfLinks.part(id));
+      partKeys.set(id, key);
+      const unit = `parts/${id}`;
+      if (recordAt && units.kept(unit, key)) carried.set(id, carriedPart(id, units.recordedEntry(unit)));
     }
+    const partKeyOf = (id: string) => partKeys.get(id) ?? '';
     const fresh = library.parts.length - carried.size;
     pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), started: run.early });
-    for (const part of library.parts) if (carried.has(part.id)) pool?.keepPartCharts({ part });
+    if (pool) for (const part of library.parts) if (carried.has(part.id)) pool.keepPartCharts({ part });
     timings.load = clock();
 
     clock = stageClock();

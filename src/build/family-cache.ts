@@ -14,7 +14,8 @@ import type { Part } from '../model/part.js';
 import { asciiJson, readText } from '../model/ascii-text.js';
 import { draftOf, writeAtomically } from '../model/atomic-file.js';
 import { sha256Hex } from '../model/sha256.js';
-import { FAMILY_FIELDS, partFamilies, type PartFamily } from '../pages/families.js';
+import { familyText } from '../model/part-facts.js';
+import { partFamilies, type PartFamily } from '../pages/families.js';
 
 interface FamiliesFile {
   key: string;
@@ -27,8 +28,8 @@ interface FamiliesFile {
  * reads back as the same double), in the library's order, with the code key.
  */
 export function familiesKey(parts: readonly Part[], code: string): string {
-  const fields = parts.map((p) => FAMILY_FIELDS.map((f) => p[f]));
-  return sha256Hex(`part families\n${code}\n${JSON.stringify(fields)}`);
+  // The same text as JSON.stringify of the array of each part's field values, made from each part's own text.
+  return sha256Hex(`part families\n${code}\n[${parts.map(familyText).join(',')}]`);
 }
 
 /** The library's part families, read from `file` when it holds those of the same key, else made and written there. */

@@ -67,5 +67,6 @@ export function siteKey(library: Library): string {
  * files' paths and hashes, and whether its page links a PDF.
  */
 export function partKey(site: string, part: Part, linksPdf: boolean): string {
-  return sha256Hex(`${site}\n${part.source.path}\n${part.source.hash}\n${measurementInputs(part.measurements)}\n${linksPdf ? 'pdf' : 'no pdf'}`).slice(0, 32);
+  const { source } = part;
+  return sha256Hex(`${site}\n${source.path}\n${source.hash}\n${measurementInputs(part.measurements)}\n${linksPdf ? 'pdf' : 'no pdf'}`).slice(0, 32);
 }

@@ -14,6 +14,7 @@ import { loadMeasurementFiles } from './measurement-files.js';
 import { DEFAULT_SETTINGS, readSettings, type FolioSettings } from './settings.js';
 import { parseYamlSource, positionOf, type SourceFile } from './source.js';
 import { coverageGap, type TemperatureRange } from './spread.js';
+import { temperatureGap } from './part-facts.js';
 
 export interface Library {
   /** Absolute path of the library folder. */
@@ -160,6 +161,7 @@ export function loadLibrary(root: string, options: LoadOptions = {}): LoadResult
 /** A warning at each part whose temperature characteristic is not specified over the library's whole range. */
 function temperatureCoverage(parts: readonly Part[], operating: TemperatureRange, diagnostics: DiagnosticList): void {
   for (const part of parts) {
+    if (!temperatureGap(part, operating)) continue;
     const gap = part.spread.temperature && coverageGap(part.spread.temperature, operating, 'the library\'s operating temperatures (folio.yaml "temperature")');
     if (gap) diagnostics.warning(part.spread.temperature!.at, `${part.spread.temperature!.from}: ${gap}`);
   }

@@ -1,8 +1,10 @@
 // The part cache's files (part-cache.ts). A shard is two files: NN.lines holds one line an entry (its path,
-// stamp and hash, its head: the part's early fields with the id it declares and its warnings, and where its
-// late fields are in NN.late), NN.late the late fields' texts (lazy-part.ts), which a build reads only when
-// it first reads a late field of one of the shard's parts. Loading 10,000 cached parts reads the heads, a
-// quarter of the bytes: reading and decoding the whole entries was most of loading them.
+// stamp and hash; the part's id, kind, flags and family fields, which a build reads of every part and a part
+// handed out unparsed answers from (lazy-head.ts); its head: the part's early fields with the id it declares
+// and its warnings, parsed when another early field is first read; and where its late fields are in
+// NN.late), NN.late the late fields' texts (lazy-part.ts), which a build reads only when it first reads a
+// late field of one of the shard's parts. Loading 10,000 cached parts reads the heads, a quarter of the
+// bytes: reading and decoding the whole entries was most of loading them.
 //
 // Both files start with a header line: the format, the code key, and a hash of the late texts (the token),
 // which the .lines file names, so that a .late file whose .lines was not written after it (a run stopped
@@ -16,12 +18,43 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { asciiJson, readText } from './ascii-text.js';
 import { writeAtomically } from './atomic-file.js';
+import type { PartFacts } from './part-facts.js';
+
+/**
+ * A row's flags: `p` when its part is handed out parsed (it has measurements, warnings, an id declared other
+ * than its own, or is kept as v8 bytes), else it is handed out with its head unparsed (lazy-head.ts); then `s`
+ * when its part has a safety class; then `t` when its part has a temperature characteristic, followed by
+ * `FROM:TO` (°C) when that is specified over a span (part-facts.ts).
+ */
+export const PARSED = 'p';
+export const SAFETY = 's';
+const TEMPERATURE = 't';
+
+export function flagsText(parsed: boolean, { safety, temperature }: Pick<PartFacts, 'safety' | 'temperature'>): string {
+  const span = typeof temperature === 'object' ? `${temperature.fromC}:${temperature.toC}` : '';
+  return `${parsed ? PARSED : ''}${safety ? SAFETY : ''}${temperature === false ? '' : TEMPERATURE + span}`;
+}
+
+export function temperatureOf(flags: string): PartFacts['temperature'] {
+  const at = flags.indexOf(TEMPERATURE);
+  if (at < 0) return false;
+  const span = flags.slice(at + 1);
+  if (span === '') return true;
+  const [fromC, toC] = span.split(':').map(Number);
+  if (!Number.isFinite(fromC) || !Number.isFinite(toC)) throw new Error('not a part cache row');
+  return { fromC, toC };
+}
 
 /** An entry as NN.lines holds it, each field as text. */
 export interface HeadRow {
   /** The file's stamp as JSON text. */
   stamp: string;
   hash: string;
+  /** The part's id and kind, its flags (FLAGS in part-cache.ts) and its FAMILY_FIELDS as JSON text (part-facts.ts). */
+  id: string;
+  kind: string;
+  flags: string;
+  family: string;
   head: string;
   /** Where the head's undefined values are (exact-json.ts), as JSON text: one string per distinct text in a shard. */
   holes: string;
@@ -35,6 +68,10 @@ export interface ShardEntry {
   path: string;
   stamp: string;
   hash: string;
+  id: string;
+  kind: string;
+  flags: string;
+  family: string;
   head: string;
   holes: string;
   late: string;
@@ -121,7 +158,7 @@ export class ShardFiles {
     const header = `${asciiJson(JSON.stringify({ format: this.format, key: this.key, token, holes }))}\n`;
     let at = header.length;
     const heads = entries.map((e, n) => {
-      const line = asciiJson(`${JSON.stringify(e.path)}\t${e.stamp}\t${e.hash}\t${e.head}\t${holesAt.get(e.holes)}\t${at},${lateTexts[n].length}`);
+      const line = asciiJson(`${JSON.stringify(e.path)}\t${e.stamp}\t${e.hash}\t${e.id}\t${e.kind}\t${e.flags}\t${e.family}\t${e.head}\t${holesAt.get(e.holes)}\t${at},${lateTexts[n].length}`);
       at += lateTexts[n].length + 1;
       return `${line}\n`;
     });
@@ -130,19 +167,25 @@ export class ShardFiles {
   }
 }
 
+/** The fields of a .lines row: tab-separated (JSON text has no raw tab), the last holding the late text's offset and length. */
+const ROW_FIELDS = 10;
+
 function headRow(line: string, holes: readonly string[]): [string, HeadRow] {
-  const a = line.indexOf('\t');
-  const b = line.indexOf('\t', a + 1);
-  const c = line.indexOf('\t', b + 1);
-  const d = line.indexOf('\t', c + 1);
-  const h = line.indexOf('\t', d + 1);
-  const e = line.indexOf(',', h + 1);
-  if (a < 0 || b < 0 || c < 0 || d < 0 || h < 0 || e < 0) throw new Error('not a part cache line');
-  const hole = holes[Number(line.slice(d + 1, h))];
-  const at = Number(line.slice(h + 1, e));
-  const length = Number(line.slice(e + 1));
-  if (hole === undefined || !Number.isInteger(at) || !Number.isInteger(length)) throw new Error('not a part cache line');
-  return [JSON.parse(line.slice(0, a)) as string, { stamp: line.slice(a + 1, b), hash: line.slice(b + 1, c), head: line.slice(c + 1, d), holes: hole, at, length }];
+  const cut: number[] = [];
+  for (let from = 0, n = 0; n < ROW_FIELDS - 1; n++) {
+    const tab = line.indexOf('\t', from);
+    if (tab < 0) throw new Error('not a part cache line');
+    cut.push(tab);
+    from = tab + 1;
+  }
+  const field = (n: number) => line.slice(n === 0 ? 0 : cut[n - 1] + 1, cut[n]);
+  const last = line.slice(cut[ROW_FIELDS - 2] + 1);
+  const comma = last.indexOf(',');
+  const hole = holes[Number(field(8))];
+  const at = Number(last.slice(0, comma));
+  const length = Number(last.slice(comma + 1));
+  if (comma < 0 || hole === undefined || !Number.isInteger(at) || !Number.isInteger(length)) throw new Error('not a part cache line');
+  return [JSON.parse(field(0)) as string, { stamp: field(1), hash: field(2), id: field(3), kind: field(4), flags: field(5), family: field(6), head: field(7), holes: hole, at, length }];
 }
 
 /** The late text of a row from its shard's .late bytes (ASCII: one byte a character). */

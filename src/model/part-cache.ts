@@ -9,9 +9,10 @@
 // written as exact JSON (exact-json.ts: undefined values kept, the text checked to give the entry back), or,
 // should JSON not keep it exactly (a -0, say), v8-serialised (the structured clone keeps every value as it
 // is), in two pieces (part-cache-files.ts): its head (the part's early fields, with the id it declares and
-// its warnings), parsed when its part is handed out, and its late fields (lazy-part.ts), read and parsed only
-// when the build first reads one (the title, the model, the parameters …: for the parts whose pages or
-// charts it makes). Reading and parsing every part of a 10,000-part library whole at each build, the objects
+// its warnings), parsed when another field than those its row answers is first used (lazy-head.ts: a part
+// with measurements or warnings is parsed when handed out), and its late fields (lazy-part.ts), read and
+// parsed only when the build first reads one (the title, the model, the parameters …: for the parts whose
+// pages or charts it makes). Reading and parsing every part of a 10,000-part library whole at each build, the objects
 // it made kept through the build, was a fifth of a rebuild after one edit. The parts handed out are the
 // build's from then on (it adds measurement text to them, for one); a shard written again is made from its
 // files as they are on disk and the entries this run stored.
@@ -23,14 +24,17 @@ import { deserialize, serialize } from 'node:v8';
 import { DiagnosticList, type Diagnostic, type SourcePosition } from './diagnostics.js';
 import { decodeExact, encodeExact, type Holes } from './exact-json.js';
 import { lazyPart, splitPart } from './lazy-part.js';
-import { lateText, ShardFiles, type HeadRow, type Heads, type ShardEntry } from './part-cache-files.js';
+import { partOnDemand } from './lazy-head.js';
+import { factsFrom } from './part-facts.js';
+import { LazySource } from './lazy-source.js';
+import { flagsText, lateText, PARSED, ShardFiles, SAFETY, temperatureOf, type HeadRow, type Heads, type ShardEntry } from './part-cache-files.js';
 import { readPart } from './part.js';
 import type { Part } from './part.js';
 import { parseYamlSource, type SourceFile } from './source.js';
 
 const SHARDS = 64;
 /** Changes whenever what an entry holds changes shape (or what reading a part gives does: see codeKey). */
-const FORMAT = 5;
+const FORMAT = 6;
 const SHARD_NAME = /^\d\d\.(lines|late)$/;
 
 export interface CachedRead {
@@ -81,7 +85,9 @@ function shardEntry(path: string, stamp: number[], read: CachedRead): ShardEntry
   const own = read.declared.id === early.id && samePosition(read.declared.at, early.at);
   const head = headTexts({ early, lateKeys: Object.keys(late), ...(own ? {} : { declared: read.declared }), ...(read.diagnostics.length > 0 ? { diagnostics: read.diagnostics } : {}) });
   const rest = head && exactText(late);
-  const at = { path, stamp: JSON.stringify(stamp), hash: source.hash };
+  const facts = factsFrom(read.part);
+  const parsed = !head || !rest || !own || read.diagnostics.length > 0 || read.part.measurements.length > 0;
+  const at = { path, stamp: JSON.stringify(stamp), hash: source.hash, id: read.part.id, kind: read.part.kind, flags: flagsText(parsed, facts), family: facts.family };
   if (head && rest) return { ...at, ...head, late: rest };
   const whole = { part: { ...fields, source: undefined }, declared: read.declared, diagnostics: read.diagnostics };
   return { ...at, head: V8, holes: '[]', late: Buffer.from(serialize(whole)).toString('base64') };
@@ -95,14 +101,21 @@ interface Shard extends Heads {
 /** Where a cached part's late fields are: read when the part's first late field is. */
 class LateFields {
   constructor(
-    private readonly cache: PartCache,
+    protected readonly cache: PartCache,
     private readonly shard: number,
     private readonly path: string,
-    private readonly row: HeadRow,
+    protected readonly row: HeadRow,
   ) {}
 
   read(): Record<string, unknown> {
     return this.cache.lateFields(this.shard, this.path, this.row);
+  }
+}
+
+/** Where a part handed out unparsed finds its head, and its late fields after. */
+class HeadFields extends LateFields {
+  head(): { early: Record<string, unknown>; lateKeys: readonly string[] } {
+    return this.cache.head(this.row);
   }
 }
 
@@ -142,9 +155,13 @@ export class PartCache {
     if (!row || row.stamp !== JSON.stringify(stamp)) return undefined;
     let read: CachedRead;
     try {
-      if (row.head === V8) read = deserialize(Buffer.from(this.late(i, path, row), 'base64')) as CachedRead;
+      if (!row.flags.includes(PARSED)) {
+        const part = partOnDemand({ id: row.id, kind: row.kind, source: new LazySource(this.root, path, row.hash), facts: { family: row.family, safety: row.flags.includes(SAFETY), temperature: temperatureOf(row.flags) } }, new HeadFields(this, i, path, row));
+        // The id the file declares is the part's own, at the part's own position.
+        read = { part, declared: part, diagnostics: [] };
+      } else if (row.head === V8) read = deserialize(Buffer.from(this.late(i, path, row), 'base64')) as CachedRead;
       else {
-        const head = decodeExact<Head>(JSON.parse(row.head), this.holes(row.holes));
+        const head = this.head(row);
         const declared = head.declared ?? { id: head.early.id as string, at: head.early.at as SourcePosition };
         read = { part: lazyPart(head.early, head.lateKeys, new LateFields(this, i, path, row)) as Part, declared, diagnostics: head.diagnostics ?? [] };
       }
@@ -152,9 +169,14 @@ export class PartCache {
       // a damaged row: read the file again
       return undefined;
     }
-    read.part.source = new LazySource(this.root, path, row.hash);
+    if (row.flags.includes(PARSED)) read.part.source = new LazySource(this.root, path, row.hash);
     this.counts.cached++;
     return read;
+  }
+
+  /** A row's head parsed. */
+  head(row: HeadRow): Head {
+    return decodeExact<Head>(JSON.parse(row.head), this.holes(row.holes));
   }
 
   /** A holes text parsed, once a build (a shard's rows share a handful; decodeExact only reads them). */
@@ -220,7 +242,7 @@ export class PartCache {
       for (const [path, row] of onDisk.rows) {
         if (!this.seen.has(path) || this.dropped.get(i)?.has(path) || !lateBytes) continue;
         try {
-          entries.set(path, { path, stamp: row.stamp, hash: row.hash, head: row.head, holes: row.holes, late: lateText(lateBytes, row) });
+          entries.set(path, { path, stamp: row.stamp, hash: row.hash, id: row.id, kind: row.kind, flags: row.flags, family: row.family, head: row.head, holes: row.holes, late: lateText(lateBytes, row) });
         } catch {
           // a damaged row: its file is read again next time
         }
@@ -252,37 +274,4 @@ function shardOf(path: string): number {
   let h = 0x811c9dc5;
   for (let i = 0; i < path.length; i++) h = Math.imul(h ^ path.charCodeAt(i), 0x01000193);
   return (h >>> 0) % SHARDS;
-}
-
-
-/** A source whose text and document are read from the file when first asked for. */
-class LazySource implements SourceFile {
-  private parsed?: SourceFile;
-
-  constructor(
-    private readonly root: string,
-    readonly path: string,
-    readonly hash: string,
-  ) {}
-
-  private load(): SourceFile {
-    if (!this.parsed) {
-      const text = readFileSync(join(this.root, this.path), 'utf8');
-      this.parsed = parseYamlSource(this.path, text, new DiagnosticList());
-      if (!this.parsed) throw new Error(`${this.path} changed while it was read and no longer parses; run again`);
-    }
-    return this.parsed;
-  }
-
-  get text() {
-    return this.load().text;
-  }
-
-  get document() {
-    return this.load().document;
-  }
-
-  get lines() {
-    return this.load().lines;
-  }
 }

@@ -163,10 +163,21 @@ export function readSpreadQuantity(fields: Fields, name: string, dim: Dimension,
   return value;
 }
 
+/** The temperatures a characteristic is specified over; undefined when it holds at every temperature. */
+export function ratedSpan(characteristic: TemperatureCharacteristic): TemperatureRange | undefined {
+  return characteristic.kind === 'range' ? { fromC: characteristic.fromC, toC: characteristic.toC } : characteristic.rated;
+}
+
+/** Whether a characteristic specified over `rated` (undefined: everywhere) covers the operating temperatures. */
+export function covers(rated: TemperatureRange | undefined, operating: TemperatureRange): boolean {
+  return !rated || (rated.fromC <= operating.fromC && rated.toC >= operating.toC);
+}
+
 /** The library's (or a plan's) operating range a characteristic's rating does not cover: the warning, if any. */
 export function coverageGap(characteristic: TemperatureCharacteristic, operating: TemperatureRange, where: string): string | undefined {
-  const rated = characteristic.kind === 'range' ? { fromC: characteristic.fromC, toC: characteristic.toC } : characteristic.rated;
-  if (!rated || (rated.fromC <= operating.fromC && rated.toC >= operating.toC)) return undefined;
+  const rated = ratedSpan(characteristic);
+  if (covers(rated, operating)) return undefined;
+  if (!rated) return undefined;
   const what = characteristic.code !== undefined ? `${characteristic.code} is specified` : 'the stated change covers';
   return `${what} from ${formatCelsius(rated.fromC)} to ${formatCelsius(rated.toC)} only, not all of ${where} (${formatCelsius(operating.fromC)} to ${formatCelsius(operating.toC)}); beyond it the change is not known and its corners may be optimistic`;
 }

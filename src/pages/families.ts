@@ -30,13 +30,7 @@ export interface PartFamily {
   /** In order of value, then id. */
   parts: Part[];
 }
-
-/**
- * Every field of a part that partFamilies reads (directly or through ratingText): the families are a function
- * of these fields of the library's parts, in order, and are kept from build to build under a hash of them
- * (src/build/family-cache.ts). test/pages/families.test.ts checks that no other field is read.
- */
-export const FAMILY_FIELDS = ['id', 'kind', 'behavesAs', 'nominal', 'package', 'dielectric', 'voltageRatings', 'voltageV', 'voltageAcV', 'currentA', 'powerW'] as const satisfies readonly (keyof Part)[];
+export { FAMILY_FIELDS } from '../model/part-facts.js';
 
 interface Facet {
   name: string;

@@ -1,5 +1,6 @@
 // The data every template reads, assembled once by the build: templates lay out, they never compute.
 
+import { hasSafetyClass } from '../model/part-facts.js';
 import type { PartAnalysis } from '../analysis/part-figures.js';
 import type { Library } from '../model/library.js';
 import type { PartKind } from '../model/part.js';
@@ -150,16 +151,26 @@ export function automaticComparisons(library: Library): PartFamily[] {
 }
 
 export function kindCounts(library: Library): FolioData['kindCounts'] {
-  return KIND_ORDER
-    .map((kind) => ({ kind, label: kindPlural(kind), count: library.parts.filter((p) => p.kind === kind).length }))
-    .filter((k) => k.count > 0);
+  const counts = new Map<PartKind, number>();
+  for (const part of library.parts) counts.set(part.kind, (counts.get(part.kind) ?? 0) + 1);
+  return KIND_ORDER.filter((kind) => counts.has(kind)).map((kind) => ({ kind, label: kindPlural(kind), count: counts.get(kind)! }));
 }
 
 /** What every page may read of the site besides its own data: known once the library is read. */
 export type FolioHeader = Omit<FolioData, 'parts' | 'partList' | 'partPages' | 'comparisons' | 'comparisonPages' | 'indexPages' | 'plans' | 'reviews' | keyof ComparisonIndex>;
 
+/** What the header reads of every part (kinds counted, a mains part looked for), once a library. */
+const partSummaries = new WeakMap<Library, Pick<FolioHeader, 'kindCounts' | 'mainsLegend'>>();
+
+function partSummary(library: Library): Pick<FolioHeader, 'kindCounts' | 'mainsLegend'> {
+  let found = partSummaries.get(library);
+  if (!found) partSummaries.set(library, (found = { kindCounts: kindCounts(library), mainsLegend: library.parts.some(hasSafetyClass) ? MAINS_LEGEND : undefined }));
+  return found;
+}
+
 export function folioHeader(library: Library): FolioHeader {
   const s = library.settings;
+  const { kindCounts, mainsLegend } = partSummary(library);
   return {
     title: s.title,
     owner: s.owner,
@@ -168,8 +179,8 @@ export function folioHeader(library: Library): FolioHeader {
     sweepText: sweepText(s.sweep),
     sweepCsvDigits: SWEEP_CSV_DIGITS,
     withinText: formatPercent(s.within),
-    kindCounts: kindCounts(library),
-    mainsLegend: library.parts.some((p) => p.safetyClass) ? MAINS_LEGEND : undefined,
+    kindCounts: kindCounts.map((k) => ({ ...k })),
+    mainsLegend,
     hasPlans: library.plans.length > 0,
     hasReviews: library.reviews.length > 0,
   };

@@ -14,6 +14,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio, CACHE_DIR, type BuildResult } from '../../src/build/build.js';
 import { writeGeneratedLibrary } from '../../bench/generate.js';
+import { headParsed } from '../../src/model/lazy-head.js';
 import { filesUnder, tempDir, treeHashes } from '../site-helpers.js';
 
 const PARTS = 300;
@@ -78,6 +79,9 @@ describe(`a rebuild of ${PARTS} generated parts`, () => {
     expect(unchanged.reused).toBe(PARTS);
     expect(unchanged.work).toMatchObject({ filesParsed: 0, partsAnalysed: 0, partFolders: 0, comparisons: 0, listFiles: 0 });
     expect(unchanged.charts!.rendered).toBe(0);
+    // No part's fields were parsed (lazy-head.ts) but those of parts whose reading warned (kept parsed).
+    const warned = new Set(unchanged.diagnostics.map((d) => d.file));
+    expect(unchanged.library!.parts.filter((p) => headParsed(p) && !warned.has(p.source.path)).map((p) => p.id)).toEqual([]);
   });
 
   let firstEdit: { id: string; result: BuildResult };
@@ -104,6 +108,9 @@ describe(`a rebuild of ${PARTS} generated parts`, () => {
     expect(result.work.pagesRendered - unchanged.work.pagesRendered).toBe(1 + showing.comparisons.length + indexPages);
     const onCharts = new Set(showing.comparisons.flatMap((c) => [...readFileSync(join(out, 'comparisons', c, 'index.html'), 'utf8').matchAll(/parts\/([^/"]+)\/index\.html/g)].map((m) => m[1])));
     expect(result.work.partsAnalysed).toBeLessThanOrEqual(onCharts.size);
+    // Of the unchanged parts, only those on the redrawn charts (and parts whose reading warned) had their fields parsed.
+    const warned = new Set(result.diagnostics.map((d) => d.file));
+    expect(result.library!.parts.filter((p) => headParsed(p) && p.id !== id && !onCharts.has(p.id) && !warned.has(p.source.path)).map((p) => p.id)).toEqual([]);
     // Every other unit is the spare's own copy: nothing was linked or copied file by file.
     expect(result.unitsLinked).toBe(0);
     firstEdit = { id, result };

@@ -62,10 +62,11 @@ describe('PartCache', () => {
       expect(new Set(holes).size).toBe(holes.length);
       for (const line of lines) {
         const fields = line.split('\t');
-        // path, stamp, hash, head, the index of its holes text, where its late text is
-        expect(fields).toHaveLength(6);
-        expect(Number(fields[4])).toBeLessThan(holes.length);
-        expect(fields[3]).not.toContain('"declared"');
+        // path, stamp, hash, id, kind, flags, family fields, head, the index of its holes text, where its late text is
+        expect(fields).toHaveLength(10);
+        expect(fields[4]).toBe(fields[3].startsWith('CAP-') ? 'capacitor' : 'bead');
+        expect(Number(fields[8])).toBeLessThan(holes.length);
+        expect(fields[7]).not.toContain('"declared"');
         rows++;
       }
     }
