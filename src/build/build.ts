@@ -8,7 +8,7 @@ import { loadLibrary, type Library } from '../model/library.js';
 import { railVerdicts } from '../analysis/review-checks.js';
 import { reviewWarnings } from '../model/review-consistency.js';
 import type { PaperSize } from '../model/settings.js';
-import { assembleSite, type BuildWork, type CarriedPart } from './assemble.js';
+import { assembleSite, type BuildWork } from './assemble.js';
 import { stageClock, type BuildTimings, type StageTime } from './stage-clock.js';
 import type { ChartMaker } from './chart-maker.js';
 import { libraryChartPool, type ChartPool, type ChartPoolStats } from './chart-pool.js';
@@ -28,7 +28,7 @@ import { PartCache } from '../model/part-cache.js';
 import { dropSiteRecord, readSiteRecord, recordDir, writeSiteRecord, type SiteRecord } from './site-record.js';
 import { currentVersion, SiteUnits } from './carry-over.js';
 import { SpareRefused } from './writable.js';
-import { carriedPart, recordParts } from './part-record.js';
+import { carriedParts, recordParts } from './part-record.js';
 import { comparisonPageKey, listPages } from './page-keys.js';
 import type { Part } from '../model/part.js';
 import { keptPdfs, linkPdfs, pdfKeys, pdfLinksFor, pdfsIn, stampPdfs } from './pdf-reuse.js';
@@ -209,16 +209,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
   let pool: ChartPool | undefined, pageRuns: PartPageRuns | undefined;
   try {
     const units = new SiteUnits(recordAt ? record : undefined, record?.spare && staging.claim(record.spare.name), outDir);
-    // Each part's id read once here (a cached part answers it through a proxy: lazy-head.ts).
-    const partKeys = new Map<string, string>();
-    const carried = new Map<string, CarriedPart>();
-    for (const part of library.parts) {
-      const id = part.id;
-      const key = partKey(site, part, pdfLinks.part(id));
-      partKeys.set(id, key);
-      const unit = `parts/${id}`;
-      if (recordAt && units.kept(unit, key)) carried.set(id, carriedPart(id, units.recordedEntry(unit)));
-    }
+    const { partKeys, carried } = carriedParts(library.parts, recordAt ? units : undefined, (part, id) => partKey(site, part, pdfLinks.part(id)));
     const partKeyOf = (id: string) => partKeys.get(id) ?? '';
     const fresh = library.parts.length - carried.size;
     pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), started: run.early });

@@ -6,6 +6,7 @@ import type { CarriedPart, RecordedPage } from './assemble.js';
 import { listedPart, type ListedPart } from '../pages/listed-part.js';
 import type { FolioData, PartPageData } from '../pages/site-data.js';
 import type { Library } from '../model/library.js';
+import type { Part } from '../model/part.js';
 import type { SiteUnits } from './carry-over.js';
 import { entryData, type UnitEntry } from './site-record.js';
 
@@ -36,6 +37,22 @@ function recordedPage(page: PartPageData): RecordedPage {
  */
 export function carriedPart(id: string, entry: UnitEntry | undefined): CarriedPart {
   return new RecordedPart(id, entry);
+}
+
+/**
+ * Each part's folder key (`keyOf`), and the parts whose folders `units` keeps (none without a record) as
+ * carried parts. Each part's id is read once (a cached part answers it through a Proxy: lazy-head.ts).
+ */
+export function carriedParts(parts: readonly Part[], units: SiteUnits | undefined, keyOf: (part: Part, id: string) => string): { partKeys: Map<string, string>; carried: Map<string, CarriedPart> } {
+  const partKeys = new Map<string, string>();
+  const carried = new Map<string, CarriedPart>();
+  for (const part of parts) {
+    const id = part.id;
+    const key = keyOf(part, id);
+    partKeys.set(id, key);
+    if (units?.kept(`parts/${id}`, key)) carried.set(id, carriedPart(id, units.recordedEntry(`parts/${id}`)));
+  }
+  return { partKeys, carried };
 }
 
 /** A carried part: two small objects a part (this and its RecordedListed), as a 10,000-part rebuild makes 10,000. */
