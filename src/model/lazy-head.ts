@@ -60,7 +60,8 @@ class OnDemand implements ProxyHandler<Target> {
       if (key === 'source') return this.known.source;
       if (key === 'measurements') return this.measurements;
     }
-    if (key === PART_FACTS) return this.known.facts;
+    // Once parsed, the facts come from the fields (which the build may since have changed).
+    if (key === PART_FACTS && !this.parsed) return this.known.facts;
     if (key === PENDING) return !this.parsed;
     // The target as the receiver: the late fields' getters find the part's values through it.
     return Reflect.get(this.ready(target), key);

@@ -103,7 +103,7 @@ class LateFields {
   constructor(
     protected readonly cache: PartCache,
     private readonly shard: number,
-    private readonly path: string,
+    protected readonly path: string,
     protected readonly row: HeadRow,
   ) {}
 
@@ -115,7 +115,7 @@ class LateFields {
 /** Where a part handed out unparsed finds its head, and its late fields after. */
 class HeadFields extends LateFields {
   head(): { early: Record<string, unknown>; lateKeys: readonly string[] } {
-    return this.cache.head(this.row);
+    return this.cache.earlyFields(this.path, this.row);
   }
 }
 
@@ -191,13 +191,28 @@ export class PartCache {
     try {
       return fromExactText<Record<string, unknown>>(this.late(i, path, row));
     } catch {
-      const text = readFileSync(join(this.root, path), 'utf8');
-      const source = parseYamlSource(path, text, new DiagnosticList());
-      const part = source?.hash === row.hash ? readPart({ source, diagnostics: new DiagnosticList() }) : undefined;
-      if (!part) throw new Error(`${path} changed while it was read; run again`);
-      const { source: _source, ...fields } = part;
-      return splitPart(fields).late;
+      return this.fromFile(path, row).late;
     }
+  }
+
+  /** A part's early fields and late keys, from its row's head, else (the head damaged) from the part file, when its hash is unchanged. */
+  earlyFields(path: string, row: HeadRow): { early: Record<string, unknown>; lateKeys: readonly string[] } {
+    try {
+      return this.head(row);
+    } catch {
+      const { early, late } = this.fromFile(path, row);
+      return { early, lateKeys: Object.keys(late) };
+    }
+  }
+
+  /** A part's fields read afresh from its file, split as the cache keeps them; an error when the file changed since its row was written. */
+  private fromFile(path: string, row: HeadRow): { early: Record<string, unknown>; late: Record<string, unknown> } {
+    const text = readFileSync(join(this.root, path), 'utf8');
+    const source = parseYamlSource(path, text, new DiagnosticList());
+    const part = source?.hash === row.hash ? readPart({ source, diagnostics: new DiagnosticList() }) : undefined;
+    if (!part) throw new Error(`${path} changed while it was read; run again`);
+    const { source: _source, ...fields } = part;
+    return splitPart(fields);
   }
 
   private late(i: number, path: string, row: HeadRow): string {

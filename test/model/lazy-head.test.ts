@@ -2,7 +2,7 @@
 // part (id, kind, source, measurements, the facts of part-facts.ts) is answered without parsing, and the part
 // is, in every other way it is used, the part a load without the cache gives.
 
-import { rmSync, writeFileSync } from 'node:fs';
+import { readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { isDeepStrictEqual } from 'node:util';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -108,5 +108,35 @@ describe('a cached part handed out unparsed', () => {
     const frozen = Object.freeze(byId(cachedLoad().parts).get('CAP-PLAIN')!);
     expect(Object.isFrozen(frozen)).toBe(true);
     expect(frozen.title).toBe(plain.get('CAP-PLAIN')!.title);
+  });
+
+  it('gives its facts from its fields once parsed (the build may change a field)', () => {
+    const part = byId(cachedLoad().parts).get('CAP-PLAIN')! as Part & { package: string };
+    part.package = '1206';
+    expect(JSON.parse(familyText(part))[FAMILY_FIELDS.indexOf('package')]).toBe('1206');
+  });
+
+  it('reads a damaged head from its part file, and refuses a part file changed since', () => {
+    cachedLoad();
+    const damage = () => {
+      for (const name of readdirSync(cacheDir).filter((n) => n.endsWith('.lines'))) {
+        const file = join(cacheDir, name);
+        const text = readFileSync(file, 'latin1');
+        if (text.includes('"CAP-PLAIN"')) writeFileSync(file, text.replace(/("id":"CAP-PLAIN")/, '$1,,'), 'latin1');
+      }
+    };
+    damage();
+    const part = byId(cachedLoad().parts).get('CAP-PLAIN')!;
+    expect(headParsed(part)).toBe(false);
+    expect(plainOf(part)).toEqual(plainOf(plain.get('CAP-PLAIN')!));
+    // Damaged again, and the part file edited after the part was handed out: no mix of two versions.
+    cachedLoad();
+    damage();
+    const stale = byId(cachedLoad().parts).get('CAP-PLAIN')!;
+    const file = join(root, 'parts', 'plain.yaml');
+    const original = readFileSync(file, 'utf8');
+    writeFileSync(file, original + '# edited\n');
+    expect(() => stale.nominal).toThrow(/changed while it was read/);
+    writeFileSync(file, original);
   });
 });
