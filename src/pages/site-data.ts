@@ -152,7 +152,7 @@ export function automaticComparisons(library: Library): PartFamily[] {
 
 export function kindCounts(library: Library): FolioData['kindCounts'] {
   const counts = new Map<PartKind, number>();
-  for (const part of library.parts) counts.set(part.kind, (counts.get(part.kind) ?? 0) + 1);
+  for (const { kind } of library.parts) counts.set(kind, (counts.get(kind) ?? 0) + 1);
   return KIND_ORDER.filter((kind) => counts.has(kind)).map((kind) => ({ kind, label: kindPlural(kind), count: counts.get(kind)! }));
 }
 
