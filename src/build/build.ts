@@ -213,7 +213,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     const partKeyOf = (id: string) => partKeys.get(id) ?? '';
     const fresh = library.parts.length - carried.size;
     pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), started: run.early });
-    if (pool) for (const part of library.parts) if (carried.has(part.id)) pool.keepPartCharts({ part });
+    if (pool) for (const id of carried.keys()) pool.keepPartCharts({ part: library.partsById.get(id)! });
     timings.load = clock();
 
     clock = stageClock();

@@ -176,8 +176,7 @@ export function covers(rated: TemperatureRange | undefined, operating: Temperatu
 /** The library's (or a plan's) operating range a characteristic's rating does not cover: the warning, if any. */
 export function coverageGap(characteristic: TemperatureCharacteristic, operating: TemperatureRange, where: string): string | undefined {
   const rated = ratedSpan(characteristic);
-  if (covers(rated, operating)) return undefined;
-  if (!rated) return undefined;
+  if (!rated || covers(rated, operating)) return undefined;
   const what = characteristic.code !== undefined ? `${characteristic.code} is specified` : 'the stated change covers';
   return `${what} from ${formatCelsius(rated.fromC)} to ${formatCelsius(rated.toC)} only, not all of ${where} (${formatCelsius(operating.fromC)} to ${formatCelsius(operating.toC)}); beyond it the change is not known and its corners may be optimistic`;
 }

@@ -10,6 +10,8 @@ import { kindPlural } from '../present/kinds.js';
 import { ratingTexts } from '../present/part-words.js';
 import { formatEng } from '../units/format.js';
 
+export { FAMILY_FIELDS } from '../model/part-facts.js';
+
 /** Most curves on one family's chart: beyond about a dozen, colours and dashes stop telling parts apart. */
 export const FAMILY_SIZE = 12;
 
@@ -30,7 +32,6 @@ export interface PartFamily {
   /** In order of value, then id. */
   parts: Part[];
 }
-export { FAMILY_FIELDS } from '../model/part-facts.js';
 
 interface Facet {
   name: string;
