@@ -81,7 +81,7 @@ describe('zfolio serve: a session', () => {
 
       const file = join(lib, 'parts', 'resistor.yaml');
       writeFileSync(file, readFileSync(file, 'utf8').replace('4.7 kΩ test resistor', '4.7 kΩ renamed resistor'));
-      await vi.waitFor(() => expect(out).toMatch(/^\d\d:\d\d:\d\d rebuilt 5 parts, \d+ pages in [\d.]+ s after parts\/resistor\.yaml changed$/m), { timeout: 20_000, interval: 50 });
+      await vi.waitFor(() => expect(out).toMatch(/^\d\d:\d\d:\d\d rebuilt 5 parts \(4 unchanged, carried over\), \d+ pages in [\d.]+ s after parts\/resistor\.yaml changed$/m), { timeout: 20_000, interval: 50 });
 
       writeFileSync(file, 'id: RES-TEST-4K7\nkind: resistor\ntitle: broken\nnominal: [1, 2]\n');
       await vi.waitFor(() => expect(err).toMatch(/^\d\d:\d\d:\d\d rebuild failed after parts\/resistor\.yaml changed: 1 error in the library; still serving the previous site$/m), { timeout: 20_000, interval: 50 });

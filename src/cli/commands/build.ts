@@ -57,6 +57,9 @@ export function paperOption(value: unknown): PaperSize | undefined {
   return match;
 }
 
+/** How many parts a build carried over from the last site, as the summary line says it (empty for none). */
+export const carriedText = (result: BuildResult) => (result.reused > 0 ? ` (${result.reused} unchanged, carried over)` : '');
+
 /** Print problems and a summary; the exit code for a build result. */
 export function reportBuild(result: BuildResult, io: CommandIO): number {
   for (const d of result.diagnostics) io.err(formatDiagnostic(d) + '\n');
@@ -67,8 +70,7 @@ export function reportBuild(result: BuildResult, io: CommandIO): number {
   }
   const pdfs = result.pdfs.length > 0 ? `, ${plural(result.pdfs.length, 'PDF')} (${result.pdfs.reduce((n, p) => n + p.pages, 0)} pages)` : '';
   const kept = result.keptPdfs > 0 ? `, ${plural(result.keptPdfs, 'PDF')} of the last build kept` : '';
-  const carried = result.reused > 0 ? ` (${result.reused} unchanged, carried over)` : '';
-  io.out(`built ${plural(result.parts, 'part')}${carried}, ${plural(result.pages, 'page')}${pdfs}${kept} in ${result.seconds.toFixed(1)} s: ${relative(io.cwd, result.outDir) || '.'}/index.html\n`);
+  io.out(`built ${plural(result.parts, 'part')}${carriedText(result)}, ${plural(result.pages, 'page')}${pdfs}${kept} in ${result.seconds.toFixed(1)} s: ${relative(io.cwd, result.outDir) || '.'}/index.html\n`);
   if (result.removedPdfs.length > 0) io.err(`zfolio build: ${removedPdfsText(result.removedPdfs)}\n`);
   if (result.pdfProblem) {
     io.err(`zfolio build: the site was written, but no PDFs. ${result.pdfProblem}\n`);

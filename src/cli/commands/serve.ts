@@ -10,7 +10,7 @@ import { DEFAULT_HOST, DEFAULT_PORT } from '../../serve/static-server.js';
 import { commandOptions, LIBRARY_OPTION, libraryRoot } from '../args.js';
 import { EXIT_OK, UsageError, type CommandIO } from '../io.js';
 import { plural } from '../report.js';
-import { BUILD_OPTIONS, outputOptions, removedPdfsText, reportBuild, workersOption } from './build.js';
+import { BUILD_OPTIONS, carriedText, outputOptions, removedPdfsText, reportBuild, workersOption } from './build.js';
 
 export const serveHelp = `Usage: zfolio serve [--library DIR] [--out DIR] [--port N] [--host ADDRESS]
 
@@ -75,7 +75,7 @@ export function reportRebuild(report: BuildReport, io: CommandIO): void {
     return;
   }
   const removed = result.removedPdfs.length > 0 ? `; ${removedPdfsText(result.removedPdfs)}` : '';
-  io.out(`${clock(report.at)} rebuilt ${plural(result.parts, 'part')}, ${plural(result.pages, 'page')} in ${result.seconds.toFixed(1)} s ${after}${removed}\n`);
+  io.out(`${clock(report.at)} rebuilt ${plural(result.parts, 'part')}${carriedText(result)}, ${plural(result.pages, 'page')} in ${result.seconds.toFixed(1)} s ${after}${removed}\n`);
 }
 
 /** Resolves when the process is asked to stop (Ctrl+C, or a service manager's TERM). */
