@@ -1,6 +1,7 @@
 // The folio at scale (opt-in: `npm run bench -- scale`): generated libraries of 1,000 and 10,000 invented
 // parts, each built cold, rebuilt once with nothing changed (timed apart: it has no spare version to update
-// yet, see src/build/carry-over.ts), rebuilt after one part file is edited (three times, see EDITS) and rebuilt with nothing changed,
+// yet, see src/build/carry-over.ts), rebuilt after one part file is edited (EDITS times, the sizes taking
+// turns) and rebuilt with nothing changed,
 // every build in a process of its own so its peak RSS is its own (the edit and the rebuild with nothing
 // changed are also timed as whole processes: Node's start, loading zfolio, the build and the exit, as a
 // `zfolio build` command takes); then the site's size, its files and its largest page. Each 10,000-part figure is also given as a ratio to the 1,000-part one measured in this run.
@@ -20,10 +21,12 @@ const HERE = dirname(fileURLToPath(import.meta.url));
 const SIZES = (process.env.ZFOLIO_BENCH_SCALE ?? '1000,10000').split(',').map(Number);
 /**
  * One-edit rebuilds timed at each size. A single rebuild's time moved by 15 % from one run to the next on a
- * 2-core machine with nothing else running (1.56 to 1.94 s at 10,000 parts); the figure and its ratio are
- * each size's median, with the range beside it.
+ * 2-core machine with nothing else running (1.56 to 1.94 s at 10,000 parts), and the machine's own speed moves
+ * over minutes (the same cold build took 32.7 and 46.7 s of CPU a few minutes apart): the sizes take turns,
+ * one edit each a round, so that both meet the machine as it is then. The figure and its ratio are each
+ * size's median, with the range beside it, and each round's ratio is given too.
  */
-const EDITS = 3;
+const EDITS = 5;
 
 /** The item of median value (the lower middle of an even count). */
 function median<T>(items: readonly T[], value: (item: T) => number): T {
@@ -117,28 +120,49 @@ async function firstScreenshot(site: string): Promise<number | null> {
   }
 }
 
-async function runAt(parts: number): Promise<Run> {
+/** A size's library built cold and once more unchanged, its site measured, ready for the edit rounds. */
+interface Prepared extends Omit<Run, 'edited' | 'edits' | 'unchanged'> {
+  root: string;
+  out: string;
+  target: string;
+  original: string;
+  builds: Build[];
+}
+
+async function prepare(parts: number): Promise<Prepared> {
   const root = writeGeneratedLibrary(parts, 1);
   const out = join(root, '_site');
   const target = join(root, 'parts', 'group-0', 'gen-0.yaml');
+  const cold = build(root, out);
+  const site = siteSize(out);
+  const partFolderBytes = folderBytes(join(realpathSync(out), 'parts')) / parts;
+  const first = build(root, out);
+  const indexSeconds = await firstScreenshot(out);
+  return { parts, root, out, target, original: readFileSync(target, 'utf8'), builds: [], cold, first, site, partFolderBytes, indexSeconds };
+}
+
+/** Edit round `i` of one size: a new ESR for the same part, and the rebuild. */
+function editRound(p: Prepared, i: number): void {
+  writeFileSync(p.target, p.original.replace(/esr: [^,}]+/, `esr: 0.01${23 + i}`));
+  p.builds.push(build(p.root, p.out));
+}
+
+function finish(p: Prepared, unchanged: Build): Run {
+  const { builds, root: _root, out: _out, target: _target, original: _original, ...rest } = p;
+  const edits = { seconds: builds.map((b) => b.seconds), processSeconds: builds.map((b) => b.processSeconds) };
+  const edited = { ...median(builds, (b) => b.seconds), processSeconds: median(edits.processSeconds, (x) => x) };
+  return { ...rest, edited, edits, unchanged };
+}
+
+/** Every size prepared, then the edit rounds (each size in turn), then each rebuilt with nothing changed. */
+async function runAll(sizes: readonly number[]): Promise<Run[]> {
+  const prepared: Prepared[] = [];
   try {
-    const cold = build(root, out);
-    const site = siteSize(out);
-    const partFolderBytes = folderBytes(join(realpathSync(out), 'parts')) / parts;
-    const first = build(root, out);
-    const indexSeconds = await firstScreenshot(out);
-    const original = readFileSync(target, 'utf8');
-    const builds: Build[] = [];
-    for (let i = 0; i < EDITS; i++) {
-      writeFileSync(target, original.replace(/esr: [^,}]+/, `esr: 0.01${23 + i}`));
-      builds.push(build(root, out));
-    }
-    const unchanged = build(root, out);
-    const edits = { seconds: builds.map((b) => b.seconds), processSeconds: builds.map((b) => b.processSeconds) };
-    const edited = { ...median(builds, (b) => b.seconds), processSeconds: median(edits.processSeconds, (x) => x) };
-    return { parts, cold, first, edited, edits, unchanged, site, partFolderBytes, indexSeconds };
+    for (const parts of sizes) prepared.push(await prepare(parts));
+    for (let i = 0; i < EDITS; i++) for (const p of prepared) editRound(p, i);
+    return prepared.map((p) => finish(p, build(p.root, p.out)));
   } finally {
-    rmSync(root, { recursive: true, force: true });
+    for (const p of prepared) rmSync(p.root, { recursive: true, force: true });
   }
 }
 
@@ -156,10 +180,9 @@ export const scaleBench: BenchSection = {
     // The builds run the compiled dist/ (scale-build.mjs): compile it from the sources as they are.
     execFileSync('npm', ['run', '--silent', 'build:ts'], { cwd: join(HERE, '..'), stdio: 'inherit' });
     const lines = [`load average before: ${loadavg().map((x) => x.toFixed(2)).join(' ')}; each build in a process of its own`];
-    const runs: Run[] = [];
-    for (const parts of SIZES) {
-      const r = await runAt(parts);
-      runs.push(r);
+    const runs = await runAll(SIZES);
+    for (const r of runs) {
+      const parts = r.parts;
       lines.push(
         `${n(parts)} parts: cold ${s(r.cold.seconds)} (${n(r.cold.pages)} pages), first rebuild ${s(r.first.seconds)} (${work(r.first)}), then one part edited ${s(r.edited.seconds)} (the median of ${EDITS} edits, ${range(r.edits.seconds)}; ${s(r.edited.processSeconds)} the whole process, ${range(r.edits.processSeconds)}; ${n(r.edited.reused)} part folders carried over; ${work(r.edited)}), nothing changed ${s(r.unchanged.seconds)} (${s(r.unchanged.processSeconds)} the whole process; ${work(r.unchanged)}); ` +
           `peak RSS ${mb(r.cold.peakRssBytes)} cold, ${mb(r.edited.peakRssBytes)} edited; site ${mb(r.site.bytes)} in ${n(r.site.files)} files, ${kb(r.partFolderBytes)} a part folder, largest page ${kb(r.site.largestPage.bytes)} (${r.site.largestPage.file}); index to first screenshot in Chromium ${r.indexSeconds === null ? 'not measured (no Chromium)' : s(r.indexSeconds)}`,
@@ -168,7 +191,7 @@ export const scaleBench: BenchSection = {
     const [base, ...larger] = runs;
     for (const r of larger) {
       lines.push(
-        `${n(r.parts)} parts as ratios to ${n(base.parts)} (${ratio(r.parts, base.parts)} the parts): cold ${ratio(r.cold.seconds, base.cold.seconds)}, one edit ${ratio(r.edited.seconds, base.edited.seconds)} (medians; the whole process ${ratio(r.edited.processSeconds, base.edited.processSeconds)}), ` +
+        `${n(r.parts)} parts as ratios to ${n(base.parts)} (${ratio(r.parts, base.parts)} the parts): cold ${ratio(r.cold.seconds, base.cold.seconds)}, one edit ${ratio(r.edited.seconds, base.edited.seconds)} (medians; round by round ${r.edits.seconds.map((x, i) => ratio(x, base.edits.seconds[i])).join(', ')}; the whole process ${ratio(r.edited.processSeconds, base.edited.processSeconds)}), ` +
           `nothing changed ${ratio(r.unchanged.seconds, base.unchanged.seconds)} (the whole process ${ratio(r.unchanged.processSeconds, base.unchanged.processSeconds)}), peak RSS ${ratio(r.cold.peakRssBytes, base.cold.peakRssBytes)}, site size ${ratio(r.site.bytes, base.site.bytes)}, files ${ratio(r.site.files, base.site.files)}`,
       );
     }
