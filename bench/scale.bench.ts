@@ -133,12 +133,18 @@ async function prepare(parts: number): Promise<Prepared> {
   const root = writeGeneratedLibrary(parts, 1);
   const out = join(root, '_site');
   const target = join(root, 'parts', 'group-0', 'gen-0.yaml');
-  const cold = build(root, out);
-  const site = siteSize(out);
-  const partFolderBytes = folderBytes(join(realpathSync(out), 'parts')) / parts;
-  const first = build(root, out);
-  const indexSeconds = await firstScreenshot(out);
-  return { parts, root, out, target, original: readFileSync(target, 'utf8'), builds: [], cold, first, site, partFolderBytes, indexSeconds };
+  try {
+    const cold = build(root, out);
+    const site = siteSize(out);
+    const partFolderBytes = folderBytes(join(realpathSync(out), 'parts')) / parts;
+    const first = build(root, out);
+    const indexSeconds = await firstScreenshot(out);
+    return { parts, root, out, target, original: readFileSync(target, 'utf8'), builds: [], cold, first, site, partFolderBytes, indexSeconds };
+  } catch (error) {
+    // Not yet in runAll's list, which removes the libraries prepared before.
+    rmSync(root, { recursive: true, force: true });
+    throw error;
+  }
 }
 
 /** Edit round `i` of one size: a new ESR for the same part, and the rebuild. */
