@@ -49,24 +49,24 @@ export function cachedFamilies(parts: readonly Part[], partsById: ReadonlyMap<st
 }
 
 function readFamilies(file: string, key: string, partsById: ReadonlyMap<string, Part>): PartFamily[] | undefined {
-  let read: FamiliesFile;
   try {
-    read = JSON.parse(readText(file).text);
+    const read = JSON.parse(readText(file).text) as FamiliesFile;
+    if (read?.key !== key || !Array.isArray(read.families)) return undefined;
+    const families: PartFamily[] = [];
+    for (const f of read.families) {
+      const parts: Part[] = [];
+      for (const id of f.parts) {
+        const part = partsById.get(id);
+        if (!part) return undefined;
+        parts.push(part);
+      }
+      families.push({ ...f, parts });
+    }
+    return families;
   } catch {
+    // Unreadable, or damaged under its key (a family or its list of parts not there): made afresh.
     return undefined;
   }
-  if (read?.key !== key || !Array.isArray(read.families)) return undefined;
-  const families: PartFamily[] = [];
-  for (const f of read.families) {
-    const parts: Part[] = [];
-    for (const id of f.parts) {
-      const part = partsById.get(id);
-      if (!part) return undefined;
-      parts.push(part);
-    }
-    families.push({ ...f, parts });
-  }
-  return families;
 }
 
 /**

@@ -205,6 +205,13 @@ describe('part families kept between builds', () => {
     text.families[0].title = 'Not to be read';
     writeFileSync(file, JSON.stringify(text));
     expect(cachedFamilies(parts, byId, 'code C', file)).toEqual(made);
+    // Damaged under its own key: a family without its list of parts, then no family at all.
+    for (const damage of [{ title: 'no parts' }, null]) {
+      const whole = JSON.parse(readFileSync(file, 'utf8'));
+      whole.families[1] = damage;
+      writeFileSync(file, JSON.stringify(whole));
+      expect(cachedFamilies(parts, byId, 'code C', file)).toEqual(made);
+    }
   });
 
   it('remove the drafts that stopped builds left when they write the file, not those of a running build', () => {
