@@ -212,15 +212,16 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     const { partKeys, carried } = carriedParts(library.parts, recordAt ? units : undefined, (part, id) => partKey(site, part, pdfLinks.part(id)));
     const partKeyOf = (id: string) => partKeys.get(id) ?? '';
     const fresh = library.parts.length - carried.size;
-    pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), started: run.early });
-    if (pool) for (const id of carried.keys()) pool.keepPartCharts({ part: library.partsById.get(id)! });
+    pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), started: run.early, pruning: 'when due' });
+    // Only a build that prunes the chart cache keys what it carries over (chart-cache-ledger.ts).
+    if (pool?.prunes) for (const id of carried.keys()) pool.keepPartCharts({ part: library.partsById.get(id)! });
     timings.load = clock();
 
     clock = stageClock();
     const unitKeys = {
       comparison: (page: Parameters<typeof comparisonPageKey>[1]) => comparisonPageKey(site, page, partKeyOf),
       kept: (unit: string, key: string) => Boolean(recordAt) && units.kept(unit, key),
-      keepChart: (parts: readonly Part[], title: string) => pool?.keepComparisonChart(parts, title),
+      keepChart: pool?.prunes ? (parts: readonly Part[], title: string) => pool?.keepComparisonChart(parts, title) : undefined,
     };
     const spill = new SvgSpill(staging.dir);
     pageRuns = buildPageRuns(staging.dir, library, spill, options.partPagesPerRun);

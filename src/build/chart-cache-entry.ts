@@ -15,7 +15,7 @@ import type { DrawnChart } from './chart-maker.js';
 /** The format of chart files; a new format is a new cache key, so an entry of another one is never read. */
 export const CHART_FILE_FORMAT = 2;
 
-/** The extension of a cache entry's file (entries of other names are pruned, chart-pool.ts). */
+/** The extension of a cache entry's file (files of other names are pruned, chart-cache-ledger.ts). */
 export const CACHE_ENTRY_EXTENSION = '.charts';
 
 const SEPARATOR = '\0';

@@ -5,7 +5,7 @@
 // and folio modules' files), the part file's content hash, and the library's sweep and band settings; and
 // the format of the entry (chart-cache-entry.ts).
 
-import { existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Worker } from 'node:worker_threads';
 import type { PartAnalysis } from '../analysis/part-figures.js';
@@ -22,6 +22,7 @@ import type { MeasurementChartData } from '../charts/measurement-charts.js';
 import type { FolioSettings } from '../model/settings.js';
 import type { Part } from '../model/part.js';
 import { defaultWorkerCount, startChartWorker, type StartedWorker } from './chart-workers.js';
+import { countWritten, pruneCache, pruneDue } from './chart-cache-ledger.js';
 
 export interface ChartPoolOptions {
   /** Folder for cached charts; none: no cache. */
@@ -32,6 +33,8 @@ export interface ChartPoolOptions {
   settingsKey: string;
   /** Workers started already (chart-workers.ts): the pool takes as many as it needs out of the list. */
   started?: StartedWorker[];
+  /** When the cache is pruned to the entries a build used: every build (default), or when its ledger says so (chart-cache-ledger.ts). */
+  pruning?: 'every build' | 'when due';
 }
 
 export interface ChartPoolStats {
@@ -86,11 +89,15 @@ export class ChartPool implements ChartMaker {
   private readonly usedKeys = new Set<string>();
   private nextId = 0;
   private preparing = false;
+  /** Whether this build prunes the cache, and so keys what it carries over (keepPartCharts, keepComparisonChart). */
+  readonly prunes: boolean;
+  private closed = false;
 
   constructor(private readonly options: ChartPoolOptions) {
     const count = options.workers ?? defaultWorkerCount();
     for (let i = 0; i < count; i++) this.startWorker(options.started?.shift());
     if (options.cacheDir) mkdirSync(options.cacheDir, { recursive: true });
+    this.prunes = options.cacheDir !== undefined && (options.pruning !== 'when due' || pruneDue(options.cacheDir));
   }
 
   async partCharts(a: PartAnalysis, downloads?: DownloadPlace, svgFile?: string): Promise<DrawnChart[]> {
@@ -114,12 +121,12 @@ export class ChartPool implements ChartMaker {
 
   /** Keep a part's cached charts through this build's pruning without reading them (its page is reused). */
   keepPartCharts(a: Pick<PartAnalysis, 'part'>): void {
-    this.usedKeys.add(this.partKey(a.part.source.hash));
+    if (this.prunes) this.usedKeys.add(this.partKey(a.part.source.hash));
   }
 
   /** Keep a comparison's cached chart through this build's pruning without reading it (its page is kept). */
   keepComparisonChart(parts: readonly Pick<Part, 'source'>[], title: string): void {
-    this.usedKeys.add(this.comparisonKey(parts, title));
+    if (this.prunes) this.usedKeys.add(this.comparisonKey(parts, title));
   }
 
   private comparisonKey(parts: readonly Pick<Part, 'source'>[], title: string): string {
@@ -156,17 +163,16 @@ export class ChartPool implements ChartMaker {
     return this.cached(this.key('measurement', String(index), inputsKey), () => ({ type: 'measurement', data, index }));
   }
 
-  /** Stop the workers and drop cache entries this build did not use, so the cache never grows stale. */
+  /** Stop the workers and, when this build prunes, drop the cache entries it did not use; else count those it wrote. */
   async close(): Promise<void> {
     await Promise.all(this.workers.map((w) => w.terminate()));
     this.workers.length = 0;
     const dir = this.options.cacheDir;
-    if (dir && existsSync(dir)) {
-      for (const name of readdirSync(dir)) {
-        // Entries of another format or name, and any left in part, go too.
-        if (!(name.endsWith(CACHE_ENTRY_EXTENSION) && this.usedKeys.has(name.slice(0, -CACHE_ENTRY_EXTENSION.length)))) rmSync(join(dir, name), { force: true });
-      }
-    }
+    if (this.closed || !dir || !existsSync(dir)) return;
+    this.closed = true;
+    const ledger = this.options.pruning === 'when due';
+    if (this.prunes) pruneCache(dir, this.usedKeys, ledger);
+    else if (ledger) countWritten(dir, this.stats.rendered);
   }
 
   private key(...parts: string[]): string {
@@ -179,8 +185,8 @@ export class ChartPool implements ChartMaker {
   /**
    * A part's charts' key: 16 hex digits of a hash of what every part's shares (the code, the entry format,
    * the settings), then the part file's content hash, 16 hex digits of SHA-256 already (source.ts). A rebuild
-   * keys every part it carries over, to keep its charts through the pruning: 10,000 hashes of the whole text
-   * otherwise. A content hash of another form (none a library gives) is hashed with the rest, as other keys are.
+   * that prunes keys every part it carries over, to keep its charts through the pruning: 10,000 hashes of the
+   * whole text otherwise. A content hash of another form (none a library gives) is hashed with the rest, as other keys are.
    */
   private partKey(contentHash: string): string {
     if (!CONTENT_HASH.test(contentHash)) return this.key('part', contentHash);

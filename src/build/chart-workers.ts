@@ -10,6 +10,7 @@ import { availableParallelism } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import { LEDGER_FILE } from './chart-cache-ledger.js';
 import { slowerTierUp } from './tier-up.js';
 
 const HERE = dirname(fileURLToPath(import.meta.url));
@@ -80,14 +81,15 @@ export function earlyChartWorkers(start: EarlyStart): StartedWorker[] {
   slowerTierUp();
   if (start.workers === 0) return [];
   if (start.recordDir && existsSync(start.recordDir)) return [];
-  if (start.cacheRoot && !emptyFolder(join(start.cacheRoot, 'charts'))) return [];
+  if (start.cacheRoot && !noCachedCharts(join(start.cacheRoot, 'charts'))) return [];
   if (!atLeastYamlFiles(join(start.libraryRoot, 'parts'), PARTS_PER_WORKER_START)) return [];
   return Array.from({ length: start.workers ?? defaultWorkerCount() }, startChartWorker);
 }
 
-function emptyFolder(dir: string): boolean {
+/** Whether the chart cache holds no entry (its ledger alone does not count, chart-cache-ledger.ts). */
+function noCachedCharts(dir: string): boolean {
   try {
-    return readdirSync(dir).length === 0;
+    return readdirSync(dir).every((name) => name === LEDGER_FILE);
   } catch {
     return true;
   }

@@ -113,6 +113,10 @@ describe(`a rebuild of ${PARTS} generated parts`, () => {
     expect(result.library!.parts.filter((p) => headParsed(p) && p.id !== id && !onCharts.has(p.id) && !warned.has(p.source.path)).map((p) => p.id)).toEqual([]);
     // Every other unit is the spare's own copy: nothing was linked or copied file by file.
     expect(result.unitsLinked).toBe(0);
+    // The chart cache was not pruned (chart-cache-ledger.ts): its ledger counts the entries this build drew.
+    const ledger = JSON.parse(readFileSync(join(root, CACHE_DIR, 'charts', 'ledger.json'), 'utf8')) as { written: number };
+    expect(ledger.written).toBe(result.charts!.rendered);
+    expect(result.charts!.rendered).toBeGreaterThan(0);
     firstEdit = { id, result };
   }, 600_000);
 

@@ -8,6 +8,7 @@ import { Worker } from 'node:worker_threads';
 import { afterAll, describe, expect, it } from 'vitest';
 import { earlyChartWorkers, PARTS_PER_WORKER_START, WORKER_LIMITS, type StartedWorker } from '../../src/build/chart-workers.js';
 import { ChartPool } from '../../src/build/chart-pool.js';
+import { LEDGER_FILE } from '../../src/build/chart-cache-ledger.js';
 import type { Part } from '../../src/model/part.js';
 import { analysed, resistorPart } from '../charts/fixtures.js';
 
@@ -58,6 +59,16 @@ describe('chart workers started early', () => {
     writeFileSync(join(cacheRoot, 'charts', 'entry.json.gz'), '');
     expect(earlyChartWorkers({ libraryRoot, cacheRoot, recordDir, workers: 1 })).toEqual([]);
   });
+
+  it('are started when the chart cache holds its ledger and no chart (chart-cache-ledger.ts)', async () => {
+    const libraryRoot = library('ledger-only', PARTS_PER_WORKER_START);
+    const cacheRoot = join(libraryRoot, '.zfolio-cache');
+    mkdirSync(join(cacheRoot, 'charts'), { recursive: true });
+    writeFileSync(join(cacheRoot, 'charts', LEDGER_FILE), '{"format":1,"held":0,"written":0}');
+    const started = earlyChartWorkers({ libraryRoot, cacheRoot, workers: 1 });
+    expect(started).toHaveLength(1);
+    await stop(started);
+  }, 60_000);
 
   it('are taken over by the chart pool, which draws with them', async () => {
     const started = earlyChartWorkers({ libraryRoot: library('pool', PARTS_PER_WORKER_START), workers: 1 });
