@@ -24,6 +24,8 @@ type Source = 'spare' | 'live' | 'fresh';
 interface Wanted {
   key: string;
   from: Source;
+  /** The record's entry of a unit kept from the spare or the live site. */
+  entry?: UnitEntry;
   data?: unknown;
 }
 
@@ -57,9 +59,9 @@ export class SiteUnits {
    * into the staging folder (false). Every unit of the new site goes through here once.
    */
   kept(unit: string, key: string): boolean {
-    const from = this.source(unit, key);
-    this.wanted.set(unit, { key, from });
-    return from !== 'fresh';
+    const wanted = this.source(unit, key);
+    this.wanted.set(unit, wanted);
+    return wanted.from !== 'fresh';
   }
 
   /** The data recorded with a unit (a part's listed data), when it is kept. */
@@ -69,9 +71,7 @@ export class SiteUnits {
 
   /** The record's entry of a kept unit (its data unread: see entryData). */
   recordedEntry(unit: string): UnitEntry | undefined {
-    const w = this.wanted.get(unit);
-    if (!w || w.from === 'fresh') return undefined;
-    return (w.from === 'spare' ? this.record?.spare : this.record?.live)?.get(unit);
+    return this.wanted.get(unit)?.entry;
   }
 
   /** Data to record with a unit (kept or made afresh). */
@@ -87,14 +87,15 @@ export class SiteUnits {
     return counts;
   }
 
-  private source(unit: string, key: string): Source {
+  /** Where a unit with this key comes from, with the record's entry when it is kept. */
+  private source(unit: string, key: string): Wanted {
     const folder = isFolderUnit(unit);
     const spare = this.spareDir ? this.record?.spare?.get(unit) : undefined;
     // Unit paths are site-relative with forward slashes and no dot segments: joined as text (a 10,000-part rebuild joins 10,000).
-    if (spare?.key === key && spareUnchanged(`${this.spareDir}/${unit}`, folder, spare.stamp)) return 'spare';
+    if (spare?.key === key && spareUnchanged(`${this.spareDir}/${unit}`, folder, spare.stamp)) return { key, from: 'spare', entry: spare };
     const live = this.liveDir ? this.record?.live?.get(unit) : undefined;
-    if (live?.key === key && sameStamp(live.stamp, unitStamp(join(this.liveDir!, unit), folder))) return 'live';
-    return 'fresh';
+    if (live?.key === key && sameStamp(live.stamp, unitStamp(join(this.liveDir!, unit), folder))) return { key, from: 'live', entry: live };
+    return { key, from: 'fresh' };
   }
 
   /**
@@ -107,10 +108,10 @@ export class SiteUnits {
     if (target !== staging) {
       const keptHere = new PathsByFolder();
       const removed: string[] = [];
-      for (const [unit] of this.record!.spare!.units()) {
+      this.record!.spare!.forEachUnit((unit) => {
         if (this.wanted.get(unit)?.from === 'spare') keptHere.add(unit);
         else removed.push(unit);
-      }
+      });
       // Each folder of the spare is listed once, for the check and for the update (the parts/ folder of a
       // 10,000-part site holds 10,000 entries); the units removed below are skipped in those listings.
       const listings = new Map<string, Dirent[]>();
@@ -139,7 +140,7 @@ export class SiteUnits {
   nextRecord(target: string, replaced: string | undefined, pdfs: SiteRecord['pdfs']): SiteRecord {
     const name = basename(target);
     const base = this.spareDir ? this.record!.spare!.renamed(name) : new VersionRecord(name);
-    if (this.spareDir) for (const [unit] of this.record!.spare!.units()) if (!this.wanted.has(unit)) base.delete(unit);
+    if (this.spareDir) this.record!.spare!.forEachUnit((unit) => void (this.wanted.has(unit) || base.delete(unit)));
     for (const [unit, w] of this.wanted) {
       // A unit the spare keeps whose data was not set again is in `base` (the spare's record) as it is: not
       // looked up (10,000 units after one edit of 10,000 parts).

@@ -50,7 +50,8 @@ export function carriedParts(parts: readonly Part[], units: SiteUnits | undefine
     const id = part.id;
     const key = keyOf(part, id);
     partKeys.set(id, key);
-    if (units?.kept(`parts/${id}`, key)) carried.set(id, carriedPart(id, units.recordedEntry(`parts/${id}`)));
+    const unit = `parts/${id}`;
+    if (units?.kept(unit, key)) carried.set(id, carriedPart(id, units.recordedEntry(unit)));
   }
   return { partKeys, carried };
 }

@@ -132,6 +132,11 @@ export class VersionRecord {
     for (let i = 0; i < SHARDS; i++) yield* this.shard(i);
   }
 
+  /** Each unit's path to `visit`, shard by shard: no iterator result or entry pair made a unit, as `units` makes. */
+  forEachUnit(visit: (unit: string) => void): void {
+    for (let i = 0; i < SHARDS; i++) this.shard(i).forEach((_entry, unit) => visit(unit));
+  }
+
   /** A copy under another name, sharing the shard files and maps (entries are never changed in place). */
   renamed(name: string): VersionRecord {
     const copy = new VersionRecord(name, this.shards, [...this.names]);

@@ -101,14 +101,17 @@ export function loadLibrary(root: string, options: LoadOptions = {}): LoadResult
         else cache.parsed(path);
       }
     }
-    const earlier = own && declared.get(own.id.toLowerCase());
+    // The id is read once (a cached part answers it through a Proxy, lazy-head.ts): 10,000 parts a build.
+    const ownId = own?.id;
+    const folded = ownId?.toLowerCase();
+    const earlier = folded === undefined ? undefined : declared.get(folded);
     if (own && earlier) {
-      const how = earlier.id === own.id ? `duplicate id ${quote(own.id)}` : `id ${quote(own.id)} differs from ${quote(earlier.id)} only in letter case, and their pages would collide on many file systems`;
+      const how = earlier.id === ownId ? `duplicate id ${quote(ownId)}` : `id ${quote(ownId!)} differs from ${quote(earlier.id)} only in letter case, and their pages would collide on many file systems`;
       diagnostics.error(own.at, `${how}: already defined at ${formatPosition(earlier.at)}`);
-    } else if (own) declared.set(own.id.toLowerCase(), own);
-    if (!part && own && !earlier) unreadableParts.set(own.id, path);
+    } else if (own) declared.set(folded!, own);
+    if (!part && own && !earlier) unreadableParts.set(ownId!, path);
     if (!part || (own && earlier)) continue;
-    partsById.set(part.id, part);
+    partsById.set(part === own ? ownId! : part.id, part);
     parts.push(part);
   }
 

@@ -79,7 +79,7 @@ function headTexts(head: Head): { head: string; holes: string } | undefined {
 }
 
 /** An entry as its shard's files hold it (part-cache-files.ts). */
-function shardEntry(path: string, stamp: number[], read: CachedRead): ShardEntry {
+function shardEntry(path: string, stamp: string, read: CachedRead): ShardEntry {
   const { source, ...fields } = read.part;
   const { early, late } = splitPart(fields);
   const own = read.declared.id === early.id && samePosition(read.declared.at, early.at);
@@ -87,7 +87,7 @@ function shardEntry(path: string, stamp: number[], read: CachedRead): ShardEntry
   const rest = head && exactText(late);
   const facts = factsFrom(read.part);
   const parsed = !head || !rest || !own || read.diagnostics.length > 0 || read.part.measurements.length > 0;
-  const at = { path, stamp: JSON.stringify(stamp), hash: source.hash, id: read.part.id, kind: read.part.kind, flags: flagsText(parsed, facts), family: facts.family };
+  const at = { path, stamp, hash: source.hash, id: read.part.id, kind: read.part.kind, flags: flagsText(parsed, facts), family: facts.family };
   if (head && rest) return { ...at, ...head, late: rest };
   const whole = { part: { ...fields, source: undefined }, declared: read.declared, diagnostics: read.diagnostics };
   return { ...at, head: V8, holes: '[]', late: Buffer.from(serialize(whole)).toString('base64') };
@@ -128,6 +128,8 @@ export class PartCache {
   private readonly dropped = new Map<number, Set<string>>();
   private readonly seen = new Set<string>();
   private readonly parsedHoles = new Map<string, Holes>();
+  /** The root as a prefix of library-relative paths (normalized, forward slashes: yamlFilesUnder). */
+  private readonly prefix: string;
   /** Files read and parsed this run, and files taken from the cache. */
   readonly counts = { parsed: 0, cached: 0 };
 
@@ -138,21 +140,27 @@ export class PartCache {
     key: string,
   ) {
     this.files = new ShardFiles(dir, key, FORMAT);
+    this.prefix = root === '' || root.endsWith('/') ? root : `${root}/`;
   }
 
-  /** The stamp of a library file now (to be passed to `store` after reading it), or undefined. */
-  stamp(path: string): number[] | undefined {
-    const s = statSync(join(this.root, path), { throwIfNoEntry: false });
-    return s && [s.size, s.mtimeMs, s.ctimeMs, s.ino, s.dev];
+  /**
+   * The stamp of a library file now (to be passed to `store` after reading it), or undefined: its size, mtime,
+   * ctime, inode and device as the JSON text of their list (written out: the same text for finite numbers,
+   * compared with the row's as it is).
+   */
+  stamp(path: string): string | undefined {
+    // Joined as text: a 10,000-part build stamps 10,000 files.
+    const s = statSync(this.prefix + path, { throwIfNoEntry: false });
+    return s && `[${s.size},${s.mtimeMs},${s.ctimeMs},${s.ino},${s.dev}]`;
   }
 
   /** The part read from `path` before, when the file is unchanged. Each entry is handed out once a run. */
-  lookup(path: string, stamp: number[] | undefined): CachedRead | undefined {
+  lookup(path: string, stamp: string | undefined): CachedRead | undefined {
     if (this.seen.has(path)) return undefined;
     this.seen.add(path);
     const i = shardOf(path);
     const row = stamp && this.shard(i).rows.get(path);
-    if (!row || row.stamp !== JSON.stringify(stamp)) return undefined;
+    if (!row || row.stamp !== stamp) return undefined;
     let read: CachedRead;
     try {
       if (!row.flags.includes(PARSED)) {
@@ -223,7 +231,7 @@ export class PartCache {
   }
 
   /** Keep what reading `path` gave (call only when it gave no errors). */
-  store(path: string, stamp: number[] | undefined, read: CachedRead): void {
+  store(path: string, stamp: string | undefined, read: CachedRead): void {
     this.counts.parsed++;
     this.seen.add(path);
     if (!stamp) return;
