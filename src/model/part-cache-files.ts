@@ -50,7 +50,7 @@ export interface HeadRow {
   /** The file's stamp as JSON text. */
   stamp: string;
   hash: string;
-  /** The part's id and kind, its flags (FLAGS in part-cache.ts) and its FAMILY_FIELDS as JSON text (part-facts.ts). */
+  /** The part's id and kind, its flags (flagsText, above) and its FAMILY_FIELDS as JSON text (part-facts.ts). */
   id: string;
   kind: string;
   flags: string;

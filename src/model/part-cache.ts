@@ -146,10 +146,9 @@ export class PartCache {
   /**
    * The stamp of a library file now (to be passed to `store` after reading it), or undefined: its size, mtime,
    * ctime, inode and device as the JSON text of their list (written out: the same text for finite numbers,
-   * compared with the row's as it is).
+   * compared with the row's as it is); the path joined as text, as a 10,000-part build stamps 10,000 files.
    */
   stamp(path: string): string | undefined {
-    // Joined as text: a 10,000-part build stamps 10,000 files.
     const s = statSync(this.prefix + path, { throwIfNoEntry: false });
     return s && `[${s.size},${s.mtimeMs},${s.ctimeMs},${s.ino},${s.dev}]`;
   }
@@ -161,10 +160,11 @@ export class PartCache {
     const i = shardOf(path);
     const row = stamp && this.shard(i).rows.get(path);
     if (!row || row.stamp !== stamp) return undefined;
+    const parsed = row.flags.includes(PARSED), source = new LazySource(this.root, path, row.hash);
     let read: CachedRead;
     try {
-      if (!row.flags.includes(PARSED)) {
-        const part = partOnDemand({ id: row.id, kind: row.kind, source: new LazySource(this.root, path, row.hash), facts: { family: row.family, safety: row.flags.includes(SAFETY), temperature: temperatureOf(row.flags) } }, new HeadFields(this, i, path, row));
+      if (!parsed) {
+        const part = partOnDemand({ id: row.id, kind: row.kind, source, facts: { family: row.family, safety: row.flags.includes(SAFETY), temperature: temperatureOf(row.flags) } }, new HeadFields(this, i, path, row));
         // The id the file declares is the part's own, at the part's own position.
         read = { part, declared: part, diagnostics: [] };
       } else if (row.head === V8) read = deserialize(Buffer.from(this.late(i, path, row), 'base64')) as CachedRead;
@@ -177,7 +177,7 @@ export class PartCache {
       // a damaged row: read the file again
       return undefined;
     }
-    if (row.flags.includes(PARSED)) read.part.source = new LazySource(this.root, path, row.hash);
+    if (parsed) read.part.source = source;
     this.counts.cached++;
     return read;
   }

@@ -27,17 +27,25 @@ export interface PartFacts {
 /** The property under which a cached part answers its facts without parsing its fields. */
 export const PART_FACTS = Symbol('part facts');
 
+/** FAMILY_FIELDS' values of a part as JSON text, made from its fields. */
+const familyOf = (part: Pick<Part, (typeof FAMILY_FIELDS)[number]>) => asciiJson(JSON.stringify(FAMILY_FIELDS.map((f) => part[f])));
+
+/** A part's temperature fact made from its fields. */
+function temperatureFrom(part: Pick<Part, 'spread'>): PartFacts['temperature'] {
+  const characteristic = part.spread.temperature;
+  return characteristic === undefined ? false : (ratedSpan(characteristic) ?? true);
+}
+
 /** A part's facts made from its fields. */
 export function factsFrom(part: Pick<Part, (typeof FAMILY_FIELDS)[number] | 'spread' | 'safetyClass'>): PartFacts {
-  const characteristic = part.spread.temperature;
-  return { family: asciiJson(JSON.stringify(FAMILY_FIELDS.map((f) => part[f]))), safety: Boolean(part.safetyClass), temperature: characteristic === undefined ? false : (ratedSpan(characteristic) ?? true) };
+  return { family: familyOf(part), safety: Boolean(part.safetyClass), temperature: temperatureFrom(part) };
 }
 
 const factsOf = (part: Part) => (part as unknown as { [PART_FACTS]?: PartFacts })[PART_FACTS];
 
 /** FAMILY_FIELDS of the part as JSON text. */
 export function familyText(part: Part): string {
-  return factsOf(part)?.family ?? asciiJson(JSON.stringify(FAMILY_FIELDS.map((f) => part[f])));
+  return factsOf(part)?.family ?? familyOf(part);
 }
 
 /** Whether the part has a safety class (read without parsing a cached part's fields). */
@@ -50,7 +58,6 @@ export function hasSafetyClass(part: Part): boolean {
  * spread then warns: library.ts), read without parsing a cached part's fields.
  */
 export function temperatureGap(part: Part, operating: TemperatureRange): boolean {
-  const known = factsOf(part)?.temperature;
-  if (known === undefined) return part.spread.temperature !== undefined && !covers(ratedSpan(part.spread.temperature), operating);
+  const known = factsOf(part)?.temperature ?? temperatureFrom(part);
   return known !== false && !covers(known === true ? undefined : known, operating);
 }
