@@ -30,6 +30,9 @@ export function holdingName(siteName: string): string {
   return `.${siteName}.zfolio`;
 }
 
+/** The holding folder's path, for the site path `sitePath`. */
+export const holdingDir = (sitePath: string) => join(dirname(sitePath), holdingName(basename(sitePath)));
+
 /** A link at the site path that zfolio made: it points at one of the versions in the holding folder. */
 export function isOwnLink(sitePath: string, target: string): boolean {
   const [folder, version, ...rest] = target.split(/[/\\]/);

@@ -13,10 +13,10 @@
 
 import { linkSync, mkdirSync, readFileSync, rmdirSync, rmSync, writeFileSync } from 'node:fs';
 import { hostname } from 'node:os';
-import { basename, dirname, join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { untilDone } from '../on-exit.js';
 import { alive } from './output.js';
-import { holdingName, OutputRefused } from './output-guard.js';
+import { holdingDir, OutputRefused } from './output-guard.js';
 
 /** The lock file's name in the holding folder. */
 export const LOCK_NAME = 'build.lock';
@@ -78,7 +78,7 @@ function busyMessage(sitePath: string, path: string, holder: LockHolder): string
  * whose holder is gone is taken over. `now` is the start time written in the lock.
  */
 export function lockSite(sitePath: string, now: Date = new Date()): SiteLock {
-  const holding = join(dirname(sitePath), holdingName(basename(sitePath)));
+  const holding = holdingDir(sitePath);
   const path = join(holding, LOCK_NAME);
   const own: LockHolder = { pid: process.pid, host: hostname(), started: now.toISOString() };
   const since = processStart(process.pid);

@@ -15,6 +15,7 @@
 // parts reads as 10,000 strings rather than a few hundred thousand objects.
 
 import { sha256Hex } from '../model/sha256.js';
+import { fnv1a } from '../model/fnv1a.js';
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { PdfStamp } from './pdf-reuse.js';
@@ -175,12 +176,8 @@ export class VersionRecord {
   }
 }
 
-/** FNV-1a over the unit's UTF-16 code units: every look-up of a unit goes through it, 10,000 and more a build. */
-function shardOf(unit: string): number {
-  let h = 0x811c9dc5;
-  for (let i = 0; i < unit.length; i++) h = Math.imul(h ^ unit.charCodeAt(i), 0x01000193);
-  return (h >>> 0) % SHARDS;
-}
+/** Every look-up of a unit goes through it, 10,000 and more a build. */
+const shardOf = (unit: string) => fnv1a(unit) % SHARDS;
 
 export interface SiteRecord {
   outDir: string;

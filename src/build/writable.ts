@@ -2,8 +2,8 @@
 // (output.ts puts the site in place; carry-over.ts updates the spare version in place).
 
 import { accessSync, constants, lstatSync, readdirSync, readlinkSync, statSync, type Dirent, type Stats } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
-import { holdingName, OutputRefused } from './output-guard.js';
+import { dirname, join } from 'node:path';
+import { holdingDir, OutputRefused } from './output-guard.js';
 
 export function entryKind(path: string): 'none' | 'link' | 'folder' | 'other' {
   try {
@@ -130,7 +130,7 @@ export function checkWritable(sitePath: string, options: { keptAsSpare?: boolean
   let parent = dirname(sitePath);
   while (entryKind(parent) === 'none' && dirname(parent) !== parent) parent = dirname(parent);
   if (readOnly(parent)) refuse(parent);
-  const holding = join(dirname(sitePath), holdingName(basename(sitePath)));
+  const holding = holdingDir(sitePath);
   if (entryKind(holding) === 'folder' && readOnly(holding)) refuse(holding);
   const kind = entryKind(sitePath);
   const current = kind === 'link' ? join(dirname(sitePath), readlinkSync(sitePath)) : kind === 'folder' ? sitePath : undefined;

@@ -2,10 +2,10 @@
 // Builds never overlap: changes that arrive during a build queue exactly one more. A build that fails
 // (a bad part file, a broken template) leaves the previous site in place, and it goes on being served.
 
-import { basename, dirname, join, resolve } from 'node:path';
+import { join, resolve } from 'node:path';
 import { buildFolio, CACHE_DIR, DEFAULT_OUT_DIR, type BuildResult } from '../build/build.js';
 import { TEMPLATES_DIR } from '../build/eleventy.js';
-import { guardOutput, holdingName } from '../build/output-guard.js';
+import { guardOutput, holdingDir } from '../build/output-guard.js';
 import { silentProgress, type Progress } from '../build/progress.js';
 import { startServer, type StaticServer } from './static-server.js';
 import { watchLibrary, type LibraryWatcher } from './watch.js';
@@ -133,7 +133,7 @@ export async function serveFolio(options: ServeOptions): Promise<FolioServer> {
     watcher = watchLibrary({
       libraryRoot,
       templatesDir: options.watchTemplates === false ? undefined : TEMPLATES_DIR,
-      ignore: [outDir, join(dirname(outDir), holdingName(basename(outDir))), join(libraryRoot, CACHE_DIR)],
+      ignore: [outDir, holdingDir(outDir), join(libraryRoot, CACHE_DIR)],
       debounceMs: options.debounceMs,
       onChange: (changed) => queue.request(changed),
       onError: options.onWatchError,
