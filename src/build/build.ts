@@ -35,7 +35,7 @@ import { keptPdfs, linkPdfs, pdfKeys, pdfLinksFor, pdfsIn, stampPdfs } from './p
 import { buildHistory, type BuildHistory } from './build-history.js';
 import { addChanges } from '../pages/changes-page.js';
 import { SvgSpill } from './svg-spill.js';
-import { earlyChartWorkers, PARTS_PER_WORKER_START, type StartedWorker } from './chart-workers.js';
+import { earlyChartWorkers, PARTS_PER_WORKER_START, rebuildChartWorker, type StartedWorker } from './chart-workers.js';
 
 export interface BuildOptions {
   libraryRoot: string;
@@ -150,7 +150,8 @@ async function loadAndBuild(options: BuildOptions, outDir: string, { at: started
   const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
   // Part files unchanged since the last build are taken from the cache, not read and parsed again.
   const partCache = cacheRoot === undefined ? undefined : new PartCache(libraryRoot, join(cacheRoot, 'parts'), codeKey());
-  const { library, diagnostics } = loadLibrary(libraryRoot, { partCache });
+  const firstRead = options.charts ? undefined : (partFiles: number) => rebuildChartWorker(early, partFiles, options.workers);
+  const { library, diagnostics } = loadLibrary(libraryRoot, { partCache, firstRead });
   partCache?.save();
   const work = { filesParsed: partCache?.counts.parsed ?? library?.parts.length ?? 0, partsAnalysed: 0, partFolders: 0, comparisons: 0, listFiles: 0, pagesRendered: 0 };
   const result: BuildResult = { ok: false, diagnostics, outDir, parts: 0, pages: 0, seconds: 0, pdfs: [], reused: 0, unitsKept: 0, unitsLinked: 0, work, keptPdfs: 0, removedPdfs: [], timings };
@@ -212,7 +213,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     const { partKeys, carried } = carriedParts(library.parts, recordAt ? units : undefined, (part, id) => partKey(site, part, pdfLinks.part(id)));
     const partKeyOf = (id: string) => partKeys.get(id) ?? '';
     const fresh = library.parts.length - carried.size;
-    pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? 0 : undefined), started: run.early, pruning: 'when due' });
+    pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? run.early.length : undefined), started: run.early, pruning: 'when due' });
     // Only a build that prunes the chart cache keys what it carries over (chart-cache-ledger.ts).
     if (pool?.prunes) for (const id of carried.keys()) pool.keepPartCharts({ part: library.partsById.get(id)! });
     timings.load = clock();
@@ -227,7 +228,9 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     pageRuns = buildPageRuns(staging.dir, library, spill, options.partPagesPerRun);
     const folio = await assembleSite({ library, siteDir: staging.dir, charts: options.charts ?? pool!, progress, pdfLinks, carried, units: unitKeys, measurements: result.measurements, timings: timings.assemble, work, spill, partPages: pageRuns, familiesFile: cacheRoot && join(cacheRoot, 'families.json') });
     await addChanges(folio, run.history, options.charts ?? pool!, staging.dir);
-    await pool?.close();
+    // The workers stop (some 30 ms each) while the index and the pages are made; a failure is met below.
+    const closing = pool?.close();
+    closing?.catch(() => {});
     work.listFiles = listPages(folio, site, partKeyOf, unitKeys.kept, staging.dir, writeFileDeep);
     Object.assign(timings.assemble, clock());
 
@@ -238,6 +241,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     work.pagesRendered = written;
     progress.tick();
     writeSharedFiles(staging.dir);
+    await closing;
     timings.pages = clock();
 
     if (browser && options.pdf) {

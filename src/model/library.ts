@@ -50,6 +50,8 @@ export { yamlFilesUnder } from './library-files.js';
 export interface LoadOptions {
   /** Parts read before (part-cache.ts): a part file unchanged since is not read or parsed again. */
   partCache?: PartCache;
+  /** Called once, as the first part file not taken from `partCache` is read, with the number of part files. */
+  firstRead?(partFiles: number): void;
 }
 
 export function loadLibrary(root: string, options: LoadOptions = {}): LoadResult {
@@ -79,7 +81,9 @@ export function loadLibrary(root: string, options: LoadOptions = {}): LoadResult
   // Every id declared, also by files with other errors, so a duplicate is never hidden by them.
   const declared = new Map<string, { id: string; at: SourcePosition }>();
   const unreadableParts = new Map<string, string>();
-  for (const path of partsFolder === 'folder' ? yamlFilesUnder(root, 'parts', diagnostics) : []) {
+  const partFiles = partsFolder === 'folder' ? yamlFilesUnder(root, 'parts', diagnostics) : [];
+  let firstRead = options.firstRead;
+  for (const path of partFiles) {
     const stamp = cache?.stamp(path);
     const cached = cache?.lookup(path, stamp);
     let part: Part | undefined;
@@ -89,6 +93,8 @@ export function loadLibrary(root: string, options: LoadOptions = {}): LoadResult
       sources.push(part.source);
       for (const d of cached.diagnostics) diagnostics.warning(d, d.message);
     } else {
+      firstRead?.(partFiles.length);
+      firstRead = undefined;
       // With a cache, the file's own problems are gathered apart, to be kept with the part.
       const fileProblems = cache ? new DiagnosticList() : diagnostics;
       const source = read(path, fileProblems);

@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { afterAll, describe, expect, it } from 'vitest';
-import { earlyChartWorkers, PARTS_PER_WORKER_START, WORKER_LIMITS, type StartedWorker } from '../../src/build/chart-workers.js';
+import { earlyChartWorkers, PARTS_PER_WORKER_START, rebuildChartWorker, REBUILD_WORKER_PARTS, WORKER_LIMITS, type StartedWorker } from '../../src/build/chart-workers.js';
 import { ChartPool } from '../../src/build/chart-pool.js';
 import { LEDGER_FILE } from '../../src/build/chart-cache-ledger.js';
 import type { Part } from '../../src/model/part.js';
@@ -68,6 +68,19 @@ describe('chart workers started early', () => {
     const started = earlyChartWorkers({ libraryRoot, cacheRoot, workers: 1 });
     expect(started).toHaveLength(1);
     await stop(started);
+  }, 60_000);
+
+  it('are started by a rebuild of a large library that reads a part afresh: one, and only with enough part files', async () => {
+    const early: StartedWorker[] = [];
+    rebuildChartWorker(early, REBUILD_WORKER_PARTS - 1);
+    rebuildChartWorker(early, REBUILD_WORKER_PARTS, 0);
+    expect(early).toEqual([]);
+    rebuildChartWorker(early, REBUILD_WORKER_PARTS);
+    expect(early).toHaveLength(1);
+    // Never a second: the build asks once, and a build that started workers early has them already.
+    rebuildChartWorker(early, 2 * REBUILD_WORKER_PARTS);
+    expect(early).toHaveLength(1);
+    await stop(early);
   }, 60_000);
 
   it('are taken over by the chart pool, which draws with them', async () => {

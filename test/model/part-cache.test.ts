@@ -75,6 +75,26 @@ describe('PartCache', () => {
     expect(heads.filter((text) => text.includes('"diagnostics"')).length).toBe(1);
   });
 
+  it('tells the loader\'s caller of the first part file it reads afresh, once, with the number of part files', () => {
+    load();
+    const calls: number[] = [];
+    const firstRead = (files: number) => calls.push(files);
+    loadLibrary(root, { partCache: new PartCache(root, cacheDir, 'test code'), firstRead });
+    expect(calls).toEqual([]);
+    const file = join(root, 'parts', 'c1.yaml');
+    const text = readFileSync(file, 'utf8');
+    writeFileSync(file, text.replace('20m', '21m'));
+    writeFileSync(join(root, 'parts', 'c2.yaml'), readFileSync(join(root, 'parts', 'c2.yaml'), 'utf8').replace('20m', '22m'));
+    loadLibrary(root, { partCache: new PartCache(root, cacheDir, 'test code'), firstRead });
+    expect(calls).toEqual([readdirSync(join(root, 'parts')).filter((name) => name.endsWith('.yaml')).length]);
+    // Without a cache every file is read afresh, and the caller is told as the first is.
+    loadLibrary(root, { firstRead });
+    expect(calls).toHaveLength(2);
+    writeFileSync(file, text);
+    writeFileSync(join(root, 'parts', 'c2.yaml'), capacitor('CAP-2', '20m'));
+    load();
+  });
+
   it('never keeps a file with errors, and forgets a removed file', () => {
     writeFileSync(join(root, 'parts', 'bad.yaml'), 'id: CAP-BAD\nkind: capacitor\ntitle: Broken (invented)\nnominal: 10 bananas\n');
     for (let run = 0; run < 2; run++) {
