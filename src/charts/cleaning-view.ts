@@ -9,10 +9,11 @@
 // in which items left. What is drawn does not change: the scene holds only the items that are there, either
 // way (test/charts/cleaning-view.test.ts).
 
-import { View, type Runtime } from 'vega';
+import type { Runtime, View } from 'vega';
+import { vega } from './vega-runtime.js';
 
 export function cleaningView(runtime: Runtime): View {
-  const view = new View(runtime, { renderer: 'none' });
+  const view = new vega.View(runtime, { renderer: 'none' });
   (view as unknown as { cleanThreshold: number }).cleanThreshold = 0;
   return view;
 }

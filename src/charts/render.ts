@@ -12,7 +12,8 @@
 // the chart's own input only, never on what was drawn before (checked in test/charts/render.test.ts and
 // test/charts/render-order.test.ts).
 
-import { parse, View, type Runtime, type Spec as VegaSpec } from 'vega';
+import type { Runtime, Spec as VegaSpec, View } from 'vega';
+import { vega } from './vega-runtime.js';
 import type { TopLevelSpec } from 'vega-lite';
 import { outerSize, type Frame } from './frame.js';
 import { finishSvg, type ChartText } from './svg-finish.js';
@@ -142,7 +143,7 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
     const params = paramsOf(spec);
     const emptied = new Set(params.filter((p) => Array.isArray(p.value) && p.value.length === 0).map((p) => p.name));
     const { sources: keyed, axes } = keyedItems(vg as VegaOrderSpec, datasets, [...emptied], def.name);
-    const runtime = parse(vg);
+    const runtime = vega.parse(vg);
     const now = { params: new Map(params.map((p) => [p.name, p.value])), rows: new Map<string, Row[]>() };
     c = { spec, sources: new Set(namedData(spec)), runtime, view: cleaningView(runtime), datasets, params, emptied, keyed, axes, filled: new Set(), now, queue: Promise.resolve() };
     compiled.set(def.name, c);

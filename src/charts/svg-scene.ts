@@ -15,7 +15,7 @@
 // return undefined, and the caller takes vega's string and finishSvg. test/charts/svg-scene.test.ts
 // compares the two on every chart kind.
 
-import * as vega from 'vega';
+import { vega } from './vega-runtime.js';
 import type { View } from 'vega';
 import { finishedDocument, idPrefix, inertOrThrow, roundNumbers, VEGA_ATTRIBUTES } from './svg-finish.js';
 import { mergedLines, withoutDefaults } from './svg-slim.js';

@@ -1,7 +1,7 @@
 // vega measures text with textWidth (text-width.ts) rather than its own guess of 0.8 em a character. Kept
 // apart from the widths themselves, which pages use without loading vega.
 
-import * as vega from 'vega';
+import { vega } from './vega-runtime.js';
 import { textWidth } from './text-width.js';
 
 let installed = false;

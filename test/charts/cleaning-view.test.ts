@@ -3,7 +3,8 @@
 // join lookups of vega's own DataJoin operators (vega-encode), read from the parsed runtime.
 
 import { describe, expect, it } from 'vitest';
-import { parse, View, type Spec } from 'vega';
+import type { Spec, View } from 'vega';
+import { vega } from '../../src/charts/vega-runtime.js';
 import { cleaningView } from '../../src/charts/cleaning-view.js';
 
 const spec: Spec = {
@@ -64,8 +65,8 @@ async function drawAll(view: View, charts: number): Promise<string[]> {
 
 describe('cleaningView', () => {
   it('keeps no item that has left, where a plain View keeps every one', async () => {
-    const plain = new View(parse(spec), { renderer: 'none' });
-    const cleaning = cleaningView(parse(spec));
+    const plain = new vega.View(vega.parse(spec), { renderer: 'none' });
+    const cleaning = cleaningView(vega.parse(spec));
     await drawAll(plain, 5);
     await drawAll(cleaning, 5);
     // Four times five ticks and labels have left the plain View's axis (its domain line stays).
@@ -74,8 +75,8 @@ describe('cleaningView', () => {
   });
 
   it('draws what a plain View draws, chart after chart', async () => {
-    const plain = await drawAll(new View(parse(spec), { renderer: 'none' }), 6);
-    const cleaning = await drawAll(cleaningView(parse(spec)), 6);
+    const plain = await drawAll(new vega.View(vega.parse(spec), { renderer: 'none' }), 6);
+    const cleaning = await drawAll(cleaningView(vega.parse(spec)), 6);
     expect(cleaning).toEqual(plain);
     expect(new Set(cleaning).size).toBe(6);
   });

@@ -1,7 +1,7 @@
 // A chart drawn from its handed-out spec by vega-lite and vega afresh, in a View of its own: what a chart is
 // when nothing was drawn before it.
 
-import * as vega from 'vega';
+import { vega } from '../../src/charts/vega-runtime.js';
 import { compile, type TopLevelSpec } from 'vega-lite';
 import type { ChartOutput } from '../../src/charts/render.js';
 import { finishSvg } from '../../src/charts/svg-finish.js';

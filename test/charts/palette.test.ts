@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import * as vega from 'vega';
+import { vega } from '../../src/charts/vega-runtime.js';
 import { OVERLAY_COLORS, OVERLAY_DASHES, PART_SERIES, RAIL_TOTAL, RESONANCE_MARK, TARGET_LINE, INK, BAND_EDGE } from '../../src/charts/palette.js';
 import { overlayColor, overlayStyle } from '../../src/charts/overlay.js';
 import { textWidth } from '../../src/charts/text-width.js';

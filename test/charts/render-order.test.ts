@@ -3,7 +3,7 @@
 // each case below first shows that happen on a View that is not cleared between two charts (so the case
 // can tell), then that renderChart draws the second chart as a View of its own draws it.
 
-import * as vega from 'vega';
+import { vega } from '../../src/charts/vega-runtime.js';
 import { compile, type TopLevelSpec } from 'vega-lite';
 import { describe, expect, it } from 'vitest';
 import { frame, outerSize } from '../../src/charts/frame.js';

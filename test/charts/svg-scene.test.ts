@@ -4,7 +4,8 @@
 // bytes must be the same; hand-made vega specs cover marks the charts do not use and the cases the writer
 // leaves to the reference.
 
-import * as vega from 'vega';
+import type { Spec } from 'vega';
+import { vega } from '../../src/charts/vega-runtime.js';
 import { describe, expect, it } from 'vitest';
 import { analyseLoadStep } from '../../src/analysis/load-step.js';
 import { capacitor, inductor, resistor, series } from '../../src/circuit/element.js';
@@ -81,7 +82,7 @@ describe('a chart written from the scene graph is the chart vega’s SVG string 
 
 /** A vega spec's View after its run, and both writers' SVG of it. */
 async function written(spec: object, underlay = '') {
-  const view = new vega.View(vega.parse(spec as vega.Spec), { renderer: 'none' });
+  const view = new vega.View(vega.parse(spec as Spec), { renderer: 'none' });
   await view.runAsync();
   const text = { title: 'T & <t>', description: 'D Ω' };
   const size = { width: 200, height: 120 };
@@ -157,7 +158,7 @@ describe('what the scene writer leaves to vega’s string', () => {
 
   it('an underlay with no plot to go in, or of anything but paths', async () => {
     // A chart with no marks: its root group's content is empty, and finishSvg refuses to place an underlay.
-    const view = new vega.View(vega.parse(plain([]) as vega.Spec), { renderer: 'none' });
+    const view = new vega.View(vega.parse(plain([]) as Spec), { renderer: 'none' });
     await view.runAsync();
     const underlay = '<path d="M0,0H1" stroke="#000"/>';
     expect(sceneSvg(view, { title: 'T', description: 'D' }, { width: 200, height: 120 }, underlay)).toBeUndefined();
@@ -165,7 +166,7 @@ describe('what the scene writer leaves to vega’s string', () => {
     expect(() => finishSvg(raw, { title: 'T', description: 'D' }, { width: 200, height: 120 }, underlay)).toThrow(/no plot/);
     view.finalize();
     // An underlay of anything but paths (finishSvg would write it as it is).
-    const marked = new vega.View(vega.parse(plain([text('A')]) as vega.Spec), { renderer: 'none' });
+    const marked = new vega.View(vega.parse(plain([text('A')]) as Spec), { renderer: 'none' });
     await marked.runAsync();
     expect(sceneSvg(marked, { title: 'T', description: 'D' }, { width: 200, height: 120 }, `<g>${underlay}</g>`)).toBeUndefined();
     expect(finishSvg(await marked.toSVG(), { title: 'T', description: 'D' }, { width: 200, height: 120 }, `<g>${underlay}</g>`)).toContain(`<g>${underlay}</g>`);
