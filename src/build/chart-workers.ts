@@ -93,7 +93,9 @@ export function earlyChartWorkers(start: EarlyStart): StartedWorker[] {
  * With fewer parts there is too little of that work, and the build waits for its worker: at 1,000 parts a
  * worker started as the build began made a one-edit rebuild 0.21 s slower. At 10,000 parts, started as the
  * edited part was read, it made it 0.12 s faster (ten alternated pairs, t = -3.9), though the reading and
- * keying beside it took 0.1 s longer; the worker was ready 0.6 to 0.8 s after it started.
+ * keying beside it took 0.1 s longer. The worker is ready about 0.3 s after it starts (vega-runtime.ts), before
+ * the build asks for its first chart; drawing charts of invented parts while it waited, or the edited part's
+ * before the keying, gained nothing (DEVELOPERS.md).
  */
 export const REBUILD_WORKER_PARTS = 5000;
 
