@@ -16,8 +16,11 @@ import { installedVersion } from '../charts/package-version.js';
 
 const SOURCE_DIR = dirname(dirname(fileURLToPath(import.meta.url)));
 
-/** Packages whose output lands in the pages, by version (their code is not hashed file by file). */
-const RENDERING_PACKAGES = ['@11ty/eleventy', 'nunjucks', 'vega', 'vega-lite', 'vega-scenegraph', 'markdown-it'];
+/**
+ * Packages whose output lands in the pages, by version (their code is not hashed file by file). vega draws
+ * from its single-file build (charts/vega-runtime.ts), which carries its own scenegraph: vega's version names it.
+ */
+const RENDERING_PACKAGES = ['@11ty/eleventy', 'nunjucks', 'vega', 'vega-lite', 'markdown-it'];
 
 function hashTree(hash: ReturnType<typeof createHash>, dir: string, base: string): void {
   for (const entry of readdirSync(dir, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0))) {
