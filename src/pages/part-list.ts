@@ -10,8 +10,12 @@ import type { ListedPart } from './listed-part.js';
 
 /** Rows on one page of the index: enough for a screenful of scrolling, little enough to render at once. */
 export const INDEX_PAGE_SIZE = 200;
-/** Rows in one script file of the index's data. */
-export const ROWS_PER_CHUNK = 2000;
+/**
+ * Rows in one script file of the index's data. A rebuild after one edit writes again the file that holds the
+ * part's row: at 10,000 parts, files of 1,000 rows rather than 2,000 made that 12 ms shorter (twelve
+ * alternated pairs), for ten files for the browser to load instead of five.
+ */
+export const ROWS_PER_CHUNK = 1000;
 
 export interface IndexPage {
   /** 1-based. */
