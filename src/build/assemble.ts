@@ -189,13 +189,16 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
       progress.tick();
     } else waiting.push(pageOf(part).then((page) => void (pages[i] = page)));
   });
-  await Promise.all(waiting);
-  pageRuns?.flush();
-  const listedById = new Map(pages.map((p) => [p.id, p]));
+  const listed = Promise.all(waiting).then(() => {
+    pageRuns?.flush();
+    return new Map(pages.map((p) => [p.id, p]));
+  });
+  // The comparisons are keyed, and those to draw asked for, while the chart workers draw the parts (a
+  // rebuild after one edit of 10,000 parts had this thread wait for them, then key 903 comparisons).
+  const families = familiesFile ? cachedFamilies(library.parts, library.partsById, codeKey(), familiesFile) : automaticComparisons(library);
+  const [listedById, { pages: comparisons, byKey, rendered }] = await Promise.all([listed, comparisonPages(library, families, comparedOf, listed, siteDir, charts, units, timings, work)]);
   // Full page data, for part pages and review packs.
   const fullById = new Map(pages.filter((p): p is PartPageData => 'charts' in p).map((p) => [p.id, p]));
-
-  const { pages: comparisons, byKey, rendered } = await comparisonPages(library, familiesFile ? cachedFamilies(library.parts, library.partsById, codeKey(), familiesFile) : automaticComparisons(library), comparedOf, listedById, siteDir, charts, units, timings, work);
   const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts, timings)));
   const reviews = library.reviews.map((r) => {
     const page = reviewPageData(r, library, { parts: fullById, comparisons: byKey, plans: new Map(plans.map((p) => [p.rail, p])) });
@@ -239,7 +242,7 @@ async function comparisonPages(
   library: Library,
   families: readonly PartFamily[],
   comparedOf: (id: string) => ComparedAnalysis,
-  listedById: ReadonlyMap<string, ListedPart>,
+  listed: Promise<ReadonlyMap<string, ListedPart>>,
   siteDir: string,
   charts: ChartMaker,
   units: UnitKeys,
@@ -254,13 +257,17 @@ async function comparisonPages(
   const inReviews = new Set(library.reviews.flatMap((r) => r.comparisons.map(comparisonKey)));
   // Pages listed in order, charts asked for all at once (one by one, one worker drew them while one idled).
   const drawing: Promise<void>[] = [];
+  const partsOf: [ComparisonPageData, string[]][] = [];
   const add = (wanted: string, page: Omit<ComparisonPageData, 'slug' | 'parts' | 'chart'>, partIds: string[], reviewed = false) => {
     // Two files whose names differ only in characters a folder name cannot hold get distinct folders.
     let slug = wanted;
     for (let n = 2; slugs.has(slug); n++) slug = `${wanted}-${n}`;
     slugs.add(slug);
-    const data: ComparisonPageData = { slug, ...page, parts: partIds.map((id) => listedById.get(id)!) };
-    const kept = units.kept(`comparisons/${slug}`, units.comparison(data));
+    const fields = { slug, ...page };
+    // Its parts are listed once every part's page data is made (below).
+    const data: ComparisonPageData = { ...fields, parts: [] };
+    partsOf.push([data, partIds]);
+    const kept = units.kept(`comparisons/${slug}`, units.comparison(fields, partIds));
     if (partIds.length > 0 && (!kept || reviewed)) {
       const analyses = partIds.map(comparedOf);
       // The folder's path is made only for a page written here (903 families of the generated 10,000 parts, nearly all kept after an edit).
@@ -284,5 +291,7 @@ async function comparisonPages(
     const family = { kind: f.kind, packageText: f.packageText, valuesText: f.valuesText, subsetText: f.subsetText };
     add(f.slug, { title: f.title, automatic: true, selection: f.selection, family }, f.parts.map((p) => p.id));
   }
-  return Promise.all(drawing).then(() => ({ pages, byKey, rendered }));
+  const [listedById] = await Promise.all([listed, ...drawing]);
+  for (const [data, ids] of partsOf) data.parts = ids.map((id) => listedById.get(id)!);
+  return { pages, byKey, rendered };
 }

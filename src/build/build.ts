@@ -142,7 +142,7 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
 
     clock = stageClock();
     const unitKeys = {
-      comparison: (page: Parameters<typeof comparisonPageKey>[1]) => comparisonPageKey(site, page, partKeyOf),
+      comparison: (fields: Parameters<typeof comparisonPageKey>[1], partIds: readonly string[]) => comparisonPageKey(site, fields, partIds, partKeyOf),
       kept: (unit: string, key: string) => Boolean(recordAt) && units.kept(unit, key),
       keepChart: pool?.prunes ? (parts: readonly Part[], title: string) => pool?.keepComparisonChart(parts, title) : undefined,
     };

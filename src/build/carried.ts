@@ -16,7 +16,7 @@ export interface CarriedPart {
 }
 
 export interface UnitKeys {
-  comparison(page: Omit<ComparisonPageData, 'chart'>): string;
+  comparison(fields: Omit<ComparisonPageData, 'chart' | 'parts'>, partIds: readonly string[]): string;
   /** True when the last site's unit with this key is kept (so nothing of it is made). */
   kept(unit: string, key: string): boolean;
   /** Keep the cached chart of a comparison whose page is kept (the chart is not read). */

@@ -14,12 +14,16 @@ type PartKeyOf = (id: string) => string;
 
 const hash = (...parts: string[]) => sha256Hex(parts.join('\n')).slice(0, 32);
 
-const listedKeys = (parts: readonly ListedPart[], partKey: PartKeyOf) => parts.map((p) => `${p.id} ${partKey(p.id)}`).join('\n');
+const keyLine = (id: string, partKey: PartKeyOf) => `${id} ${partKey(id)}`;
+const idKeys = (ids: readonly string[], partKey: PartKeyOf) => ids.map((id) => keyLine(id, partKey)).join('\n');
+const listedKeys = (parts: readonly ListedPart[], partKey: PartKeyOf) => parts.map((p) => keyLine(p.id, partKey)).join('\n');
 
-/** A comparison folder's key: its fields and its parts (the chart is drawn from the same parts and title). */
-export function comparisonPageKey(site: string, page: Omit<ComparisonPageData, 'chart'>, partKey: PartKeyOf): string {
-  const { parts, ...fields } = page;
-  return hash('comparison', site, JSON.stringify(fields), listedKeys(parts, partKey));
+/**
+ * A comparison folder's key: its fields and its parts by id (the chart is drawn from the same parts and
+ * title). Made from the ids, as the page's parts may not all be listed yet (assemble.ts).
+ */
+export function comparisonPageKey(site: string, fields: Omit<ComparisonPageData, 'chart' | 'parts'>, partIds: readonly string[], partKey: PartKeyOf): string {
+  return hash('comparison', site, JSON.stringify(fields), idKeys(partIds, partKey));
 }
 
 /** Charts and their specs are made from data the keys already cover; they are left out of a page's key. */

@@ -1,6 +1,8 @@
 // A build asks for every comparison's chart at once, so the chart workers draw them side by side (asked one
 // by one, one worker drew every comparison while the other sat idle), and the pages keep their order and
-// each its own chart whatever order the charts come back in.
+// each its own chart whatever order the charts come back in. They are asked for while the parts' charts are
+// still drawn (a rebuild after one edit waited for the part's charts before keying 903 comparisons), and
+// list the parts as their page data is once those are done.
 
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -52,5 +54,29 @@ describe('comparison charts', () => {
     expect(folio.comparisons.map((c) => c.slug)).toEqual(reference.comparisons.map((c) => c.slug));
     expect(folio.comparisonPages.map((c) => c.slug)).toEqual(reference.comparisonPages.map((c) => c.slug));
     for (const page of folio.comparisons) expect(page.chart?.svg).toContain(`<title>${page.title}</title>`);
+  }, 120_000);
+
+  it("are all asked for while the parts' charts are still drawn, and list each part as its page data has it", async () => {
+    const reference = await assemble(noCharts);
+    let comparisonsAsked = 0;
+    const partsHeld: (() => void)[] = [];
+    const held: ChartMaker = {
+      ...noCharts,
+      partCharts: () => new Promise<ChartArtifact[]>((resolve) => partsHeld.push(() => resolve([]))),
+      comparisonChart: (parts, title) => {
+        comparisonsAsked++;
+        return noCharts.comparisonChart(parts, title);
+      },
+    };
+    const assembling = assemble(held);
+    // Nothing answered yet: every part's charts and every comparison's chart have been asked for.
+    await new Promise((resolve) => setImmediate(resolve));
+    expect(partsHeld.length).toBe(reference.parts.length);
+    expect(comparisonsAsked).toBe(reference.comparisons.length);
+    partsHeld.forEach((answer) => answer());
+    const folio = await assembling;
+    const listed = new Map(folio.parts.map((p) => [p.id, p]));
+    expect(folio.comparisons.map((c) => [c.slug, c.parts.map((p) => p.id)])).toEqual(reference.comparisons.map((c) => [c.slug, c.parts.map((p) => p.id)]));
+    for (const c of folio.comparisons) for (const p of c.parts) expect(p).toBe(listed.get(p.id));
   }, 120_000);
 });
