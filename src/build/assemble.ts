@@ -115,7 +115,7 @@ export interface AssembleOptions {
    */
   spill?: SvgSpill;
   /** Given each fresh part's page as soon as its data is complete, and flushed once every part's is (part-page-runs.ts). */
-  partPages?: Pick<PartPageRuns, 'add' | 'flush'>;
+  partPages?: Pick<PartPageRuns, 'add' | 'flush' | 'prepare'>;
   /** Where the library's part families are kept from build to build (family-cache.ts); by default they are made afresh. */
   familiesFile?: string;
 }
@@ -196,7 +196,10 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   // The comparisons are keyed, and those to draw asked for, while the chart workers draw the parts (a
   // rebuild after one edit of 10,000 parts had this thread wait for them, then key 903 comparisons).
   const families = familiesFile ? cachedFamilies(library.parts, library.partsById, codeKey(), familiesFile) : automaticComparisons(library);
-  const [listedById, { pages: comparisons, byKey, rendered }] = await Promise.all([listed, comparisonPages(library, families, comparedOf, listed, siteDir, charts, units, timings, work)]);
+  const comparing = comparisonPages(library, families, comparedOf, listed, siteDir, charts, units, timings, work);
+  // The next run of part pages starts meanwhile too, when a part's folder is made afresh.
+  if (carried.size < library.parts.length) pageRuns?.prepare();
+  const [listedById, { pages: comparisons, byKey, rendered }] = await Promise.all([listed, comparing]);
   // Full page data, for part pages and review packs.
   const fullById = new Map(pages.filter((p): p is PartPageData => 'charts' in p).map((p) => [p.id, p]));
   const plans = await Promise.all(library.plans.map((plan) => planPage(plan, library, siteDir, charts, timings)));

@@ -11,7 +11,7 @@
 import type { Library } from '../model/library.js';
 import { folioHeader, type PartPageData } from '../pages/site-data.js';
 import { collectGarbage } from './collect-garbage.js';
-import { PART_PAGES_PER_RUN, renderPartPages } from './eleventy.js';
+import { PART_PAGES_PER_RUN, preparePartPages, renderPartPages } from './eleventy.js';
 import type { PageCharts } from './svg-spill.js';
 
 /**
@@ -23,6 +23,8 @@ export const MIN_PART_PAGES_PER_RUN = 100;
 export interface PartPageRunsOptions {
   /** Render one run of part pages; resolves to the count of pages written. */
   render(pages: PartPageData[]): Promise<number>;
+  /** Start a run before its pages are known (see `prepare`); given to it, it renders them as `render` would. */
+  prepare?(): (pages: PartPageData[]) => Promise<number>;
   /** At most this many pages a run (default PART_PAGES_PER_RUN). */
   perRun?: number;
   /** A run starts once this many pages wait (default MIN_PART_PAGES_PER_RUN, at most `perRun`). */
@@ -44,6 +46,8 @@ export class PartPageRuns {
   private allIn = false;
   private stopped = false;
   private sinceCollection = 0;
+  /** The next run, started ahead (prepare). */
+  private prepared?: (pages: PartPageData[]) => Promise<number>;
 
   constructor(private readonly options: PartPageRunsOptions) {
     this.perRun = Math.max(1, options.perRun ?? PART_PAGES_PER_RUN);
@@ -54,6 +58,15 @@ export class PartPageRuns {
   add(page: PartPageData): void {
     this.waiting.push(page);
     this.next();
+  }
+
+  /**
+   * Start the next run now, before its pages are in: called while the build's thread would wait for the chart
+   * workers (a rebuild after one edit waits for its part's charts), so that the run's start is not added
+   * after them. Does nothing when a run is started ahead already, or without the `prepare` option.
+   */
+  prepare(): void {
+    if (!this.stopped) this.prepared ??= this.options.prepare?.();
   }
 
   /** Every part page is in: what waits is rendered, however few. */
@@ -80,7 +93,9 @@ export class PartPageRuns {
     if (this.running || this.failed || this.stopped || this.waiting.length === 0) return;
     if (!this.allIn && this.waiting.length < this.minRun) return;
     const pages = this.waiting.splice(0, this.perRun);
-    this.running = this.options.render(pages).then(
+    const render = this.prepared ?? ((p: PartPageData[]) => this.options.render(p));
+    this.prepared = undefined;
+    this.running = render(pages).then(
       (written) => {
         this.written += written;
         this.runs++;
@@ -104,5 +119,5 @@ export class PartPageRuns {
 /** The part page runs of a build of `library` into `siteDir`, with its spilled charts (svg-spill.ts). */
 export function buildPageRuns(siteDir: string, library: Library, charts: PageCharts, perRun?: number): PartPageRuns {
   const header = folioHeader(library);
-  return new PartPageRuns({ render: (pages) => renderPartPages(siteDir, header, pages, charts), perRun });
+  return new PartPageRuns({ render: (pages) => renderPartPages(siteDir, header, pages, charts), prepare: () => preparePartPages(siteDir, header, charts), perRun });
 }

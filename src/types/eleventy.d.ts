@@ -7,6 +7,8 @@ declare module '@11ty/eleventy' {
   }
   export default class Eleventy {
     constructor(input: string, output: string, options?: EleventyOptions);
+    /** Reads the configuration and finds the templates; write() does it first when it has not been done. */
+    init(): Promise<void>;
     write(): Promise<unknown>;
     disableLogger(): void;
   }

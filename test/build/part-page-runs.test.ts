@@ -113,4 +113,38 @@ describe('part page runs', () => {
     expect(settled).toBe(true);
     expect(r.runs).toHaveLength(1);
   });
+
+  it('renders the next run with the one started ahead, once, and starts none ahead without the option or once stopped', async () => {
+    const r = heldRenderer();
+    const started: string[][][] = [];
+    const prepare = () => {
+      const given: string[][] = [];
+      started.push(given);
+      return (pages: PartPageData[]) => {
+        given.push(pages.map((p) => p.id));
+        return r.render(pages);
+      };
+    };
+    const runs = new PartPageRuns({ render: r.render, prepare, perRun: 5, minRun: 1 });
+    runs.prepare();
+    runs.prepare();
+    expect(started).toHaveLength(1);
+    runs.add(page(1));
+    // The run started ahead took the page; the next run is a plain one.
+    expect(started[0]).toEqual([['P1']]);
+    r.runs[0].end();
+    await settle();
+    runs.add(page(2));
+    expect(r.runs.map((x) => x.ids)).toEqual([['P1'], ['P2']]);
+    expect(started[0]).toEqual([['P1']]);
+    r.runs[1].end();
+    expect(await runs.done()).toBe(2);
+
+    const plain = new PartPageRuns({ render: heldRenderer().render });
+    expect(() => plain.prepare()).not.toThrow();
+    const stopped = new PartPageRuns({ render: r.render, prepare });
+    await stopped.settle();
+    stopped.prepare();
+    expect(started).toHaveLength(1);
+  });
 });
