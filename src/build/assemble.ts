@@ -12,12 +12,11 @@ import { comparisonKey } from '../model/comparison.js';
 import type { Library } from '../model/library.js';
 import type { Part } from '../model/part.js';
 import type { Plan } from '../model/plan.js';
-import type { ChartArtifact, ChartMaker, DrawnChart } from './chart-maker.js';
+import type { ChartArtifact, ChartMaker } from './chart-maker.js';
 import type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
 
 export type { BuildWork, CarriedPart, RecordedPage, UnitKeys } from './carried.js';
 import { comparedAnalysis, type ComparedAnalysis } from './chart-jobs.js';
-import { drawsAdmittancePlane } from '../charts/plane-kind.js';
 import { selectionText } from '../present/part-words.js';
 import { libraryRevision } from '../history/library-revision.js';
 import { comparisonSlug } from '../present/slugs.js';
@@ -25,8 +24,6 @@ import { comparisonIndex } from '../pages/comparison-index.js';
 import { partList } from '../pages/part-list.js';
 import { listedPart, type ListedPart } from '../pages/listed-part.js';
 import { partPdfPath, reviewPdfPath } from '../pages/site-paths.js';
-import { partSpecPath } from '../pages/spec-download.js';
-import { writeFileDeep } from './output.js';
 import { planPageData, type PlanPageData } from '../pages/plan-page.js';
 import type { PartFamily } from '../pages/families.js';
 import { cachedFamilies } from './family-cache.js';
@@ -44,45 +41,12 @@ import {
 } from '../pages/site-data.js';
 
 export { jsonFile } from './part-downloads.js';
-import { jsonFile, specFileName, writeChartSpec } from './part-downloads.js';
+import { jsonFile } from './part-downloads.js';
 import type { SvgSpill } from './svg-spill.js';
 import type { PartPageRuns } from './part-page-runs.js';
+import { chartOnPage, partChartOnPage, placeChart, timedWrite, type AssembleTimings } from './chart-placing.js';
 
-/** A chart as its page shows it; its spec is (or was) written beside the page. */
-function chartOnPage(chart: DrawnChart): ChartOnPage {
-  return { key: chart.key, title: chart.title, description: chart.description, svg: chart.svg, specFile: specFileName(chart) };
-}
-
-/** Time spent on parts of the work, in seconds (for benchmarks and a build's breakdown). */
-export interface AssembleTimings {
-  /** Analysing every part (sweeps, resonances, bands). */
-  analyse: number;
-  /**
-   * Writing downloads on this thread: figures and chart specs of plans and comparisons, and a part's
-   * downloads when its charts came from the cache (the chart workers write the others, part-downloads.ts).
-   */
-  downloads: number;
-}
-
-/** Write a file and add the time it took, text making included, to `timings.downloads`. */
-function timedWrite(timings: AssembleTimings | undefined, path: string, content: () => string): void {
-  const started = performance.now();
-  writeFileDeep(path, content());
-  if (timings) timings.downloads += (performance.now() - started) / 1000;
-}
-
-/** Write a chart's spec beside its page (writeChartSpec) and say where it is, relative to the page. */
-function placeChart(chart: ChartArtifact, folder: string, timings?: AssembleTimings): ChartOnPage {
-  const started = performance.now();
-  writeChartSpec(chart, folder);
-  if (timings) timings.downloads += (performance.now() - started) / 1000;
-  return chartOnPage(chart);
-}
-
-/** A part chart on its page: its download is the site's shared spec that draws the sweep.csv beside it (spec-download.ts). */
-function partChartOnPage(part: Part): (chart: DrawnChart) => ChartOnPage {
-  return (chart) => ({ ...chartOnPage(chart), specPath: partSpecPath(chart.key, drawsAdmittancePlane(part)) });
-}
+export type { AssembleTimings } from './chart-placing.js';
 
 export interface AssembleOptions {
   library: Library;
@@ -182,13 +146,25 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   // workers and answers from its cache.
   const pages: (PartPageData | ListedPart)[] = new Array(library.parts.length);
   const waiting: Promise<void>[] = [];
+  const pageMade = new Map<string, Promise<void>>();
   library.parts.forEach((part, i) => {
     const recorded = carried.get(part.id);
     if (recorded && !shownElsewhere.has(part.id)) {
       pages[i] = recorded.listed ?? listedPart(partPageData(analysisOf(part), []));
       progress.tick();
-    } else waiting.push(pageOf(part).then((page) => void (pages[i] = page)));
+    } else {
+      const made = pageOf(part).then((page) => void (pages[i] = page));
+      waiting.push(made);
+      pageMade.set(part.id, made);
+    }
   });
+  // A comparison asks for its chart once its parts' pages are made, and so reads what is kept of each
+  // (comparedAnalysis): asked at once, a cold build of 10,000 parts held every part's whole analysis (2 GB).
+  const comparedWhenMade = async (ids: readonly string[]) => {
+    const pending = ids.flatMap((id) => pageMade.get(id) ?? []);
+    if (pending.length > 0) await Promise.all(pending);
+    return ids.map(comparedOf);
+  };
   const listed = Promise.all(waiting).then(() => {
     pageRuns?.flush();
     return new Map(pages.map((p) => [p.id, p]));
@@ -196,7 +172,7 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
   // The comparisons are keyed, and those to draw asked for, while the chart workers draw the parts (a
   // rebuild after one edit of 10,000 parts had this thread wait for them, then key 903 comparisons).
   const families = familiesFile ? cachedFamilies(library.parts, library.partsById, codeKey(), familiesFile) : automaticComparisons(library);
-  const comparing = comparisonPages(library, families, comparedOf, listed, siteDir, charts, units, timings, work);
+  const comparing = comparisonPages(library, families, comparedWhenMade, listed, siteDir, charts, units, timings, work);
   // The next run of part pages starts meanwhile too, when a part's folder is made afresh.
   if (carried.size < library.parts.length) pageRuns?.prepare();
   const [listedById, { pages: comparisons, byKey, rendered }] = await Promise.all([listed, comparing]);
@@ -244,7 +220,7 @@ async function planPage(plan: Plan, library: Library, siteDir: string, charts: C
 async function comparisonPages(
   library: Library,
   families: readonly PartFamily[],
-  comparedOf: (id: string) => ComparedAnalysis,
+  comparedOf: (ids: readonly string[]) => Promise<ComparedAnalysis[]>,
   listed: Promise<ReadonlyMap<string, ListedPart>>,
   siteDir: string,
   charts: ChartMaker,
@@ -272,9 +248,8 @@ async function comparisonPages(
     partsOf.push([data, partIds]);
     const kept = units.kept(`comparisons/${slug}`, units.comparison(fields, partIds));
     if (partIds.length > 0 && (!kept || reviewed)) {
-      const analyses = partIds.map(comparedOf);
       // The folder's path is made only for a page written here (903 families of the generated 10,000 parts, nearly all kept after an edit).
-      drawing.push(charts.comparisonChart(analyses, page.title).then((chart) => void (data.chart = kept ? chartOnPage(chart) : placeChart(chart, join(siteDir, 'comparisons', slug), timings))));
+      drawing.push(comparedOf(partIds).then((analyses) => charts.comparisonChart(analyses, page.title)).then((chart) => void (data.chart = kept ? chartOnPage(chart) : placeChart(chart, join(siteDir, 'comparisons', slug), timings))));
     } else if (partIds.length > 0) {
       // The page is kept (with its chart); the chart stays in the cache unread.
       units.keepChart?.(partIds.map((id) => library.partsById.get(id)!), page.title);
