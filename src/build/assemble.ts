@@ -169,8 +169,8 @@ export async function assembleSite({ library, siteDir, charts, progress, pdfLink
     pageRuns?.flush();
     return new Map(pages.map((p) => [p.id, p]));
   });
-  // The comparisons are keyed, and those to draw asked for, while the chart workers draw the parts (a
-  // rebuild after one edit of 10,000 parts had this thread wait for them, then key 903 comparisons).
+  // The comparisons are keyed while the chart workers draw the parts (a rebuild after one edit of 10,000 parts
+  // had this thread wait for them, then key 903 comparisons); each asks for its chart as comparedWhenMade says.
   const families = familiesFile ? cachedFamilies(library.parts, library.partsById, codeKey(), familiesFile) : automaticComparisons(library);
   const comparing = comparisonPages(library, families, comparedWhenMade, listed, siteDir, charts, units, timings, work);
   // The next run of part pages starts meanwhile too, when a part's folder is made afresh.

@@ -11,7 +11,7 @@
 import type { Library } from '../model/library.js';
 import { folioHeader, type PartPageData } from '../pages/site-data.js';
 import { collectGarbage } from './collect-garbage.js';
-import { PART_PAGES_PER_RUN, preparePartPages, renderPartPages } from './eleventy.js';
+import { PART_PAGES_PER_RUN, preparePartPages, renderPartPages, type PreparedPartPages } from './eleventy.js';
 import type { PageCharts } from './svg-spill.js';
 
 /**
@@ -24,7 +24,7 @@ export interface PartPageRunsOptions {
   /** Render one run of part pages; resolves to the count of pages written. */
   render(pages: PartPageData[]): Promise<number>;
   /** Start a run before its pages are known (see `prepare`); given to it, it renders them as `render` would. */
-  prepare?(): (pages: PartPageData[]) => Promise<number>;
+  prepare?(): PreparedPartPages;
   /** At most this many pages a run (default PART_PAGES_PER_RUN). */
   perRun?: number;
   /** A run starts once this many pages wait (default MIN_PART_PAGES_PER_RUN, at most `perRun`). */
@@ -47,7 +47,7 @@ export class PartPageRuns {
   private stopped = false;
   private sinceCollection = 0;
   /** The next run, started ahead (prepare). */
-  private prepared?: (pages: PartPageData[]) => Promise<number>;
+  private prepared?: PreparedPartPages;
 
   constructor(private readonly options: PartPageRunsOptions) {
     this.perRun = Math.max(1, options.perRun ?? PART_PAGES_PER_RUN);
