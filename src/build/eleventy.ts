@@ -34,7 +34,7 @@ export async function renderPages(outDir: string, folio: FolioData, perRun = PAR
     const run = pages.slice(i, i + perRun);
     charts?.load(run);
     try {
-      written += await renderRun(outDir, { ...folio, partPages: run }, i > 0);
+      written += await prepareRun(outDir, i > 0)({ ...folio, partPages: run });
     } finally {
       charts?.unload(run);
     }
@@ -79,10 +79,6 @@ function otherTemplates(): string[] {
 }
 
 type RunData = FolioData | (FolioHeader & Pick<FolioData, 'partPages'>);
-
-function renderRun(outDir: string, folio: RunData, partPagesOnly: boolean): Promise<number> {
-  return prepareRun(outDir, partPagesOnly)(folio);
-}
 
 /** An eleventy made and started now, which renders once it is given its global data. */
 function prepareRun(outDir: string, partPagesOnly: boolean): (folio: RunData) => Promise<number> {
