@@ -28,6 +28,11 @@ export interface BuildOptions {
   charts?: ChartMaker;
   /** Worker threads for charts (default: one per core when many parts need drawing, none for a few). */
   workers?: number;
+  /**
+   * The process has built before (zfolio serve after its first build): a rebuild of a large library draws
+   * its few charts in this thread instead of starting a worker for them (rebuildChartWorker, chart-workers.ts).
+   */
+  warm?: boolean;
   /** Part pages each eleventy run renders (default PART_PAGES_PER_RUN; see eleventy.ts). */
   partPagesPerRun?: number;
   /** Print PDFs too. */

@@ -72,7 +72,7 @@ async function loadAndBuild(options: BuildOptions, outDir: string, { at: started
   const timings: BuildTimings = { load: zero, assemble: { ...zero, analyse: 0, downloads: 0 }, pages: zero, pdf: zero, swap: zero };
   // Part files unchanged since the last build are taken from the cache, not read and parsed again.
   const partCache = cacheRoot === undefined ? undefined : new PartCache(libraryRoot, join(cacheRoot, 'parts'), codeKey());
-  const firstRead = options.charts ? undefined : (partFiles: number) => rebuildChartWorker(early, partFiles, options.workers);
+  const firstRead = options.charts ? undefined : (partFiles: number) => rebuildChartWorker(early, partFiles, options);
   const { library, diagnostics } = loadLibrary(libraryRoot, { partCache, firstRead });
   partCache?.save();
   const work = { filesParsed: partCache?.counts.parsed ?? library?.parts.length ?? 0, partsAnalysed: 0, partFolders: 0, comparisons: 0, listFiles: 0, pagesRendered: 0 };

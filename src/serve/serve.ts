@@ -116,7 +116,8 @@ export async function serveFolio(options: ServeOptions): Promise<FolioServer> {
     const report: BuildReport = { round: round++, changed, at: new Date() };
     const progress = report.round === 0 ? (options.progress ?? silentProgress) : silentProgress;
     try {
-      report.result = await buildFolio({ libraryRoot, outDir, cwd, home, workers: options.workers, progress });
+      // After the first build this process's code is compiled, and a rebuild draws its few charts itself.
+      report.result = await buildFolio({ libraryRoot, outDir, cwd, home, workers: options.workers, progress, warm: report.round > 0 });
     } catch (error) {
       report.error = error instanceof Error ? error : new Error(String(error));
     }
