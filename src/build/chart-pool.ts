@@ -59,6 +59,9 @@ export interface ChartPoolStats {
 export function compactCharts<T extends DrawnChart>(charts: T[]): T[] {
   return charts.map((c) => (/[^\u0000-\u00ff]/.test(c.svg) ? c : { ...c, svg: Buffer.from(c.svg, 'latin1').toString('latin1') }));
 }
+/** The modules that draw charts in this thread (and vega), loaded once: by the first chart drawn here, or before (zfolio serve). */
+export const loadChartDrawing = () => import('./chart-draw.js');
+
 /** A part file's content hash as source.ts makes it: 16 hex digits of its SHA-256. */
 const CONTENT_HASH = /^[0-9a-f]{16}$/;
 
@@ -238,7 +241,7 @@ export class ChartPool implements ChartMaker {
   private run(make: () => ChartJob, cacheFile: string | undefined, slim: boolean, svgFile?: string): Promise<DrawnChart[]> {
     if (this.workers.length === 0) {
       // Drawn here: the drawing modules (and vega) are loaded now, by a build that draws a chart at all.
-      return import('./chart-draw.js').then(({ renderChartJob }) => renderChartJob(make())).then((charts) => {
+      return loadChartDrawing().then(({ renderChartJob }) => renderChartJob(make())).then((charts) => {
         const answer = slim ? withoutSpecs(charts) : charts;
         storeCharts(answer, cacheFile, svgFile);
         return svgFile ? withoutSvgs(answer) : answer;
