@@ -19,7 +19,7 @@ import { fnv1a } from '../model/fnv1a.js';
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { PdfStamp } from './pdf-reuse.js';
-import { asciiJson, readText } from '../model/ascii-text.js';
+import { asciiJson, ParsedFiles } from '../model/ascii-text.js';
 import { writeAtomically } from '../model/atomic-file.js';
 
 /** Shards of a version's units. */
@@ -80,6 +80,13 @@ function jsonString(text: string, start: number, end: number): string {
   if (text.charCodeAt(start) === 34 && text.charCodeAt(end - 1) === 34 && end - start >= 2 && !inner.includes('\\') && !inner.includes('"')) return inner;
   return JSON.parse(text.slice(start, end)) as string;
 }
+
+/**
+ * The shard files read in this process (ParsedFiles): a shard file is named by its content's hash and shared by
+ * the versions that name it, 128 for the two versions of a site. Their maps are never changed (VersionRecord
+ * copies a shard before changing it).
+ */
+const SHARD_FILES = new ParsedFiles<Map<string, UnitEntry>>(512);
 
 /** Shards read as UTF-8 (written by an older version): saved again, as ASCII (ascii-text.ts). */
 const NOT_ASCII = new WeakSet<Map<string, UnitEntry>>();
@@ -214,9 +221,11 @@ export function readSiteRecord(dir: string, outDir: string): SiteRecord | undefi
       let map = cache.get(name);
       if (!map) {
         try {
-          const { text, ascii } = readText(join(dir, 'shards', name));
-          map = readShardLines(text);
-          if (!ascii) NOT_ASCII.add(map);
+          map = SHARD_FILES.read(join(dir, 'shards', name), '', (text, ascii) => {
+            const read = readShardLines(text);
+            if (!ascii) NOT_ASCII.add(read);
+            return read;
+          });
         } catch {
           map = new Map();
         }

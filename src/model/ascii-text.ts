@@ -29,21 +29,25 @@ let scratch = Buffer.alloc(0);
 function readBytes(path: string): Buffer {
   const fd = openSync(path, 'r');
   try {
-    const size = fstatSync(fd).size;
-    const bytes = size > SCRATCH_LIMIT ? Buffer.allocUnsafe(size) : scratch.length >= size + 1 ? scratch : (scratch = Buffer.allocUnsafe(Math.max(size + 1, 2 * scratch.length, 1 << 16)));
-    let filled = 0;
-    // Read up to the size the file had, and on past it should it have grown since.
-    for (let n = 1; n > 0 && filled < bytes.length; filled += n) n = readSync(fd, bytes, filled, bytes.length - filled, null);
-    if (filled === bytes.length && bytes !== scratch) return bytes;
-    if (filled < bytes.length) return bytes.subarray(0, filled);
-    // The file grew beyond its stated size: read it whole.
-    const rest: Buffer[] = [Buffer.from(bytes.subarray(0, filled))];
-    const chunk = Buffer.allocUnsafe(1 << 16);
-    for (let n = readSync(fd, chunk, 0, chunk.length, null); n > 0; n = readSync(fd, chunk, 0, chunk.length, null)) rest.push(Buffer.from(chunk.subarray(0, n)));
-    return Buffer.concat(rest);
+    return readOpen(fd, fstatSync(fd).size);
   } finally {
     closeSync(fd);
   }
+}
+
+/** The bytes of the open file `fd`, whose size was `size` (see readBytes). */
+function readOpen(fd: number, size: number): Buffer {
+  const bytes = size > SCRATCH_LIMIT ? Buffer.allocUnsafe(size) : scratch.length >= size + 1 ? scratch : (scratch = Buffer.allocUnsafe(Math.max(size + 1, 2 * scratch.length, 1 << 16)));
+  let filled = 0;
+  // Read up to the size the file had, and on past it should it have grown since.
+  for (let n = 1; n > 0 && filled < bytes.length; filled += n) n = readSync(fd, bytes, filled, bytes.length - filled, null);
+  if (filled === bytes.length && bytes !== scratch) return bytes;
+  if (filled < bytes.length) return bytes.subarray(0, filled);
+  // The file grew beyond its stated size: read it whole.
+  const rest: Buffer[] = [Buffer.from(bytes.subarray(0, filled))];
+  const chunk = Buffer.allocUnsafe(1 << 16);
+  for (let n = readSync(fd, chunk, 0, chunk.length, null); n > 0; n = readSync(fd, chunk, 0, chunk.length, null)) rest.push(Buffer.from(chunk.subarray(0, n)));
+  return Buffer.concat(rest);
 }
 
 /**
@@ -54,4 +58,39 @@ export function readText(path: string): { text: string; ascii: boolean } {
   const bytes = readBytes(path);
   const ascii = isAscii(bytes);
   return { text: bytes.toString(ascii ? 'latin1' : 'utf8'), ascii };
+}
+
+/**
+ * What files were parsed into, kept by path while a file's size, times, inode and device are unchanged, for a
+ * process that builds again and again (zfolio serve): its rebuilds after one edit of 10,000 parts read the
+ * caches' unchanged files (some 13 MB) once. `tag` names what else the value depends on (the code that
+ * parsed it). At most `limit` files are kept, the least recently read dropped first. A value handed out is
+ * shared by every read that finds it: callers must not change it.
+ */
+export class ParsedFiles<T> {
+  private readonly kept = new Map<string, { stamp: string; value: T }>();
+
+  constructor(private readonly limit: number) {}
+
+  read(path: string, tag: string, parse: (text: string, ascii: boolean) => T): T {
+    const fd = openSync(path, 'r');
+    try {
+      const s = fstatSync(fd);
+      const stamp = `${tag}\n${s.size},${s.mtimeMs},${s.ctimeMs},${s.ino},${s.dev}`;
+      const found = this.kept.get(path);
+      this.kept.delete(path);
+      if (found?.stamp === stamp) {
+        this.kept.set(path, found);
+        return found.value;
+      }
+      const bytes = readOpen(fd, s.size);
+      const ascii = isAscii(bytes);
+      const value = parse(bytes.toString(ascii ? 'latin1' : 'utf8'), ascii);
+      this.kept.set(path, { stamp, value });
+      if (this.kept.size > this.limit) this.kept.delete(this.kept.keys().next().value as string);
+      return value;
+    } finally {
+      closeSync(fd);
+    }
+  }
 }

@@ -16,7 +16,7 @@
 import { sha256Hex } from './sha256.js';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { asciiJson, readText } from './ascii-text.js';
+import { asciiJson, ParsedFiles } from './ascii-text.js';
 import { writeAtomically } from './atomic-file.js';
 import type { PartFacts } from './part-facts.js';
 
@@ -93,6 +93,9 @@ interface Header {
   holes?: string[];
 }
 
+/** The .lines files read in this process (ParsedFiles): 64 for a library's cache, a few libraries' worth. */
+const HEADS = new ParsedFiles<Heads>(256);
+
 export class ShardFiles {
   constructor(
     private readonly dir: string,
@@ -109,32 +112,34 @@ export class ShardFiles {
     return header.format === this.format && header.key === this.key && typeof header.token === 'string' ? header : undefined;
   }
 
-  /** A shard's head rows by path (none when its file is missing, unreadable or of other code). */
+  /**
+   * A shard's head rows by path (none when its file is missing, unreadable or of other code). The rows are
+   * shared with the other reads of the unchanged file in this process (HEADS) and are not changed.
+   */
   heads(i: number): Heads {
-    const rows = new Map<string, HeadRow>();
-    let ascii = true;
     try {
-      const read = readText(this.file(i, 'lines'));
-      ascii = read.ascii;
-      const { text } = read;
-      const end = text.indexOf('\n');
-      const header = this.header(text.slice(0, end));
-      if (!header || !Array.isArray(header.holes) || !header.holes.every((h) => typeof h === 'string')) return { rows, token: '', ascii };
-      for (let at = end + 1; at < text.length; ) {
-        const next = text.indexOf('\n', at);
-        const stop = next < 0 ? text.length : next;
-        if (stop > at) {
-          const [path, row] = headRow(text.slice(at, stop), header.holes);
-          rows.set(path, row);
-        }
-        at = stop + 1;
-      }
-      return { rows, token: header.token!, ascii };
+      return { ...HEADS.read(this.file(i, 'lines'), `${this.format} ${this.key}`, (text, ascii) => this.parseHeads(text, ascii)) };
     } catch {
       // none yet, or unreadable: the shard's files are read again
-      rows.clear();
-      return { rows, token: '', ascii };
+      return { rows: new Map(), token: '', ascii: true };
     }
+  }
+
+  private parseHeads(text: string, ascii: boolean): Heads {
+    const rows = new Map<string, HeadRow>();
+    const end = text.indexOf('\n');
+    const header = this.header(text.slice(0, end));
+    if (!header || !Array.isArray(header.holes) || !header.holes.every((h) => typeof h === 'string')) return { rows, token: '', ascii };
+    for (let at = end + 1; at < text.length; ) {
+      const next = text.indexOf('\n', at);
+      const stop = next < 0 ? text.length : next;
+      if (stop > at) {
+        const [path, row] = headRow(text.slice(at, stop), header.holes);
+        rows.set(path, row);
+      }
+      at = stop + 1;
+    }
+    return { rows, token: header.token!, ascii };
   }
 
   /** The bytes of a shard's .late file when its header names this token, else undefined. */

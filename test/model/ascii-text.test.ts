@@ -3,10 +3,10 @@
 // surrogate pair), and a file of other bytes is still read as UTF-8. The build record and the part cache that
 // write through it are checked here too: a shard an older version wrote with UTF-8 is written again as ASCII.
 
-import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { asciiJson, readText } from '../../src/model/ascii-text.js';
+import { asciiJson, ParsedFiles, readText } from '../../src/model/ascii-text.js';
 import { entryData, readSiteRecord, VersionRecord, writeSiteRecord } from '../../src/build/site-record.js';
 import { tempDir } from '../site-helpers.js';
 
@@ -92,5 +92,61 @@ describe('the build record', () => {
     writeSiteRecord(records, { outDir: out, live: old.live, pdfs: {} });
     expect(files().every(allAscii)).toBe(true);
     expect(entryData(readSiteRecord(records, out)!.live!.get('parts/P9'))).toEqual({ listed: { id: 'P9', ...SAMPLE } });
+  });
+});
+
+describe('ParsedFiles', () => {
+  /** A ParsedFiles whose parse counts its calls and gives a new object each time. */
+  const counting = (limit = 8) => {
+    const calls: string[] = [];
+    const files = new ParsedFiles<{ text: string; ascii: boolean }>(limit);
+    const read = (path: string, tag = '') => files.read(path, tag, (text, ascii) => (calls.push(text), { text, ascii }));
+    return { calls, read };
+  };
+
+  it('parses a file once while it is unchanged, and again once it is written', () => {
+    const dir = tempDir('parsed-files');
+    const file = join(dir, 'a.tsv');
+    writeFileSync(file, 'first\n');
+    const { calls, read } = counting();
+    const a = read(file);
+    expect(a).toEqual({ text: 'first\n', ascii: true });
+    expect(read(file)).toBe(a);
+    expect(calls).toEqual(['first\n']);
+    // Written again in place, and replaced through a rename (a new inode), as the caches write their files.
+    writeFileSync(file, 'again, longer\n');
+    expect(read(file)).toEqual({ text: 'again, longer\n', ascii: true });
+    writeFileSync(join(dir, 'b.tsv'), 'moved\n');
+    renameSync(join(dir, 'b.tsv'), file);
+    expect(read(file).text).toBe('moved\n');
+    expect(calls).toEqual(['first\n', 'again, longer\n', 'moved\n']);
+    // Bytes beyond ASCII are read as UTF-8, as readText reads them.
+    writeFileSync(file, 'Ω\n');
+    expect(read(file)).toEqual({ text: 'Ω\n', ascii: false });
+  });
+
+  it('parses again under another tag (the code that parses), and drops the least recently read beyond its limit', () => {
+    const dir = tempDir('parsed-files-limit');
+    const [a, b, c] = ['a', 'b', 'c'].map((name) => {
+      writeFileSync(join(dir, name), name);
+      return join(dir, name);
+    });
+    const { calls, read } = counting(2);
+    read(a, 'one');
+    read(a, 'two');
+    expect(calls).toEqual(['a', 'a']);
+    read(b);
+    read(a, 'two'); // a is now the most recently read
+    read(c); // b goes
+    read(a, 'two');
+    expect(calls).toEqual(['a', 'a', 'b', 'c']);
+    read(b);
+    expect(calls).toEqual(['a', 'a', 'b', 'c', 'b']);
+  });
+
+  it('throws for a missing file without parsing anything', () => {
+    const { calls, read } = counting();
+    expect(() => read(join(tempDir('parsed-files-missing'), 'none.tsv'))).toThrow();
+    expect(calls).toEqual([]);
   });
 });
