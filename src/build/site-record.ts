@@ -83,10 +83,11 @@ function jsonString(text: string, start: number, end: number): string {
 
 /**
  * The shard files read in this process (ParsedFiles): a shard file is named by its content's hash and shared by
- * the versions that name it, 128 for the two versions of a site. Their maps are never changed (VersionRecord
- * copies a shard before changing it).
+ * the versions that name it, 128 for the two versions of a site, and as many kept of shards since replaced
+ * (the least recently read go first). Their maps are never changed (VersionRecord copies a shard before
+ * changing it).
  */
-const SHARD_FILES = new ParsedFiles<Map<string, UnitEntry>>(512);
+const SHARD_FILES = new ParsedFiles<Map<string, UnitEntry>>(256);
 
 /** Shards read as UTF-8 (written by an older version): saved again, as ASCII (ascii-text.ts). */
 const NOT_ASCII = new WeakSet<Map<string, UnitEntry>>();
