@@ -59,6 +59,7 @@ export interface ChartPoolStats {
 export function compactCharts<T extends DrawnChart>(charts: T[]): T[] {
   return charts.map((c) => (/[^\u0000-\u00ff]/.test(c.svg) ? c : { ...c, svg: Buffer.from(c.svg, 'latin1').toString('latin1') }));
 }
+
 /** The modules that draw charts in this thread (and vega), loaded once: by the first chart drawn here, or before (zfolio serve). */
 export const loadChartDrawing = () => import('./chart-draw.js');
 
