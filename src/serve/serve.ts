@@ -4,7 +4,7 @@
 
 import { join, resolve } from 'node:path';
 import { buildFolio, CACHE_DIR, DEFAULT_OUT_DIR, type BuildResult } from '../build/build.js';
-import { loadChartDrawing } from '../build/chart-pool.js';
+import { warmChartDrawing } from '../build/chart-warm-up.js';
 import { TEMPLATES_DIR } from '../build/eleventy.js';
 import { guardOutput, holdingDir } from '../build/output-guard.js';
 import { silentProgress, type Progress } from '../build/progress.js';
@@ -126,9 +126,9 @@ export async function serveFolio(options: ServeOptions): Promise<FolioServer> {
     first ??= report;
     latest = report;
     options.onBuild?.(report);
-    // The rebuilds draw an edit's charts in this thread (warm, above): their code is loaded now, before the
-    // first edit, rather than by it.
-    if (report.round === 0) void loadChartDrawing().catch(() => {});
+    // The rebuilds draw an edit's charts in this thread (warm, above): their code is loaded and run once now,
+    // before the first edit, rather than by it (chart-warm-up.ts).
+    if (report.round === 0) void warmChartDrawing().catch(() => {});
   };
   const queue = oneAtATime(buildOnce);
 
