@@ -1,9 +1,10 @@
 // Drawing a chart job (chart-jobs.ts), in a chart worker thread or, for a build that draws a few charts, in
 // the build's own thread, which loads this module (and with it vega) only when it first draws one.
 
-import { renderComparisonChart } from '../charts/comparison-chart.js';
+import { comparisonChart, renderComparisonChart } from '../charts/comparison-chart.js';
 import { describeComparison } from '../present/chart-descriptions.js';
-import { PART_CHART_KINDS, renderPartCharts } from '../charts/part-charts.js';
+import { PART_CHART_KINDS, PART_CHARTS, renderPartCharts } from '../charts/part-charts.js';
+import { precompileChart } from '../charts/render.js';
 import { renderRailChart } from '../charts/rail-chart.js';
 import { renderLoadStepCharts } from '../charts/load-step-chart.js';
 import { renderChangeChart } from '../charts/change-chart.js';
@@ -34,4 +35,17 @@ export async function renderChartJob(job: ChartJob): Promise<ChartArtifact[]> {
   }
   const chart = await renderComparisonChart(job.inputs, describeComparison(job.inputs, job.title));
   return [{ key: 'overlay', ...chart }];
+}
+
+/**
+ * The part charts' kinds and the comparison's compiled now, one kind a turn of the event loop: a chart worker
+ * does it as it waits for its first job, which would compile them (a job that arrives meanwhile runs between
+ * two kinds and compiles those it needs itself).
+ */
+export function precompilePartCharts(): void {
+  const kinds = [...PART_CHART_KINDS.map((kind) => () => precompileChart(PART_CHARTS[kind])), () => precompileChart(comparisonChart)];
+  const next = (i: number) => {
+    if (i < kinds.length) setImmediate(() => (kinds[i](), next(i + 1)));
+  };
+  next(0);
 }

@@ -94,8 +94,8 @@ export function earlyChartWorkers(start: EarlyStart): StartedWorker[] {
  * worker started as the build began made a one-edit rebuild 0.21 s slower. At 10,000 parts, started as the
  * edited part was read, it made it 0.12 s faster (ten alternated pairs, t = -3.9), though the reading and
  * keying beside it took 0.1 s longer. The worker is ready about 0.3 s after it starts (vega-runtime.ts), before
- * the build asks for its first chart; drawing charts of invented parts while it waited, or the edited part's
- * before the keying, gained nothing (DEVELOPERS.md).
+ * the build asks for its first chart, and compiles the chart kinds while it waits (chart-worker.ts); drawing
+ * charts of invented parts then, or the edited part's before the keying, gained nothing (DEVELOPERS.md).
  */
 export const REBUILD_WORKER_PARTS = 5000;
 

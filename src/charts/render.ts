@@ -132,6 +132,13 @@ export function resetChartCache(): void {
   compiled.clear();
 }
 
+/** Compiles a kind's View before its first chart, unless its spec needs vega-lite loaded; true when compiled. */
+export function precompileChart<I>(def: ChartDefinition<I>): boolean {
+  if (!compiled.has(def.name) && !compilerLoaded() && !inSpecTable(drawnSpec(def).drawn)) return false;
+  compiledOf(def);
+  return true;
+}
+
 function compiledOf<I>(def: ChartDefinition<I>): Compiled {
   let c = compiled.get(def.name);
   if (!c) {
