@@ -28,11 +28,16 @@ describe('the chart kinds compiled ahead of the first job', () => {
     return out;
   };
 
-  it('are each compiled once, one a turn, and the charts drawn after are those drawn without', async () => {
+  /** The charts drawn with nothing compiled beforehand, then the Views forgotten again; and the counts then. */
+  const reference = async () => {
     resetChartCache();
     const cold = await draw();
     resetChartCache();
-    const before = compiles();
+    return { cold, before: compiles() };
+  };
+
+  it('are each compiled once, one a turn, and the charts drawn after are those drawn without', async () => {
+    const { cold, before } = await reference();
     precompilePartCharts();
     // One kind a turn of the event loop: none yet, then the first alone.
     expect(compiles()).toEqual(before);
@@ -49,10 +54,7 @@ describe('the chart kinds compiled ahead of the first job', () => {
   }, 60_000);
 
   it('let a job that comes between two kinds compile what it needs itself, each kind still once', async () => {
-    resetChartCache();
-    const cold = await draw();
-    resetChartCache();
-    const before = compiles();
+    const { cold, before } = await reference();
     precompilePartCharts();
     await turns(2);
     const drawn = await draw();
