@@ -50,10 +50,14 @@ function curveOf(f: Float64Array, value: (k: number) => number, positive = false
   );
 }
 
-function pairKey(data: MeasurementChartData, what: string): KeyItem[] {
+/**
+ * The key of the |Z| and phase charts: the same two entries, the quantity being the y axis's, so the two
+ * keys take as many lines and the plots beside each other on a page line up.
+ */
+function pairKey(data: MeasurementChartData): KeyItem[] {
   return [
-    { kind: 'line', style: { s: 'model' }, text: `${what}, model (${data.partId})` },
-    { kind: 'line', style: { s: 'measured' }, text: `${what}, measured (${data.file})` },
+    { kind: 'line', style: { s: 'model' }, text: `model (${data.partId})` },
+    { kind: 'line', style: { s: 'measured' }, text: `measured (${data.file})` },
   ];
 }
 
@@ -73,7 +77,7 @@ export const measuredImpedanceChart = xyChart<MeasurementChartData>({
     const yMap = logAxis(domain, FRAME.height);
     // The measurement over the model: its scatter stays visible where the two agree.
     const curves: Row[] = [...curveRows(curveOf(data.frequencies, (k) => model[k], true), x.map, yMap, 'model'), ...curveRows(curveOf(data.frequencies, (k) => measured[k], true), x.map, yMap, 'measured')];
-    return { x, y: { domain, ticks: logTicks(domain, FRAME.height, 'Ω', Y_TICK_SPACING) }, datasets: { curves }, key: pairKey(data, '|Z|') };
+    return { x, y: { domain, ticks: logTicks(domain, FRAME.height, 'Ω', Y_TICK_SPACING) }, datasets: { curves }, key: pairKey(data) };
   },
 });
 
@@ -96,7 +100,7 @@ export const measuredPhaseChart = xyChart<MeasurementChartData>({
       x,
       y: { domain: PHASE_DOMAIN, ticks: { ...linearTicks([-90, 90], 30, degreesLabel), minor: [-75, -45, -15, 15, 45, 75] } },
       datasets: { curves },
-      key: pairKey(data, 'phase'),
+      key: pairKey(data),
     };
   },
 });
