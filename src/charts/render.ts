@@ -132,9 +132,12 @@ export function resetChartCache(): void {
   compiled.clear();
 }
 
+/** Whether a kind's View can be compiled now: compiled already, or its spec compiled when zfolio was built, or vega-lite loaded. */
+const compilable = <I>(def: ChartDefinition<I>) => compiled.has(def.name) || compilerLoaded() || inSpecTable(drawnSpec(def).drawn);
+
 /** Compiles a kind's View before its first chart, unless its spec needs vega-lite loaded; true when compiled. */
 export function precompileChart<I>(def: ChartDefinition<I>): boolean {
-  if (!compiled.has(def.name) && !compilerLoaded() && !inSpecTable(drawnSpec(def).drawn)) return false;
+  if (!compilable(def)) return false;
   compiledOf(def);
   return true;
 }
@@ -199,7 +202,7 @@ function namedData(spec: TopLevelSpec): string[] {
 /** Render one chart of a kind. */
 export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartText): Promise<ChartOutput> {
   // A kind whose spec the table of compiled specs lacks is compiled by vega-lite, loaded only then (vega-specs.ts).
-  if (!compiled.has(def.name) && !compilerLoaded() && !inSpecTable(drawnSpec(def).drawn)) return loadCompiler().then(() => renderChart(def, input, text));
+  if (!compilable(def)) return loadCompiler().then(() => renderChart(def, input, text));
   const c = compiledOf(def);
   const binding = def.bind(input);
   const unknown = Object.keys(binding.datasets).filter((name) => !c.sources.has(name));

@@ -55,7 +55,11 @@ function readOpen(fd: number, size: number): Buffer {
  * `ascii` says which, so that a cache file of an older version can be written again as ASCII.
  */
 export function readText(path: string): { text: string; ascii: boolean } {
-  const bytes = readBytes(path);
+  return decoded(readBytes(path));
+}
+
+/** Bytes as readText decodes them. */
+function decoded(bytes: Buffer): { text: string; ascii: boolean } {
   const ascii = isAscii(bytes);
   return { text: bytes.toString(ascii ? 'latin1' : 'utf8'), ascii };
 }
@@ -83,9 +87,8 @@ export class ParsedFiles<T> {
         this.kept.set(path, found);
         return found.value;
       }
-      const bytes = readOpen(fd, s.size);
-      const ascii = isAscii(bytes);
-      const value = parse(bytes.toString(ascii ? 'latin1' : 'utf8'), ascii);
+      const { text, ascii } = decoded(readOpen(fd, s.size));
+      const value = parse(text, ascii);
       this.kept.set(path, { stamp, value });
       if (this.kept.size > this.limit) this.kept.delete(this.kept.keys().next().value as string);
       return value;
