@@ -74,3 +74,24 @@ export function diskSnapshot(dir: string): Map<string, string> {
   walk(dir);
   return out;
 }
+
+/**
+ * The site versions in the holding folder of `site` (a link into it), by name: the one the site path links
+ * to, and the others. A build with a cache leaves the next one a spare there (src/build/spare-copy.ts).
+ */
+export function siteVersions(site: string): { live: string; others: string[] } {
+  const holding = join(site, '..', `.${site.split(sep).pop()}.zfolio`);
+  const live = readlinkSync(site).split('/').pop()!;
+  return { live, others: readdirSync(holding).filter((n) => n.startsWith('site-') && n !== live).sort() };
+}
+
+/** Whether every file under `a` is the same file (device and inode) as under `b` at the same path, and neither has a file the other lacks. */
+export function sameInodes(a: string, b: string): boolean {
+  const files = filesUnder(a);
+  if (JSON.stringify(files) !== JSON.stringify(filesUnder(b))) return false;
+  return files.every((f) => {
+    const x = statSync(join(a, f));
+    const y = statSync(join(b, f));
+    return x.ino === y.ino && x.dev === y.dev;
+  });
+}

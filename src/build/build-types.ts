@@ -43,6 +43,11 @@ export interface BuildOptions {
    * nothing). Default: .zfolio-cache under the library.
    */
   cache?: string | false;
+  /**
+   * Whether a build that leaves no spare version for the next one (it had no record of the site it replaced)
+   * makes one by hard links (spare-copy.ts). Default true; false for a site built once and thrown away.
+   */
+  spareCopy?: boolean;
   /** A git revision: the site gets a "Changes since REV" page. */
   since?: string;
   /** Called at each step of putting the new site in place (tests stop the process there). */

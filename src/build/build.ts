@@ -1,7 +1,7 @@
 // zfolio build: library -> figures -> charts -> pages (-> PDFs), written to a staging folder and swapped in
 // whole, so a failed build never leaves a half-written site.
 
-import { join, relative, resolve, sep } from 'node:path';
+import { basename, join, relative, resolve, sep } from 'node:path';
 import { sortedDiagnostics } from '../model/diagnostics.js';
 import { libraryMeasurements } from '../measure/part-measurements.js';
 import { loadLibrary, type Library } from '../model/library.js';
@@ -32,6 +32,8 @@ import { keptPdfs, linkPdfs, pdfKeys, pdfLinksFor, pdfsIn, stampPdfs } from './p
 import { buildHistory, type BuildHistory } from './build-history.js';
 import { addChanges } from '../pages/changes-page.js';
 import { SvgSpill } from './svg-spill.js';
+import { linkedCopyRecord } from './spare-copy.js';
+import { removeTree } from './remove-tree.js';
 import { earlyChartWorkers, PARTS_PER_WORKER_START, rebuildChartWorker, type StartedWorker } from './chart-workers.js';
 
 export type { BuildOptions, BuildResult, PdfOptions } from './build-types.js';
@@ -189,11 +191,18 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     recordParts(units, library, folio, carried);
     // The record is dropped before the swap and written after it, so it never describes a site not in place.
     if (recordAt) dropSiteRecord(recordAt);
-    const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) });
+    // The version replaced is kept as the next build's spare only where that saves it work (keepsReplaced).
+    const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) && units.keepsReplaced() });
     if (recordAt) {
       const printed = browser ? result.pdfs.map((p) => p.pdfFile) : [...kept];
       const pdfs = stampPdfs(printed, printed.length > 0 ? keys() : new Map(), outDir);
-      writeSiteRecord(recordAt, units.nextRecord(target, replaced, pdfs));
+      const next = units.nextRecord(target, replaced, pdfs);
+      writeSiteRecord(recordAt, next);
+      // Without a spare the next build would make one from nothing: made now instead (spare-copy.ts).
+      const copy = !next.spare && next.live && options.spareCopy !== false ? staging.linkedSpare() : undefined;
+      const spare = copy && linkedCopyRecord(next.live!, copy, basename(copy));
+      if (spare) writeSiteRecord(recordAt, { ...next, spare });
+      else if (copy) removeTree(copy);
     }
     timings.swap = clock();
     const from = units.counts();

@@ -15,6 +15,7 @@ import { constants, copyFileSync, linkSync, lstatSync, mkdirSync, readdirSync, r
 import { basename, dirname, join } from 'node:path';
 import { checkSpare, PathsByFolder } from './writable.js';
 import { removeStale } from './stale-sweep.js';
+import { removeTree } from './remove-tree.js';
 import { asciiJson } from '../model/ascii-text.js';
 import { entryData, entryText, VersionRecord, type SiteRecord, type UnitEntry } from './site-record.js';
 import { sameStamp, spareUnchanged, unitStamp } from './unit-stamp.js';
@@ -47,6 +48,19 @@ export class SiteUnits {
     private readonly outDir: string,
   ) {
     if (record?.live && currentVersion(outDir) === record.live.name) this.liveDir = outDir;
+  }
+
+  /**
+   * Whether the version at the site path, which this build replaces, is worth keeping as the next build's
+   * spare: the record describes it, and this build made at most half of the units afresh. A build that made
+   * more (after an upgrade, or a change of the library's settings, every unit's key changes) would leave the
+   * next build nearly every unit of it to replace; it leaves a linked copy of its own version instead
+   * (spare-copy.ts). Call once every unit has been asked for (kept).
+   */
+  keepsReplaced(): boolean {
+    if (this.liveDir === undefined) return false;
+    const { fresh, spare, live } = this.counts();
+    return fresh * 2 <= fresh + spare + live;
   }
 
   /** Where the new site is made: the claimed spare, or (without one) the staging folder. */
@@ -124,7 +138,7 @@ export class SiteUnits {
       checkSpare(this.outDir, { dir: target, shownAs: join(dirname(target), this.record!.spare!.name) }, keptHere, list);
       const gone = new PathsByFolder();
       for (const unit of removed) {
-        rmSync(join(target, unit), { recursive: true, force: true });
+        removeTree(join(target, unit));
         gone.add(unit);
       }
       removeStale({ target, staging, kept: keptHere, gone, list }, '');

@@ -16,6 +16,8 @@ import { mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, symlinkSync, 
 import { basename, dirname, join } from 'node:path';
 import { holdingName, isOwnLink, MARKER_TEXT, OutputRefused, SITE_MARKER } from './output-guard.js';
 import { entryKind } from './writable.js';
+import { linkedCopy } from './spare-copy.js';
+import { removeTree } from './remove-tree.js';
 
 export { checkSpare, checkWritable } from './writable.js';
 import { untilDone } from '../on-exit.js';
@@ -40,6 +42,12 @@ export interface Staging {
   commit(options?: { version?: string; keepReplaced?: boolean }): { replaced?: string };
   /** Give a claimed version back under its earlier name, unchanged (before it is changed), to be claimed again. */
   release(): void;
+  /**
+   * After `commit`, when the site path links to the new version: a copy of it made by hard links in the
+   * holding folder, for the next build to update (spare-copy.ts); its path, or undefined when there is no such
+   * link or no hard links can be made. A build stopped while copying leaves it to be removed as a leftover.
+   */
+  linkedSpare(): string | undefined;
   /** Throw the staging folder (and a claimed version) away. */
   abandon(): void;
 }
@@ -78,10 +86,12 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
   let link: string | undefined;
   let claimed: string | undefined;
   let claimedFrom: string | undefined;
+  /** The version the site path links to after commit. */
+  let linkedTo: string | undefined;
   const abandon = () => {
     if (link) rmSync(link, { force: true });
-    rmSync(dir, { recursive: true, force: true });
-    if (claimed) rmSync(claimed, { recursive: true, force: true });
+    removeTree(dir);
+    if (claimed) removeTree(claimed);
   };
   // A process stopped before the swap removes its staging folder on the way out.
   const done = untilDone(abandon);
@@ -138,6 +148,7 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
         if (aside) renameSync(aside, sitePath); // put the old site back
         throw error;
       }
+      if (link) linkedTo = chosen;
       link = undefined;
       claimed = undefined;
       step('swapped');
@@ -150,6 +161,11 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
     abandon() {
       done();
       abandon();
+    },
+    linkedSpare() {
+      if (!linkedTo || entryKind(sitePath) !== 'link' || readlinkSync(sitePath).split(/[/\\]/).pop() !== basename(linkedTo)) return undefined;
+      const copy = join(holding, `site-${unique()}`);
+      return linkedCopy(linkedTo, copy) ? copy : undefined;
     },
   };
 }
@@ -178,7 +194,7 @@ export function removeLeftovers(sitePath: string, keep?: string): void {
     if (pid !== process.pid && alive(pid)) continue;
     if (entry === current() || entry === keep) continue;
     try {
-      rmSync(join(holding, entry), { recursive: true, force: true });
+      removeTree(join(holding, entry));
     } catch {
       // left for the next build
     }
@@ -192,7 +208,7 @@ export function removeLeftovers(sitePath: string, keep?: string): void {
   }
   for (const entry of beside) {
     const match = legacy.exec(entry);
-    if (match && !alive(Number(match[1]))) rmSync(join(parent, entry), { recursive: true, force: true });
+    if (match && !alive(Number(match[1]))) removeTree(join(parent, entry));
   }
 }
 

@@ -10,7 +10,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { buildFolio } from '../../src/build/build.js';
 import { checkWritable, removeLeftovers, stageOutput } from '../../src/build/output.js';
 import { MARKER_TEXT, OutputRefused, SITE_MARKER } from '../../src/build/output-guard.js';
-import { diskSnapshot, filesUnder, REPO, tempDir } from '../site-helpers.js';
+import { diskSnapshot, filesUnder, REPO, sameInodes, siteVersions, tempDir } from '../site-helpers.js';
 
 /** Stage a one-page site saying `text` and commit it. */
 function publish(site: string, text: string): void {
@@ -162,6 +162,13 @@ describe('a read-only output', () => {
   });
 });
 
+/** The spare version the record of the library's site names (its default cache). */
+function recordedSpare(library: string): string | undefined {
+  const builds = join(library, '.zfolio-cache', 'builds');
+  const [dir] = readdirSync(builds);
+  return (JSON.parse(readFileSync(join(builds, dir, 'root.json'), 'utf8')) as { spare?: { name: string } }).spare?.name;
+}
+
 const SCRIPT = fileURLToPath(new URL('./scripts/build-until.mjs', import.meta.url));
 const GOOD = join(REPO, 'test/fixtures/good-library');
 
@@ -204,8 +211,14 @@ describe('a build killed at each step of the swap', () => {
     const previous = readlinkSync(site).split('/')[1];
     expect((await buildFolio({ libraryRoot: library, outDir: site, cwd: library, workers: 0 })).ok).toBe(true);
     expect(capPage(site)).toContain('Third title');
-    // What the killed build left is gone; the version the build replaced stays as the next build's spare.
-    expect(readdirSync(holdingOf(site)).sort()).toEqual([readlinkSync(site).split('/')[1], previous].sort());
+    // What the killed build left is gone. It had dropped the record (before its swap), so the version this
+    // build replaced is described by none: it goes too, and the spare is a linked copy of the new site.
+    const { live, others } = siteVersions(site);
+    expect(readdirSync(holdingOf(site)).sort()).toEqual([live, ...others].sort());
+    expect(others).toHaveLength(1);
+    expect(others).not.toContain(previous);
+    expect(sameInodes(join(holdingOf(site), live), join(holdingOf(site), others[0]))).toBe(true);
+    expect(recordedSpare(library)).toBe(others[0]);
     expect(readdirSync(library).sort()).toEqual(['._site.zfolio', '.zfolio-cache', '_site', 'folio.yaml', 'parts']);
   }, 300_000);
 });
@@ -230,6 +243,12 @@ describe('builds killed at random moments', () => {
     }
     const previous = readlinkSync(site).split('/')[1];
     expect((await buildFolio({ libraryRoot: library, outDir: site, cwd: library, workers: 0 })).ok).toBe(true);
-    expect(readdirSync(holdingOf(site)).sort()).toEqual([readlinkSync(site).split('/')[1], previous].sort());
+    // One spare is left, the one the record names: the version replaced (when a record described it and this
+    // build remade at most half the units) or a linked copy of the new site; what killed builds left is gone.
+    const { live, others } = siteVersions(site);
+    expect(readdirSync(holdingOf(site)).sort()).toEqual([live, ...others].sort());
+    expect(others).toHaveLength(1);
+    expect(recordedSpare(library)).toBe(others[0]);
+    expect(others[0] === previous || sameInodes(join(holdingOf(site), live), join(holdingOf(site), others[0]))).toBe(true);
   }, 300_000);
 });

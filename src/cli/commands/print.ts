@@ -71,6 +71,7 @@ export async function print(args: string[], io: CommandIO): Promise<number> {
     const result = await buildFolio({
       libraryRoot: root,
       outDir: join(scratch, 'site'),
+      spareCopy: false,
       cwd: io.cwd,
       progress: terminalProgress((text) => io.err(text), io.isTTY),
       pdf: { chrome: typeof values.chrome === 'string' ? resolve(io.cwd, values.chrome) : undefined, env: io.env, paper, select: { parts, reviews, plans } },
