@@ -33,9 +33,10 @@ const BELOW = 12;
 
 /**
  * Rows of items, left to right, wrapping at `width` px. With `columns`, items align in that many columns
- * of equal width (comparisons: ids of similar length read better as a grid).
+ * of equal width (comparisons: ids of similar length read better as a grid). With `minRows`, the key takes
+ * at least that many rows, the empty ones between its entries and the plot (see ChartLayout).
  */
-export function layoutKey(items: readonly KeyItem[], width: number, columns?: number): KeyLayout {
+export function layoutKey(items: readonly KeyItem[], width: number, columns?: number, minRows = 0): KeyLayout {
   const datasets: KeyLayout['datasets'] = { keyBands: [], keySpread: [], keyLines: [], keyPoints: [], keyText: [] };
   const size = FONT_SIZE.legend;
   // An entry longer than the key is wide (a band's rule and range on a half-column chart) wraps at its spaces,
@@ -59,7 +60,7 @@ export function layoutKey(items: readonly KeyItem[], width: number, columns?: nu
     rowSpan = Math.max(rowSpan, lines[i].length);
     x += columns ? columnWidth : w + ITEM_GAP;
   });
-  const rows = items.length === 0 ? 0 : row + rowSpan;
+  const rows = Math.max(items.length === 0 ? 0 : row + rowSpan, minRows);
   const topPadding = rows === 0 ? 14 : rows * ROW_HEIGHT + BELOW;
   for (const { item, lines: textLines, x: x0, row: r } of placed) {
     // Rows count upwards from the plot: the last row sits just above it.
@@ -73,12 +74,15 @@ export function layoutKey(items: readonly KeyItem[], width: number, columns?: nu
   return { datasets, rows, topPadding };
 }
 
-/** `text` in lines no wider than `width` px, broken at spaces (a single word longer than that stays whole). */
+/**
+ * `text` in lines no wider than `width` px, broken at spaces (a single word longer than that stays whole),
+ * but never between a number and the word after it (its unit: "110 MHz").
+ */
 export function wrapText(text: string, width: number, size: number): string[] {
   if (textWidth(text, size) <= width) return [text];
   const out: string[] = [];
   let line = '';
-  for (const word of text.split(' ')) {
+  for (const word of unbrokenWords(text)) {
     const next = line ? `${line} ${word}` : word;
     if (line && textWidth(next, size) > width) {
       out.push(line);
@@ -87,6 +91,20 @@ export function wrapText(text: string, width: number, size: number): string[] {
   }
   if (line) out.push(line);
   return out;
+}
+
+/** A word that is a number: the word after it is kept on its line. */
+const NUMBER = /^[-+−]?\d[\d.,]*$/;
+
+/** The words of `text` between which a line may break: a number and the word after it are one. */
+function unbrokenWords(text: string): string[] {
+  const words: string[] = [];
+  for (const w of text.split(' ')) {
+    const last = words.length - 1;
+    if (last >= 0 && NUMBER.test(words[last])) words[last] += ` ${w}`;
+    else words.push(w);
+  }
+  return words;
 }
 
 /** Columns for a key of many entries of similar length: as many of the widest entry as fit, 1 to 4. */

@@ -9,7 +9,8 @@ import { curveRows, plainCurve } from './curves.js';
 import { halfFrame } from './frame.js';
 import type { KeyItem } from './key.js';
 import { PART_SERIES, ZERO_LINE, type SeriesStyle } from './palette.js';
-import { renderChart, type ChartOutput, type Row } from './render.js';
+import { renderChart, type ChartDefinition, type ChartOutput, type Row } from './render.js';
+import { rowLayouts } from './chart-definition.js';
 import { linearAxis, linearTicks, logAxis, logTicks, paddedLogDomain, positiveExtent } from './scales.js';
 import { curveLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
 import { xyChart, type AxisSpec } from './xy-chart.js';
@@ -157,6 +158,9 @@ export const MEASUREMENT_CHART_KINDS = Object.keys(MEASUREMENT_CHARTS) as Measur
 
 /** The three charts of one measurement, with their titles and text alternatives. */
 export async function renderMeasurementCharts(data: MeasurementChartData): Promise<Record<MeasurementChartKind, ChartOutput>> {
-  const outputs = await Promise.all(MEASUREMENT_CHART_KINDS.map((kind) => renderChart(MEASUREMENT_CHARTS[kind], data, measurementChartText(kind, data))));
+  // The page sets them two to a row, in this order (rowLayouts).
+  const defs: ChartDefinition<MeasurementChartData>[] = MEASUREMENT_CHART_KINDS.map((kind) => MEASUREMENT_CHARTS[kind]);
+  const layouts = rowLayouts(defs, data);
+  const outputs = await Promise.all(MEASUREMENT_CHART_KINDS.map((kind, i) => renderChart(defs[i], data, measurementChartText(kind, data), layouts[i])));
   return Object.fromEntries(MEASUREMENT_CHART_KINDS.map((kind, i) => [kind, outputs[i]])) as Record<MeasurementChartKind, ChartOutput>;
 }

@@ -11,6 +11,7 @@ import { planeChart } from './plane-chart.js';
 import { partPlaneConstant } from './plane-scale.js';
 import { drawsAdmittancePlane } from './plane-kind.js';
 import { renderChart, type ChartDefinition, type ChartOutput, type ChartText } from './render.js';
+import { rowLayouts } from './chart-definition.js';
 
 export type { PartChartInput } from './part-marks.js';
 export type { PartChartKind } from '../present/chart-descriptions.js';
@@ -26,7 +27,7 @@ function drawsAdmittanceCircle(input: PartChartInput): boolean {
 }
 
 /** The chart definition of one of a part's charts. */
-function chartOf(kind: PartChartKind, input: PartChartInput): ChartDefinition<PartChartInput> {
+export function chartOf(kind: PartChartKind, input: PartChartInput): ChartDefinition<PartChartInput> {
   return kind === 'plane' && drawsAdmittanceCircle(input) ? admittanceCircleChart : PART_CHARTS[kind];
 }
 
@@ -53,13 +54,16 @@ export const PART_CHART_KINDS: readonly PartChartKind[] = ['impedance', 'phase',
  * analysis; `text` replaces any of them.
  */
 export async function renderPartCharts(input: PartChartInput, text: Partial<Record<PartChartKind, ChartText>> = {}): Promise<PartCharts> {
-  const outputs = await Promise.all(
-    PART_CHART_KINDS.map((kind) => renderChart(chartOf(kind, input), input, text[kind] ?? describe(kind, input))),
-  );
+  // The page sets the charts two to a row, in this order.
+  const defs = PART_CHART_KINDS.map((kind) => chartOf(kind, input));
+  const layouts = rowLayouts(defs, input);
+  const outputs = await Promise.all(PART_CHART_KINDS.map((kind, i) => renderChart(defs[i], input, text[kind] ?? describe(kind, input), layouts[i])));
   return Object.fromEntries(PART_CHART_KINDS.map((kind, i) => [kind, outputs[i]])) as PartCharts;
 }
 
-/** One of a part's charts. */
+/** One of a part's charts, as renderPartCharts draws it. */
 export function renderPartChart(kind: PartChartKind, input: PartChartInput, text?: ChartText): Promise<ChartOutput> {
-  return renderChart(chartOf(kind, input), input, text ?? describe(kind, input));
+  const defs = PART_CHART_KINDS.map((k) => chartOf(k, input));
+  const i = PART_CHART_KINDS.indexOf(kind);
+  return renderChart(defs[i], input, text ?? describe(kind, input), rowLayouts(defs, input)[i]);
 }

@@ -25,34 +25,8 @@ import { cleaningView } from './cleaning-view.js';
 
 export type { ChartText } from './svg-finish.js';
 
-/** One data row; values are numbers or short strings (labels already formatted). */
-export type Row = Record<string, number | string | boolean | null>;
-
-export interface ChartBinding {
-  datasets: Record<string, Row[]>;
-  params: Record<string, unknown>;
-  /** Overrides the definition's frame (e.g. a legend that needs more rows). */
-  frame?: Frame;
-  /**
-   * Markup drawn under every mark, in the plot's px (origin at its top-left corner): what the layers of the
-   * definition's `underlaid` sources would draw (the grid, grid.ts), written without vega.
-   */
-  underlay?: string;
-}
-
-export interface ChartDefinition<I> {
-  /** The chart kind, e.g. "impedance"; one compiled runtime per name. */
-  readonly name: string;
-  readonly frame: Frame;
-  /** The vega-lite spec, without data values; called once per process. */
-  spec(): TopLevelSpec;
-  /**
-   * Data sources whose layers the binding's underlay draws: they stay in the spec offered with a chart (with
-   * their rows) and are left out of the one vega runs.
-   */
-  readonly underlaid?: readonly string[];
-  bind(input: I): ChartBinding;
-}
+export type { ChartBinding, ChartDefinition, ChartLayout, Row } from './chart-definition.js';
+import type { ChartBinding, ChartDefinition, ChartLayout, Row } from './chart-definition.js';
 
 export interface ChartOutput {
   svg: string;
@@ -200,11 +174,11 @@ function namedData(spec: TopLevelSpec): string[] {
 }
 
 /** Render one chart of a kind. */
-export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartText): Promise<ChartOutput> {
+export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartText, layout?: ChartLayout): Promise<ChartOutput> {
   // A kind whose spec the table of compiled specs lacks is compiled by vega-lite, loaded only then (vega-specs.ts).
-  if (!compilable(def)) return loadCompiler().then(() => renderChart(def, input, text));
+  if (!compilable(def)) return loadCompiler().then(() => renderChart(def, input, text, layout));
   const c = compiledOf(def);
-  const binding = def.bind(input);
+  const binding = def.bind(input, layout);
   const unknown = Object.keys(binding.datasets).filter((name) => !c.sources.has(name));
   if (unknown.length > 0) throw new Error(`chart "${def.name}" has no data source ${unknown.join(', ')}`);
   const run = c.queue.then(async () => {

@@ -58,6 +58,10 @@ export interface XYDrawing {
 export function xyChart<I>(kind: XYChartKind<I>): ChartDefinition<I> {
   const X = position(kind.x.field, kind.x.name, kind.x.scale, kind.x.title);
   const Y = position(kind.y.field, kind.y.name, kind.y.scale, kind.y.title);
+  // The drawing of the input last asked for: a chart laid out beside another is asked for its key's rows, then bound.
+  let last: { input: I; drawing: XYDrawing } | undefined;
+  const drawn = (input: I) => (last?.input === input ? last.drawing : (last = { input, drawing: kind.draw(input) }).drawing);
+  const keyOf = (d: XYDrawing, minRows?: number) => layoutKey(d.key, kind.frame.width, d.keyGrid ? gridColumns(d.key, kind.frame.width) : undefined, minRows);
   return {
     name: kind.name,
     frame: kind.frame,
@@ -80,11 +84,13 @@ export function xyChart<I>(kind: XYChartKind<I>): ChartDefinition<I> {
         ],
       } as never;
     },
-    bind(input) {
-      const d = kind.draw(input);
+    keyRows: (input) => keyOf(drawn(input)).rows,
+    bind(input, layout) {
+      const d = drawn(input);
+      last = undefined;
       const xa = axisBinding(kind.x.name, d.x.domain, d.x.ticks);
       const ya = axisBinding(kind.y.name, d.y.domain, d.y.ticks);
-      const key = layoutKey(d.key, kind.frame.width, d.keyGrid ? gridColumns(d.key, kind.frame.width) : undefined);
+      const key = keyOf(d, layout?.keyRows);
       return {
         frame: frameForKey(kind.frame, key),
         underlay: gridPaths({ scale: kind.x.scale, domain: d.x.domain, ticks: d.x.ticks }, { scale: kind.y.scale, domain: d.y.domain, ticks: d.y.ticks }, kind.frame.width, kind.frame.height),

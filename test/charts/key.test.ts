@@ -22,6 +22,27 @@ describe('chart key', () => {
     expect([...xs].sort((a, b) => a - b)).toEqual(xs);
   });
 
+  it('wraps a long entry at spaces, never between a number and its unit', () => {
+    const text = 'absorbing band (R − Rdc ≥ |X|): 110 MHz – 2.64 GHz';
+    for (const width of [180, 200, 230, 260, 300]) {
+      const k = layoutKey([{ kind: 'band', text }], width);
+      const lines = k.datasets.keyText.map((t) => String(t.t));
+      expect(lines.join(' ')).toBe(text);
+      for (const line of lines) expect(line, `${width} px: ${JSON.stringify(lines)}`).not.toMatch(/\d$/);
+    }
+  });
+
+  it('takes at least the rows asked for, the empty ones between its entries and the plot', () => {
+    const own = layoutKey(items, 500);
+    const taller = layoutKey(items, 500, undefined, 3);
+    expect(taller.rows).toBe(3);
+    expect(taller.topPadding).toBe(3 * 16 + 12);
+    // The entries keep their place counted from the top of the chart (the plot moved down by two rows).
+    const fromTop = (k: typeof own) => k.datasets.keyText.map((t) => (t.y as number) + k.topPadding);
+    expect(fromTop(taller)).toEqual(fromTop(own));
+    expect(layoutKey(items, 500, undefined, 0)).toEqual(own);
+  });
+
   it('wraps to more rows when the width runs out, and the frame grows to hold them', () => {
     const many: KeyItem[] = Array.from({ length: 9 }, (_, i) => ({ kind: 'line', style: { c: `c${i}` }, text: `PART-${i}-WITH-A-LONG-ID` }));
     const k = layoutKey(many, 536, 3);

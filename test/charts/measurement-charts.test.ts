@@ -75,5 +75,8 @@ describe('measurement charts', () => {
     // The residual rows are the errors as given.
     const rows = (charts.residual.spec as { datasets: Rows }).datasets.curves;
     expect(rows.filter((r) => r.s === 'deg').every((r) => r.v === -3)).toBe(true);
+    // The page sets |Z| and phase side by side: both plots start at the same height (vega's root group, the SVG's first translate).
+    const plotTop = (svg: string) => Number(/translate\(([-\d.]+),([-\d.]+)\)/.exec(svg)![2]);
+    expect(plotTop(charts['measured-phase'].svg)).toBe(plotTop(charts['measured-impedance'].svg));
   });
 });

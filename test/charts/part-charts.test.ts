@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { describePartChart } from '../../src/present/chart-descriptions.js';
 import { PART_SERIES } from '../../src/charts/palette.js';
-import { PART_CHART_KINDS, renderPartCharts } from '../../src/charts/part-charts.js';
+import { chartOf, PART_CHART_KINDS, renderPartCharts } from '../../src/charts/part-charts.js';
+import { renderChart } from '../../src/charts/render.js';
 import { ALL_PARTS, analysed, beadPart, capacitorPart, inductorPart } from './fixtures.js';
 import { svgTexts } from './svg-text.js';
 
@@ -13,6 +14,21 @@ describe('a part’s four charts', () => {
       for (const kind of PART_CHART_KINDS) {
         expect(charts[kind].title.startsWith(`${p.id}: `)).toBe(true);
         expect(charts[kind].svg).toContain(`>${charts[kind].title}</title>`);
+      }
+    }
+  });
+
+  it('starts the plots of the two charts of a row (as the page sets them) at the same height, each under its whole key', async () => {
+    // The plot's top-left corner is where vega's root group is translated to: the first translate of the SVG.
+    const plotTop = (svg: string) => Number(/translate\(([-\d.]+),([-\d.]+)\)/.exec(svg)![2]);
+    for (const p of ALL_PARTS) {
+      const input = analysed(p);
+      const charts = await renderPartCharts(input);
+      for (const [a, b] of [['impedance', 'phase'], ['plane', 'admittance']] as const) {
+        // Drawn alone (no layout), each chart's plot starts just under its own key.
+        const alone = await Promise.all([a, b].map(async (kind) => plotTop((await renderChart(chartOf(kind, input), input, { title: 't', description: 'd' })).svg)));
+        expect(plotTop(charts[a].svg), `${p.id} ${a}`).toBe(Math.max(...alone));
+        expect(plotTop(charts[b].svg), `${p.id} ${b}`).toBe(Math.max(...alone));
       }
     }
   });
