@@ -137,8 +137,10 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     const { partKeys, carried } = carriedParts(library.parts, recordAt ? units : undefined, (part, id) => partKey(site, part, pdfLinks.part(id)));
     const partKeyOf = (id: string) => partKeys.get(id) ?? '';
     const fresh = library.parts.length - carried.size;
-    pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? run.early.length : undefined), started: run.early, pruning: 'when due' });
-    // Only a build that prunes the chart cache keys what it carries over (chart-cache-ledger.ts).
+    pool = options.charts ? undefined : libraryChartPool(library.settings, { cacheDir: cacheRoot && join(cacheRoot, 'charts'), workers: options.workers ?? (fresh < PARTS_PER_WORKER_START ? run.early.length : undefined), started: run.early, pruning: fresh * 2 > library.parts.length ? 'now' : 'when due' });
+    // Only a build that prunes the chart cache keys what it carries over (chart-cache-ledger.ts). One that draws
+    // or reads the charts of most parts prunes now: after an upgrade (a new code key, every chart drawn again)
+    // the next build, an edit, would otherwise remove the old charts (at 10,000 parts it took 3.8 s, not 1.3 s).
     if (pool?.prunes) for (const id of carried.keys()) pool.keepPartCharts({ part: library.partsById.get(id)! });
     timings.load = clock();
 

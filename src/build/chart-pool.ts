@@ -33,8 +33,8 @@ export interface ChartPoolOptions {
   settingsKey: string;
   /** Workers started already (chart-workers.ts): the pool takes as many as it needs out of the list. */
   started?: StartedWorker[];
-  /** When the cache is pruned to the entries a build used: every build (default), or when its ledger says so (chart-cache-ledger.ts). */
-  pruning?: 'every build' | 'when due';
+  /** When the cache is pruned to the entries a build used: every build (default), when its ledger says so, or now and a ledger kept (chart-cache-ledger.ts). */
+  pruning?: 'every build' | 'when due' | 'now';
 }
 
 export interface ChartPoolStats {
@@ -174,7 +174,7 @@ export class ChartPool implements ChartMaker {
     const dir = this.options.cacheDir;
     if (this.closed || !dir || !existsSync(dir)) return;
     this.closed = true;
-    const ledger = this.options.pruning === 'when due';
+    const ledger = this.options.pruning === 'when due' || this.options.pruning === 'now';
     if (this.prunes) pruneCache(dir, this.usedKeys, ledger);
     else if (ledger) countWritten(dir, this.stats.rendered);
   }

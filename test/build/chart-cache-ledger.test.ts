@@ -9,6 +9,8 @@ import { LEDGER_FILE, MIN_WRITTEN, PRUNE_SHARE, pruneDue } from '../../src/build
 import type { Part } from '../../src/model/part.js';
 import { tempDir } from '../site-helpers.js';
 import { analysed, resistorPart } from '../charts/fixtures.js';
+import { buildFolio, CACHE_DIR } from '../../src/build/build.js';
+import { writeGeneratedLibrary } from '../../bench/generate.js';
 
 /** A part with content hash `hash` (16 hex digits, as source.ts makes them). */
 const part = (n: number) => ({ ...resistorPart, id: `L-${n}`, source: { path: `l${n}.yaml`, hash: n.toString(16).padStart(16, '0') } }) as unknown as Part;
@@ -70,6 +72,20 @@ describe('the chart cache pruned when its ledger says so', () => {
     }
   }, 60_000);
 
+  it('is pruned now when asked, though its ledger says no pruning is due, and a ledger of what was kept is written', async () => {
+    writeFileSync(join(cacheDir, LEDGER_FILE), '{"format":1,"held":9,"written":0}');
+    expect((await build([part(6), part(7), part(8)], [])).prunes).toBe(false);
+    expect(pruneDue(cacheDir)).toBe(false);
+    expect(entries().length).toBeGreaterThan(2);
+    const pool = new ChartPool({ workers: 0, settingsKey: 'ledger', cacheDir, pruning: 'now' });
+    await pool.partCharts(analysed(part(0)));
+    pool.keepPartCharts({ part: part(1) });
+    await pool.close();
+    expect(pool.prunes).toBe(true);
+    expect(entries().length).toBeLessThanOrEqual(2);
+    expect(ledger()).toEqual({ format: 1, held: entries().length, written: 0 });
+  }, 60_000);
+
   it('is pruned by every build by default, which leaves the ledger in place and writes none', async () => {
     writeFileSync(join(cacheDir, LEDGER_FILE), '{"format":1,"held":9,"written":0}');
     const pool = await build([part(5)], [], 'every build');
@@ -77,4 +93,31 @@ describe('the chart cache pruned when its ledger says so', () => {
     expect(entries()).toHaveLength(1);
     expect(readFileSync(join(cacheDir, LEDGER_FILE), 'utf8')).toBe('{"format":1,"held":9,"written":0}');
   }, 60_000);
+});
+
+describe('a build that draws the charts of most parts', () => {
+  it('prunes the chart cache itself, leaving none of the charts it replaced for the next build to remove', async () => {
+    const root = writeGeneratedLibrary(16, 5);
+    try {
+      const build = async () => {
+        const result = await buildFolio({ libraryRoot: root, workers: 0 });
+        expect(result.ok).toBe(true);
+        return result;
+      };
+      const charts = join(root, CACHE_DIR, 'charts');
+      const cached = () => readdirSync(charts).filter((name) => name !== LEDGER_FILE).length;
+      await build();
+      const one = cached();
+      // Another sweep: every chart's key changes, so every part's charts are drawn again.
+      writeFileSync(join(root, 'folio.yaml'), `${readFileSync(join(root, 'folio.yaml'), 'utf8')}sweep: {from: 1k, to: 1G, per-decade: 40}\n`);
+      const redrawn = await build();
+      expect(redrawn.charts!.rendered).toBeGreaterThanOrEqual(16);
+      // The cache holds what this build used, as many entries as the first build left; its ledger is new.
+      expect(cached()).toBe(one);
+      const ledger = JSON.parse(readFileSync(join(charts, LEDGER_FILE), 'utf8')) as { held: number; written: number };
+      expect(ledger).toEqual({ format: 1, held: one, written: 0 });
+    } finally {
+      rmSync(root, { recursive: true, force: true });
+    }
+  }, 300_000);
 });
