@@ -194,14 +194,23 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     // The record is dropped before the swap and written after it, so it never describes a site not in place.
     if (recordAt) dropSiteRecord(recordAt);
     // The version replaced is kept as the next build's spare only where that saves it work (keepsReplaced).
-    const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) && units.keepsReplaced() });
+    let removing = false;
+    const onRemove = () => {
+      removing = true;
+      progress.stage('removing old versions of the site', 1);
+    };
+    const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) && units.keepsReplaced(), onRemove });
+    if (removing) progress.tick();
     if (recordAt) {
       const printed = browser ? result.pdfs.map((p) => p.pdfFile) : [...kept];
       const pdfs = stampPdfs(printed, printed.length > 0 ? keys() : new Map(), outDir);
       const next = units.nextRecord(target, replaced, pdfs);
       writeSiteRecord(recordAt, next);
       // Without a spare the next build would make one from nothing: made now instead (spare-copy.ts).
-      const copy = !next.spare && next.live && options.spareCopy !== false ? staging.linkedSpare() : undefined;
+      const copying = !next.spare && next.live && options.spareCopy !== false;
+      if (copying) progress.stage('copying the site for the next build (hard links)', 1);
+      const copy = copying ? staging.linkedSpare() : undefined;
+      if (copying) progress.tick();
       const spare = copy && linkedCopyRecord(next.live!, copy, basename(copy));
       if (spare) writeSiteRecord(recordAt, { ...next, spare });
       else if (copy) removeTree(copy);

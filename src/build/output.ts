@@ -37,9 +37,10 @@ export interface Staging {
   /**
    * Put the new site in place of the old one: `version` (the staging folder, or a claimed version), default
    * the staging folder. With `keepReplaced`, the version it replaces stays in the holding folder (the next
-   * build updates it); returns that version's name.
+   * build updates it); returns that version's name. `onRemove` is called before the first version left over is
+   * removed (one of 10,000 parts takes seconds).
    */
-  commit(options?: { version?: string; keepReplaced?: boolean }): { replaced?: string };
+  commit(options?: { version?: string; keepReplaced?: boolean; onRemove?(): void }): { replaced?: string };
   /** Give a claimed version back under its earlier name, unchanged (before it is changed), to be claimed again. */
   release(): void;
   /**
@@ -154,7 +155,9 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
       step('swapped');
       // Only a version the link replaced is kept: a real folder moved aside is not one the record describes.
       const replaced = options.keepReplaced && !aside && current && VERSION_NAME.test(current) ? current : undefined;
-      removeLeftovers(sitePath, replaced);
+      // The staging folder whose files went into a claimed version first: this build's own, not a leftover to report.
+      if (chosen !== dir) removeTree(dir);
+      removeLeftovers(sitePath, replaced, options.onRemove);
       step('cleaned');
       return { replaced };
     },
@@ -175,7 +178,7 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
  * that is gone (a killed build), and the staging and previous folders the two-rename swap of older zfolio
  * versions left beside the site. Best effort: the new site is in place whatever happens here.
  */
-export function removeLeftovers(sitePath: string, keep?: string): void {
+export function removeLeftovers(sitePath: string, keep?: string, onRemove?: () => void): void {
   const parent = dirname(sitePath);
   const name = basename(sitePath);
   const holding = join(parent, holdingName(name));
@@ -193,6 +196,10 @@ export function removeLeftovers(sitePath: string, keep?: string): void {
     // Whose first, then whether it is current: a build that is gone cannot make its version current later.
     if (pid !== process.pid && alive(pid)) continue;
     if (entry === current() || entry === keep) continue;
+    if (onRemove && VERSION_NAME.test(entry)) {
+      onRemove();
+      onRemove = undefined;
+    }
     try {
       removeTree(join(holding, entry));
     } catch {

@@ -13,6 +13,7 @@ import { syncBuiltinESMExports } from 'node:module';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio, CACHE_DIR, type BuildOptions } from '../../src/build/build.js';
 import { writeGeneratedLibrary } from '../../bench/generate.js';
+import type { Progress } from '../../src/build/progress.js';
 import { sameInodes, tempDir, treeHashes } from '../site-helpers.js';
 
 const PARTS = 24;
@@ -40,6 +41,13 @@ function recordRoot(): { live?: { name: string }; spare?: { name: string } } {
   return JSON.parse(readFileSync(join(builds, dir, 'root.json'), 'utf8'));
 }
 
+/** The stages a build reports (its progress), cleared by each `recorder()`. */
+let stages: string[] = [];
+const recorder = (): Progress => {
+  stages = [];
+  return { stage: (name) => void stages.push(name), tick() {}, note() {} };
+};
+
 function editPart(index: number, value: string): void {
   const file = join(root, 'parts', 'group-0', `gen-${index}.yaml`);
   const before = readFileSync(file, 'utf8');
@@ -65,10 +73,11 @@ describe('a build with no record of the site it replaces', () => {
     expect(recordRoot()).toMatchObject({ live: { name: live }, spare: { name: spare } });
   }, 300_000);
 
-  it('after the record is lost, removes the version it replaced and makes a new spare', async () => {
+  it('after the record is lost, removes the version it replaced and makes a new spare, saying so', async () => {
     const before = versions();
     rmSync(join(root, CACHE_DIR, 'builds'), { recursive: true, force: true });
-    const result = await build();
+    const result = await build({ progress: recorder() });
+    expect(stages.slice(-2)).toEqual(['removing old versions of the site', 'copying the site for the next build (hard links)']);
     expect(result.reused).toBe(0);
     const after = versions();
     expect(after.all).toHaveLength(2);
@@ -85,7 +94,9 @@ describe('a build with no record of the site it replaces', () => {
     const spareDir = join(holding, spare);
     const untouched = statSync(join(spareDir, 'parts', 'GEN-00020', 'index.html')).ino;
     editPart(7, '0.0432');
-    const result = await build();
+    const result = await build({ progress: recorder() });
+    expect(stages).not.toContain('removing old versions of the site');
+    expect(stages).not.toContain('copying the site for the next build (hard links)');
     expect(result.reused).toBe(PARTS - 1);
     // Every unit the edit left alone was the spare's own: none was linked from the live site.
     expect(result.unitsLinked).toBe(0);

@@ -27,6 +27,9 @@ function start(argv: string[]) {
   return { child, exit, err: () => err };
 }
 
+/** A progress line of a build (progress.ts): its stages' names, with a count or an ellipsis. */
+const PROGRESS_LINE = /^(parts|pages|removing old versions of the site|copying the site for the next build \(hard links\))(…| \d+\/\d+)$/;
+
 describe('a reader that stops reading', () => {
   // The pipe is closed before the command writes a byte, so every write it makes fails with EPIPE.
   it.each([
@@ -90,7 +93,7 @@ describe('a Chromium that does not start', () => {
     cpSync(GOOD_LIBRARY, lib, { recursive: true });
     const r = await run(['build', '--library', lib, '--workers', '0', '--pdf', '--chrome', '/bin/true'], lib);
     expect(r.code).toBe(1);
-    expect(r.err.trimEnd().split('\n').filter((l) => !/^(parts|pages)(…| \d+\/\d+)$/.test(l))).toEqual([
+    expect(r.err.trimEnd().split('\n').filter((l) => !PROGRESS_LINE.test(l))).toEqual([
       'zfolio build: the site was written, but no PDFs. /bin/true did not start as Chromium (it exited at once with status 0); give a working one with --chrome PATH or ZFOLIO_CHROME=PATH',
     ]);
     expect(readFileSync(join(lib, '_site', 'parts', 'CAP-TEST-100N', 'index.html'), 'utf8')).not.toContain('.pdf');
@@ -104,7 +107,7 @@ describe('a Chromium that does not start', () => {
     const out = tempDir('chrome-false');
     const r = await run(['print', 'CAP-TEST-100N', '--out', out, '--chrome', '/bin/false'], lib);
     expect(r.code).toBe(1);
-    expect(r.err.trimEnd().split('\n').filter((l) => !/^(parts|pages)(…| \d+\/\d+)$/.test(l))).toEqual([
+    expect(r.err.trimEnd().split('\n').filter((l) => !PROGRESS_LINE.test(l))).toEqual([
       'zfolio print: /bin/false did not start as Chromium (it exited at once with status 1); give a working one with --chrome PATH or ZFOLIO_CHROME=PATH',
     ]);
     expect(readdirSync(out)).toEqual([]);
