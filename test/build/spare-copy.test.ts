@@ -41,6 +41,19 @@ function recordRoot(): { live?: { name: string }; spare?: { name: string } } {
   return JSON.parse(readFileSync(join(builds, dir, 'root.json'), 'utf8'));
 }
 
+/**
+ * The holding folder holds the new site and its spare, a linked copy of it that the record names, and none of
+ * the versions `earlier` (neither the version replaced nor a spare made for it is left for the next build).
+ */
+function expectLinkedSpare(earlier: readonly string[]): void {
+  const after = versions();
+  expect(after.all).toHaveLength(2);
+  for (const old of earlier) expect(after.all).not.toContain(old);
+  const spare = after.all.find((n) => n !== after.live)!;
+  expect(sameInodes(join(holding, after.live), join(holding, spare))).toBe(true);
+  expect(recordRoot()).toMatchObject({ live: { name: after.live }, spare: { name: spare } });
+}
+
 /** The stages a build reports (its progress), cleared by each `recorder()`. */
 let stages: string[] = [];
 const recorder = (): Progress => {
@@ -79,13 +92,7 @@ describe('a build with no record of the site it replaces', () => {
     const result = await build({ progress: recorder() });
     expect(stages.slice(-2)).toEqual(['removing old versions of the site', 'copying the site for the next build (hard links)']);
     expect(result.reused).toBe(0);
-    const after = versions();
-    expect(after.all).toHaveLength(2);
-    // Neither the version replaced nor the spare made for it is left for the next build to remove.
-    for (const old of before.all) expect(after.all).not.toContain(old);
-    const spare = after.all.find((n) => n !== after.live)!;
-    expect(sameInodes(join(holding, after.live), join(holding, spare))).toBe(true);
-    expect(recordRoot()).toMatchObject({ live: { name: after.live }, spare: { name: spare } });
+    expectLinkedSpare(before.all);
   }, 300_000);
 
   it('lets the first edit afterwards update the spare in place, to the site a build from nothing makes', async () => {
@@ -126,12 +133,7 @@ describe('a build with no record of the site it replaces', () => {
     writeFileSync(folio, readFileSync(folio, 'utf8').replace(/^title: .*$/m, 'title: Generated library, retitled (invented parts)'));
     const result = await build();
     expect(result.unitsKept + result.unitsLinked).toBe(0);
-    const after = versions();
-    expect(after.all).toHaveLength(2);
-    for (const old of before.all) expect(after.all).not.toContain(old);
-    const spare = after.all.find((n) => n !== after.live)!;
-    expect(sameInodes(join(holding, after.live), join(holding, spare))).toBe(true);
-    expect(recordRoot()).toMatchObject({ live: { name: after.live }, spare: { name: spare } });
+    expectLinkedSpare(before.all);
     editPart(7, '0.0555');
     const edited = await build();
     expect(edited.reused).toBe(PARTS - 1);
