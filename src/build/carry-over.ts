@@ -11,9 +11,9 @@
 // Without a spare (the first rebuild, or a record lost), the staging folder becomes the new version, and
 // every unit carried over is hard-linked into it from the live site.
 
-import { constants, copyFileSync, linkSync, lstatSync, mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, type Dirent } from 'node:fs';
+import { constants, copyFileSync, linkSync, lstatSync, mkdirSync, readdirSync, renameSync, rmSync, type Dirent } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import { checkSpare, PathsByFolder } from './writable.js';
+import { checkSpare, currentVersion, PathsByFolder } from './writable.js';
 import { removeStale } from './stale-sweep.js';
 import { removeTree } from './remove-tree.js';
 import { asciiJson } from '../model/ascii-text.js';
@@ -177,15 +177,6 @@ export class SiteUnits {
 
 /** A kept unit's recorded data is the same object when nothing set it again (and equal when it was: the record's text is ASCII). */
 const sameData = (entry: UnitEntry, w: Wanted) => w.data === undefined || entry.data === w.data || asciiJson(entryText(entry) ?? '') === asciiJson(JSON.stringify(w.data));
-
-/** The name of the version the site path links to. */
-export function currentVersion(sitePath: string): string | undefined {
-  try {
-    return lstatSync(sitePath).isSymbolicLink() ? readlinkSync(sitePath).split(/[/\\]/).pop() : undefined;
-  } catch {
-    return undefined;
-  }
-}
 
 /** Move the staging folder's files into `target`: a unit folder in one rename, other files one by one. */
 function moveInto(staging: string, target: string, relative: string, units: ReadonlyMap<string, Wanted>): void {

@@ -15,7 +15,7 @@ import { randomBytes } from 'node:crypto';
 import { mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { holdingName, isOwnLink, MARKER_TEXT, OutputRefused, SITE_MARKER } from './output-guard.js';
-import { entryKind } from './writable.js';
+import { currentVersion, entryKind } from './writable.js';
 import { linkedCopy } from './spare-copy.js';
 import { removeTree } from './remove-tree.js';
 
@@ -99,7 +99,7 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
   return {
     dir,
     claim(earlier) {
-      const current = entryKind(sitePath) === 'link' ? readlinkSync(sitePath).split(/[/\\]/).pop() : undefined;
+      const current = currentVersion(sitePath);
       if (claimed || !VERSION_NAME.test(earlier) || earlier === current) return undefined;
       const to = join(holding, `site-${unique()}`);
       try {
@@ -127,7 +127,7 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
       const chosenName = basename(chosen);
       step('staged');
       link = join(holding, `link-${unique()}`);
-      const current = entryKind(sitePath) === 'link' ? readlinkSync(sitePath).split(/[/\\]/).pop() : undefined;
+      const current = currentVersion(sitePath);
       try {
         symlinkSync(`${holdingName(name)}/${chosenName}`, link);
       } catch {
@@ -166,7 +166,7 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
       abandon();
     },
     linkedSpare() {
-      if (!linkedTo || entryKind(sitePath) !== 'link' || readlinkSync(sitePath).split(/[/\\]/).pop() !== basename(linkedTo)) return undefined;
+      if (!linkedTo || currentVersion(sitePath) !== basename(linkedTo)) return undefined;
       const copy = join(holding, `site-${unique()}`);
       return linkedCopy(linkedTo, copy) ? copy : undefined;
     },
@@ -182,7 +182,6 @@ export function removeLeftovers(sitePath: string, keep?: string, onRemove?: () =
   const parent = dirname(sitePath);
   const name = basename(sitePath);
   const holding = join(parent, holdingName(name));
-  const current = () => (entryKind(sitePath) === 'link' ? readlinkSync(sitePath).split(/[/\\]/).pop() : undefined);
   let names: string[] = [];
   try {
     names = readdirSync(holding);
@@ -195,7 +194,7 @@ export function removeLeftovers(sitePath: string, keep?: string, onRemove?: () =
     const pid = Number(owner[1]);
     // Whose first, then whether it is current: a build that is gone cannot make its version current later.
     if (pid !== process.pid && alive(pid)) continue;
-    if (entry === current() || entry === keep) continue;
+    if (entry === currentVersion(sitePath) || entry === keep) continue;
     if (onRemove && VERSION_NAME.test(entry)) {
       onRemove();
       onRemove = undefined;

@@ -14,6 +14,15 @@ export function entryKind(path: string): 'none' | 'link' | 'folder' | 'other' {
   }
 }
 
+/** The name of the version the site path links to. */
+export function currentVersion(sitePath: string): string | undefined {
+  try {
+    return lstatSync(sitePath).isSymbolicLink() ? readlinkSync(sitePath).split(/[/\\]/).pop() : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
 /**
  * Read-only folders: one the system will not let this process write, or one whose mode says nobody may
  * (chmod a-w), which zfolio respects even when run as root.
