@@ -9,13 +9,14 @@
 // what is checked here does not depend on where a chart is drawn (site.test.ts compares a site whose charts
 // were drawn in worker threads with one drawn in this thread, byte for byte).
 
-import { cpSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildFolio, CACHE_DIR, type BuildResult } from '../../src/build/build.js';
 import { writeGeneratedLibrary } from '../../bench/generate.js';
 import { headParsed } from '../../src/model/lazy-head.js';
-import { filesUnder, tempDir, treeHashes } from '../site-helpers.js';
+import { filesUnder, treeHashes } from '../site-helpers.js';
+import { buildFromNothing } from './from-nothing.js';
 
 const PARTS = 300;
 
@@ -134,18 +135,12 @@ describe(`a rebuild of ${PARTS} generated parts`, () => {
     expect(result.unitsLinked).toBeLessThanOrEqual(firstUnits);
     expect(result.unitsLinked).toBeGreaterThan(0);
 
-    // The cold build: no last site, no record and no part cache, every part read and analysed and every page
-    // rendered; its charts come from a copy of the charts the builds above drew (a cache hit gives the bytes
-    // of a drawn chart: reuse.test.ts compares rebuilds from the cache with builds that draw every chart).
-    const top = tempDir('carry-over-cold');
-    const reference = join(top, '_site');
-    cpSync(join(root, CACHE_DIR, 'charts'), join(top, 'cache', 'charts'), { recursive: true });
-    const cold = await buildFolio({ libraryRoot: root, outDir: reference, cache: join(top, 'cache'), workers: 0 });
+    // The cold build, its charts from the cache the builds above filled (buildFromNothing).
+    const { result: cold, hashes } = await buildFromNothing(root, 'carry-over-cold');
     expect(cold.ok).toBe(true);
     expect(cold.reused).toBe(0);
     expect(cold.work).toMatchObject({ filesParsed: PARTS, partsAnalysed: PARTS, partFolders: PARTS });
     expect(cold.charts!.rendered).toBe(0);
-    expect(changedFiles(treeHashes(reference), treeHashes(out))).toEqual([]);
-    rmSync(top, { recursive: true, force: true });
+    expect(changedFiles(hashes, treeHashes(out))).toEqual([]);
   }, 900_000);
 });

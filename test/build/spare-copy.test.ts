@@ -15,6 +15,7 @@ import { buildFolio, CACHE_DIR, type BuildOptions } from '../../src/build/build.
 import { writeGeneratedLibrary } from '../../bench/generate.js';
 import type { Progress } from '../../src/build/progress.js';
 import { sameInodes, tempDir, treeHashes } from '../site-helpers.js';
+import { buildFromNothing } from './from-nothing.js';
 
 const PARTS = 24;
 
@@ -117,14 +118,10 @@ describe('a build with no record of the site it replaces', () => {
     expect(existsSync(spareDir)).toBe(false);
 
     // The same library built into a new folder with no cache: every file the same bytes.
-    const top = tempDir('spare-copy-cold');
-    const reference = join(top, '_site');
-    cpSync(join(root, CACHE_DIR, 'charts'), join(top, 'cache', 'charts'), { recursive: true });
-    const cold = await buildFolio({ libraryRoot: root, outDir: reference, cache: join(top, 'cache'), workers: 0 });
+    const { result: cold, hashes } = await buildFromNothing(root, 'spare-copy-cold');
     expect(cold.ok).toBe(true);
     expect(cold.reused).toBe(0);
-    expect(treeHashes(reference)).toEqual(treeHashes(out));
-    rmSync(top, { recursive: true, force: true });
+    expect(hashes).toEqual(treeHashes(out));
   }, 600_000);
 
   it('when it remade most units (a setting of the library changed), leaves a linked copy, not the version it replaced', async () => {
