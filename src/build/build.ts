@@ -194,18 +194,14 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     // The record is dropped before the swap and written after it, so it never describes a site not in place.
     if (recordAt) dropSiteRecord(recordAt);
     // The version replaced is kept as the next build's spare only where that saves it work (keepsReplaced).
-    let removing = false;
-    const onRemove = () => {
-      removing = true;
-      progress.stage('removing old versions of the site', 1);
-    };
-    const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) && units.keepsReplaced(), onRemove });
-    if (removing) progress.tick();
+    const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) && units.keepsReplaced() });
+    let spareCopy: string | undefined;
     if (recordAt) {
       const printed = browser ? result.pdfs.map((p) => p.pdfFile) : [...kept];
       const pdfs = stampPdfs(printed, printed.length > 0 ? keys() : new Map(), outDir);
       const next = units.nextRecord(target, replaced, pdfs);
       writeSiteRecord(recordAt, next);
+      options.onSwapStep?.('recorded');
       // Without a spare the next build would make one from nothing: made now instead (spare-copy.ts).
       const copying = !next.spare && next.live && options.spareCopy !== false;
       if (copying) progress.stage('copying the site for the next build (hard links)', 1);
@@ -214,7 +210,16 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
       const spare = copy && linkedCopyRecord(next.live!, copy, basename(copy));
       if (spare) writeSiteRecord(recordAt, { ...next, spare });
       else if (copy) removeTree(copy);
+      spareCopy = spare ? basename(copy!) : undefined;
     }
+    // Last, once the record describes the new site: a build stopped while it removes the old versions (seconds
+    // at 10,000 parts) leaves them to the next, which still has its record and spare.
+    let removing = false;
+    await staging.removeLeftovers([replaced, spareCopy], () => {
+      removing = true;
+      progress.stage('removing old versions of the site', 1);
+    });
+    if (removing) progress.tick();
     timings.swap = clock();
     const from = units.counts();
     Object.assign(result, {

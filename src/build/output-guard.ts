@@ -33,6 +33,16 @@ export function holdingName(siteName: string): string {
 /** The holding folder's path, for the site path `sitePath`. */
 export const holdingDir = (sitePath: string) => join(dirname(sitePath), holdingName(basename(sitePath)));
 
+/** The lock file's name in the holding folder (site-lock.ts). */
+export const LOCK_NAME = 'build.lock';
+
+/**
+ * A draft of the lock, written whole before it is linked into place, named by its process: one a killed build
+ * left is removed as a leftover (output.ts).
+ */
+export const lockDraftName = (pid: number) => `${LOCK_NAME}.${pid}.${Math.random().toString(16).slice(2)}`;
+export const LOCK_DRAFT = /^build\.lock\.(\d+)\.[0-9a-f]+$/;
+
 /** A link at the site path that zfolio made: it points at one of the versions in the holding folder. */
 export function isOwnLink(sitePath: string, target: string): boolean {
   const [folder, version, ...rest] = target.split(/[/\\]/);

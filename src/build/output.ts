@@ -14,16 +14,19 @@
 import { randomBytes } from 'node:crypto';
 import { mkdirSync, readdirSync, readlinkSync, renameSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import { holdingName, isOwnLink, MARKER_TEXT, OutputRefused, SITE_MARKER } from './output-guard.js';
+import { holdingName, isOwnLink, LOCK_DRAFT, MARKER_TEXT, OutputRefused, SITE_MARKER } from './output-guard.js';
 import { currentVersion, entryKind } from './writable.js';
 import { linkedCopy } from './spare-copy.js';
-import { removeTree } from './remove-tree.js';
+import { removeTree, removeTrees } from './remove-tree.js';
 
 export { checkSpare, checkWritable } from './writable.js';
 import { untilDone } from '../on-exit.js';
 
-/** Points in a swap, reported to `onStep` (tests stop a build at each to check the site path). */
-export type SwapStep = 'staged' | 'linked' | 'moved-aside' | 'swapped' | 'cleaned';
+/**
+ * Points in a swap, reported to `onStep` (tests stop a build at each to check the site path); 'recorded' (the
+ * record of the new site written, before what is left over is removed) is reported by the build itself.
+ */
+export type SwapStep = 'staged' | 'linked' | 'moved-aside' | 'swapped' | 'recorded' | 'cleaned';
 
 export interface Staging {
   /** Where to write the new site. */
@@ -37,10 +40,15 @@ export interface Staging {
   /**
    * Put the new site in place of the old one: `version` (the staging folder, or a claimed version), default
    * the staging folder. With `keepReplaced`, the version it replaces stays in the holding folder (the next
-   * build updates it); returns that version's name. `onRemove` is called before the first version left over is
-   * removed (one of 10,000 parts takes seconds).
+   * build updates it); returns that version's name. What is left over stays until `removeLeftovers`.
    */
-  commit(options?: { version?: string; keepReplaced?: boolean; onRemove?(): void }): { replaced?: string };
+  commit(options?: { version?: string; keepReplaced?: boolean }): { replaced?: string };
+  /**
+   * After `commit`, and after the record of the new site is written: remove the versions and links left over
+   * (see removeLeftovers), all but those named in `keep`. `onRemove` is called before the first version is
+   * removed (one of 10,000 parts takes seconds). A build stopped meanwhile leaves the rest to the next build.
+   */
+  removeLeftovers(keep: readonly (string | undefined)[], onRemove?: () => void): Promise<void>;
   /** Give a claimed version back under its earlier name, unchanged (before it is changed), to be claimed again. */
   release(): void;
   /**
@@ -49,7 +57,7 @@ export interface Staging {
    * link or no hard links can be made. A build stopped while copying leaves it to be removed as a leftover.
    */
   linkedSpare(): string | undefined;
-  /** Throw the staging folder (and a claimed version) away. */
+  /** Throw the staging folder (and a claimed version) away; after `commit`, nothing: the site path links to one of them. */
   abandon(): void;
 }
 
@@ -89,8 +97,11 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
   let claimedFrom: string | undefined;
   /** The version the site path links to after commit. */
   let linkedTo: string | undefined;
+  let committed = false;
   const abandon = () => {
     if (link) rmSync(link, { force: true });
+    // A failure after the swap (writing the record, say) must not remove the site it put in place.
+    if (committed) return;
     removeTree(dir);
     if (claimed) removeTree(claimed);
   };
@@ -149,6 +160,7 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
         if (aside) renameSync(aside, sitePath); // put the old site back
         throw error;
       }
+      committed = true;
       if (link) linkedTo = chosen;
       link = undefined;
       claimed = undefined;
@@ -157,9 +169,11 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
       const replaced = options.keepReplaced && !aside && current && VERSION_NAME.test(current) ? current : undefined;
       // The staging folder whose files went into a claimed version first: this build's own, not a leftover to report.
       if (chosen !== dir) removeTree(dir);
-      removeLeftovers(sitePath, replaced, options.onRemove);
-      step('cleaned');
       return { replaced };
+    },
+    async removeLeftovers(keep, onRemove) {
+      await removeLeftovers(sitePath, keep, onRemove);
+      step('cleaned');
     },
     abandon() {
       done();
@@ -174,14 +188,16 @@ export function stageOutput(sitePath: string, options: StageOptions = {}): Stagi
 }
 
 /**
- * Remove what no link points at: versions and links in the holding folder made by this process or by one
- * that is gone (a killed build), and the staging and previous folders the two-rename swap of older zfolio
- * versions left beside the site. Best effort: the new site is in place whatever happens here.
+ * Remove what no link points at: versions, links and lock drafts in the holding folder made by this process
+ * or by one that is gone (a killed build), all but those named in `keep`, and the staging and previous folders the
+ * two-rename swap of older zfolio versions left beside the site. Best effort: the new site is in place
+ * whatever happens here. The folders go side by side (removeTrees).
  */
-export function removeLeftovers(sitePath: string, keep?: string, onRemove?: () => void): void {
+export async function removeLeftovers(sitePath: string, keep: readonly (string | undefined)[] = [], onRemove?: () => void): Promise<void> {
   const parent = dirname(sitePath);
   const name = basename(sitePath);
   const holding = join(parent, holdingName(name));
+  const leftovers: string[] = [];
   let names: string[] = [];
   try {
     names = readdirSync(holding);
@@ -189,33 +205,31 @@ export function removeLeftovers(sitePath: string, keep?: string, onRemove?: () =
     // no holding folder
   }
   for (const entry of names) {
-    const owner = VERSION_NAME.exec(entry) ?? LINK_NAME.exec(entry);
+    const owner = VERSION_NAME.exec(entry) ?? LINK_NAME.exec(entry) ?? LOCK_DRAFT.exec(entry);
     if (!owner) continue;
     const pid = Number(owner[1]);
     // Whose first, then whether it is current: a build that is gone cannot make its version current later.
     if (pid !== process.pid && alive(pid)) continue;
-    if (entry === currentVersion(sitePath) || entry === keep) continue;
+    if (entry === currentVersion(sitePath) || keep.includes(entry)) continue;
     if (onRemove && VERSION_NAME.test(entry)) {
       onRemove();
       onRemove = undefined;
     }
-    try {
-      removeTree(join(holding, entry));
-    } catch {
-      // left for the next build
-    }
+    leftovers.push(join(holding, entry));
   }
   const legacy = new RegExp(`^\\.${name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\.(?:staging|previous)-(\\d+)$`);
   let beside: string[] = [];
   try {
     beside = readdirSync(parent);
   } catch {
-    return;
+    // none beside it
   }
   for (const entry of beside) {
     const match = legacy.exec(entry);
-    if (match && !alive(Number(match[1]))) removeTree(join(parent, entry));
+    if (match && !alive(Number(match[1]))) leftovers.push(join(parent, entry));
   }
+  // What cannot be removed now is left for the next build.
+  await removeTrees(leftovers).catch(() => {});
 }
 
 /** Write a file, creating its folder. */

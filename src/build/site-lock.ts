@@ -16,10 +16,9 @@ import { hostname } from 'node:os';
 import { dirname, join } from 'node:path';
 import { untilDone } from '../on-exit.js';
 import { alive } from './output.js';
-import { holdingDir, OutputRefused } from './output-guard.js';
+import { holdingDir, LOCK_NAME, lockDraftName, OutputRefused } from './output-guard.js';
 
-/** The lock file's name in the holding folder. */
-export const LOCK_NAME = 'build.lock';
+export { LOCK_NAME } from './output-guard.js';
 
 /** Who holds a lock, as its file says. */
 export interface LockHolder {
@@ -86,7 +85,7 @@ export function lockSite(sitePath: string, now: Date = new Date()): SiteLock {
   // Read first: a build refused because another holds the lock writes nothing.
   const held = readHolder(path);
   if (held && holderRunning(held)) throw new OutputRefused(busyMessage(sitePath, path, held));
-  const draft = `${path}.${process.pid}.${Math.random().toString(16).slice(2)}`;
+  const draft = join(holding, lockDraftName(process.pid));
   const text = `${JSON.stringify(own)}\n`;
   let made: string | undefined;
   try {
