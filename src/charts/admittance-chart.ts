@@ -10,7 +10,7 @@ import { halfFrame } from './frame.js';
 import { ABOVE_FIRST, BELOW_FIRST } from './labels.js';
 import { placeMarkLabels, shown } from './mark-labels.js';
 import { PART_SERIES } from './palette.js';
-import { bandData, resonanceLabels, resonancesByImportance, type PartChartInput } from './part-marks.js';
+import { bandData, bandEdgeObstacles, resonanceLabels, resonancesByImportance, type PartChartInput } from './part-marks.js';
 import type { Row } from './render.js';
 import { positiveExtent } from './scales.js';
 import { curveLayer, placedLabelLayer, pointLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
@@ -79,8 +79,8 @@ export const admittanceChart = xyChart<PartChartInput>({
       (r) => ({ at: { f: r.frequencyHz, v: 1 / r.impedanceOhm }, ...toPlot(x.map, y.map, r.frequencyHz, 1 / r.impedanceOhm) }),
       (r) => (r.type === 'series' ? ABOVE_FIRST : BELOW_FIRST),
     );
-    const placed = placeMarkLabels(requests, FRAME, [gCurve, ...runs.map((r) => r.curve)].map((c) => curveObstacle(c, x.map, y.map)));
     const band = bandData(input);
+    const placed = placeMarkLabels(requests, FRAME, [gCurve, ...runs.map((r) => r.curve)].map((c) => curveObstacle(c, x.map, y.map)), [], bandEdgeObstacles(band, x.map, FRAME.height));
     return {
       x,
       y,

@@ -7,7 +7,7 @@ import { halfFrame } from './frame.js';
 import { ABOVE_FIRST, BELOW_FIRST } from './labels.js';
 import { placeMarkLabels, shown } from './mark-labels.js';
 import { PART_SERIES, RATED_MARK, RESONANCE_MARK } from './palette.js';
-import { bandData, resonanceLabels, type PartChartInput } from './part-marks.js';
+import { bandData, bandEdgeObstacles, resonanceLabels, type PartChartInput } from './part-marks.js';
 import { positiveExtent } from './scales.js';
 import { curveLayer, envelopeLayer, placedLabelLayer, pointLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
 import { xyChart } from './xy-chart.js';
@@ -73,8 +73,8 @@ export const impedanceChart = xyChart<PartChartInput>({
       (r) => ({ at: { f: r.frequencyHz, v: r.impedanceOhm }, ...toPlot(x.map, y.map, r.frequencyHz, r.impedanceOhm) }),
       (r) => (r.type === 'series' ? BELOW_FIRST : ABOVE_FIRST),
     );
-    const placed = placeMarkLabels(requests, FRAME, [mag, res].map((c) => curveObstacle(c, x.map, y.map)));
     const band = bandData(input);
+    const placed = placeMarkLabels(requests, FRAME, [mag, res].map((c) => curveObstacle(c, x.map, y.map)), [], bandEdgeObstacles(band, x.map, FRAME.height));
     return {
       x,
       y,

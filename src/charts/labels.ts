@@ -32,6 +32,11 @@ export interface LabelRequest {
   /** Shown even when every position collides. */
   required?: boolean;
   candidates?: Placement[];
+  /**
+   * Lines this label alone keeps clear of, by `clearance` px (default CLEARANCE, as from every obstacle; 0:
+   * it may come up to them, not across).
+   */
+  lines?: { obstacles: readonly Obstacle[]; clearance?: number };
 }
 
 /** A polyline in px that labels should not cover. */
@@ -144,8 +149,8 @@ export function segmentHitsBox(ax: number, ay: number, bx: number, by: number, b
  */
 const CLEARANCE = 2.5;
 
-function hitsObstacles(tight: Box, obstacles: readonly Obstacle[]): number {
-  const box = { x0: tight.x0 - CLEARANCE, y0: tight.y0 - CLEARANCE, x1: tight.x1 + CLEARANCE, y1: tight.y1 + CLEARANCE };
+function hitsObstacles(tight: Box, obstacles: readonly Obstacle[], clearance = CLEARANCE): number {
+  const box = { x0: tight.x0 - clearance, y0: tight.y0 - clearance, x1: tight.x1 + clearance, y1: tight.y1 + clearance };
   let hits = 0;
   for (const o of obstacles) {
     for (let i = 1; i < o.xs.length; i++) {
@@ -184,7 +189,8 @@ export function placeLabels(
     const outside = Math.max(0, 2 - box.x0) + Math.max(0, box.x1 - plot.width + 2) + Math.max(0, 2 - box.y0) + Math.max(0, box.y1 - plot.height + 2);
     let c = outside * 1000;
     for (const q of placed) c += overlapArea(box, q) * 10;
-    return c + hitsObstacles(box, obstacles) * 50;
+    const lines = r.lines ? hitsObstacles(box, r.lines.obstacles, r.lines.clearance) : 0;
+    return c + (hitsObstacles(box, obstacles) + lines) * 50;
   }
   /** The first candidate where `text` collides with nothing (nudged inside the plot, see nudged()). */
   function freePlace(r: LabelRequest, text: string): PlacedLabel | null {

@@ -36,11 +36,17 @@ export interface PlacedLabels {
   notes: Row[];
 }
 
-/** Place labels (most important first), then notes, clear of each other and of `obstacles`. */
-export function placeMarkLabels(labels: readonly MarkLabel[], plot: { width: number; height: number }, obstacles: readonly Obstacle[], notes: readonly PlotNote[] = []): PlacedLabels {
+/**
+ * Place labels (most important first), then notes, clear of each other and of `obstacles`. `rules` are
+ * straight lines across the plot (a band's edges): labels keep clear of them as of a curve; a note, which
+ * stands at the plot's side, may come up to one but not across it.
+ */
+export function placeMarkLabels(labels: readonly MarkLabel[], plot: { width: number; height: number }, obstacles: readonly Obstacle[], notes: readonly PlotNote[] = [], rules: readonly Obstacle[] = []): PlacedLabels {
+  const lines = rules.length > 0 ? { lines: { obstacles: rules } } : {};
+  const noteLines = rules.length > 0 ? { lines: { obstacles: rules, clearance: 0 } } : {};
   const requests: LabelRequest[] = [
-    ...labels.map((l) => ({ x: l.x, y: l.y, text: l.text, ...(l.shortText !== undefined ? { shortText: l.shortText } : {}), fontSize: FONT_SIZE.note, ...(l.required !== undefined ? { required: l.required } : {}), ...(l.candidates ? { candidates: l.candidates } : {}) })),
-    ...notes.map((n) => ({ x: n.x, y: n.y, text: n.text, fontSize: FONT_SIZE.note, candidates: n.candidates })),
+    ...labels.map((l) => ({ x: l.x, y: l.y, text: l.text, ...(l.shortText !== undefined ? { shortText: l.shortText } : {}), fontSize: FONT_SIZE.note, ...(l.required !== undefined ? { required: l.required } : {}), ...(l.candidates ? { candidates: l.candidates } : {}), ...lines })),
+    ...notes.map((n) => ({ x: n.x, y: n.y, text: n.text, fontSize: FONT_SIZE.note, candidates: n.candidates, ...noteLines })),
   ];
   const placements = placeLabels(requests, plot, obstacles);
   return {

@@ -9,7 +9,8 @@ import { isSelfResonance, type Resonance } from '../analysis/resonance.js';
 import { bandCaption, bandRange } from '../present/band-words.js';
 import { resonanceLabel, resonanceShortLabel } from '../present/resonance-words.js';
 import type { KeyItem } from './key.js';
-import type { Placement } from './labels.js';
+import type { Obstacle, Placement } from './labels.js';
+import type { AxisMap } from './scales.js';
 import type { MarkLabel } from './mark-labels.js';
 import type { Row } from './render.js';
 
@@ -72,6 +73,17 @@ export function bandData(input: Pick<PartChartInput, 'usableBand' | 'within'> & 
   if (!b.fromIsSweepEnd) edges.push({ f: b.fromHz });
   if (!b.toIsSweepEnd) edges.push({ f: b.toHz });
   return { band: [{ f: b.fromHz, f2: b.toHz }], bandEdges: edges, key: { kind: 'band', text: `${bandCaption(input.part.behavesAs, input.within)}: ${bandRange(b)}` } };
+}
+
+/**
+ * The band's edges as labels see them: vertical rules across the plot, which a label must not straddle (an
+ * SRF label centred under its dip sat across a capacitor's band edge, which lies a factor of about 3 below).
+ */
+export function bandEdgeObstacles(band: Pick<BandData, 'bandEdges'>, xMap: AxisMap, height: number): Obstacle[] {
+  return band.bandEdges.map((e) => {
+    const x = xMap.toPx(e.f as number);
+    return { xs: [x, x], ys: [0, height] };
+  });
 }
 
 /** A frequency band drawn in full, both edges marked (a rail's band). */

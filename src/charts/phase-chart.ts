@@ -8,7 +8,7 @@ import { halfFrame } from './frame.js';
 import type { Placement } from './labels.js';
 import { placeMarkLabels, shown } from './mark-labels.js';
 import { FONT_SIZE, INK_SOFT, PART_SERIES, RESONANCE_MARK, ZERO_LINE } from './palette.js';
-import { bandData, resonanceLabels, resonancesByImportance, type PartChartInput } from './part-marks.js';
+import { bandData, bandEdgeObstacles, resonanceLabels, resonancesByImportance, type PartChartInput } from './part-marks.js';
 import { linearAxis, linearTicks } from './scales.js';
 import { curveLayer, pixelTextLayer, placedLabelLayer, pointLayer, seriesEncoding, type SeriesScale } from './spec-parts.js';
 import { xyChart } from './xy-chart.js';
@@ -45,8 +45,8 @@ export const phaseChart = xyChart<PartChartInput>({
       { x: 0, y: FRAME.height / 2, text: SIGN_NOTE.phaseInductive, candidates: NOTE_ABOVE },
       { x: 0, y: FRAME.height / 2, text: SIGN_NOTE.phaseCapacitive, candidates: NOTE_BELOW },
     ];
-    const placed = placeMarkLabels(requests, FRAME, [curveObstacle(curve, x.map, yMap)], notes);
     const band = bandData(input);
+    const placed = placeMarkLabels(requests, FRAME, [curveObstacle(curve, x.map, yMap)], notes, bandEdgeObstacles(band, x.map, FRAME.height));
     const ordered = resonancesByImportance(input);
     const onPlot = placed.notes.length === notes.length;
     return {

@@ -8,6 +8,12 @@ import { RATED_MARK } from '../../src/charts/palette.js';
 import type { Part } from '../../src/model/part.js';
 import { svgTexts } from './svg-text.js';
 import { envelopeMiss } from './envelope-check.js';
+import { readFontAdvances } from './font-advances.js';
+
+// Text widths from DejaVu Sans Book's advance widths (the font file's hmtx table, test/charts/font-advances.ts),
+// the widest of the charts' font stack that .ci/run installs.
+const dejaVu = readFontAdvances('/usr/share/fonts/truetype/dejavu/DejaVuSans.ttf');
+const widthPx = (text: string, sizePx: number) => [...text].reduce((w, c) => w + (dejaVu.advanceEm(c) ?? 1) * sizePx, 0);
 
 type Rows = Record<string, Record<string, unknown>[]>;
 
@@ -43,6 +49,22 @@ describe('impedance chart', () => {
     for (const t of ['10 kHz', '1 MHz', '10 GHz', '1 mΩ', '100 mΩ', '1 Ω', '10 kΩ', 'Frequency', '|Z|', 'R (ESR)', 'resonance (X = 0)']) expect(texts).toContain(t);
     // Band edge SRF·√(1 − 1/1.1) = 7.153 MHz (closed form for the series model, see src/analysis/band.ts).
     expect(texts).toContain(`usable band (±10%): up to ${formatEng(f0 * Math.sqrt(1 - 1 / 1.1), 'Hz')}`);
+  });
+
+  it('keeps the SRF label off the band edge a factor of about 3 below it (closed form), in the finished SVG', async () => {
+    const out = await renderPartChart('impedance', analysed(capacitorPart));
+    // The edge: a dashed rule across the plot at SRF·√(1 − 1/1.1) = 7.153 MHz, x log over 1 kHz..10 GHz.
+    const edgeHz = f0 * Math.sqrt(1 - 1 / 1.1);
+    const rules = [...out.svg.matchAll(/<line transform="translate\(([-\d.]+),0\)" x2="0" y2="(\d+)"[^>]*stroke-dasharray/g)].map((m) => Number(m[1]));
+    expect(rules).toHaveLength(1);
+    expect(rules[0]).toBeCloseTo((PLOT_WIDTH * Math.log10(edgeHz / 1e3)) / 7, 0);
+    const label = /<text text-anchor="(start|middle|end)" transform="translate\(([-\d.]+),[-\d.]+\)" font-size="([\d.]+)px"[^>]*>(SRF [^<]*)<\/text>/.exec(out.svg);
+    expect(label).not.toBeNull();
+    const [, anchor, at, size, text] = label!;
+    const w = widthPx(text, Number(size));
+    const x0 = Number(at) - (anchor === 'start' ? 0 : anchor === 'middle' ? w / 2 : w);
+    // Not across the rule, nor within a pixel of it.
+    expect(rules[0] < x0 - 1 || rules[0] > x0 + w + 1, `label ${x0.toFixed(1)}..${(x0 + w).toFixed(1)} px, rule at ${rules[0]} px`).toBe(true);
   });
 
   it('passes |Z| and R through the exact resonance point, not just the nearest sweep point', async () => {

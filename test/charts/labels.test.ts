@@ -108,4 +108,22 @@ describe('a shorter wording, and a label nudged back inside the plot', () => {
     const r: LabelRequest = { x: 215, y: 80, text: '190 MHz', fontSize: 10, candidates: [{ dx: 7, dy: 16, align: 'left', baseline: 'top' }] };
     expect(placeLabels([r], plot)).toEqual([null]);
   });
+
+  it('keeps a label clear of its own lines by the clearance, and with clearance 0 lets it come up to them, not across', () => {
+    // A vertical rule 3 px right of where "190 MHz" would end, placed right of its point.
+    const w = labelBox({ x: 0, y: 0, text: '190 MHz', fontSize: 10 }, { dx: 0, dy: 0, align: 'left', baseline: 'top' }).x1;
+    const right = { dx: 7, dy: 0, align: 'left', baseline: 'middle' } as const;
+    const rule = (x: number) => ({ xs: [x, x], ys: [0, plot.height] });
+    const at = (ruleX: number, clearance?: number): LabelRequest => ({ x: 100, y: 80, text: '190 MHz', fontSize: 10, candidates: [right], lines: { obstacles: [rule(ruleX)], ...(clearance === undefined ? {} : { clearance }) } });
+    const end = 100 + 7 + w;
+    expect(placeLabels([at(end + 3)], plot)).toMatchObject([right]);
+    expect(placeLabels([at(end + 2)], plot)).toEqual([null]); // within the default 2.5 px
+    expect(placeLabels([at(end + 0.5, 0)], plot)).toMatchObject([right]);
+    expect(placeLabels([at(end - 0.5, 0)], plot)).toEqual([null]); // across the text's end
+    // The lines are the label's own: another label, 10 px further right and higher up, sits across the rule.
+    const other: LabelRequest = { x: 110, y: 40, text: '190 MHz', fontSize: 10, candidates: [right] };
+    const box = labelBox(other, right);
+    expect(box.x0 < end + 3 && end + 3 < box.x1).toBe(true);
+    expect(placeLabels([at(end + 3), other], plot)).toMatchObject([right, right]);
+  });
 });
