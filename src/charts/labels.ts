@@ -1,7 +1,8 @@
 // Placing short labels next to marked points (resonances, decade marks, rail peaks) so that they stay inside
 // the plot and clear of each other and of the curves. Greedy, in priority order: each label takes the first
 // of its candidate positions that collides with nothing, trying its shorter wording (when it has one) only
-// where the full one fits nowhere; a label that must be shown takes the position with the least overlap
+// where the full one fits nowhere, then each wording centred above or below its point slid sideways (the
+// point still over the words); a label that must be shown takes the position with the least overlap
 // instead, others are dropped (their point stays).
 
 import { textWidth } from './text-width.js';
@@ -56,6 +57,9 @@ const GAP = 5;
 
 /** How far a label above or below its point may be moved sideways to stay inside the plot, px. */
 const NUDGE = 6;
+
+/** How far inside a slid label's ends its point stays, px (slidPlace). */
+const SLIDE_KEEP = 4;
 
 /** Right, left, above, below, then the diagonals. */
 export const AROUND: Placement[] = [
@@ -178,7 +182,13 @@ export function placeLabels(
 ): (PlacedLabel | null)[] {
   const placed: Box[] = [...avoid];
   return requests.map((r) => {
-    const chosen = freePlace(r, r.text) ?? (r.shortText !== undefined ? freePlace(r, r.shortText) : null) ?? (r.required ? leastCovering(r) : null);
+    const short = r.shortText;
+    const chosen =
+      freePlace(r, r.text) ??
+      (short !== undefined ? freePlace(r, short) : null) ??
+      slidPlace(r, r.text) ??
+      (short !== undefined ? slidPlace(r, short) : null) ??
+      (r.required ? leastCovering(r) : null);
     if (chosen === null) return null;
     placed.push(boxOf(r, chosen, chosen.text));
     return chosen;
@@ -197,6 +207,24 @@ export function placeLabels(
     for (const candidate of r.candidates ?? AROUND) {
       const p = nudged(r, candidate, text);
       if (cost(r, p, text) === 0) return { ...p, text };
+    }
+    return null;
+  }
+  /**
+   * Where no candidate is free: a label centred above or below its point slid sideways, 2 px at a time, as
+   * far as keeps the point over the words (SLIDE_KEEP px inside their ends), nearest first. A resonance near
+   * the plot's end with a band edge just before it leaves no room for the label centred, but some beside.
+   */
+  function slidPlace(r: LabelRequest, text: string): PlacedLabel | null {
+    const reach = textWidth(text, r.fontSize) / 2 - SLIDE_KEEP;
+    for (let shift = 2; shift <= reach; shift += 2) {
+      for (const candidate of r.candidates ?? AROUND) {
+        if (candidate.align !== 'center' || candidate.baseline === 'middle') continue;
+        for (const sign of [1, -1]) {
+          const p = { ...candidate, dx: candidate.dx + sign * shift };
+          if (cost(r, p, text) === 0) return { ...p, text };
+        }
+      }
     }
     return null;
   }

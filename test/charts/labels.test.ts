@@ -126,4 +126,21 @@ describe('a shorter wording, and a label nudged back inside the plot', () => {
     expect(box.x0 < end + 3 && end + 3 < box.x1).toBe(true);
     expect(placeLabels([at(end + 3), other], plot)).toMatchObject([right, right]);
   });
+
+  it('slides a label centred under its point sideways where a line crosses it there, keeping the point over its words', () => {
+    // A rule 10 px left of the point: "SRF 919 MHz" centred below crosses it; slid right it does not.
+    const below = { dx: 0, dy: 8, align: 'center', baseline: 'top' } as const;
+    const r: LabelRequest = { x: 150, y: 60, text: 'SRF 919 MHz', fontSize: 10, candidates: [below], required: true };
+    const rule = { xs: [140, 140], ys: [0, plot.height] };
+    const [p] = placeLabels([r], plot, [rule]);
+    expect(p).not.toBeNull();
+    const b = labelBox(r, p!);
+    expect(b.x0).toBeGreaterThan(140 + 2.5); // clear of the rule by the clearance
+    expect(b.x0).toBeLessThanOrEqual(150 - 4); // the point over the words, 4 px inside their left end
+    expect(b.y0).toBe(68); // still below, as the candidate says
+    expect(p!.dx).toBeGreaterThan(0);
+    // A label placed beside its point (no centred candidate) is not slid: it fits nowhere and is dropped.
+    const beside: LabelRequest = { x: 150, y: 60, text: 'SRF 919 MHz', fontSize: 10, candidates: [{ dx: -7, dy: 0, align: 'right', baseline: 'middle' }] };
+    expect(placeLabels([beside], plot, [{ xs: [120, 120], ys: [0, plot.height] }])).toEqual([null]);
+  });
 });
