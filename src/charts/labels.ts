@@ -153,7 +153,8 @@ export function segmentHitsBox(ax: number, ay: number, bx: number, by: number, b
  */
 const CLEARANCE = 2.5;
 
-function hitsObstacles(tight: Box, obstacles: readonly Obstacle[], clearance = CLEARANCE): number {
+/** How many segments of `obstacles` come within `clearance` of the box; with `first`, stops at one. */
+function hitsObstacles(tight: Box, obstacles: readonly Obstacle[], clearance = CLEARANCE, first = false): number {
   const box = { x0: tight.x0 - clearance, y0: tight.y0 - clearance, x1: tight.x1 + clearance, y1: tight.y1 + clearance };
   let hits = 0;
   for (const o of obstacles) {
@@ -164,7 +165,10 @@ function hitsObstacles(tight: Box, obstacles: readonly Obstacle[], clearance = C
       const by = o.ys[i];
       if (!Number.isFinite(ax + ay + bx + by)) continue;
       if (Math.max(ax, bx) < box.x0 || Math.min(ax, bx) > box.x1 || Math.max(ay, by) < box.y0 || Math.min(ay, by) > box.y1) continue;
-      if (segmentHitsBox(ax, ay, bx, by, box)) hits++;
+      if (segmentHitsBox(ax, ay, bx, by, box)) {
+        hits++;
+        if (first) return hits;
+      }
     }
   }
   return hits;
@@ -194,6 +198,7 @@ export function placeLabels(
     return chosen;
   });
 
+  /** What a placement collides with, weighted. */
   function cost(r: LabelRequest, p: Placement, text: string): number {
     const box = boxOf(r, p, text);
     const outside = Math.max(0, 2 - box.x0) + Math.max(0, box.x1 - plot.width + 2) + Math.max(0, 2 - box.y0) + Math.max(0, box.y1 - plot.height + 2);
@@ -202,11 +207,23 @@ export function placeLabels(
     const lines = r.lines ? hitsObstacles(box, r.lines.obstacles, r.lines.clearance) : 0;
     return c + (hitsObstacles(box, obstacles) + lines) * 50;
   }
+  /**
+   * Whether a placement collides with nothing (its cost is 0), asked the cheap ways first and stopping at the
+   * first collision. Binding a part's four charts (the demo's 38 parts, ten rounds) took 3.9 ms with labels
+   * slid (slidPlace) and every collision counted, 2.4 to 2.6 ms this way, 2.7 ms before labels were slid.
+   */
+  function free(r: LabelRequest, p: Placement, text: string): boolean {
+    const box = boxOf(r, p, text);
+    if (box.x0 < 2 || box.x1 > plot.width - 2 || box.y0 < 2 || box.y1 > plot.height - 2) return false;
+    for (const q of placed) if (overlapArea(box, q) > 0) return false;
+    if (r.lines && hitsObstacles(box, r.lines.obstacles, r.lines.clearance, true) > 0) return false;
+    return hitsObstacles(box, obstacles, CLEARANCE, true) === 0;
+  }
   /** The first candidate where `text` collides with nothing (nudged inside the plot, see nudged()). */
   function freePlace(r: LabelRequest, text: string): PlacedLabel | null {
     for (const candidate of r.candidates ?? AROUND) {
       const p = nudged(r, candidate, text);
-      if (cost(r, p, text) === 0) return { ...p, text };
+      if (free(r, p, text)) return { ...p, text };
     }
     return null;
   }
@@ -222,7 +239,7 @@ export function placeLabels(
         if (candidate.align !== 'center' || candidate.baseline === 'middle') continue;
         for (const sign of [1, -1]) {
           const p = { ...candidate, dx: candidate.dx + sign * shift };
-          if (cost(r, p, text) === 0) return { ...p, text };
+          if (free(r, p, text)) return { ...p, text };
         }
       }
     }
