@@ -15,7 +15,7 @@ import { renderPages } from './eleventy.js';
 import { buildPageRuns, type PartPageRuns } from './part-page-runs.js';
 import { writeSharedFiles } from './shared-files.js';
 import { checkWritable, stageOutput, writeFileDeep } from './output.js';
-import { guardOutput } from './output-guard.js';
+import { FailedAfterSwap, guardOutput } from './output-guard.js';
 import { lockSiteChecked } from './site-lock.js';
 import type { PrintBrowser } from '../print/browser.js';
 import { buildDate, printJobsFor } from '../print/print-jobs.js';
@@ -195,31 +195,36 @@ async function buildWith(options: BuildOptions, library: Library, outDir: string
     if (recordAt) dropSiteRecord(recordAt);
     // The version replaced is kept as the next build's spare only where that saves it work (keepsReplaced).
     const { replaced } = staging.commit({ version: target, keepReplaced: Boolean(recordAt) && units.keepsReplaced() });
-    let spareCopy: string | undefined;
-    if (recordAt) {
-      const printed = browser ? result.pdfs.map((p) => p.pdfFile) : [...kept];
-      const pdfs = stampPdfs(printed, printed.length > 0 ? keys() : new Map(), outDir);
-      const next = units.nextRecord(target, replaced, pdfs);
-      writeSiteRecord(recordAt, next);
-      options.onSwapStep?.('recorded');
-      // Without a spare the next build would make one from nothing: made now instead (spare-copy.ts).
-      const copying = !next.spare && next.live && options.spareCopy !== false;
-      if (copying) progress.stage('copying the site for the next build (hard links)', 1);
-      const copy = copying ? staging.linkedSpare() : undefined;
-      if (copying) progress.tick();
-      const spare = copy && linkedCopyRecord(next.live!, copy, basename(copy));
-      if (spare) writeSiteRecord(recordAt, { ...next, spare });
-      else if (copy) removeTree(copy);
-      spareCopy = spare ? basename(copy!) : undefined;
+    // From here the new site is in place: a failure says so (the CLI prints both lines).
+    try {
+      let spareCopy: string | undefined;
+      if (recordAt) {
+        const printed = browser ? result.pdfs.map((p) => p.pdfFile) : [...kept];
+        const pdfs = stampPdfs(printed, printed.length > 0 ? keys() : new Map(), outDir);
+        const next = units.nextRecord(target, replaced, pdfs);
+        writeSiteRecord(recordAt, next);
+        options.onSwapStep?.('recorded');
+        // Without a spare the next build would make one from nothing: made now instead (spare-copy.ts).
+        const copying = !next.spare && next.live && options.spareCopy !== false;
+        if (copying) progress.stage('copying the site for the next build (hard links)', 1);
+        const copy = copying ? staging.linkedSpare() : undefined;
+        if (copying) progress.tick();
+        const spare = copy && linkedCopyRecord(next.live!, copy, basename(copy));
+        if (spare) writeSiteRecord(recordAt, { ...next, spare });
+        else if (copy) removeTree(copy);
+        spareCopy = spare ? basename(copy!) : undefined;
+      }
+      // Last, once the record describes the new site: a build stopped while it removes the old versions (seconds
+      // at 10,000 parts) leaves them to the next, which still has its record and spare.
+      let removing = false;
+      await staging.removeLeftovers([replaced, spareCopy], () => {
+        removing = true;
+        progress.stage('removing old versions of the site', 1);
+      });
+      if (removing) progress.tick();
+    } catch (error) {
+      throw new FailedAfterSwap(outDir, error);
     }
-    // Last, once the record describes the new site: a build stopped while it removes the old versions (seconds
-    // at 10,000 parts) leaves them to the next, which still has its record and spare.
-    let removing = false;
-    await staging.removeLeftovers([replaced, spareCopy], () => {
-      removing = true;
-      progress.stage('removing old versions of the site', 1);
-    });
-    if (removing) progress.tick();
     timings.swap = clock();
     const from = units.counts();
     Object.assign(result, {

@@ -17,6 +17,25 @@ export const MARKER_TEXT = `${MARKER_HEAD}\nThis folder was written by zfolio; t
 /** A build, serve or print that would replace or write somewhere it must not; the command exits 2. */
 export class OutputRefused extends Error {}
 
+/**
+ * A build that failed after it put its new site in place (writing its record, making the next build's spare):
+ * the site at `sitePath` is the new one, whole; the error it failed with is the cause.
+ */
+export class FailedAfterSwap extends Error {
+  constructor(
+    readonly sitePath: string,
+    cause: unknown,
+  ) {
+    const what = (cause instanceof Error ? cause.message : String(cause)).split('\n', 1)[0];
+    super(`the new site is in place at ${sitePath}, but the build failed after putting it there: ${what}`, { cause });
+  }
+
+  /** The line said after the cause's own (src/cli/main.ts). */
+  get inPlace(): string {
+    return `the new site is in place at ${this.sitePath} all the same; the next build may make more of it again`;
+  }
+}
+
 export interface GuardContext {
   libraryRoot: string;
   /** The folder the command runs in. */

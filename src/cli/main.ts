@@ -2,7 +2,7 @@
 
 import { DEBUG_ENV, EXIT_BAD_INPUT, EXIT_MISUSE, EXIT_OK, UsageError, type CommandIO } from './io.js';
 import { failureDetails, failureLine } from './failure.js';
-import { OutputRefused } from '../build/output-guard.js';
+import { FailedAfterSwap, OutputRefused } from '../build/output-guard.js';
 import { VERSION } from '../version.js';
 
 type Command = (args: string[], io: CommandIO) => number | Promise<number>;
@@ -81,8 +81,11 @@ export async function main(argv: string[], io: CommandIO): Promise<number> {
       io.err(`zfolio ${name}: ${error.message}\n`);
       return EXIT_MISUSE;
     }
-    io.err(`zfolio ${name}: ${failureLine(error)}\n`);
-    if (io.env[DEBUG_ENV]) io.err(failureDetails(error) + '\n');
+    // A build that failed once its new site was in place: what failed, then that the site is the new one.
+    const failed = error instanceof FailedAfterSwap ? error.cause : error;
+    io.err(`zfolio ${name}: ${failureLine(failed)}\n`);
+    if (error instanceof FailedAfterSwap) io.err(`zfolio ${name}: ${error.inPlace}\n`);
+    if (io.env[DEBUG_ENV]) io.err(failureDetails(failed) + '\n');
     return EXIT_BAD_INPUT;
   }
 }

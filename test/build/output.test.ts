@@ -9,7 +9,7 @@ import { fileURLToPath } from 'node:url';
 import { afterEach, describe, expect, it } from 'vitest';
 import { buildFolio } from '../../src/build/build.js';
 import { checkWritable, removeLeftovers, stageOutput } from '../../src/build/output.js';
-import { lockDraftName, MARKER_TEXT, OutputRefused, SITE_MARKER } from '../../src/build/output-guard.js';
+import { FailedAfterSwap, lockDraftName, MARKER_TEXT, OutputRefused, SITE_MARKER } from '../../src/build/output-guard.js';
 import { diskSnapshot, filesUnder, REPO, sameInodes, siteVersions, tempDir } from '../site-helpers.js';
 
 /** Stage a one-page site saying `text`, commit it and remove what is left over. */
@@ -255,7 +255,15 @@ describe('a build that fails after its swap', () => {
     const failing = (at: string) => {
       if (at === step) throw new Error(`failed at ${at}`);
     };
-    await expect(buildFolio({ libraryRoot: library, outDir: site, cwd: library, workers: 0, onSwapStep: failing })).rejects.toThrow(`failed at ${step}`);
+    const failure = await buildFolio({ libraryRoot: library, outDir: site, cwd: library, workers: 0, onSwapStep: failing }).then(
+      () => undefined,
+      (error: unknown) => error,
+    );
+    // Inside the swap the error is the build's own; after it, it says the new site is in place (FailedAfterSwap).
+    const cause = failure instanceof FailedAfterSwap ? failure.cause : failure;
+    expect((cause as Error).message).toBe(`failed at ${step}`);
+    expect(failure instanceof FailedAfterSwap).toBe(step === 'recorded');
+    if (failure instanceof FailedAfterSwap) expect(failure.message).toBe(`the new site is in place at ${site}, but the build failed after putting it there: failed at recorded`);
     expect(filesUnder(site)).toEqual(complete);
     expect(readFileSync(join(site, 'parts', 'CAP-TEST-100N', 'index.html'), 'utf8')).toContain('New title');
   }, 120_000);

@@ -3,6 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { afterEach, describe, expect, it } from 'vitest';
 import { COMMANDS, mainHelp } from '../../src/cli/main.js';
+import { FailedAfterSwap } from '../../src/build/output-guard.js';
 import { GOOD_LIBRARY, run } from './fake-io.js';
 
 describe('zfolio', () => {
@@ -119,6 +120,17 @@ describe('a failure no command expected', () => {
   it('names the file and the system error in words', async () => {
     failing(Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC', syscall: 'write', path: '/tmp/x/_site/index.html' }));
     expect((await run(['failing'])).err).toBe('zfolio failing: cannot write /tmp/x/_site/index.html: no space left on the device (ENOSPC)\n');
+  });
+
+  it('after a build put its new site in place, says what failed and then that the site is the new one', async () => {
+    const disk = Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC', syscall: 'write', path: '/tmp/x/.zfolio-cache/builds/a/root.json' });
+    failing(new FailedAfterSwap('/tmp/x/_site', disk));
+    const r = await run(['failing']);
+    expect(r.code).toBe(1);
+    expect(r.err).toBe(
+      'zfolio failing: cannot write /tmp/x/.zfolio-cache/builds/a/root.json: no space left on the device (ENOSPC)\n' +
+        'zfolio failing: the new site is in place at /tmp/x/_site all the same; the next build may make more of it again\n',
+    );
   });
 
   it('shows the stack under ZFOLIO_DEBUG', async () => {
