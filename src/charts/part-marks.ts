@@ -86,7 +86,6 @@ export function bandEdgeObstacles(band: Pick<BandData, 'bandEdges'>, xMap: AxisM
   });
 }
 
-/** A frequency band drawn in full, both edges marked (a rail's band). */
 /**
  * The band when it is narrower than the axis `[fromHz, toHz]`; null when it covers the whole axis (a rail
  * chart drawn over exactly its band), where shading would tint the whole plot and say nothing.
@@ -97,6 +96,7 @@ export function bandWithin(band: { fromHz: number; toHz: number } | null | undef
   return inside ? band : null;
 }
 
+/** A frequency band drawn in full, both edges marked (a rail's band). */
 export function rangeBand(band: { fromHz: number; toHz: number } | null | undefined): { band: Row[]; bandEdges: Row[] } {
   return band ? { band: [{ f: band.fromHz, f2: band.toHz }], bandEdges: [{ f: band.fromHz }, { f: band.toHz }] } : { band: [], bandEdges: [] };
 }
