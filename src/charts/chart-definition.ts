@@ -1,6 +1,7 @@
 // What a chart kind is (ChartDefinition) and what binding one input to it gives; render.ts renders them.
 
 import type { TopLevelSpec } from 'vega-lite';
+import type { AxisDrawing } from './axis-scene.js';
 import type { Frame } from './frame.js';
 
 /** One data row; values are numbers or short strings (labels already formatted). */
@@ -16,6 +17,11 @@ export interface ChartBinding {
    * definition's `underlaid` sources would draw (the grid, grid.ts), written without vega.
    */
   underlay?: string;
+  /**
+   * The chart's axes, drawn over the underlay by vega's renderer from items made without its dataflow
+   * (axis-scene.ts), for a definition that `drawsAxes`; `width` × `height` is the plot's size.
+   */
+  axes?: { x: AxisDrawing; y: AxisDrawing; width: number; height: number };
 }
 
 export interface ChartDefinition<I> {
@@ -29,6 +35,11 @@ export interface ChartDefinition<I> {
    * their rows) and are left out of the one vega runs.
    */
   readonly underlaid?: readonly string[];
+  /**
+   * Whether the binding gives the axes (`axes`): the spec's axes stay in the spec offered with a chart and are
+   * left out of the one vega runs.
+   */
+  readonly drawsAxes?: boolean;
   bind(input: I, layout?: ChartLayout): ChartBinding;
   /** The rows its key takes for this input (charts with a key laid out by key.ts). */
   keyRows?(input: I): number;

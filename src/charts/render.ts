@@ -7,7 +7,9 @@
 // clears what the last chart could leave behind (render-order.ts), then sets every parameter and dataset
 // that differs from the last chart's (a dataset the binding leaves out is empty), runs the dataflow and
 // serialises the scene. What the binding's underlay draws (the grid) is written into the SVG under every mark
-// by the finishing step, not drawn by vega: its layers stay in the spec offered with the chart only.
+// by the finishing step, not drawn by vega: its layers stay in the spec offered with the chart only. So are
+// the axes of a kind that `drawsAxes`: vega's renderer writes them from items made without its dataflow
+// (axis-scene.ts), after the underlay, where vega drew them.
 // Renders of one kind queue behind each other on its View; kinds run independently. The output depends on
 // the chart's own input only, never on what was drawn before (checked in test/charts/render.test.ts and
 // test/charts/render-order.test.ts).
@@ -18,6 +20,8 @@ import type { TopLevelSpec } from 'vega-lite';
 import { outerSize, type Frame } from './frame.js';
 import { finishSvg, type ChartText } from './svg-finish.js';
 import { sceneSvg } from './svg-scene.js';
+import { rawSceneMarkup } from './scene-markup.js';
+import { axisBounds, axisScenes } from './axis-scene.js';
 import { installTextMetrics } from './text-metrics.js';
 import { COMPARED_ROWS, keyedItems, sameValue, type AxisKeys, type VegaOrderSpec } from './render-order.js';
 import { compilerLoaded, inSpecTable, loadCompiler, vegaSpecOf } from './vega-specs.js';
@@ -58,6 +62,8 @@ interface Compiled {
   now: { params: Map<string, unknown>; frame?: Frame; rows: Map<string, Row[]> };
   /** The last render queued on this View. */
   queue: Promise<unknown>;
+  /** The axes the last chart drawn had (axis-scene.ts), for lastSceneBounds. */
+  lastAxes?: readonly object[];
 }
 
 const compiled = new Map<string, Compiled>();
@@ -96,7 +102,9 @@ export function lastSceneBounds(name: string): { x1: number; y1: number; x2: num
   if (!c || counter(name).renders === 0) return undefined;
   const root = (c.view.scenegraph() as unknown as { root: { bounds: { x1: number; y1: number; x2: number; y2: number } } }).root;
   const pad = c.view.padding() as { left: number; top: number };
-  const b = root.bounds;
+  // The axes are not in vega's scene (axis-scene.ts): their bounds are added.
+  const a = c.lastAxes ? axisBounds(c.lastAxes) : undefined;
+  const b = a ? { x1: Math.min(root.bounds.x1, a.x1), y1: Math.min(root.bounds.y1, a.y1), x2: Math.max(root.bounds.x2, a.x2), y2: Math.max(root.bounds.y2, a.y2) } : root.bounds;
   return { x1: b.x1 + pad.left, y1: b.y1 + pad.top, x2: b.x2 + pad.left, y2: b.y2 + pad.top };
 }
 
@@ -140,9 +148,17 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
  * A chart kind's whole spec in its frame (as offered with a chart), and the spec vega draws: without the
  * layers its underlay draws instead.
  */
-export function drawnSpec(def: Pick<ChartDefinition<unknown>, 'spec' | 'frame' | 'underlaid'>): { spec: TopLevelSpec; drawn: TopLevelSpec } {
+export function drawnSpec(def: Pick<ChartDefinition<unknown>, 'spec' | 'frame' | 'underlaid' | 'drawsAxes'>): { spec: TopLevelSpec; drawn: TopLevelSpec } {
   const spec = withFrame(def.spec(), def.frame);
-  return { spec, drawn: withoutLayers(spec, new Set(def.underlaid ?? [])) };
+  const drawn = withoutLayers(spec, new Set(def.underlaid ?? []));
+  return { spec, drawn: def.drawsAxes ? withoutAxes(drawn) : drawn };
+}
+
+/** The spec with every layer's x and y axis turned off (`axis: null`), for a kind whose binding draws them. */
+function withoutAxes(spec: TopLevelSpec): TopLevelSpec {
+  const layer = (spec as { layer?: { encoding?: Record<string, { axis?: unknown }> }[] }).layer ?? [];
+  const off = (e: { axis?: unknown } | undefined) => (e && e.axis !== undefined ? { ...e, axis: null } : e);
+  return { ...spec, layer: layer.map((l) => (l.encoding ? { ...l, encoding: { ...l.encoding, x: off(l.encoding.x), y: off(l.encoding.y) } } : l)) } as TopLevelSpec;
 }
 
 /** The spec without the top-level layers that read one of `sources` (their data sources go with them). */
@@ -238,9 +254,11 @@ export function renderChart<I>(def: ChartDefinition<I>, input: I, text: ChartTex
     await view.runAsync();
     const size = outerSize(f);
     // The finished SVG written from the scene (svg-scene.ts), else vega's SVG string finished.
-    let svg = useVegaSvg ? undefined : sceneSvg(view, text, size, binding.underlay);
+    const axes = binding.axes && axisScenes(binding.axes.x, binding.axes.y, binding.axes.width, binding.axes.height);
+    c.lastAxes = axes;
+    let svg = useVegaSvg ? undefined : sceneSvg(view, text, size, binding.underlay, axes);
     if (svg === undefined) {
-      svg = finishSvg(await view.toSVG(), text, size, binding.underlay);
+      svg = finishSvg(await view.toSVG(), text, size, (binding.underlay ?? '') + (axes ? rawSceneMarkup(view, axes) : ''));
       svgWriters.vega++;
     } else svgWriters.scene++;
     counter(def.name).renders++;

@@ -15,34 +15,11 @@
 // return undefined, and the caller takes vega's string and finishSvg. test/charts/svg-scene.test.ts
 // compares the two on every chart kind.
 
-import { vega } from './vega-runtime.js';
 import type { View } from 'vega';
+import { attrText, innerText, Renderer, type AttrSet, type Markup, type StringRenderer } from './scene-markup.js';
 import { finishedDocument, idPrefix, inertOrThrow, roundNumbers, VEGA_ATTRIBUTES } from './svg-finish.js';
 import { mergedLines, withoutDefaults } from './svg-slim.js';
 import type { ChartText } from './svg-finish.js';
-
-type AttrSet = Record<string, unknown> | null | undefined;
-
-interface Markup {
-  open(tag: string, ...sets: AttrSet[]): Markup;
-  close(): Markup;
-  text(t: unknown): Markup;
-}
-
-interface ClipDef {
-  path?: string;
-  width?: number;
-  height?: number;
-}
-
-interface StringRenderer {
-  _defs: { gradient: Record<string, unknown>; clipping: Record<string, ClipDef> };
-  initialize(el: null, width: number, height: number, origin: number[], scaleFactor: number): StringRenderer;
-  mark(m: Markup, scene: unknown): void;
-  href(item: { href?: unknown }): unknown;
-}
-
-const Renderer = (vega as unknown as { SVGStringRenderer: new (loader?: unknown) => StringRenderer }).SVGStringRenderer;
 
 /** What vega's view keeps privately and its SVG renderer is sized from (vega-view's renderHeadless). */
 interface ViewInternals {
@@ -52,8 +29,6 @@ interface ViewInternals {
 }
 
 const DROPPED = new Set(['class', 'role', 'aria-roledescription', 'aria-hidden', 'aria-label', 'pointer-events']);
-const NEEDS_ESCAPE = /[&<>"\t\n\r]/;
-const NEEDS_ESCAPE_TEXT = /[&<>]/;
 /** A path that draws nothing (svg-slim's rules), matched on its attributes once finished. */
 const EMPTY_PATH = new Set([' d=""', ' d="" display="none"', ' d="M0,0h0v0h0Z"']);
 /** A group's background with no fill or stroke of its own: nothing under the chart's fill="none". */
@@ -61,15 +36,6 @@ const BARE_BACKGROUND = /^ d="M0,0h[\d.]+v[\d.]+h-[\d.]+Z"$/;
 const ONLY_TRANSFORM = /^ transform="[^"]*"$/;
 const CLIP_URL = /^url\(#([^)]+)\)$/;
 const UNDERLAY = /^(?:<path [^>]*\/>)*$/;
-
-/** vega-scenegraph's escaping of text content and of attribute values (its `innerText` and `attrText`). */
-function innerText(s: string): string {
-  return NEEDS_ESCAPE_TEXT.test(s) ? s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;') : s;
-}
-function attrText(s: string): string {
-  if (!NEEDS_ESCAPE.test(s)) return s;
-  return innerText(s).replace(/"/g, '&quot;').replace(/\t/g, '&#x9;').replace(/\n/g, '&#xA;').replace(/\r/g, '&#xD;');
-}
 
 interface Element {
   tag: string;
@@ -106,8 +72,10 @@ class FinishingMarkup implements Markup {
   constructor(
     private readonly renderer: StringRenderer,
     private readonly underlay: string,
+    /** Scene marks written after the underlay, by vega's renderer (the axes, axis-scene.ts). */
+    private readonly over: readonly object[] = [],
   ) {
-    if (underlay === '') this.plot = Plot.Found;
+    if (underlay === '' && over.length === 0) this.plot = Plot.Found;
   }
 
   open(tag: string, ...sets: AttrSet[]): Markup {
@@ -135,10 +103,12 @@ class FinishingMarkup implements Markup {
     }
     this.stack.push(this.top);
     this.top = { tag, attrs, content: '', child: false };
-    if (this.plot === Plot.Found && this.plotElement === undefined && this.underlay !== '') {
+    if (this.plot === Plot.Found && this.plotElement === undefined && (this.underlay !== '' || this.over.length > 0)) {
       this.plotElement = this.top;
       this.top.content = finishedUnderlay(this.underlay);
       this.top.child = true;
+      for (const scene of this.over) this.renderer.mark(this, scene);
+      this.plotFilled = false;
     }
     return this;
   }
@@ -170,7 +140,7 @@ class FinishingMarkup implements Markup {
 
   /** Whether the underlay found its plot (always, when there is none). */
   placed(): boolean {
-    return this.plot === Plot.Found && (this.underlay === '' || this.plotElement !== undefined);
+    return this.plot === Plot.Found && ((this.underlay === '' && this.over.length === 0) || this.plotElement !== undefined);
   }
 
   /**
@@ -243,7 +213,7 @@ function finishedUnderlay(underlay: string): string {
  * The finished SVG of what `view` shows now (after its run), or undefined when it must be written by
  * vega's `toSVG` and `finishSvg` instead. Arguments as finishSvg's.
  */
-export function sceneSvg(view: View, text: ChartText, size: { width: number; height: number }, underlay = ''): string | undefined {
+export function sceneSvg(view: View, text: ChartText, size: { width: number; height: number }, underlay = '', over: readonly object[] = []): string | undefined {
   if (underlay !== '' && (!UNDERLAY.test(underlay) || /font-family=| id=|url\(/.test(underlay))) return undefined;
   const internals = view as unknown as ViewInternals;
   const pad = view.padding() as { left: number; right: number; top: number; bottom: number };
@@ -251,7 +221,7 @@ export function sceneSvg(view: View, text: ChartText, size: { width: number; hei
   const height = Math.max(0, internals._viewHeight + pad.top + pad.bottom);
   const origin = [pad.left + internals._origin[0], pad.top + internals._origin[1]];
   const renderer = new Renderer(view.loader()).initialize(null, width, height, origin, 1);
-  const m = new FinishingMarkup(renderer, underlay);
+  const m = new FinishingMarkup(renderer, underlay, over);
   renderer.href = (item) => {
     if (item.href) m.unsure = true;
     return null;
@@ -270,3 +240,4 @@ export function sceneSvg(view: View, text: ChartText, size: { width: number; hei
   if (m.clips.length > 0) body = body.replace(/@(\d+)@/g, (_, k: string) => `${prefix}-${k}`);
   return finishedDocument(body, prefix, m.families.size === 1 ? [...m.families][0] : undefined, text, size);
 }
+

@@ -5,6 +5,22 @@
 import type { Config } from 'vega-lite';
 import { FONT, FONT_SIZE, INK, INK_SOFT, PAPER } from './palette.js';
 
+/** How an axis is drawn: its ticks, labels and title (the renderer draws the axes from these, axis-scene.ts). */
+export const AXIS_STYLE = {
+  tickColor: INK,
+  tickWidth: 0.8,
+  tickSize: 4,
+  labelColor: INK,
+  labelFont: FONT,
+  labelFontSize: FONT_SIZE.tick,
+  labelPadding: 3,
+  titleColor: INK_SOFT,
+  titleFont: FONT,
+  titleFontSize: FONT_SIZE.title,
+  titleFontWeight: 'normal',
+  titlePadding: 7,
+} as const;
+
 export const CHART_CONFIG: Config = {
   aria: false,
   background: PAPER,
@@ -15,20 +31,20 @@ export const CHART_CONFIG: Config = {
     // Grid lines are marks of their own (spec-parts.ts: gridLayers; the renderer draws them, grid.ts), under the band tint.
     grid: false,
     ticks: true,
-    tickColor: INK,
-    tickWidth: 0.8,
-    tickSize: 4,
-    labelColor: INK,
-    labelFont: FONT,
-    labelFontSize: FONT_SIZE.tick,
-    labelPadding: 3,
+    tickColor: AXIS_STYLE.tickColor,
+    tickWidth: AXIS_STYLE.tickWidth,
+    tickSize: AXIS_STYLE.tickSize,
+    labelColor: AXIS_STYLE.labelColor,
+    labelFont: AXIS_STYLE.labelFont,
+    labelFontSize: AXIS_STYLE.labelFontSize,
+    labelPadding: AXIS_STYLE.labelPadding,
     labelOverlap: false,
     labelFlush: false,
-    titleColor: INK_SOFT,
-    titleFont: FONT,
-    titleFontSize: FONT_SIZE.title,
-    titleFontWeight: 'normal',
-    titlePadding: 7,
+    titleColor: AXIS_STYLE.titleColor,
+    titleFont: AXIS_STYLE.titleFont,
+    titleFontSize: AXIS_STYLE.titleFontSize,
+    titleFontWeight: AXIS_STYLE.titleFontWeight,
+    titlePadding: AXIS_STYLE.titlePadding,
   },
   legend: {
     orient: 'top',

@@ -67,6 +67,8 @@ export function xyChart<I>(kind: XYChartKind<I>): ChartDefinition<I> {
     frame: kind.frame,
     // The grid's layers are in the spec offered with a chart; the renderer draws them as two paths (grid.ts).
     underlaid: [...gridSources(kind.x.name), ...gridSources(kind.y.name)],
+    // So are the axes: the binding gives them, and the renderer draws them without vega's dataflow (axis-scene.ts).
+    drawsAxes: true,
     spec() {
       return {
         config: CHART_CONFIG,
@@ -94,6 +96,12 @@ export function xyChart<I>(kind: XYChartKind<I>): ChartDefinition<I> {
       return {
         frame: frameForKey(kind.frame, key),
         underlay: gridPaths({ scale: kind.x.scale, domain: d.x.domain, ticks: d.x.ticks }, { scale: kind.y.scale, domain: d.y.domain, ticks: d.y.ticks }, kind.frame.width, kind.frame.height),
+        axes: {
+          x: { scale: kind.x.scale, domain: d.x.domain, values: d.x.ticks.values, labels: d.x.ticks.labels, title: kind.x.title },
+          y: { scale: kind.y.scale, domain: d.y.domain, values: d.y.ticks.values, labels: d.y.ticks.labels, title: kind.y.title },
+          width: kind.frame.width,
+          height: kind.frame.height,
+        },
         params: { ...xa.params, ...ya.params },
         datasets: {
           ...xa.datasets,
