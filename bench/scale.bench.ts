@@ -40,6 +40,8 @@ interface Build {
   /** The whole process: Node's start, loading zfolio's modules, the build and the exit, as a command takes. */
   processSeconds: number;
   peakRssBytes: number;
+  /** CPU time of every thread of the build's process, from its start (scale-build.mjs). */
+  cpu: { userSeconds: number; systemSeconds: number };
   reused: number;
   pages: number;
   /** What the build did (BuildResult.work), and the units it kept from the spare and linked from the live site. */
@@ -190,7 +192,7 @@ export const scaleBench: BenchSection = {
     for (const r of runs) {
       const parts = r.parts;
       lines.push(
-        `${n(parts)} parts: cold ${s(r.cold.seconds)} (${n(r.cold.pages)} pages), first rebuild ${s(r.first.seconds)} (${work(r.first)}), then one part edited ${s(r.edited.seconds)} (the median of ${EDITS} edits, ${range(r.edits.seconds)}; ${s(r.edited.processSeconds)} the whole process, ${range(r.edits.processSeconds)}; ${n(r.edited.reused)} part folders carried over; ${work(r.edited)}), nothing changed ${s(r.unchanged.seconds)} (${s(r.unchanged.processSeconds)} the whole process; ${work(r.unchanged)}); ` +
+        `${n(parts)} parts: cold ${s(r.cold.seconds)} (${n(r.cold.pages)} pages; ${s(r.cold.cpu.userSeconds)} user and ${s(r.cold.cpu.systemSeconds)} system CPU), first rebuild ${s(r.first.seconds)} (${work(r.first)}), then one part edited ${s(r.edited.seconds)} (the median of ${EDITS} edits, ${range(r.edits.seconds)}; ${s(r.edited.processSeconds)} the whole process, ${range(r.edits.processSeconds)}; ${n(r.edited.reused)} part folders carried over; ${work(r.edited)}), nothing changed ${s(r.unchanged.seconds)} (${s(r.unchanged.processSeconds)} the whole process; ${work(r.unchanged)}); ` +
           `peak RSS ${mb(r.cold.peakRssBytes)} cold, ${mb(r.edited.peakRssBytes)} edited; site ${mb(r.site.bytes)} in ${n(r.site.files)} files, ${kb(r.partFolderBytes)} a part folder, largest page ${kb(r.site.largestPage.bytes)} (${r.site.largestPage.file}); index to first screenshot in Chromium ${r.indexSeconds === null ? 'not measured (no Chromium)' : s(r.indexSeconds)}`,
       );
     }
