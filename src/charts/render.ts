@@ -146,7 +146,7 @@ function compiledOf<I>(def: ChartDefinition<I>): Compiled {
 
 /**
  * A chart kind's whole spec in its frame (as offered with a chart), and the spec vega draws: without the
- * layers its underlay draws instead.
+ * layers its underlay draws instead, and without the axes of a kind that `drawsAxes`.
  */
 export function drawnSpec(def: Pick<ChartDefinition<unknown>, 'spec' | 'frame' | 'underlaid' | 'drawsAxes'>): { spec: TopLevelSpec; drawn: TopLevelSpec } {
   const spec = withFrame(def.spec(), def.frame);

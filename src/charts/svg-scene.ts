@@ -9,7 +9,8 @@
 //  - an element that draws nothing is dropped when it is closed (its children are final then), a group of
 //    lines drawn alike becomes one path (`mergedLines`), and clip paths with the same rectangle are written
 //    once, numbered in the order they are first used, which is the order vega writes them;
-//  - the underlay is written first in the plot, where finishSvg puts it.
+//  - the underlay is written first in the plot, where finishSvg puts it, then the marks drawn without the
+//    dataflow (the axes, axis-scene.ts), by vega's renderer through this same markup.
 // Whatever this writer is not sure to write as finishSvg would (a gradient, a link, several font families,
 // a group with a fill, text holding "@" or "url(#", a plot it cannot find for the underlay) makes it
 // return undefined, and the caller takes vega's string and finishSvg. test/charts/svg-scene.test.ts
